@@ -1,0 +1,50 @@
+import { registerAs } from '@nestjs/config';
+import path from 'node:path';
+import { z } from 'zod';
+import { parseEnv } from './parse-env';
+
+const booleanish = z.enum(['true', 'false', '1', '0']).transform((v) => v === 'true' || v === '1');
+
+const schema = z.object({
+  API_HOST: z.string().default('127.0.0.1'),
+  API_PORT: z.coerce.number().int().min(1).max(65535).default(3060),
+  WEB_DIST_DIR: z.string().default(path.resolve(process.cwd(), '../web/dist')),
+  SESSION_SECRET: z.string().min(16, 'SESSION_SECRET must be at least 16 characters').optional(),
+  SESSION_TTL_SECONDS: z.coerce.number().int().min(1).default(12 * 3600),
+  COOKIE_SECURE: z.enum(['auto', 'true', 'false']).default('auto'),
+  TRUST_PROXY: booleanish.default(false),
+  LOGIN_THROTTLE_LIMIT: z.coerce.number().int().min(1).default(10),
+  LOGIN_THROTTLE_TTL_SECONDS: z.coerce.number().int().min(1).default(60),
+  NODE_ENV: z.string().default('development'),
+});
+
+export interface AppConfig {
+  host: string;
+  port: number;
+  webDistDir: string;
+  sessionSecret: string;
+  sessionTtlSeconds: number;
+  cookieSecure: 'auto' | boolean;
+  trustProxy: boolean;
+  loginThrottle: { limit: number; ttlMs: number };
+}
+
+export function readAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const e = parseEnv(schema, env, 'app');
+  if (!e.SESSION_SECRET && e.NODE_ENV === 'production') {
+    throw new Error('Invalid app configuration: SESSION_SECRET is required in production');
+  }
+  return {
+    host: e.API_HOST,
+    port: e.API_PORT,
+    webDistDir: e.WEB_DIST_DIR,
+    // Development without a secret still gets signed cookies; `npm start` always passes one.
+    sessionSecret: e.SESSION_SECRET ?? 'sixtyfold-development-only-secret',
+    sessionTtlSeconds: e.SESSION_TTL_SECONDS,
+    cookieSecure: e.COOKIE_SECURE === 'auto' ? 'auto' : e.COOKIE_SECURE === 'true',
+    trustProxy: e.TRUST_PROXY,
+    loginThrottle: { limit: e.LOGIN_THROTTLE_LIMIT, ttlMs: e.LOGIN_THROTTLE_TTL_SECONDS * 1000 },
+  };
+}
+
+export const appConfig = registerAs('app', () => readAppConfig());

@@ -1,0 +1,14 @@
+import { AuditEvent } from '../audit/entities/audit-event.entity';
+import { Comment } from '../comments/entities/comment.entity';
+import { Group } from '../groups/entities/group.entity';
+import { Membership } from '../groups/entities/membership.entity';
+import { PotentialModel } from '../models/entities/potential-model.entity';
+import { Scan } from '../scans/entities/scan.entity';
+import { ScanPoint } from '../scans/entities/scan-point.entity';
+import { ScanTag } from '../scans/entities/scan-tag.entity';
+import { User } from '../users/entities/user.entity';
+
+/** Every entity, once: the API, the worker and the migration CLI all load this list. */
+export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent];
+
+export { AuditEvent, Comment, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };

@@ -1,0 +1,25 @@
+import type { DataSourceOptions } from 'typeorm';
+import type { DatabaseConfig } from '../config/database.config';
+import { ENTITIES } from './entities';
+import { MIGRATIONS } from './migrations';
+
+/** TypeORM options for MariaDB; the schema only ever changes through migrations. */
+export function buildDataSourceOptions(config: DatabaseConfig): DataSourceOptions {
+  return {
+    type: 'mariadb',
+    host: config.host,
+    port: config.port,
+    username: config.username,
+    password: config.password,
+    database: config.database,
+    poolSize: config.poolSize,
+    charset: 'utf8mb4_unicode_ci',
+    timezone: 'Z',
+    entities: ENTITIES,
+    migrations: MIGRATIONS,
+    migrationsTableName: 'schema_migrations',
+    synchronize: false,
+    // TypeORM 1 refuses undefined/null in where clauses; filters must leave such keys out.
+    invalidWhereValuesBehavior: { undefined: 'throw', null: 'throw' },
+  } as DataSourceOptions;
+}

@@ -1,0 +1,90 @@
+import {
+  Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn,
+} from 'typeorm';
+import { SCAN_METHODS, SCAN_STATUSES, type ScanMethod, type ScanStatus } from '@sixtyfold/shared';
+import { Group } from '../../groups/entities/group.entity';
+import { PotentialModel } from '../../models/entities/potential-model.entity';
+import { User } from '../../users/entities/user.entity';
+import type { ScanTag } from './scan-tag.entity';
+
+/**
+ * One submitted grid. MariaDB is the record: the counters and status here, with the
+ * scan_points rows, are what progress and reconciliation read; Redis only carries the work.
+ */
+@Entity('scans')
+@Index('ix_scans_group_status', ['groupId', 'status'])
+@Index('ix_scans_group_created', ['groupId', 'createdAt'])
+@Index('ix_scans_owner', ['ownerId'])
+@Index('ix_scans_status', ['status'])
+export class Scan {
+  @PrimaryGeneratedColumn({ unsigned: true })
+  id: number;
+
+  @Column({ name: 'group_id', type: 'int', unsigned: true })
+  groupId: number;
+
+  @Column({ name: 'owner_id', type: 'int', unsigned: true })
+  ownerId: number;
+
+  /** A group's own model, or null when `family` names a built-in one. */
+  @Column({ name: 'model_id', type: 'int', unsigned: true, nullable: true })
+  modelId: number | null;
+
+  @Column({ type: 'varchar', length: 64, nullable: true })
+  family: string | null;
+
+  @Column({ type: 'varchar', length: 200 })
+  name: string;
+
+  @Column({ type: 'enum', enum: SCAN_METHODS })
+  method: ScanMethod;
+
+  @Column({ type: 'enum', enum: SCAN_STATUSES, default: 'draft' })
+  status: ScanStatus;
+
+  /** The full specification as submitted (validated by the shared scan schema). */
+  @Column({ type: 'json' })
+  spec: Record<string, unknown>;
+
+  @Column({ type: 'text' })
+  note: string;
+
+  @Column({ name: 'total_points', type: 'int', unsigned: true, default: 0 })
+  totalPoints: number;
+
+  @Column({ name: 'done_points', type: 'int', unsigned: true, default: 0 })
+  donePoints: number;
+
+  @Column({ name: 'failed_points', type: 'int', unsigned: true, default: 0 })
+  failedPoints: number;
+
+  @CreateDateColumn({ name: 'created_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' })
+  createdAt: Date;
+
+  @UpdateDateColumn({ name: 'updated_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', onUpdate: 'CURRENT_TIMESTAMP(3)' })
+  updatedAt: Date;
+
+  @Column({ name: 'queued_at', type: 'datetime', precision: 3, nullable: true })
+  queuedAt: Date | null;
+
+  @Column({ name: 'started_at', type: 'datetime', precision: 3, nullable: true })
+  startedAt: Date | null;
+
+  @Column({ name: 'finished_at', type: 'datetime', precision: 3, nullable: true })
+  finishedAt: Date | null;
+
+  @ManyToOne(() => Group, { onDelete: 'CASCADE' })
+  @JoinColumn({ name: 'group_id' })
+  group: Group;
+
+  @ManyToOne(() => User, { onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'owner_id' })
+  owner: User;
+
+  @ManyToOne(() => PotentialModel, { onDelete: 'RESTRICT' })
+  @JoinColumn({ name: 'model_id' })
+  model: PotentialModel | null;
+
+  @OneToMany('ScanTag', (t: ScanTag) => t.scan, { cascade: true })
+  tags: ScanTag[];
+}

@@ -1,0 +1,35 @@
+import { Column, CreateDateColumn, Entity, Index, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
+import { SITE_ROLES, type SiteRole } from '@sixtyfold/shared';
+import type { Membership } from '../../groups/entities/membership.entity';
+
+@Entity('users')
+export class User {
+  @PrimaryGeneratedColumn({ unsigned: true })
+  id: number;
+
+  @Index('uq_users_email', { unique: true })
+  @Column({ type: 'varchar', length: 254 })
+  email: string;
+
+  @Column({ name: 'display_name', type: 'varchar', length: 120 })
+  displayName: string;
+
+  /** argon2id hash, never sent to clients. */
+  @Column({ name: 'password_hash', type: 'varchar', length: 255, select: false })
+  passwordHash: string;
+
+  @Column({ name: 'site_role', type: 'enum', enum: SITE_ROLES, default: 'user' })
+  siteRole: SiteRole;
+
+  @Column({ name: 'last_login_at', type: 'datetime', precision: 3, nullable: true })
+  lastLoginAt: Date | null;
+
+  @CreateDateColumn({ name: 'created_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' })
+  createdAt: Date;
+
+  @UpdateDateColumn({ name: 'updated_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)', onUpdate: 'CURRENT_TIMESTAMP(3)' })
+  updatedAt: Date;
+
+  @OneToMany('Membership', (m: Membership) => m.user)
+  memberships: Membership[];
+}

@@ -1,0 +1,150 @@
+// Private MariaDB and Redis for development and tests, started as child processes of the
+// calling script so that Ctrl-C stops them too. Plain Node with no dependencies: it runs
+// before `npm ci` has installed anything.
+import { spawn, spawnSync } from 'node:child_process';
+import { createHash } from 'node:crypto';
+import { existsSync, mkdirSync, openSync, readFileSync, rmSync } from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { log, fail } from './output.mjs';
+
+function commandExists(name) {
+  return spawnSync('sh', ['-c', `command -v ${name}`], { stdio: 'ignore' }).status === 0;
+}
+
+/** Installs Debian packages whose command is missing; `wanted` maps command -> package. */
+export function ensureDebianPackages(wanted) {
+  const missing = Object.entries(wanted).filter(([cmd]) => !commandExists(cmd)).map(([, pkg]) => pkg);
+  if (missing.length === 0) return;
+  log(`installing Debian packages: ${missing.join(' ')}`);
+  const asRoot = process.getuid?.() === 0;
+  if (!asRoot && !commandExists('sudo')) {
+    fail(`missing ${missing.join(', ')}; install them (apt-get install ${missing.join(' ')}) or run as root`);
+  }
+  const prefix = asRoot ? [] : ['sudo', '-n'];
+  const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
+  const run = (args) => {
+    const [cmd, ...rest] = [...prefix, ...args];
+    const result = spawnSync(cmd, rest, { stdio: ['ignore', 'ignore', 'inherit'], env });
+    if (result.status !== 0) fail(`'${args.join(' ')}' failed (exit ${result.status})`);
+  };
+  run(['apt-get', 'update', '-q']);
+  run(['apt-get', '-o', 'DPkg::Lock::Timeout=600', 'install', '-y', '-q', '--no-install-recommends', ...missing]);
+}
+
+export function portIsFree(port, host = '127.0.0.1') {
+  return new Promise((resolve) => {
+    const server = net.createServer();
+    server.once('error', () => resolve(false));
+    server.listen(port, host, () => server.close(() => resolve(true)));
+  });
+}
+
+async function waitUntil(check, what, timeoutMs, logFile) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (check()) return;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  const tail = logFile && existsSync(logFile) ? readFileSync(logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
+  fail(`${what} did not answer within ${timeoutMs / 1000} s${tail ? `; end of ${logFile}:\n${tail}` : ''}`);
+}
+
+/** Unix sockets allow ~107 bytes; a deep checkout moves the socket under the temp folder. */
+function socketPath(dataDir) {
+  const inTree = path.join(dataDir, 'run', 'mysqld.sock');
+  if (inTree.length < 100) return inTree;
+  const short = path.join(os.tmpdir(), `sixtyfold-${createHash('sha1').update(dataDir).digest('hex').slice(0, 10)}`);
+  mkdirSync(short, { recursive: true });
+  return path.join(short, 'mysqld.sock');
+}
+
+/**
+ * Starts a private MariaDB server in `dir` on 127.0.0.1:`port` and makes sure `database` and
+ * its user exist. Returns the child process (or null when one of ours was already running).
+ */
+export async function startMariaDb({ dir: givenDir, port, database, user, password, freshDatabase = false }) {
+  const dir = path.resolve(givenDir);
+  const dataDir = path.join(dir, 'data');
+  mkdirSync(path.join(dir, 'run'), { recursive: true });
+  const socket = socketPath(dir);
+  const errorLog = path.join(dir, 'error.log');
+  const client = (sql) =>
+    spawnSync('mariadb', ['--no-defaults', `--socket=${socket}`, '-uroot', '-e', sql], { encoding: 'utf8' });
+  const ping = () =>
+    spawnSync('mariadb-admin', ['--no-defaults', `--socket=${socket}`, '-uroot', '--silent', 'ping'], { stdio: 'ignore' })
+      .status === 0;
+
+  let child = null;
+  if (ping()) {
+    log(`MariaDB already running from ${dir}; reusing it`);
+  } else {
+    if (!(await portIsFree(port))) fail(`port ${port} is taken by another program; set DATABASE_PORT_LOCAL or stop it`);
+    if (!existsSync(path.join(dataDir, 'mysql'))) {
+      log(`creating MariaDB data folder ${dataDir}`);
+      const install = spawnSync('mariadb-install-db', [
+        '--no-defaults', `--user=${os.userInfo().username}`, `--datadir=${dataDir}`,
+        '--auth-root-authentication-method=socket', '--skip-test-db',
+      ], { encoding: 'utf8' });
+      if (install.status !== 0) fail(`mariadb-install-db failed:\n${install.stdout}\n${install.stderr}`);
+    }
+    const out = openSync(errorLog, 'a');
+    child = spawn('mariadbd', [
+      '--no-defaults', `--user=${os.userInfo().username}`, `--datadir=${dataDir}`,
+      '--bind-address=127.0.0.1', `--port=${port}`, `--socket=${socket}`,
+      `--pid-file=${path.join(dir, 'run', 'mysqld.pid')}`, `--log-error=${errorLog}`,
+      '--skip-name-resolve', '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
+      '--innodb-buffer-pool-size=256M', '--max-connections=300',
+    ], { stdio: ['ignore', out, out] });
+    child.once('exit', (code) => { if (code) log(`MariaDB exited with ${code}; see ${errorLog}`); });
+    await waitUntil(ping, 'MariaDB', 60_000, errorLog);
+  }
+  const drop = freshDatabase ? `DROP DATABASE IF EXISTS \`${database}\`;` : '';
+  const setup = client(
+    `${drop} CREATE DATABASE IF NOT EXISTS \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;` +
+      ` CREATE USER IF NOT EXISTS '${user}'@'127.0.0.1' IDENTIFIED BY '${password}';` +
+      ` ALTER USER '${user}'@'127.0.0.1' IDENTIFIED BY '${password}';` +
+      ` GRANT ALL ON \`${database}\`.* TO '${user}'@'127.0.0.1';`,
+  );
+  if (setup.status !== 0) fail(`could not create database ${database}: ${setup.stderr}`);
+  return { child, socket, stop: () => stopChild(child, 'MariaDB') };
+}
+
+/** Starts a private Redis in `dir` on 127.0.0.1:`port`, append-only so queued work survives a restart. */
+export async function startRedis({ dir: givenDir, port, flush = false }) {
+  const dir = path.resolve(givenDir);
+  mkdirSync(dir, { recursive: true });
+  const logFile = path.join(dir, 'redis.log');
+  const ping = () =>
+    spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), 'ping'], { encoding: 'utf8' }).stdout?.trim() === 'PONG';
+  let child = null;
+  if (ping()) {
+    log(`Redis already answering on ${port}; reusing it`);
+  } else {
+    if (!(await portIsFree(port))) fail(`port ${port} is taken by another program; stop it or choose another REDIS_PORT_LOCAL`);
+    child = spawn('redis-server', [
+      '--bind', '127.0.0.1', '--port', String(port), '--dir', dir,
+      '--appendonly', 'yes', '--appenddirname', 'aof', '--appendfsync', 'everysec', '--save', '',
+      '--logfile', logFile, '--daemonize', 'no',
+    ], { stdio: 'ignore' });
+    child.once('exit', (code) => { if (code) log(`Redis exited with ${code}; see ${logFile}`); });
+    await waitUntil(ping, 'Redis', 30_000, logFile);
+  }
+  if (flush) spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), 'flushall'], { stdio: 'ignore' });
+  return { child, stop: () => stopChild(child, 'Redis') };
+}
+
+/** SIGTERM, then SIGKILL after a grace period; resolves when the process has gone. */
+export function stopChild(child, name, graceMs = 15_000) {
+  if (!child || child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => { log(`${name} did not stop in time; killing it`); child.kill('SIGKILL'); }, graceMs);
+    child.once('exit', () => { clearTimeout(timer); resolve(); });
+    child.kill('SIGTERM');
+  });
+}
+
+export function removeFolder(dir) {
+  rmSync(dir, { recursive: true, force: true });
+}

@@ -1,0 +1,28 @@
+import react from '@vitejs/plugin-react';
+import { defineConfig } from 'vitest/config';
+
+// In production the API serves the built app from the same origin; in dev we proxy to it.
+const apiUrl = process.env.SIXTYFOLD_API_URL ?? 'http://127.0.0.1:3000';
+
+export default defineConfig({
+  plugins: [react()],
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    strictPort: true,
+    proxy: { '/api': { target: apiUrl, changeOrigin: false } },
+  },
+  preview: { host: '127.0.0.1', port: 4173, strictPort: true },
+  build: {
+    // Chakra + React + Router land in one vendor chunk of ~700 kB; that is expected.
+    chunkSizeWarningLimit: 1200,
+  },
+  test: {
+    environment: 'happy-dom',
+    globals: true,
+    setupFiles: ['./src/testing/test-setup.ts'],
+    include: ['src/**/*.spec.{ts,tsx}'],
+    restoreMocks: true,
+    unstubGlobals: true,
+  },
+});
