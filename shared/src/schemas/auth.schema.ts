@@ -3,8 +3,8 @@ import { groupRoleSchema, siteRoleSchema } from './roles.schema.js';
 
 /** Body of `POST /api/auth/login`; the sign-in form validates with the same schema. */
 export const loginSchema = z.object({
-  email: z.string().trim().toLowerCase().pipe(z.email({ message: 'Enter an e-mail address like name@institute.example' })),
-  password: z.string().min(1, 'Enter your password').max(200, 'Passwords are at most 200 characters'),
+  email: z.string({ error: 'Enter your e-mail address' }).trim().toLowerCase().pipe(z.email({ message: 'Enter an e-mail address like name@institute.example' })),
+  password: z.string({ error: 'Enter your password' }).min(1, 'Enter your password').max(200, 'Passwords are at most 200 characters'),
 });
 export type Login = z.infer<typeof loginSchema>;
 

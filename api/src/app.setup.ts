@@ -1,0 +1,79 @@
+import type { INestApplication } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import type { NestExpressApplication } from '@nestjs/platform-express';
+import { RedisStore } from 'connect-redis';
+import express, { type NextFunction, type Request, type Response } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import passport from 'passport';
+import { SESSION_COOKIE } from './auth/session.constants';
+import { csrfMiddleware } from './common/middleware/csrf.middleware';
+import type { AppConfig } from './config/app.config';
+import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
+
+/**
+ * Everything around the routes, in one place so that main.ts and the end-to-end tests run
+ * the same stack: security headers, JSON bodies, sessions in Redis, passport, CSRF, the
+ * `/api` prefix and the built web app with its client-side routes.
+ */
+export function configureApp(nestApp: INestApplication): void {
+  const app = nestApp as NestExpressApplication;
+  const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
+  const redis = app.get<RedisClient>(REDIS_CLIENT);
+
+  if (config.trustProxy) app.set('trust proxy', 1);
+  app.disable('x-powered-by');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          // Chakra (emotion) and Plotly write style attributes and <style> elements at run time.
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'worker-src': ["'self'", 'blob:'],
+          'connect-src': ["'self'"],
+        },
+      },
+    }),
+  );
+  app.useBodyParser('json', { limit: '2mb' });
+  app.use(
+    session({
+      name: SESSION_COOKIE,
+      store: new RedisStore({ client: redis, prefix: 'sixtyfold:sess:' }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: {
+        httpOnly: true,
+        sameSite: 'lax',
+        secure: config.cookieSecure,
+        maxAge: config.sessionTtlSeconds * 1000,
+        path: '/',
+      },
+    }),
+  );
+  app.use(passport.initialize());
+  app.use(passport.session());
+  app.use('/api', csrfMiddleware);
+  app.setGlobalPrefix('api');
+  serveWebApp(app, config.webDistDir);
+}
+
+function serveWebApp(app: NestExpressApplication, distDir: string): void {
+  const indexHtml = path.join(distDir, 'index.html');
+  if (!existsSync(indexHtml)) return; // API-only deployments and the API's own tests
+  app.use(express.static(distDir, { index: false, maxAge: '1h' }));
+  // Client-side routes (/scans/12, /models) all load the app shell.
+  app.use((req: Request, res: Response, next: NextFunction) => {
+    if (req.method !== 'GET' || req.path.startsWith('/api')) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+}

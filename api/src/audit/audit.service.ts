@@ -1,0 +1,70 @@
+import { Injectable } from '@nestjs/common';
+import { InjectRepository } from '@nestjs/typeorm';
+import type { EntityManager, Repository } from 'typeorm';
+import type { AuditEvent as AuditEventDto, Page } from '@sixtyfold/shared';
+import { AuditEvent } from './entities/audit-event.entity';
+
+export interface AuditRecord {
+  action: string;
+  actorId: number | null;
+  groupId?: number | null;
+  targetType?: string;
+  targetId?: string | number;
+  details?: Record<string, unknown>;
+}
+
+export interface AuditQuery {
+  page: number;
+  pageSize: number;
+  action?: string;
+  actorId?: number;
+  groupId?: number;
+}
+
+@Injectable()
+export class AuditService {
+  constructor(@InjectRepository(AuditEvent) private readonly events: Repository<AuditEvent>) {}
+
+  /** Appends one event; pass the transaction's manager so the event commits with the change. */
+  async record(entry: AuditRecord, manager?: EntityManager): Promise<void> {
+    const repo = manager ? manager.getRepository(AuditEvent) : this.events;
+    await repo.insert({
+      action: entry.action,
+      actorId: entry.actorId,
+      groupId: entry.groupId ?? null,
+      targetType: entry.targetType ?? null,
+      targetId: entry.targetId === undefined ? null : String(entry.targetId),
+      details: (entry.details ?? {}) as AuditEvent['details'] & object,
+    });
+  }
+
+  async list(query: AuditQuery): Promise<Page<AuditEventDto>> {
+    const qb = this.events
+      .createQueryBuilder('e')
+      .leftJoinAndSelect('e.actor', 'actor')
+      .orderBy('e.createdAt', 'DESC')
+      .addOrderBy('e.id', 'DESC')
+      .skip((query.page - 1) * query.pageSize)
+      .take(query.pageSize);
+    if (query.action) qb.andWhere('e.action = :action', { action: query.action });
+    if (query.actorId) qb.andWhere('e.actorId = :actorId', { actorId: query.actorId });
+    if (query.groupId) qb.andWhere('e.groupId = :groupId', { groupId: query.groupId });
+    const [rows, total] = await qb.getManyAndCount();
+    return {
+      items: rows.map((e) => ({
+        id: e.id,
+        action: e.action,
+        actorId: e.actorId,
+        actorEmail: e.actor?.email ?? null,
+        groupId: e.groupId,
+        targetType: e.targetType,
+        targetId: e.targetId,
+        details: e.details,
+        createdAt: e.createdAt.toISOString(),
+      })),
+      total,
+      page: query.page,
+      pageSize: query.pageSize,
+    };
+  }
+}

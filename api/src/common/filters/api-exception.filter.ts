@@ -1,0 +1,49 @@
+import { type ArgumentsHost, Catch, type ExceptionFilter, HttpException, HttpStatus, Logger } from '@nestjs/common';
+import { STATUS_CODES } from 'node:http';
+import type { Response } from 'express';
+import type { ApiError } from '@sixtyfold/shared';
+
+/**
+ * Every error leaves the API as an ApiError body. Client mistakes keep their status and say
+ * what was wrong; anything unexpected is logged and answered with a plain 500.
+ */
+@Catch()
+export class ApiExceptionFilter implements ExceptionFilter {
+  private readonly logger = new Logger('ApiExceptionFilter');
+
+  catch(exception: unknown, host: ArgumentsHost): void {
+    const res = host.switchToHttp().getResponse<Response>();
+    const body = this.toBody(exception);
+    if (body.statusCode >= 500) {
+      this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
+    }
+    if (!res.headersSent) res.status(body.statusCode).json(body);
+  }
+
+  private toBody(exception: unknown): ApiError {
+    if (exception instanceof HttpException) {
+      const statusCode = exception.getStatus();
+      const response = exception.getResponse();
+      const raw = typeof response === 'string' ? { message: response } : (response as Record<string, unknown>);
+      const message = Array.isArray(raw.message) ? raw.message.join('; ') : String(raw.message ?? exception.message);
+      const body: ApiError = { statusCode, error: STATUS_CODES[statusCode] ?? 'Error', message };
+      if (raw.fieldErrors) body.fieldErrors = raw.fieldErrors as Record<string, string[]>;
+      return body;
+    }
+    // body-parser errors (malformed JSON, too large) carry their own 4xx status.
+    const status = (exception as { status?: unknown })?.status;
+    if (typeof status === 'number' && status >= 400 && status < 500) {
+      const type = (exception as { type?: string }).type;
+      const message =
+        type === 'entity.parse.failed' ? 'The request body is not valid JSON'
+        : type === 'entity.too.large' ? 'The request body is too large'
+        : (exception as Error).message;
+      return { statusCode: status, error: STATUS_CODES[status] ?? 'Error', message };
+    }
+    return {
+      statusCode: HttpStatus.INTERNAL_SERVER_ERROR,
+      error: 'Internal Server Error',
+      message: 'Something went wrong on our side; the error was logged. Try again, and tell the maintainer if it persists.',
+    };
+  }
+}

@@ -1,0 +1,15 @@
+import { z } from 'zod';
+
+/** `?page=&pageSize=` of every paged list; page numbers start at 1. */
+export const pageQuerySchema = z.object({
+  page: z.coerce.number().int().min(1, 'page starts at 1').default(1),
+  pageSize: z.coerce.number().int().min(1).max(500, 'pageSize is at most 500').default(50),
+});
+export type PageQuery = z.infer<typeof pageQuerySchema>;
+
+export const auditQuerySchema = pageQuerySchema.extend({
+  action: z.string().max(64).optional(),
+  actorId: z.coerce.number().int().positive().optional(),
+  groupId: z.coerce.number().int().positive().optional(),
+});
+export type AuditQuery = z.infer<typeof auditQuerySchema>;
