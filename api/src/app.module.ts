@@ -17,6 +17,7 @@ import { ModelsModule } from './models/models.module';
 import { RedisModule } from './redis/redis.module';
 import { ScansModule } from './scans/scans.module';
 import { UsersModule } from './users/users.module';
+import { WorkersModule } from './workers/workers.module';
 
 @Module({
   imports: [
@@ -35,6 +36,7 @@ import { UsersModule } from './users/users.module';
     ScansModule,
     AdminModule,
     HealthModule,
+    WorkersModule,
   ],
   providers: [
     { provide: APP_GUARD, useClass: AccessGuard },

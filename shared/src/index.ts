@@ -6,3 +6,4 @@ export * from './schemas/potential-model.schema.js';
 export * from './schemas/scan-summary.schema.js';
 export * from './schemas/admin.schema.js';
 export * from './schemas/paging.schema.js';
+export * from './queue/worker-pool.js';

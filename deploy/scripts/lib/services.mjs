@@ -96,7 +96,7 @@ export async function startMariaDb({ dir: givenDir, port, database, user, passwo
       `--pid-file=${path.join(dir, 'run', 'mysqld.pid')}`, `--log-error=${errorLog}`,
       '--skip-name-resolve', '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
       '--innodb-buffer-pool-size=256M', '--max-connections=300',
-    ], { stdio: ['ignore', out, out] });
+    ], { stdio: ['ignore', out, out], detached: true });
     child.once('exit', (code) => { if (code) log(`MariaDB exited with ${code}; see ${errorLog}`); });
     await waitUntil(ping, 'MariaDB', 60_000, errorLog);
   }
@@ -108,7 +108,8 @@ export async function startMariaDb({ dir: givenDir, port, database, user, passwo
       ` GRANT ALL ON \`${database}\`.* TO '${user}'@'127.0.0.1';`,
   );
   if (setup.status !== 0) fail(`could not create database ${database}: ${setup.stderr}`);
-  return { child, socket, stop: () => stopChild(child, 'MariaDB') };
+  const pidFile = path.join(dir, 'run', 'mysqld.pid');
+  return { child, socket, stop: () => stopByPidFile(pidFile, 'MariaDB') };
 }
 
 /** Starts a private Redis in `dir` on 127.0.0.1:`port`, append-only so queued work survives a restart. */
@@ -126,13 +127,13 @@ export async function startRedis({ dir: givenDir, port, flush = false }) {
     child = spawn('redis-server', [
       '--bind', '127.0.0.1', '--port', String(port), '--dir', dir,
       '--appendonly', 'yes', '--appenddirname', 'aof', '--appendfsync', 'everysec', '--save', '',
-      '--logfile', logFile, '--daemonize', 'no',
-    ], { stdio: 'ignore' });
+      '--logfile', logFile, '--pidfile', path.join(dir, 'redis.pid'), '--daemonize', 'no',
+    ], { stdio: 'ignore', detached: true });
     child.once('exit', (code) => { if (code) log(`Redis exited with ${code}; see ${logFile}`); });
     await waitUntil(ping, 'Redis', 30_000, logFile);
   }
   if (flush) spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), 'flushall'], { stdio: 'ignore' });
-  return { child, stop: () => stopChild(child, 'Redis') };
+  return { child, stop: () => stopByPidFile(path.join(dir, 'redis.pid'), 'Redis') };
 }
 
 /** SIGTERM, then SIGKILL after a grace period; resolves when the process has gone. */
@@ -143,6 +144,33 @@ export function stopChild(child, name, graceMs = 15_000) {
     child.once('exit', () => { clearTimeout(timer); resolve(); });
     child.kill('SIGTERM');
   });
+}
+
+function isAlive(pid) {
+  try {
+    process.kill(pid, 0);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Stops a server by the pid it wrote, which also covers one left running by an earlier start.
+ * The services run in their own process group, so Ctrl-C reaches them only through here,
+ * after the API and the workers have let go of them.
+ */
+export async function stopByPidFile(pidFile, name, graceMs = 30_000) {
+  if (!existsSync(pidFile)) return;
+  const pid = Number(readFileSync(pidFile, 'utf8').trim());
+  if (!pid || !isAlive(pid)) return;
+  process.kill(pid, 'SIGTERM');
+  const deadline = Date.now() + graceMs;
+  while (isAlive(pid) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 100));
+  if (isAlive(pid)) {
+    log(`${name} did not stop within ${graceMs / 1000} s; killing it`);
+    process.kill(pid, 'SIGKILL');
+  }
 }
 
 export function removeFolder(dir) {

@@ -1,0 +1,80 @@
+#!/usr/bin/env node
+// `npm start`: installs what is missing, starts private MariaDB and Redis, migrates, seeds the
+// demo scenario, builds, and runs the API (which serves the web app) and the workers.
+// Ctrl-C stops everything it started; data stays in .data/dev for the next start.
+import { createRequire } from 'node:module';
+import path from 'node:path';
+import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
+import { loadDotEnv, persistentSecret, resolveProfile, ROOT } from './lib/environment.mjs';
+import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
+import { fail, log } from './lib/output.mjs';
+import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+
+loadDotEnv();
+const profile = resolveProfile('dev');
+
+ensureNodePackages();
+ensureDebianPackages({
+  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
+  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
+});
+
+const services = [];
+let apps = null;
+let stopping = false;
+async function shutdown(code) {
+  if (stopping) return;
+  stopping = true;
+  log('stopping…');
+  await apps?.stop();
+  for (const s of services.reverse()) await s.stop();
+  log('stopped; data kept in .data/dev');
+  process.exit(code);
+}
+process.on('SIGINT', () => shutdown(0));
+process.on('SIGTERM', () => shutdown(0));
+
+if (profile.manageDb) {
+  log(`starting MariaDB on 127.0.0.1:${profile.dbPort}`);
+  services.push(await startMariaDb({
+    dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort,
+    database: profile.database, user: profile.dbUser, password: profile.dbPassword,
+  }));
+}
+if (profile.manageRedis) {
+  log(`starting Redis on 127.0.0.1:${profile.redisPort}`);
+  services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort }));
+}
+
+const env = {
+  ...process.env,
+  NODE_ENV: process.env.NODE_ENV ?? 'development',
+  DATABASE_URL: profile.databaseUrl,
+  REDIS_URL: profile.redisUrl,
+  API_PORT: String(profile.apiPort),
+  API_HOST: process.env.API_HOST ?? '127.0.0.1',
+  WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
+  SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(profile.dataDir),
+};
+
+log('building shared, api, worker and web');
+npmRun(['run', '--silent', 'build'], env);
+npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
+npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
+
+log(`starting the API and ${profile.workers} worker process${profile.workers === 1 ? '' : 'es'}`);
+apps = startAppProcesses({ env, workers: profile.workers });
+apps.api.once('exit', (code) => { if (!stopping) { log(`the API exited (${code})`); shutdown(1); } });
+if (!(await waitForApi(profile.apiPort, apps.api))) {
+  await shutdown(1);
+  fail('the API did not become healthy; see its output above');
+}
+
+const { DEMO_USERS, DEMO_PASSWORD } = createRequire(import.meta.url)(path.join(ROOT, 'api/dist/database/seeds/demo-scenario.js'));
+const width = Math.max(...DEMO_USERS.map((u) => u.email.length));
+process.stdout.write(
+  `\n  Sixtyfold is running at  http://${env.API_HOST}:${profile.apiPort}/\n\n` +
+    `  Demo accounts (password for all: ${DEMO_PASSWORD})\n` +
+    DEMO_USERS.map((u) => `    ${u.email.padEnd(width)}  ${u.part}`).join('\n') +
+    '\n\n  Ctrl-C stops everything; data is kept in .data/dev.\n\n',
+);

@@ -1,0 +1,19 @@
+import { z } from 'zod';
+
+/**
+ * Each worker process keeps a key `${WORKER_HEARTBEAT_PREFIX}<host>:<pid>` alive in Redis;
+ * the API lists these keys to show the pool. A key that expires is a worker that died.
+ */
+export const WORKER_HEARTBEAT_PREFIX = 'sixtyfold:workers:';
+export const WORKER_HEARTBEAT_INTERVAL_MS = 5_000;
+export const WORKER_HEARTBEAT_TTL_SECONDS = 15;
+
+export const workerHeartbeatSchema = z.object({
+  id: z.string(),
+  host: z.string(),
+  pid: z.number().int(),
+  concurrency: z.number().int(),
+  startedAt: z.string(),
+  lastSeenAt: z.string(),
+});
+export type WorkerHeartbeat = z.infer<typeof workerHeartbeatSchema>;

@@ -1,0 +1,51 @@
+import { Inject, Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import os from 'node:os';
+import {
+  WORKER_HEARTBEAT_INTERVAL_MS, WORKER_HEARTBEAT_PREFIX, WORKER_HEARTBEAT_TTL_SECONDS, type WorkerHeartbeat,
+} from '@sixtyfold/shared';
+import type { WorkerConfig } from '../config/worker.config';
+import { REDIS_CLIENT, type RedisClient } from './redis-client.provider';
+
+/** Announces this process to the pool while it runs, and withdraws it on a clean stop. */
+@Injectable()
+export class HeartbeatService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger('Heartbeat');
+  private readonly id = `${os.hostname()}:${process.pid}`;
+  private readonly startedAt = new Date().toISOString();
+  private timer: NodeJS.Timeout | undefined;
+
+  constructor(
+    @Inject(REDIS_CLIENT) private readonly redis: RedisClient,
+    private readonly config: ConfigService,
+  ) {}
+
+  get key(): string {
+    return WORKER_HEARTBEAT_PREFIX + this.id;
+  }
+
+  async onApplicationBootstrap(): Promise<void> {
+    await this.beat();
+    this.timer = setInterval(() => {
+      this.beat().catch((err: Error) => this.logger.warn(`heartbeat failed: ${err.message}`));
+    }, WORKER_HEARTBEAT_INTERVAL_MS);
+    this.logger.log(`worker ${this.id} joined the pool`);
+  }
+
+  async onApplicationShutdown(): Promise<void> {
+    clearInterval(this.timer);
+    if (this.redis.isOpen) await this.redis.del(this.key).catch(() => undefined);
+  }
+
+  private async beat(): Promise<void> {
+    const beat: WorkerHeartbeat = {
+      id: this.id,
+      host: os.hostname(),
+      pid: process.pid,
+      concurrency: this.config.getOrThrow<WorkerConfig>('worker').concurrency,
+      startedAt: this.startedAt,
+      lastSeenAt: new Date().toISOString(),
+    };
+    await this.redis.set(this.key, JSON.stringify(beat), { expiration: { type: 'EX', value: WORKER_HEARTBEAT_TTL_SECONDS } });
+  }
+}

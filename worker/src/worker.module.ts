@@ -1,0 +1,16 @@
+import { Module } from '@nestjs/common';
+import { ConfigModule } from '@nestjs/config';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { buildDataSourceOptions, readDatabaseConfig } from '@sixtyfold/api/database';
+import { workerConfig } from './config/worker.config';
+import { HeartbeatModule } from './heartbeat/heartbeat.module';
+
+/** The worker process: no HTTP server, one database connection pool, one place in the pool. */
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [workerConfig] }),
+    TypeOrmModule.forRootAsync({ useFactory: () => buildDataSourceOptions(readDatabaseConfig()) }),
+    HeartbeatModule,
+  ],
+})
+export class WorkerModule {}
