@@ -1,0 +1,160 @@
+import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import type request from 'supertest';
+import { Group } from '../src/groups/entities/group.entity';
+import { PotentialModel } from '../src/models/entities/potential-model.entity';
+import { Scan } from '../src/scans/entities/scan.entity';
+import { User } from '../src/users/entities/user.entity';
+import { createTestApp, DEMO, type TestApp } from './support/test-app';
+
+type Role = 'anonymous' | 'admin' | 'lead' | 'member' | 'viewer' | 'outsider';
+const ROLES: Role[] = ['anonymous', 'admin', 'lead', 'member', 'viewer', 'outsider'];
+// lead/member/viewer belong to Plateau Models; the outsider leads the other group.
+const EMAIL: Record<Exclude<Role, 'anonymous'>, string> = {
+  admin: DEMO.admin,
+  lead: DEMO.plateauLead,
+  member: DEMO.plateauMember,
+  viewer: DEMO.plateauViewer,
+  outsider: DEMO.tensorLead,
+};
+
+interface RouteCase {
+  method: 'get' | 'post';
+  /** Express path as registered, e.g. /api/groups/:id */
+  route: string;
+  /** The concrete URL to call (ids of Plateau Models objects filled in). */
+  url: () => string;
+  expect: Record<Role, number>;
+}
+
+const everyoneSignedIn = (status: number) => ({ anonymous: 401, admin: status, lead: status, member: status, viewer: status, outsider: status });
+const plateauOnly = { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 200, outsider: 404 };
+const adminOnly = { anonymous: 401, admin: 200, lead: 403, member: 403, viewer: 403, outsider: 403 };
+
+describe('every route against every role', () => {
+  let t: TestApp;
+  const agents = new Map<Role, ReturnType<typeof request.agent>>();
+  let plateauId: number;
+  let plateauModelId: number;
+  let plateauScanId: number;
+
+  const table: RouteCase[] = [
+    { method: 'get', route: '/api/health', url: () => '/api/health', expect: { ...everyoneSignedIn(200), anonymous: 200 } },
+    { method: 'get', route: '/api/auth/me', url: () => '/api/auth/me', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/groups', url: () => '/api/groups', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/groups/:id', url: () => `/api/groups/${plateauId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/models', url: () => '/api/models', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/models/:id', url: () => `/api/models/${plateauModelId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
+    { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
+    // Sign-in is open to all (a wrong password here, so every role gets the same answer).
+    { method: 'post', route: '/api/auth/login', url: () => '/api/auth/login', expect: { anonymous: 401, admin: 401, lead: 401, member: 401, viewer: 401, outsider: 401 } },
+    // Sign-out runs last: it ends the sessions the rows above used.
+    { method: 'post', route: '/api/auth/logout', url: () => '/api/auth/logout', expect: everyoneSignedIn(204) },
+  ];
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
+    plateauModelId = (await t.db.getRepository(PotentialModel).findOneByOrFail({ groupId: plateauId })).id;
+    const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
+    const scan = await t.db.getRepository(Scan).save({
+      groupId: plateauId, ownerId: owner.id, name: 'access-table draft', method: 'slowroll', status: 'draft',
+      spec: {}, note: '', totalPoints: 4,
+    });
+    plateauScanId = scan.id;
+    agents.set('anonymous', t.agent());
+    for (const role of ROLES.filter((r) => r !== 'anonymous') as Exclude<Role, 'anonymous'>[]) {
+      agents.set(role, await t.signIn(EMAIL[role]));
+    }
+  });
+  afterAll(async () => {
+    await t.db.getRepository(Scan).delete({ id: plateauScanId });
+    await t.close();
+  });
+
+  it('covers every route the API registers', () => {
+    const registered = [...t.routes].sort();
+    expect(registered.length).toBeGreaterThan(5);
+    const covered = table.map((c) => `${c.method.toUpperCase()} ${c.route}`).sort();
+    expect(covered).toEqual(registered);
+  });
+
+  for (const row of table) {
+    it(`${row.method.toUpperCase()} ${row.route}`, async () => {
+      const got: Record<string, number> = {};
+      for (const role of ROLES) {
+        const agent = agents.get(role)!;
+        const res = row.method === 'get'
+          ? await agent.get(row.url())
+          : await agent.post(row.url()).send(row.route === '/api/auth/login' ? { email: `${role}@nowhere.example`, password: 'wrong password' } : {});
+        got[role] = res.status;
+      }
+      expect(got).toEqual(row.expect);
+    });
+  }
+});
+
+describe('group isolation', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp();
+  });
+  afterAll(() => t.close());
+
+  it('lists only the groups, models and scans of my own groups', async () => {
+    const tensor = await t.db.getRepository(Group).findOneByOrFail({ slug: 'tensor-modes' });
+    const plateau = await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' });
+    const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
+    const scan = await t.db.getRepository(Scan).save({
+      groupId: plateau.id, ownerId: owner.id, name: 'isolation draft', method: 'exact', status: 'draft', spec: {}, note: '',
+    });
+    try {
+      const agent = await t.signIn(DEMO.tensorMember);
+      const groups = (await agent.get('/api/groups')).body as { id: number; myRole: string }[];
+      expect(groups.map((g) => g.id)).toEqual([tensor.id]);
+      expect(groups[0].myRole).toBe('member');
+      const models = (await agent.get('/api/models')).body as { groupId: number }[];
+      expect(models.length).toBeGreaterThan(0);
+      expect(models.every((m) => m.groupId === tensor.id)).toBe(true);
+      const scans = (await agent.get('/api/scans')).body as { items: { id: number }[] };
+      expect(scans.items.map((s) => s.id)).not.toContain(scan.id);
+
+      const plateauModel = await t.db.getRepository(PotentialModel).findOneByOrFail({ groupId: plateau.id });
+      for (const url of [`/api/groups/${plateau.id}`, `/api/models/${plateauModel.id}`, `/api/scans/${scan.id}`]) {
+        const res = await agent.get(url);
+        expect({ url, status: res.status }).toEqual({ url, status: 404 });
+      }
+      // A member of the owning group sees the same scan.
+      const insider = await t.signIn(DEMO.plateauViewer);
+      const seen = await insider.get(`/api/scans/${scan.id}`);
+      expect(seen.status).toBe(200);
+      expect(seen.body).toMatchObject({ id: scan.id, ownerName: 'Lucía Marín', status: 'draft', method: 'exact' });
+    } finally {
+      await t.db.getRepository(Scan).delete({ id: scan.id });
+    }
+  });
+
+  it('answers 400, not 500, for malformed ids and paging', async () => {
+    const agent = await t.signIn(DEMO.tensorMember);
+    const badId = await agent.get('/api/groups/not-a-number');
+    expect(badId.status).toBe(400);
+    const badPage = await agent.get('/api/scans?page=0&pageSize=9999');
+    expect(badPage.status).toBe(400);
+    expect(Object.keys(badPage.body.fieldErrors).sort()).toEqual(['page', 'pageSize']);
+  });
+
+  it('lets a site admin read every group and the audit trail of sign-ins', async () => {
+    const admin = await t.signIn(DEMO.admin);
+    const groups = (await admin.get('/api/groups')).body as { slug: string; myRole: string | null }[];
+    expect(groups.map((g) => g.slug).sort()).toEqual(['plateau-models', 'tensor-modes']);
+    const events = await admin.get('/api/admin/audit-events?action=auth.login&pageSize=5');
+    expect(events.status).toBe(200);
+    expect(events.body.items.length).toBeGreaterThan(0);
+    expect(events.body.items.every((e: { action: string }) => e.action === 'auth.login')).toBe(true);
+    const users = (await admin.get('/api/admin/users')).body as { email: string; groupCount: number }[];
+    expect(users.find((u) => u.email === DEMO.plateauLead)?.groupCount).toBe(1);
+  });
+});

@@ -1,0 +1,117 @@
+#!/usr/bin/env node
+// `npm test`: the same set-up as `npm start`, against a separate test database and Redis
+// (.data/test, their own ports), then every suite: vitest (shared, web), jest (api, worker)
+// and the browser tests against a running API. Exits non-zero if any suite fails.
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
+import { resolveProfile, ROOT } from './lib/environment.mjs';
+import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
+import { fail, log } from './lib/output.mjs';
+import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+
+// Tests never read .env: a developer's settings must not point the suites at real data.
+const profile = resolveProfile('test');
+// `npm test -- api worker` runs only the named suites (shared, web, api, worker, browser).
+const SUITES = ['shared', 'web', 'api', 'worker', 'browser'];
+const selected = process.argv.slice(2);
+for (const name of selected) if (!SUITES.includes(name)) fail(`unknown suite '${name}'; choose from ${SUITES.join(', ')}`);
+const wanted = (name) => selected.length === 0 || selected.includes(name);
+const reports = path.join(profile.dataDir, 'reports');
+rmSync(reports, { recursive: true, force: true });
+mkdirSync(reports, { recursive: true });
+
+ensureNodePackages();
+ensureDebianPackages({
+  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
+  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
+  chromium: 'chromium',
+  'fc-list': 'fonts-dejavu-core',
+});
+
+const services = [];
+let apps = null;
+async function cleanUp() {
+  await apps?.stop();
+  for (const s of services.reverse()) await s.stop();
+}
+process.on('SIGINT', () => cleanUp().then(() => process.exit(130)));
+
+if (profile.manageDb) {
+  log(`starting the test MariaDB on 127.0.0.1:${profile.dbPort} (fresh database ${profile.database})`);
+  services.push(await startMariaDb({
+    dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort, database: profile.database,
+    user: profile.dbUser, password: profile.dbPassword, freshDatabase: true,
+  }));
+}
+if (profile.manageRedis) {
+  log(`starting the test Redis on 127.0.0.1:${profile.redisPort} (emptied)`);
+  services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: true }));
+}
+
+const env = {
+  ...process.env,
+  NODE_ENV: 'test',
+  DATABASE_URL: profile.databaseUrl,
+  REDIS_URL: profile.redisUrl,
+  API_PORT: String(profile.apiPort),
+  API_HOST: '127.0.0.1',
+  WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
+  SESSION_SECRET: 'sixtyfold-test-session-secret',
+  LOGIN_THROTTLE_LIMIT: '5',
+  FORCE_COLOR: '0',
+};
+
+log('building shared, api, worker and web');
+npmRun(['run', '--silent', 'build'], env);
+npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
+npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
+
+/** Runs one suite; its runner writes a jest-format JSON report that the summary reads. */
+function runSuite(name, args, extraEnv = {}) {
+  log(`suite ${name}`);
+  const report = path.join(reports, `${name}.json`);
+  const result = spawnSync('npm', [...args, report], { cwd: ROOT, stdio: 'inherit', env: { ...env, ...extraEnv } });
+  let passed = 0;
+  let failed = 0;
+  if (existsSync(report)) {
+    const json = JSON.parse(readFileSync(report, 'utf8'));
+    passed = json.numPassedTests ?? 0;
+    failed = json.numFailedTests ?? 0;
+  }
+  // A runner that crashed before reporting counts as one failure, never as a pass.
+  const ok = result.status === 0;
+  if (!ok && failed === 0) failed = 1;
+  return { name, ok, passed, failed };
+}
+
+const vitestJson = (ws) => ['run', 'test', '-w', ws, '--', '--reporter=default', '--reporter=json', '--outputFile.json'];
+const jestJson = (ws) => ['run', 'test', '-w', ws, '--', '--json', '--outputFile'];
+const results = [];
+if (wanted('shared')) results.push(runSuite('shared', vitestJson('shared')));
+if (wanted('web')) results.push(runSuite('web', vitestJson('web')));
+if (wanted('api')) results.push(runSuite('api', jestJson('api')));
+if (wanted('worker')) results.push(runSuite('worker', jestJson('worker')));
+
+if (!wanted('browser')) {
+  // nothing more to run
+} else if ((log('starting the API and a worker for the browser tests'), (apps = startAppProcesses({ env, workers: 1, quiet: true }))) &&
+  (await waitForApi(profile.apiPort, apps.api))) {
+  results.push(runSuite('browser', ['run', 'test:browser', '-w', 'web', '--', '--reporter=default', '--reporter=json', '--outputFile.json'], {
+    SIXTYFOLD_WEB_URL: `http://127.0.0.1:${profile.apiPort}/`,
+  }));
+} else {
+  results.push({ name: 'browser', ok: false, passed: 0, failed: 1 });
+  log('the API did not become healthy, so the browser tests could not run');
+}
+await cleanUp();
+
+const passed = results.reduce((n, r) => n + r.passed, 0);
+const failed = results.reduce((n, r) => n + r.failed, 0);
+process.stdout.write('\n');
+for (const r of results) process.stdout.write(`  ${r.ok ? 'ok  ' : 'FAIL'}  ${r.name.padEnd(8)} ${r.passed} passed, ${r.failed} failed\n`);
+const failedSuites = results.filter((r) => !r.ok).map((r) => r.name);
+if (failedSuites.length) process.stdout.write(`\n[sixtyfold] failed suites: ${failedSuites.join(', ')}\n`);
+process.stdout.write(`\ntests: ${passed} passed, ${failed} failed\n`);
+process.exit(failedSuites.length ? 1 : 0);

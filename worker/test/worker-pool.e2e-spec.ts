@@ -1,0 +1,71 @@
+import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import { spawn, type ChildProcess } from 'node:child_process';
+import os from 'node:os';
+import path from 'node:path';
+import { createClient } from 'redis';
+import { WORKER_HEARTBEAT_PREFIX, workerHeartbeatSchema } from '@sixtyfold/shared';
+
+// Real worker processes from the build (`npm test` builds first), on the test Redis and MariaDB.
+const WORKER_MAIN = path.resolve('dist/main.js');
+
+function startWorker(concurrency: number): ChildProcess {
+  return spawn(process.execPath, [WORKER_MAIN], {
+    env: { ...process.env, WORKER_CONCURRENCY: String(concurrency) },
+    stdio: ['ignore', 'ignore', 'pipe'],
+  });
+}
+
+async function eventually<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 20_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const value = await probe();
+    if (value !== undefined) return value;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+describe('worker pool membership', () => {
+  const redis = createClient({ url: process.env.REDIS_URL });
+  const workers: ChildProcess[] = [];
+
+  beforeAll(async () => {
+    await redis.connect();
+  });
+  afterAll(async () => {
+    for (const w of workers) if (w.exitCode === null) w.kill('SIGKILL');
+    await redis.close();
+  });
+
+  it('two processes join the pool with their settings, and a clean stop leaves it', async () => {
+    workers.push(startWorker(2), startWorker(3));
+    const keys = workers.map((w) => `${WORKER_HEARTBEAT_PREFIX}${os.hostname()}:${w.pid}`);
+    const beats = await eventually(async () => {
+      const values = await redis.mGet(keys);
+      return values.every(Boolean) ? values.map((v) => workerHeartbeatSchema.parse(JSON.parse(v!))) : undefined;
+    }, 'both heartbeats');
+    expect(beats.map((b) => [b.pid, b.concurrency])).toEqual([[workers[0].pid, 2], [workers[1].pid, 3]]);
+    const ttl = await redis.ttl(keys[0]);
+    expect(ttl).toBeGreaterThan(0);
+    expect(ttl).toBeLessThanOrEqual(15);
+
+    const exited = new Promise<string>((resolve) => workers[0].once('exit', (code, signal) => resolve(signal ?? String(code))));
+    workers[0].kill('SIGTERM');
+    // Nest runs its shutdown hooks, then re-raises the signal: a clean stop ends by SIGTERM.
+    expect(await exited).toBe('SIGTERM');
+    expect(await redis.exists(keys[0])).toBe(0);
+    expect(await redis.exists(keys[1])).toBe(1);
+  });
+
+  it('refuses to start with a bad configuration and says why', async () => {
+    const child = spawn(process.execPath, [WORKER_MAIN], {
+      env: { ...process.env, WORKER_CONCURRENCY: 'lots' },
+      stdio: ['ignore', 'ignore', 'pipe'],
+    });
+    let stderr = '';
+    child.stderr!.on('data', (d: Buffer) => (stderr += d.toString()));
+    const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
+    expect(code).not.toBe(0);
+    expect(stderr).toMatch(/WORKER_CONCURRENCY/);
+  });
+});
