@@ -64,7 +64,8 @@ const env = {
 };
 
 log('building shared, api, worker and web');
-npmRun(['run', '--silent', 'build'], env);
+// Built without NODE_ENV, so that Vite makes a production bundle whatever the profile.
+npmRun(['run', '--silent', 'build'], { ...env, NODE_ENV: undefined });
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
 npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
 

@@ -1,0 +1,124 @@
+import { Box, Flex, Heading, Stack, Text } from '@chakra-ui/react';
+import { useSearchParams } from 'react-router-dom';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { UsersIcon } from '@/components/ui/icons';
+import { LoadingState } from '@/components/ui/loading-state';
+import { PageHeader } from '@/components/ui/page-header';
+import { Pager } from '@/components/ui/pager';
+import { Panel } from '@/components/ui/panel';
+import { useAdminUsers } from '@/features/admin/api/get-admin-users';
+import { useAuditEvents } from '@/features/admin/api/get-audit-events';
+import { AuditActionFilter } from '@/features/admin/components/audit-action-filter';
+import { AuditEventsTable } from '@/features/admin/components/audit-events-table';
+import { UsersTable } from '@/features/admin/components/users-table';
+import { RequireSiteAdmin } from '@/features/auth/components/require-site-admin';
+import { useDocumentTitle } from '@/hooks/use-document-title';
+import { readPage } from '@/lib/search-params';
+
+const AUDIT_PAGE_SIZE = 20;
+
+export function AdminRoute() {
+  useDocumentTitle('Admin');
+  return (
+    <RequireSiteAdmin>
+      <Stack gap="0">
+        <PageHeader title="Admin" description="Everyone with a Sixtyfold account, and the audit log of what happened on this site." />
+        <Stack gap="10">
+          <UsersSection />
+          <AuditSection />
+        </Stack>
+      </Stack>
+    </RequireSiteAdmin>
+  );
+}
+
+function UsersSection() {
+  const users = useAdminUsers();
+  return (
+    <Box as="section" aria-labelledby="admin-users">
+      <Heading as="h2" id="admin-users" size="lg" color="ink.900" mb="3">
+        Users
+      </Heading>
+      {users.isPending ? (
+        <LoadingState label="Loading users…" />
+      ) : users.isError ? (
+        <ErrorState title="Could not load users" error={users.error} onRetry={() => users.refetch()} />
+      ) : users.data.length === 0 ? (
+        <EmptyState icon={<UsersIcon />} title="No users" description="Accounts appear here once they are created." />
+      ) : (
+        <Panel>
+          <UsersTable users={users.data} />
+        </Panel>
+      )}
+    </Box>
+  );
+}
+
+function AuditSection() {
+  const [params, setParams] = useSearchParams();
+  const page = readPage(params.get('auditPage'));
+  const action = params.get('action') ?? '';
+  const events = useAuditEvents({ page, pageSize: AUDIT_PAGE_SIZE, action });
+
+  const update = (changes: Record<string, string | null>) =>
+    setParams((current) => {
+      const copy = new URLSearchParams(current);
+      for (const [key, value] of Object.entries(changes)) {
+        if (value) copy.set(key, value);
+        else copy.delete(key);
+      }
+      return copy;
+    });
+
+  return (
+    <Box as="section" aria-labelledby="admin-audit">
+      <Flex justify="space-between" align={{ base: 'start', md: 'end' }} direction={{ base: 'column', md: 'row' }} gap="3" mb="3">
+        <Stack gap="1">
+          <Heading as="h2" id="admin-audit" size="lg" color="ink.900">
+            Audit events
+          </Heading>
+          <Text color="fg.muted" fontSize="sm">
+            Sign-ins, membership changes and other recorded actions.
+          </Text>
+        </Stack>
+        <AuditActionFilter value={action} onChange={(next) => update({ action: next, auditPage: null })} />
+      </Flex>
+      {events.isPending ? (
+        <LoadingState label="Loading audit events…" />
+      ) : events.isError && !events.data ? (
+        <ErrorState title="Could not load audit events" error={events.error} onRetry={() => events.refetch()} />
+      ) : events.data.total === 0 ? (
+        <EmptyState
+          title={action ? `No “${action}” events` : 'No audit events yet'}
+          description={action ? 'Nothing with that action name was recorded. Check the spelling or show all events.' : 'Recorded actions appear here as people use Sixtyfold.'}
+        />
+      ) : (
+        <>
+          {events.isError && (
+            <Box mb="4">
+              <ErrorState title="Could not refresh audit events" error={events.error} onRetry={() => events.refetch()} />
+            </Box>
+          )}
+          <Panel>
+            {events.data.items.length === 0 ? (
+              <Text p="4" color="fg.muted">
+                No events on page {page}. Go back a page.
+              </Text>
+            ) : (
+              <AuditEventsTable events={events.data.items} />
+            )}
+          </Panel>
+          <Pager
+            page={page}
+            pageSize={events.data.pageSize || AUDIT_PAGE_SIZE}
+            total={events.data.total}
+            noun="events"
+            onPageChange={(next) => update({ auditPage: next > 1 ? String(next) : null })}
+            busy={events.isPlaceholderData}
+          />
+        </>
+      )}
+    </Box>
+  );
+}

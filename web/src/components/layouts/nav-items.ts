@@ -1,0 +1,18 @@
+import type { CurrentUser } from '@sixtyfold/shared';
+import { paths } from '@/config/paths';
+
+export interface NavItem {
+  label: string;
+  href: string;
+}
+
+/** Main navigation; Admin only appears for site administrators (the route checks again). */
+export function navItemsFor(user: CurrentUser): NavItem[] {
+  const items: NavItem[] = [
+    { label: 'Scans', href: paths.scans.getHref() },
+    { label: 'Models', href: paths.models.getHref() },
+    { label: 'Compare', href: paths.compare.getHref() },
+  ];
+  if (user.siteRole === 'admin') items.push({ label: 'Admin', href: paths.admin.getHref() });
+  return items;
+}

@@ -1,0 +1,91 @@
+import { Alert, Button, Field, Input, Stack } from '@chakra-ui/react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { loginSchema, type CurrentUser, type Login } from '@sixtyfold/shared';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { ApiRequestError } from '@/lib/api-client';
+import { useLogin } from '../api/login';
+
+type LoginInput = z.input<typeof loginSchema>;
+
+function describeError(error: Error): { title: string; description: string } {
+  if (!(error instanceof ApiRequestError)) {
+    return { title: 'Sign-in failed', description: 'Something unexpected went wrong. Reload the page and try again.' };
+  }
+  switch (error.status) {
+    case 0:
+      return { title: 'Could not reach the Sixtyfold server', description: 'Check your connection, then try again.' };
+    case 401:
+      return { title: error.message, description: 'Check both fields; passwords are case-sensitive.' };
+    case 429:
+      return {
+        title: 'Too many attempts, wait a minute',
+        description: 'Sign-in is paused briefly after repeated attempts. Try again in a minute.',
+      };
+    case 400:
+      return { title: 'Check the highlighted fields', description: error.message };
+    default:
+      return {
+        title: error.message,
+        description: 'Try again in a moment. If it keeps failing, tell your site administrator.',
+      };
+  }
+}
+
+export function SignInForm({ onSuccess }: { onSuccess: (user: CurrentUser) => void }) {
+  const {
+    register,
+    handleSubmit,
+    setError,
+    formState: { errors },
+  } = useForm<LoginInput, unknown, Login>({
+    resolver: zodResolver(loginSchema),
+    defaultValues: { email: '', password: '' },
+  });
+  const login = useLogin({ onSuccess });
+
+  const onSubmit = handleSubmit((values) =>
+    login.mutate(values, {
+      onError: (error) => {
+        // The API validates with the same schema; show its per-field messages next to the fields.
+        if (error instanceof ApiRequestError) {
+          for (const field of ['email', 'password'] as const) {
+            const message = error.fieldErrors[field]?.[0];
+            if (message) setError(field, { message });
+          }
+        }
+      },
+    }),
+  );
+
+  const failure = login.error ? describeError(login.error) : null;
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Sign in">
+      <Stack gap="5">
+        {failure && (
+          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
+            <Alert.Indicator />
+            <Alert.Content>
+              <Alert.Title>{failure.title}</Alert.Title>
+              <Alert.Description>{failure.description}</Alert.Description>
+            </Alert.Content>
+          </Alert.Root>
+        )}
+        <Field.Root invalid={!!errors.email}>
+          <Field.Label>E-mail</Field.Label>
+          <Input type="email" autoComplete="username" size="lg" bg="bg.panel" {...register('email')} />
+          <Field.ErrorText>{errors.email?.message}</Field.ErrorText>
+        </Field.Root>
+        <Field.Root invalid={!!errors.password}>
+          <Field.Label>Password</Field.Label>
+          <Input type="password" autoComplete="current-password" size="lg" bg="bg.panel" {...register('password')} />
+          <Field.ErrorText>{errors.password?.message}</Field.ErrorText>
+        </Field.Root>
+        <Button type="submit" colorPalette="ember" size="lg" loading={login.isPending} loadingText="Signing in…">
+          Sign in
+        </Button>
+      </Stack>
+    </form>
+  );
+}
