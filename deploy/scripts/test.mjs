@@ -27,7 +27,7 @@ ensureDebianPackages({
   ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
   ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
   chromium: 'chromium',
-  'fc-list': 'fonts-dejavu-core',
+  '/usr/share/fonts/truetype/dejavu': 'fonts-dejavu-core',
 });
 
 const services = [];

@@ -9,13 +9,22 @@ import os from 'node:os';
 import path from 'node:path';
 import { log, fail } from './output.mjs';
 
+// Debian puts the server binaries in sbin, which a non-login shell may not have on PATH.
+for (const dir of ['/usr/sbin', '/sbin']) {
+  if (!(process.env.PATH ?? '').split(':').includes(dir)) process.env.PATH = `${process.env.PATH}:${dir}`;
+}
+
 function commandExists(name) {
   return spawnSync('sh', ['-c', `command -v ${name}`], { stdio: 'ignore' }).status === 0;
 }
 
-/** Installs Debian packages whose command is missing; `wanted` maps command -> package. */
+/**
+ * Installs the Debian packages that are missing; `wanted` maps what proves a package is there
+ * (a command name, or an absolute path) to the package name.
+ */
 export function ensureDebianPackages(wanted) {
-  const missing = Object.entries(wanted).filter(([cmd]) => !commandExists(cmd)).map(([, pkg]) => pkg);
+  const present = (probe) => (probe.startsWith('/') ? existsSync(probe) : commandExists(probe));
+  const missing = Object.entries(wanted).filter(([probe]) => !present(probe)).map(([, pkg]) => pkg);
   if (missing.length === 0) return;
   log(`installing Debian packages: ${missing.join(' ')}`);
   const asRoot = process.getuid?.() === 0;
