@@ -7,3 +7,5 @@ export * from './schemas/scan-summary.schema.js';
 export * from './schemas/admin.schema.js';
 export * from './schemas/paging.schema.js';
 export * from './queue/worker-pool.js';
+export * from './schemas/evaluate.schema.js';
+export * from './engine/index.js';

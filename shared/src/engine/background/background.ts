@@ -1,0 +1,269 @@
+import { CashKarpStepper, hermite } from '../integrators/cash-karp.js';
+import { failure, fmt, type Failure, type PotentialFunctions } from '../types.js';
+
+export interface BackgroundOptions {
+  /** Step error tolerance of the integrator. */
+  tolerance: number;
+  /** Largest step in e-folds (keeps the stored nodes dense enough to interpolate). */
+  maxStep: number;
+  /** Inflation that has not ended after this many e-folds is reported as `no_end`. */
+  maxEfolds: number;
+  /** |φ| beyond this is a field running off to infinity (`no_end`). */
+  fieldLimit: number;
+}
+
+export const DEFAULT_BACKGROUND_OPTIONS: BackgroundOptions = {
+  tolerance: 1e-8,
+  maxStep: 1,
+  maxEfolds: 2000,
+  fieldLimit: 1e8,
+};
+
+/**
+ * The accepted integration nodes: N, φ, π = dφ/dN and their N-derivatives, so that any
+ * N inside can be interpolated (cubic Hermite) and any step re-taken exactly.
+ */
+export class BackgroundTable {
+  length = 0;
+  n = new Float64Array(512);
+  phi = new Float64Array(512);
+  pi = new Float64Array(512);
+  dphi = new Float64Array(512);
+  dpi = new Float64Array(512);
+
+  clear(): void {
+    this.length = 0;
+  }
+
+  push(n: number, y: Float64Array, dy: Float64Array): void {
+    if (this.length === this.n.length) this.grow();
+    const i = this.length++;
+    this.n[i] = n;
+    this.phi[i] = y[0];
+    this.pi[i] = y[1];
+    this.dphi[i] = dy[0];
+    this.dpi[i] = dy[1];
+  }
+
+  /** Index i with n[i] <= N < n[i+1] (clamped), by bisection. */
+  locate(N: number): number {
+    let lo = 0;
+    let hi = this.length - 1;
+    if (N <= this.n[0]) return 0;
+    if (N >= this.n[hi]) return hi - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (this.n[mid] <= N) lo = mid;
+      else hi = mid;
+    }
+    return lo;
+  }
+
+  /** Interpolates (φ, π) at N into out[0], out[1]. */
+  interpolate(N: number, out: Float64Array): void {
+    const i = this.locate(N);
+    const h = this.n[i + 1] - this.n[i];
+    const u = (N - this.n[i]) / h;
+    const u2 = u * u;
+    const u3 = u2 * u;
+    const a = 2 * u3 - 3 * u2 + 1;
+    const b = (u3 - 2 * u2 + u) * h;
+    const c = -2 * u3 + 3 * u2;
+    const d = (u3 - u2) * h;
+    out[0] = a * this.phi[i] + b * this.dphi[i] + c * this.phi[i + 1] + d * this.dphi[i + 1];
+    out[1] = a * this.pi[i] + b * this.dpi[i] + c * this.pi[i + 1] + d * this.dpi[i + 1];
+  }
+
+  private grow(): void {
+    const size = this.n.length * 2;
+    for (const key of ['n', 'phi', 'pi', 'dphi', 'dpi'] as const) {
+      const next = new Float64Array(size);
+      next.set(this[key]);
+      this[key] = next;
+    }
+  }
+}
+
+export interface BackgroundSolution {
+  status: 'ok';
+  /** E-folds from φ_init to the end of inflation (ε_H = 1). */
+  nEnd: number;
+  phiEnd: number;
+  piEnd: number;
+  table: BackgroundTable;
+  evaluations: number;
+}
+
+/**
+ * Background of a single-field model in e-folds N with state (φ, π = dφ/dN), M_pl = 1:
+ *   ε_H = π²/2,  H² = V/(3 − ε_H),  dπ/dN = −(3 − ε_H)(π + V'/V),
+ * the Klein-Gordon and Friedmann equations with N as time (e.g. Baumann, TASI lectures on
+ * inflation, arXiv:0907.5424, with dN = H dt). It starts on the slow-roll attractor π = −V'/V
+ * and ends where ε_H = 1, located to ~1e-12 in N inside the last step.
+ */
+export class BackgroundSolver {
+  readonly table = new BackgroundTable();
+  private potential!: PotentialFunctions;
+  private badV = 0; // 0 fine, 1 V <= 0, 2 V not finite
+  private badPhi = 0;
+  private readonly stepper: CashKarpStepper;
+  private readonly node = new Float64Array(2);
+
+  constructor(private options: BackgroundOptions = DEFAULT_BACKGROUND_OPTIONS) {
+    this.stepper = new CashKarpStepper(2, (out, y) => this.rhs(out, y), options);
+  }
+
+  private rhs(out: Float64Array, y: Float64Array): void {
+    const phi = y[0];
+    const pi = y[1];
+    const V = this.potential.V(phi);
+    if (!(V > 0) && this.badV === 0) {
+      this.badV = Number.isFinite(V) ? 1 : 2;
+      this.badPhi = phi;
+    }
+    const eps = 0.5 * pi * pi;
+    out[0] = pi;
+    out[1] = -(3 - eps) * (pi + this.potential.dV(phi) / V);
+  }
+
+  solve(potential: PotentialFunctions, phiInit: number, options: BackgroundOptions = this.options): BackgroundSolution | Failure {
+    this.potential = potential;
+    this.options = options;
+    this.stepper.setTolerance(options.tolerance, options.maxStep);
+    this.table.clear();
+    this.badV = 0;
+
+    const V0 = potential.V(phiInit);
+    const dV0 = potential.dV(phiInit);
+    if (!Number.isFinite(V0) || !Number.isFinite(dV0)) {
+      return failure('invalid_potential', `V or V' is not a finite number at φ_init = ${fmt(phiInit)} (V = ${fmt(V0)})`, { phi: phiInit });
+    }
+    if (V0 <= 0) {
+      return failure('negative_potential', `V(φ_init) = ${fmt(V0)} is not positive; inflation needs V > 0`, { phi: phiInit });
+    }
+    const epsV0 = 0.5 * (dV0 / V0) ** 2;
+    if (epsV0 >= 1) {
+      return failure('no_inflation_at_start', `ε = ${fmt(epsV0)} ≥ 1 at φ_init = ${fmt(phiInit)}: the field does not inflate there; start further up the potential`, { phi: phiInit, nTotal: 0 });
+    }
+    const slope = dV0 / V0;
+    if (Math.abs(slope) < 1e-14) {
+      const curvature = potential.d2V(phiInit);
+      if (curvature > 0) {
+        return failure('trapped', `φ_init = ${fmt(phiInit)} is a minimum of V with V > 0: the field stays there and inflation never ends`, { phi: phiInit, nTotal: Infinity });
+      }
+      return failure('no_end', `V' = 0 at φ_init = ${fmt(phiInit)} (a maximum or flat point): the field starts at rest and never rolls; move φ_init off the extremum`, { phi: phiInit });
+    }
+
+    const s = this.stepper;
+    const y0 = [phiInit, -slope];
+    s.reset(0, y0, Math.min(0.01, options.maxStep));
+    let turns = 0;
+    let lastTurnPhi = NaN;
+    const nMax = options.maxEfolds;
+    for (;;) {
+      const result = s.step(nMax);
+      if (this.badV !== 0) return this.potentialFailure();
+      if (result === 'non_finite') {
+        return failure('integration_failed', `the integration produced non-finite values near N = ${fmt(s.tPrev)}, φ = ${fmt(s.yPrev[0])}`, { nTotal: s.tPrev, phi: s.yPrev[0] });
+      }
+      if (result === 'underflow') {
+        return failure('integration_failed', `the step size underflowed near N = ${fmt(s.t)}, φ = ${fmt(s.y[0])}`, { nTotal: s.t, phi: s.y[0] });
+      }
+      this.table.push(s.tPrev, s.yPrev, s.dyPrev);
+      const pi = s.y[1];
+      if (0.5 * pi * pi >= 1) return this.locateEnd();
+      if (pi * s.yPrev[1] < 0) {
+        // The field turned around: a second turn means it oscillates in a minimum while inflating.
+        turns++;
+        if (turns >= 2) return this.trapped(lastTurnPhi, s.y[0]);
+        lastTurnPhi = s.y[0];
+      }
+      if (Math.abs(s.y[0]) > options.fieldLimit) {
+        return failure('no_end', `the field ran off to φ = ${fmt(s.y[0])} after ${fmt(s.t)} e-folds without inflation ending`, { nTotal: s.t, phi: s.y[0] });
+      }
+      if (s.t >= nMax) {
+        const eps = 0.5 * pi * pi;
+        return failure('no_end', `inflation had not ended after ${fmt(nMax)} e-folds (ε_H = ${fmt(eps)} at φ = ${fmt(s.y[0])}); this potential may never end inflation`, { nTotal: s.t, phi: s.y[0] });
+      }
+    }
+  }
+
+  /** Root of ε_H = 1 in the last step: bracket on the interpolant, then Newton on re-taken steps. */
+  private locateEnd(): BackgroundSolution | Failure {
+    const s = this.stepper;
+    s.computeDerivative();
+    let lo = s.tPrev;
+    let hi = s.t;
+    const g = (t: number) => 0.5 * hermite(s, 1, t) ** 2 - 1;
+    for (let i = 0; i < 60 && hi - lo > 1e-14; i++) {
+      const mid = 0.5 * (lo + hi);
+      if (g(mid) >= 0) hi = mid;
+      else lo = mid;
+    }
+    let tEnd = 0.5 * (lo + hi);
+    for (let iter = 0; iter < 8; iter++) {
+      if (s.restepTo(tEnd) !== 'ok' || this.badV !== 0) break;
+      const phi = s.y[0];
+      const pi = s.y[1];
+      const residual = 0.5 * pi * pi - 1;
+      const dpi = -(3 - 0.5 * pi * pi) * (pi + this.potential.dV(phi) / this.potential.V(phi));
+      const slope = pi * dpi; // dε_H/dN
+      if (slope === 0) break;
+      const dt = residual / slope;
+      tEnd -= dt;
+      if (Math.abs(dt) < 1e-13) break;
+    }
+    if (s.restepTo(tEnd) !== 'ok') {
+      return failure('integration_failed', `could not re-step to the end of inflation near N = ${fmt(tEnd)}`, { nTotal: tEnd });
+    }
+    if (this.badV !== 0) return this.potentialFailure();
+    s.computeDerivative();
+    this.table.push(tEnd, s.y, s.dy);
+    return { status: 'ok', nEnd: tEnd, phiEnd: s.y[0], piEnd: s.y[1], table: this.table, evaluations: s.evaluations };
+  }
+
+  /**
+   * The exact state (φ, π) at N inside the last solution: re-integrated from the stored node
+   * before N, not interpolated, since n_s moves by ~6e-4 per e-fold of error in the pivot.
+   */
+  stateAt(N: number, out: Float64Array): void {
+    const t = this.table;
+    const i = t.locate(N);
+    const s = this.stepper;
+    this.node[0] = t.phi[i];
+    this.node[1] = t.pi[i];
+    s.reset(t.n[i], this.node, Math.min(0.05, N - t.n[i] || 0.05));
+    for (let guard = 0; s.t < N && guard < 10_000; guard++) {
+      if (s.step(N) !== 'ok') break;
+    }
+    out[0] = s.y[0];
+    out[1] = s.y[1];
+  }
+
+  private potentialFailure(): Failure {
+    const n = this.table.n[this.table.length - 1];
+    if (this.badV === 1) {
+      return failure('negative_potential', `V ≤ 0 at φ = ${fmt(this.badPhi)} on the path, after about ${fmt(n)} e-folds; the field reached a region where V is not positive before inflation ended`, { phi: this.badPhi, nTotal: n });
+    }
+    return failure('invalid_potential', `V is not a finite number at φ = ${fmt(this.badPhi)} on the path (after about ${fmt(n)} e-folds)`, { phi: this.badPhi, nTotal: n });
+  }
+
+  private trapped(phiA: number, phiB: number): Failure {
+    // The minimum lies between the two turning points: bisect V' there.
+    let lo = Math.min(phiA, phiB);
+    let hi = Math.max(phiA, phiB);
+    const dLo = this.potential.dV(lo);
+    for (let i = 0; i < 100 && hi - lo > 1e-14 * Math.max(1, Math.abs(hi)); i++) {
+      const mid = 0.5 * (lo + hi);
+      if (this.potential.dV(mid) * dLo > 0) lo = mid;
+      else hi = mid;
+    }
+    const phiMin = 0.5 * (lo + hi);
+    const n = this.stepper.t;
+    return failure(
+      'trapped',
+      `the field settled into the local minimum at φ = ${fmt(phiMin)} (V = ${fmt(this.potential.V(phiMin))} > 0) while still inflating, after ${fmt(n)} e-folds; inflation never ends there`,
+      { phi: phiMin, nTotal: n },
+    );
+  }
+}

@@ -1,0 +1,203 @@
+import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundSolution } from './background/background.js';
+import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
+import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
+import { hubbleFlow, potentialSlowRoll, secondOrderSlowRoll, type SecondOrderObservables } from './observables/slow-roll.js';
+import { nStarFromReheating, reheatingDensity, type Reheating } from './pivot/reheating.js';
+import { failure, fmt, type Failure, type PotentialFunctions } from './types.js';
+
+export type Method = 'slowroll' | 'exact';
+
+export interface PointSpec {
+  potential: PotentialFunctions;
+  /** Where the background starts, on the slow-roll attractor π = −V'/V. */
+  phiInit: number;
+  method: Method;
+  /** E-folds between the pivot crossing and the end of inflation; or give `reheating`. */
+  nStar?: number;
+  reheating?: Reheating;
+  /** Step tolerance of the background integration (default 1e-8). */
+  tolerance?: number;
+  /** Settings of the mode integrations (exact method). */
+  modes?: Partial<ModeOptions>;
+  /** Return φ(N), π(N), ε_H(N) for plots. */
+  trajectory?: boolean;
+  /** Return P_R(k) and P_t(k) near the pivot (exact method). */
+  spectrum?: boolean;
+}
+
+export interface PointResult {
+  status: 'ok';
+  message: string;
+  method: Method;
+  ns: number;
+  r: number;
+  alphaS: number;
+  nt: number;
+  /** A_s of the potential exactly as given. */
+  As: number;
+  /** Factor by which V must be multiplied for A_s = 2.1e-9. */
+  amplitudeScale: number;
+  nTotal: number;
+  nStar: number;
+  phiStar: number;
+  phiEnd: number;
+  deltaPhi: number;
+  /** V_*^{1/4} of the normalised potential, GeV. */
+  energyScaleGeV: number;
+  /** H at the pivot crossing for the normalised potential, GeV. */
+  hubbleGeV: number;
+  epsilonV: number;
+  etaV: number;
+  xi2V: number;
+  /** Second-order slow roll on the numerical background (both methods). */
+  secondOrder: SecondOrderObservables;
+  /** Right-hand-side evaluations of all integrations of this point. */
+  evaluations: number;
+  trajectory?: { N: number[]; phi: number[]; pi: number[]; epsilonH: number[] };
+  spectrum?: { lnK: number[]; kPerMpc: number[]; scalar: number[]; tensor: number[] };
+}
+
+export type PointOutcome = PointResult | Failure;
+
+const SPECTRUM_LNK = Array.from({ length: 13 }, (_, i) => -3 + i * 0.5);
+
+/**
+ * Evaluates one point: background to the end of inflation, the pivot N_* e-folds before it
+ * (fixed or from reheating), and the observables by slow roll or the exact mode equations.
+ * Holds its integrators and buffers, so one instance serves any number of points; it is pure
+ * (same input, same output) and never throws for a bad model: problems are outcomes.
+ */
+export class PointEvaluator {
+  private readonly background = new BackgroundSolver();
+  private readonly modes: ModeSolver;
+  private readonly pivot = new Float64Array(2);
+
+  constructor(modeOptions: Partial<ModeOptions> = {}) {
+    this.modes = new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...modeOptions });
+  }
+
+  evaluate(spec: PointSpec): PointOutcome {
+    const invalid = validateSpec(spec);
+    if (invalid) return invalid;
+    const options = { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: spec.tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
+    const bg = this.background.solve(spec.potential, spec.phiInit, options);
+    if (bg.status !== 'ok') return bg;
+    const modes = spec.modes ? new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...spec.modes }) : this.modes;
+
+    let nStar = spec.nStar ?? 55;
+    let result = this.observe(spec, bg, nStar, modes);
+    if (spec.reheating) {
+      // N_* depends on V_* and V_end of the normalised potential, which depend on N_*: iterate.
+      for (let iter = 0; iter < 30 && result.status === 'ok'; iter++) {
+        const next = this.nStarFor(spec.reheating, spec.potential, result, bg);
+        if (typeof next !== 'number') return next;
+        if (Math.abs(next - nStar) < 1e-7) break;
+        nStar = next;
+        result = this.observe(spec, bg, nStar, modes);
+      }
+    }
+    return result;
+  }
+
+  private nStarFor(reh: Reheating, potential: PotentialFunctions, point: PointResult, bg: BackgroundSolution): number | Failure {
+    const lambda = point.amplitudeScale;
+    const hubbleStar = point.hubbleGeV / REDUCED_PLANCK_MASS_GEV;
+    const rhoEnd = 1.5 * lambda * potential.V(bg.phiEnd);
+    const { rho } = reheatingDensity(reh);
+    if (rho > rhoEnd * REDUCED_PLANCK_MASS_GEV ** 4 * (1 + 1e-12)) {
+      const end14 = (rhoEnd ** 0.25) * REDUCED_PLANCK_MASS_GEV;
+      return failure('invalid_input', `the reheating energy ρ_reh^1/4 = ${fmt(rho ** 0.25)} GeV is above the energy at the end of inflation, ${fmt(end14)} GeV`);
+    }
+    return nStarFromReheating(reh, hubbleStar, rhoEnd);
+  }
+
+  private observe(spec: PointSpec, bg: BackgroundSolution, nStar: number, modes: ModeSolver): PointOutcome {
+    if (bg.nEnd < nStar) {
+      return failure('insufficient_efolds', `only ${fmt(bg.nEnd)} e-folds of inflation from φ_init = ${fmt(spec.phiInit)} to the end, fewer than N_* = ${fmt(nStar)}; start further up the potential`, { nTotal: bg.nEnd });
+    }
+    const nPivot = bg.nEnd - nStar;
+    this.background.stateAt(nPivot, this.pivot);
+    const phiStar = this.pivot[0];
+    const piStar = this.pivot[1];
+    const potential = spec.potential;
+    const sr = potentialSlowRoll(potential, phiStar);
+    const flow = hubbleFlow(potential, phiStar, piStar);
+    const second = secondOrderSlowRoll(flow);
+    let { ns, r, alphaS, As } = sr;
+    let nt = sr.nt;
+    let evaluations = bg.evaluations;
+    let spectrum: PointResult['spectrum'];
+    if (spec.method === 'exact') {
+      const exact = modes.solve(potential, bg, nPivot, { phi: phiStar, pi: piStar }, spec.spectrum ? SPECTRUM_LNK : undefined);
+      if ('status' in exact) return exact;
+      ({ ns, r, alphaS, As } = exact);
+      nt = -r / 8;
+      evaluations += exact.evaluations;
+      if (exact.spectrum) {
+        spectrum = { ...exact.spectrum, kPerMpc: exact.spectrum.lnK.map((l) => PIVOT_K_PER_MPC * Math.exp(l)) };
+      }
+    }
+    if (!(As > 0) || !Number.isFinite(ns)) {
+      return failure('integration_failed', `the observables at the pivot are not finite (A_s = ${fmt(As)}, n_s = ${fmt(ns)})`, { nTotal: bg.nEnd });
+    }
+    const amplitudeScale = TARGET_AS / As;
+    const vStar = potential.V(phiStar) * amplitudeScale;
+    const hubble = Math.sqrt(flow.hubble2 * amplitudeScale);
+    const result: PointResult = {
+      status: 'ok',
+      message: '',
+      method: spec.method,
+      ns,
+      r,
+      alphaS,
+      nt,
+      As,
+      amplitudeScale,
+      nTotal: bg.nEnd,
+      nStar,
+      phiStar,
+      phiEnd: bg.phiEnd,
+      deltaPhi: Math.abs(phiStar - bg.phiEnd),
+      energyScaleGeV: vStar ** 0.25 * REDUCED_PLANCK_MASS_GEV,
+      hubbleGeV: hubble * REDUCED_PLANCK_MASS_GEV,
+      epsilonV: sr.epsilonV,
+      etaV: sr.etaV,
+      xi2V: sr.xi2V,
+      secondOrder: second,
+      evaluations,
+    };
+    if (spec.trajectory) result.trajectory = trajectoryOf(bg);
+    if (spectrum) result.spectrum = spectrum;
+    return result;
+  }
+}
+
+
+function trajectoryOf(bg: BackgroundSolution): NonNullable<PointResult['trajectory']> {
+  const t = bg.table;
+  const N = Array.from(t.n.subarray(0, t.length));
+  const phi = Array.from(t.phi.subarray(0, t.length));
+  const pi = Array.from(t.pi.subarray(0, t.length));
+  return { N, phi, pi, epsilonH: pi.map((p) => 0.5 * p * p) };
+}
+
+function validateSpec(spec: PointSpec): Failure | null {
+  if (!Number.isFinite(spec.phiInit)) return failure('invalid_input', `φ_init must be a finite number, not ${spec.phiInit}`);
+  if (spec.method !== 'slowroll' && spec.method !== 'exact') return failure('invalid_input', `method must be 'slowroll' or 'exact', not '${String(spec.method)}'`);
+  if (spec.reheating && spec.nStar !== undefined) return failure('invalid_input', 'give either N_* or a reheating history, not both');
+  if (!spec.reheating) {
+    const n = spec.nStar;
+    if (n === undefined || !Number.isFinite(n) || n <= 0 || n > 1000) return failure('invalid_input', `N_* must be a number between 0 and 1000, not ${n}`);
+  } else {
+    const { w, energyGeV, temperatureGeV, dof } = spec.reheating;
+    if (!Number.isFinite(w) || w <= -1 / 3 || w > 1) return failure('invalid_input', `w_reh must lie in (−1/3, 1], not ${w}`);
+    const scale = energyGeV ?? temperatureGeV;
+    if ((energyGeV === undefined) === (temperatureGeV === undefined)) return failure('invalid_input', 'give the reheating energy scale or the reheating temperature (one of them)');
+    if (!Number.isFinite(scale) || (scale as number) <= 0) return failure('invalid_input', `the reheating scale must be a positive number of GeV, not ${scale}`);
+    if (dof !== undefined && (!Number.isFinite(dof) || dof <= 0)) return failure('invalid_input', `the reheating degrees of freedom must be positive, not ${dof}`);
+  }
+  if (spec.tolerance !== undefined && !(spec.tolerance >= 1e-14 && spec.tolerance <= 1e-4)) {
+    return failure('invalid_input', `tolerance must lie between 1e-14 and 1e-4, not ${spec.tolerance}`);
+  }
+  return null;
+}

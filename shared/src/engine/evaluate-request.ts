@@ -1,0 +1,102 @@
+import { evaluateRequestSchema, type EvaluateRequest } from '../schemas/evaluate.schema.js';
+import { parsePotential, type ParsedPotential } from './expression/index.js';
+import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
+import { findFamily } from './families/potential-families.js';
+import { failure, type Failure } from './types.js';
+
+/** One evaluated point as scripts and the API see it: outputs are null when status is not ok. */
+export interface EvaluateResponse {
+  status: PointOutcome['status'];
+  message: string;
+  ns: number | null;
+  r: number | null;
+  alphaS: number | null;
+  nt: number | null;
+  As: number | null;
+  amplitudeScale: number | null;
+  nTotal: number | null;
+  nStar: number | null;
+  phiStar: number | null;
+  phiEnd: number | null;
+  deltaPhi: number | null;
+  energyScaleGeV: number | null;
+  hubbleGeV: number | null;
+  phiInit: number | null;
+  secondOrder: PointResult['secondOrder'] | null;
+  evaluations: number | null;
+  trajectory?: PointResult['trajectory'];
+  spectrum?: PointResult['spectrum'];
+}
+
+const NULL_OUTPUTS = {
+  ns: null, r: null, alphaS: null, nt: null, As: null, amplitudeScale: null, nStar: null, phiStar: null,
+  phiEnd: null, deltaPhi: null, energyScaleGeV: null, hubbleGeV: null, secondOrder: null, evaluations: null,
+};
+
+/**
+ * Parses, differentiates and evaluates requests, keeping the parsed expressions of recent
+ * potentials so that a scan parses its expression once. Pure apart from that cache.
+ */
+export class RequestEvaluator {
+  private readonly parsed = new Map<string, ParsedPotential | Failure>();
+  private readonly point = new PointEvaluator();
+
+  evaluate(input: unknown): EvaluateResponse {
+    const request = evaluateRequestSchema.safeParse(input);
+    if (!request.success) {
+      const message = request.error.issues.map((i) => (i.path.length ? `${i.path.join('.')}: ${i.message}` : i.message)).join('; ');
+      return respond(failure('invalid_input', message), null);
+    }
+    const req = request.data;
+    const family = findFamily(req.potential);
+    const source = family ? family.expression : req.potential;
+    const params = family ? { ...Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue])), ...req.params } : req.params;
+    const parsed = this.parse(source, Object.keys(params));
+    if ('status' in parsed) return respond(parsed, null);
+    const bound = parsed.bind(params);
+    if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
+    const potential = bound.potential;
+    const phiInit = req.phiInit ?? family?.phiInit(params, potential);
+    if (phiInit === undefined) {
+      return respond(failure('invalid_input', 'phiInit is required for an expression (built-in families know where they inflate)'), null);
+    }
+    const outcome = this.point.evaluate({
+      potential,
+      phiInit,
+      method: req.method,
+      nStar: req.nStar,
+      reheating: req.reheating,
+      tolerance: req.tolerance,
+      trajectory: req.trajectory,
+      spectrum: req.spectrum,
+    });
+    return respond(outcome, phiInit);
+  }
+
+  private parse(source: string, names: string[]): ParsedPotential | Failure {
+    const key = `${names.join(',')}|${source}`;
+    let entry = this.parsed.get(key);
+    if (!entry) {
+      const result = parsePotential(source, names);
+      entry = result.ok ? result.potential : failure('invalid_potential', result.problem.message);
+      if (this.parsed.size >= 64) this.parsed.delete(this.parsed.keys().next().value as string);
+      this.parsed.set(key, entry);
+    }
+    return entry;
+  }
+}
+
+function respond(outcome: PointOutcome, phiInit: number | null): EvaluateResponse {
+  if (outcome.status !== 'ok') {
+    return { status: outcome.status, message: outcome.message, ...NULL_OUTPUTS, nTotal: outcome.nTotal ?? null, phiInit };
+  }
+  const { status, message, ns, r, alphaS, nt, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, deltaPhi, energyScaleGeV, hubbleGeV, secondOrder, evaluations } = outcome;
+  const response: EvaluateResponse = {
+    status, message, ns, r, alphaS, nt, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, deltaPhi, energyScaleGeV, hubbleGeV, phiInit, secondOrder, evaluations,
+  };
+  if (outcome.trajectory) response.trajectory = outcome.trajectory;
+  if (outcome.spectrum) response.spectrum = outcome.spectrum;
+  return response;
+}
+
+export type { EvaluateRequest };

@@ -1,0 +1,7 @@
+export * from './types.js';
+export * from './constants.js';
+export { PointEvaluator, type Method, type PointOutcome, type PointResult, type PointSpec } from './evaluate-point.js';
+export { RequestEvaluator, type EvaluateResponse } from './evaluate-request.js';
+export { POTENTIAL_FAMILIES, findFamily, type PotentialFamily } from './families/potential-families.js';
+export { nStarFromReheating, type Reheating } from './pivot/reheating.js';
+export * from './expression/index.js';
