@@ -13,8 +13,8 @@ export interface BackgroundOptions {
 }
 
 export const DEFAULT_BACKGROUND_OPTIONS: BackgroundOptions = {
-  tolerance: 1e-8,
-  maxStep: 1,
+  tolerance: 1e-7,
+  maxStep: 2,
   maxEfolds: 2000,
   fieldLimit: 1e8,
 };

@@ -15,11 +15,11 @@ export interface PotentialFamily {
   reference: string;
   /** False for families in which inflation never ends by itself. */
   endsInflation: boolean;
-  /** A start about 80 slow-roll e-folds before the end, from the parameters. */
+  /** A start about 75 slow-roll e-folds before the end, from the parameters. */
   phiInit(params: Record<string, number>, potential: PotentialFunctions): number;
 }
 
-const START_EFOLDS = 80;
+const START_EFOLDS = 75;
 const p = (name: string, defaultValue: number, min: number, max: number, description: string): ModelParameter => ({
   name, defaultValue, min, max, description,
 });
@@ -137,8 +137,8 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     expression: 'mu3 * phi + Lambda4 * cos(phi / f)',
     parameters: [
       p('mu3', 1e-10, 1e-20, 1e-4, 'slope of the linear potential'),
-      p('Lambda4', 1e-12, 0, 1e-4, 'amplitude of the modulation'),
-      p('f', 0.01, 1e-4, 10, 'period of the modulation / 2π'),
+      p('Lambda4', 1e-13, 0, 1e-4, 'amplitude of the modulation'),
+      p('f', 0.1, 1e-4, 10, 'period of the modulation / 2π'),
     ],
     region: 'φ > 0, rolling towards φ = 0; local minima appear where Λ⁴ > μ³ f',
     reference: 'McAllister, Silverstein & Westphal 2010, Phys. Rev. D 82, 046003 (arXiv:0808.0706); Flauger et al. 2010, JCAP 06, 009 (arXiv:0907.2916)',

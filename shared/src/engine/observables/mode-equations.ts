@@ -13,7 +13,7 @@ export interface ModeOptions {
   stencil: number;
 }
 
-export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 50, endDepth: 1e-3, tolerance: 1e-8, stencil: 0.25 };
+export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.25 };
 
 export interface ExactObservables {
   ns: number;

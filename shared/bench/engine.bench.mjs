@@ -1,0 +1,52 @@
+#!/usr/bin/env node
+// Engine speed on one core: points per second and right-hand-side evaluations per point for
+// each method, on the quadratic, Starobinsky and natural-inflation families at N_* = 55.
+// Figures only; nothing here asserts (machines are noisy).
+import { RequestEvaluator } from '@sixtyfold/shared';
+
+const CASES = [
+  { label: 'quadratic (monomial p=2)', potential: 'monomial', params: { p: 2 } },
+  { label: 'Starobinsky', potential: 'starobinsky', params: {} },
+  { label: 'natural (f = 7)', potential: 'natural', params: { f: 7 } },
+];
+// A careful SciPy script solving the same equations does about these many points per second
+// on this machine (the figures the speed goals were set against).
+const SCIPY_POINTS_PER_SECOND = { slowroll: 20, exact: 10 };
+const GOALS = { slowroll: 5000, exact: 200 };
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 2);
+
+function measure(request) {
+  const engine = new RequestEvaluator();
+  // Vary φ_init slightly, as a grid would, so nothing can be cached between points.
+  const first = engine.evaluate(request);
+  if (first.status !== 'ok') throw new Error(`${request.potential}: ${first.message}`);
+  for (let i = 0; i < 20; i++) engine.evaluate({ ...request, phiInit: first.phiInit * (1 + 1e-4 * i) }); // warm-up
+  let points = 0;
+  let evaluations = 0;
+  const start = performance.now();
+  while (performance.now() - start < SECONDS * 1000) {
+    const result = engine.evaluate({ ...request, phiInit: first.phiInit * (1 + 1e-6 * (points % 100)) });
+    evaluations += result.evaluations ?? 0;
+    points++;
+  }
+  const elapsed = (performance.now() - start) / 1000;
+  return { rate: points / elapsed, evaluationsPerPoint: evaluations / points };
+}
+
+const rows = [];
+for (const method of ['slowroll', 'exact']) {
+  for (const c of CASES) {
+    const { rate, evaluationsPerPoint } = measure({ potential: c.potential, params: c.params, nStar: 55, method });
+    rows.push({ method, model: c.label, rate, evaluationsPerPoint });
+  }
+}
+
+const pad = (s, n) => String(s).padEnd(n);
+process.stdout.write(`engine, one core, N_* = 55 (${SECONDS} s per case)\n\n`);
+process.stdout.write(`${pad('method', 10)}${pad('model', 28)}${pad('points/s', 12)}${pad('RHS evals/point', 18)}${pad('goal', 8)}vs SciPy\n`);
+for (const r of rows) {
+  process.stdout.write(
+    `${pad(r.method, 10)}${pad(r.model, 28)}${pad(r.rate.toFixed(0), 12)}${pad(r.evaluationsPerPoint.toFixed(0), 18)}` +
+      `${pad(r.rate >= GOALS[r.method] ? 'met' : 'MISSED', 8)}${(r.rate / SCIPY_POINTS_PER_SECOND[r.method]).toFixed(0)}x\n`,
+  );
+}

@@ -1,0 +1,10 @@
+export {
+  MAX_POTENTIAL_LENGTH,
+  parsePotential,
+  type CompiledPotential,
+  type ExpressionProblem,
+  type ParsedPotential,
+  type PotentialBindResult,
+  type PotentialParseResult,
+} from './compile-potential.js';
+export { POTENTIAL_FUNCTIONS, type PotentialFunctionName } from './expression-tree.js';
