@@ -459,7 +459,6 @@ describe('parsePotential: problems', () => {
       length: 5,
     });
     expect(problem.message).toContain('sqrt, exp, log, log10');
-    // The symbol 'erf' comes first in the text but the call is what is reported.
     expect(problemOf('phi + erf(phi) * 2')).toMatchObject({ index: 6, length: 3 });
   });
 
@@ -469,6 +468,13 @@ describe('parsePotential: problems', () => {
       index: 0,
       length: 6,
     });
+  });
+
+  it('a name used both bare and called is located at the use that is wrong', () => {
+    // 'lambda' first occurs as a valid symbol; the call at character 15 is the problem.
+    expect(problemOf('lambda * phi + lambda(phi)', ['lambda'])).toMatchObject({ index: 15, length: 6 });
+    // 'sqrt' first occurs as a valid call; the bare symbol at character 13 is the problem.
+    expect(problemOf('sqrt(phi) + sqrt')).toMatchObject({ index: 12, length: 4 });
   });
 
   it('wrong number of arguments', () => {
