@@ -130,3 +130,13 @@ describe('bad input and awkward numbers', () => {
     expect(evaluate({ potential: 'starobinsky' }).status).toBe('ok');
   });
 });
+
+describe('potentials undefined on the path', () => {
+  it('a potential that stops being defined is reported as invalid there, not as NaN', () => {
+    // sqrt(phi - 9) is undefined below φ = 9, which the field reaches while still inflating.
+    const result = evaluate({ potential: '1 + sqrt(phi - 9)', params: {}, phiInit: 20, nStar: 5 });
+    expect(result.status).toBe('invalid_potential');
+    expect(result.message).toMatch(/V is not a finite number at φ = 9\.0/);
+    expect(result.ns).toBeNull();
+  });
+});

@@ -15,7 +15,7 @@ export interface PointSpec {
   /** E-folds between the pivot crossing and the end of inflation; or give `reheating`. */
   nStar?: number;
   reheating?: Reheating;
-  /** Step tolerance of the background integration (default 1e-7). */
+  /** Step tolerance of the background integration (default 1e-6). */
   tolerance?: number;
   /** Settings of the mode integrations (exact method). */
   modes?: Partial<ModeOptions>;

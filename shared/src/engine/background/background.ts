@@ -13,7 +13,7 @@ export interface BackgroundOptions {
 }
 
 export const DEFAULT_BACKGROUND_OPTIONS: BackgroundOptions = {
-  tolerance: 1e-7,
+  tolerance: 1e-6,
   maxStep: 2,
   maxEfolds: 2000,
   fieldLimit: 1e8,
@@ -104,7 +104,7 @@ export interface BackgroundSolution {
 export class BackgroundSolver {
   readonly table = new BackgroundTable();
   private potential!: PotentialFunctions;
-  private badV = 0; // 0 fine, 1 V <= 0, 2 V not finite
+  private badV = 0; // why the path failed: 1 V <= 0, 2 V not finite
   private badPhi = 0;
   private readonly stepper: CashKarpStepper;
   private readonly node = new Float64Array(2);
@@ -117,10 +117,6 @@ export class BackgroundSolver {
     const phi = y[0];
     const pi = y[1];
     const V = this.potential.V(phi);
-    if (!(V > 0) && this.badV === 0) {
-      this.badV = Number.isFinite(V) ? 1 : 2;
-      this.badPhi = phi;
-    }
     const eps = 0.5 * pi * pi;
     out[0] = pi;
     out[1] = -(3 - eps) * (pi + this.potential.dV(phi) / V);
@@ -161,8 +157,13 @@ export class BackgroundSolver {
     let lastTurnPhi = NaN;
     const nMax = options.maxEfolds;
     for (;;) {
-      const result = s.step(nMax);
-      if (this.badV !== 0) return this.potentialFailure();
+      let result = s.step(nMax);
+      // A step that ends where V ≤ 0 or is undefined, or whose trial stages strayed there, is
+      // retaken in shorter pieces; only if that fails does the path itself leave the domain.
+      if ((result === 'ok' && !(potential.V(s.y[0]) > 0)) || result === 'non_finite') {
+        if (this.retakeInsideDomain()) result = 'ok';
+        else if (this.badV !== 0) return this.potentialFailure();
+      }
       if (result === 'non_finite') {
         return failure('integration_failed', `the integration produced non-finite values near N = ${fmt(s.tPrev)}, φ = ${fmt(s.yPrev[0])}`, { nTotal: s.tPrev, phi: s.yPrev[0] });
       }
@@ -202,7 +203,7 @@ export class BackgroundSolver {
     }
     let tEnd = 0.5 * (lo + hi);
     for (let iter = 0; iter < 8; iter++) {
-      if (s.restepTo(tEnd) !== 'ok' || this.badV !== 0) break;
+      if (s.restepTo(tEnd) !== 'ok') break;
       const phi = s.y[0];
       const pi = s.y[1];
       const residual = 0.5 * pi * pi - 1;
@@ -216,10 +217,36 @@ export class BackgroundSolver {
     if (s.restepTo(tEnd) !== 'ok') {
       return failure('integration_failed', `could not re-step to the end of inflation near N = ${fmt(tEnd)}`, { nTotal: tEnd });
     }
-    if (this.badV !== 0) return this.potentialFailure();
+    if (!(this.potential.V(s.y[0]) > 0)) {
+      this.badV = Number.isFinite(this.potential.V(s.y[0])) ? 1 : 2;
+      this.badPhi = s.y[0];
+      return this.potentialFailure();
+    }
     s.computeDerivative();
     this.table.push(tEnd, s.y, s.dy);
     return { status: 'ok', nEnd: tEnd, phiEnd: s.y[0], piEnd: s.y[1], table: this.table, evaluations: s.evaluations };
+  }
+
+  /**
+   * The last step ended where V ≤ 0 (or V is undefined). Trial stages may stray there near the
+   * end of inflation without harm, but an accepted state may not: retake the step in ever
+   * shorter pieces; if even a tiny one leaves V > 0 behind, the path really reaches that region.
+   */
+  private retakeInsideDomain(): boolean {
+    const s = this.stepper;
+    let h = s.t - s.tPrev;
+    let lastStatus = 'ok';
+    while (h > 1e-12) {
+      h /= 4;
+      lastStatus = s.restepTo(s.tPrev + h);
+      if (lastStatus === 'ok' && this.potential.V(s.y[0]) > 0) return true;
+    }
+    const phi = lastStatus === 'ok' && Number.isFinite(s.y[0]) ? s.y[0] : s.yPrev[0];
+    const V = this.potential.V(phi);
+    // Even the shortest step fails: V ≤ 0 there, or V or V' stops being defined just beyond.
+    this.badV = lastStatus === 'ok' && V <= 0 ? 1 : 2;
+    this.badPhi = phi;
+    return false;
   }
 
   /**
@@ -245,7 +272,7 @@ export class BackgroundSolver {
     if (this.badV === 1) {
       return failure('negative_potential', `V ≤ 0 at φ = ${fmt(this.badPhi)} on the path, after about ${fmt(n)} e-folds; the field reached a region where V is not positive before inflation ended`, { phi: this.badPhi, nTotal: n });
     }
-    return failure('invalid_potential', `V is not a finite number at φ = ${fmt(this.badPhi)} on the path (after about ${fmt(n)} e-folds)`, { phi: this.badPhi, nTotal: n });
+    return failure('invalid_potential', `V is not a finite number at φ = ${fmt(this.badPhi)} on the path, or V' stops being defined just beyond it (after about ${fmt(n)} e-folds)`, { phi: this.badPhi, nTotal: n });
   }
 
   private trapped(phiA: number, phiB: number): Failure {

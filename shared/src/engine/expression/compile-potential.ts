@@ -151,11 +151,13 @@ export function parsePotential(source: string, parameterNames: readonly string[]
     bind(params) {
       const values = checkParameterValues(params, declared);
       if (!values.ok) return values;
+      // One map per bind: V, V', V'', V''' of these parameter values share their function calls.
+      const shared = new Map<string, (phi: number) => number>();
       const compiled: CompiledPotential = {
-        V: compileTree(trees.V, values.map),
-        dV: compileTree(trees.dV, values.map),
-        d2V: compileTree(trees.d2V, values.map),
-        d3V: compileTree(trees.d3V, values.map),
+        V: compileTree(trees.V, values.map, shared),
+        dV: compileTree(trees.dV, values.map, shared),
+        d2V: compileTree(trees.d2V, values.map, shared),
+        d3V: compileTree(trees.d3V, values.map, shared),
         derivatives: { ...derivatives },
         parameterNames: [...usedNames],
       };

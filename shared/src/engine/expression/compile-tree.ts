@@ -52,13 +52,34 @@ const PHI: ScalarFunction = (phi) => phi;
  * @param parameters value of every parameter the tree mentions; a missing one is a programming
  *   error (callers validate first) and throws.
  */
-export function compileTree(tree: ExpressionTree, parameters: ReadonlyMap<string, number>): ScalarFunction {
-  const compiled = compileNode(tree, parameters);
+export function compileTree(
+  tree: ExpressionTree,
+  parameters: ReadonlyMap<string, number>,
+  shared: Map<string, ScalarFunction> = new Map(),
+): ScalarFunction {
+  const compiled = compileNode(tree, parameters, shared);
   if (typeof compiled === 'number') return () => compiled;
   return compiled;
 }
 
-function compileNode(tree: ExpressionTree, parameters: ReadonlyMap<string, number>): Compiled {
+/**
+ * Function calls (exp, sin, …) are the costly nodes, and V, V', V'' repeat them: the same
+ * sub-tree, compiled once per `shared` map, remembers its last argument and value, so the
+ * integrator's V(φ) then V'(φ) at one φ computes each exp once. Pure: the result depends on φ only.
+ */
+function memoizedCall(f: (x: number) => number, a: ScalarFunction): ScalarFunction {
+  let lastPhi = NaN;
+  let lastValue = NaN;
+  return (phi) => {
+    if (phi === lastPhi) return lastValue;
+    lastValue = f(a(phi));
+    lastPhi = phi;
+    return lastValue;
+  };
+}
+
+function compileNode(tree: ExpressionTree, parameters: ReadonlyMap<string, number>, shared: Map<string, ScalarFunction>): Compiled {
+  const recurse = (t: ExpressionTree) => compileNode(t, parameters, shared);
   switch (tree.kind) {
     case 'number':
       return tree.value;
@@ -70,18 +91,25 @@ function compileNode(tree: ExpressionTree, parameters: ReadonlyMap<string, numbe
       return value;
     }
     case 'negate': {
-      const a = compileNode(tree.arg, parameters);
+      const a = recurse(tree.arg);
       return typeof a === 'number' ? -a : (phi) => -a(phi);
     }
     case 'call': {
       const f = FUNCTIONS[tree.fn];
-      const a = compileNode(tree.arg, parameters);
-      return typeof a === 'number' ? f(a) : (phi) => f(a(phi));
+      const a = recurse(tree.arg);
+      if (typeof a === 'number') return f(a);
+      const key = JSON.stringify(tree);
+      let fn = shared.get(key);
+      if (!fn) {
+        fn = memoizedCall(f, a);
+        shared.set(key, fn);
+      }
+      return fn;
     }
     case 'log-base':
-      return compileLogBase(compileNode(tree.arg, parameters), compileNode(tree.base, parameters));
+      return compileLogBase(recurse(tree.arg), recurse(tree.base));
     case 'binary':
-      return compileBinary(tree.op, compileNode(tree.left, parameters), compileNode(tree.right, parameters));
+      return compileBinary(tree.op, recurse(tree.left), recurse(tree.right));
   }
 }
 
