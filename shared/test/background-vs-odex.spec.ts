@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { RequestEvaluator } from '../src/engine/evaluate-request.js';
 import { POTENTIAL_FAMILIES, type PotentialFamily } from '../src/engine/families/potential-families.js';
-import { parsePotential, type CompiledPotential } from '../src/engine/expression/index.js';
+import { type CompiledPotential } from '../src/engine/expression/index.js';
 import { flow, odexBackground, type ReferenceBackground } from './reference/odex-reference.js';
+import { compile } from './support/compile.js';
 
 // The engine's background (Cash-Karp, src/engine/background/background.ts) against a second,
 // general-purpose integrator from the registries: ODEX, Gragg-Bulirsch-Stoer extrapolation
@@ -13,13 +14,6 @@ import { flow, odexBackground, type ReferenceBackground } from './reference/odex
 
 const N_STAR = 55;
 
-function compile(source: string, params: Record<string, number>): CompiledPotential {
-  const parsed = parsePotential(source, Object.keys(params));
-  if (!parsed.ok) throw new Error(`parse failed: ${parsed.problem.message}`);
-  const bound = parsed.potential.bind(params);
-  if (!bound.ok) throw new Error(`bind failed: ${bound.problem.message}`);
-  return bound.potential;
-}
 
 function family(key: string): PotentialFamily {
   const f = POTENTIAL_FAMILIES.find((x) => x.key === key);

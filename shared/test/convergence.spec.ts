@@ -1,17 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS } from '../src/engine/background/background.js';
 import { PointEvaluator, type PointResult } from '../src/engine/evaluate-point.js';
-import { parsePotential } from '../src/engine/expression/index.js';
+import { compile as compiled } from './support/compile.js';
 import { potentialSlowRoll } from '../src/engine/observables/slow-roll.js';
-import type { PotentialFunctions } from '../src/engine/types.js';
-
-function compiled(source: string, params: Record<string, number>): PotentialFunctions {
-  const parsed = parsePotential(source, Object.keys(params));
-  if (!parsed.ok) throw new Error(parsed.problem.message);
-  const bound = parsed.potential.bind(params);
-  if (!bound.ok) throw new Error(bound.problem.message);
-  return bound.potential;
-}
 
 const starobinsky = compiled('0.75 * (1 - exp(-sqrt(2/3) * phi))^2', {});
 const quadratic = compiled('0.5 * m^2 * phi^2', { m: 6e-6 });

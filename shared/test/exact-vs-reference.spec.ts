@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { RequestEvaluator } from '../src/engine/evaluate-request.js';
 import { POTENTIAL_FAMILIES } from '../src/engine/families/potential-families.js';
-import { parsePotential, type CompiledPotential } from '../src/engine/expression/index.js';
+import { type CompiledPotential } from '../src/engine/expression/index.js';
 import { odexBackground, odexReference, odexSpectra, type ReferenceOptions, type ReferenceSpectra } from './reference/odex-reference.js';
+import { compile } from './support/compile.js';
 
 // The engine's `exact` method (ζ and h mode equations with Cash-Karp, a three-point stencil;
 // src/engine/observables/mode-equations.ts) against an independent solution of the same physics
@@ -21,13 +22,6 @@ const ALPHA_TOL = 1e-4;
 const R_TOL = 5e-3;
 const AS_TOL = 5e-3;
 
-function compile(source: string, params: Record<string, number>): CompiledPotential {
-  const parsed = parsePotential(source, Object.keys(params));
-  if (!parsed.ok) throw new Error(`parse failed: ${parsed.problem.message}`);
-  const bound = parsed.potential.bind(params);
-  if (!bound.ok) throw new Error(`bind failed: ${bound.problem.message}`);
-  return bound.potential;
-}
 
 /** ln Γ(x) for x > 0.5, Lanczos (1964, SIAM J. Numer. Anal. B 1, 86) with g = 7, n = 9 (P. Godfrey's coefficients), ~1e-15 relative. */
 function lnGamma(x: number): number {
