@@ -5,7 +5,7 @@ import { type CompiledPotential } from '../src/engine/expression/index.js';
 import { odexBackground, odexReference, odexSpectra, type ReferenceOptions, type ReferenceSpectra } from './reference/odex-reference.js';
 import { compile } from './support/compile.js';
 
-// The engine's `exact` method (ζ and h mode equations with Cash-Karp, a three-point stencil;
+// The engine's `exact` method (ζ and h mode equations with Cash-Karp, a five-point stencil of spacing 0.1;
 // src/engine/observables/mode-equations.ts) against an independent solution of the same physics
 // (test/reference/odex-reference.ts): Mukhanov-Sasaki variables v = zζ and v_T = ah/2 (Mukhanov,
 // Feldman & Brandenberger 1992, Phys. Rep. 215, 203) with z''/z from the Hubble-flow functions
