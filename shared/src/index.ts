@@ -9,3 +9,6 @@ export * from './schemas/paging.schema.js';
 export * from './queue/worker-pool.js';
 export * from './schemas/evaluate.schema.js';
 export * from './engine/index.js';
+export * from './schemas/scan.schema.js';
+export * from './scans/scan-grid.js';
+export * from './scans/scan-point.js';

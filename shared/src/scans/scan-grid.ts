@@ -1,0 +1,71 @@
+import type { CreateScan, ScanAxis } from '../schemas/scan.schema.js';
+
+/** The values along one axis, in order. */
+export function axisValues(axis: ScanAxis): number[] {
+  if (axis.kind === 'list') return [...axis.values];
+  const { min, max, count, spacing } = axis;
+  if (count === 1) return [min];
+  const values: number[] = [];
+  for (let i = 0; i < count; i++) {
+    const t = i / (count - 1);
+    values.push(spacing === 'log' ? min * (max / min) ** t : min + t * (max - min));
+  }
+  // Land exactly on the ends the user typed, whatever the rounding of the steps.
+  values[count - 1] = max;
+  return values;
+}
+
+export function axisLength(axis: ScanAxis): number {
+  return axis.kind === 'list' ? axis.values.length : axis.count;
+}
+
+/** Number of points of a scan: the product of its axis lengths. */
+export function pointCount(spec: Pick<CreateScan, 'axes'>): number {
+  return spec.axes.reduce((n, axis) => n * axisLength(axis), 1);
+}
+
+/** The message for a scan over its limit, saying by how much; null when it fits. */
+export function pointLimitProblem(count: number, limit: number, whose: string): string | null {
+  if (count <= limit) return null;
+  const f = (n: number) => n.toLocaleString('en-US');
+  return `This scan has ${f(count)} points, ${f(count - limit)} more than ${whose} limit of ${f(limit)}`;
+}
+
+/**
+ * Expands scan points by index: point i takes, for each axis, the value at its digit of i in
+ * the mixed radix of the axis lengths (last axis fastest). Nothing is materialised, so a
+ * million-point scan costs nothing until a chunk asks for its points.
+ */
+export class ScanGrid {
+  readonly values: number[][];
+  readonly lengths: number[];
+  readonly size: number;
+
+  constructor(readonly axes: ScanAxis[]) {
+    this.values = axes.map(axisValues);
+    this.lengths = this.values.map((v) => v.length);
+    this.size = this.lengths.reduce((n, l) => n * l, 1);
+  }
+
+  /** Axis indices of point `index`. */
+  indices(index: number): number[] {
+    const out = new Array<number>(this.lengths.length);
+    let rest = index;
+    for (let a = this.lengths.length - 1; a >= 0; a--) {
+      out[a] = rest % this.lengths[a];
+      rest = Math.floor(rest / this.lengths[a]);
+    }
+    return out;
+  }
+
+  /** The axis values of point `index`, by axis parameter name. */
+  point(index: number): Record<string, number> {
+    if (!(index >= 0 && index < this.size && Number.isInteger(index))) throw new RangeError(`point ${index} is outside the grid of ${this.size}`);
+    const idx = this.indices(index);
+    const point: Record<string, number> = {};
+    this.axes.forEach((axis, a) => {
+      point[axis.parameter] = this.values[a][idx[a]];
+    });
+    return point;
+  }
+}

@@ -1,0 +1,112 @@
+import { z } from 'zod';
+import { scanMethodSchema } from './scan-summary.schema.js';
+
+/** What an axis may vary besides a model parameter. */
+export const PIVOT_AXES = ['nStar', 'reheatingW', 'reheatingEnergyGeV'] as const;
+export type PivotAxis = (typeof PIVOT_AXES)[number];
+
+const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
+
+const axisName = z.string().min(1, 'choose what the axis varies').max(64);
+
+export const rangeAxisSchema = z.object({
+  kind: z.literal('range'),
+  parameter: axisName,
+  min: finite('min'),
+  max: finite('max'),
+  count: z.number().int('count must be a whole number').min(1, 'an axis has at least 1 value').max(100_000, 'an axis has at most 100,000 values'),
+  spacing: z.enum(['linear', 'log']).default('linear'),
+});
+
+export const listAxisSchema = z.object({
+  kind: z.literal('list'),
+  parameter: axisName,
+  values: z.array(finite('every value')).min(1, 'the list is empty').max(100_000, 'a list has at most 100,000 values'),
+});
+
+export const scanAxisSchema = z.discriminatedUnion('kind', [rangeAxisSchema, listAxisSchema]);
+export type ScanAxis = z.infer<typeof scanAxisSchema>;
+
+export const scanModelSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('family'), family: z.string().min(1) }),
+  z.object({ kind: z.literal('group'), modelId: z.number().int().positive() }),
+]);
+export type ScanModel = z.infer<typeof scanModelSchema>;
+
+export const scanPivotSchema = z.discriminatedUnion('kind', [
+  /** N_* fixed, or on an axis named nStar. */
+  z.object({ kind: z.literal('fixed'), nStar: finite('N_*').gt(0).lte(1000).optional() }),
+  /** N_* from reheating; w and ρ_reh^1/4 fixed here or on axes reheatingW / reheatingEnergyGeV. */
+  z.object({
+    kind: z.literal('reheating'),
+    w: finite('w_reh').gt(-1 / 3, 'w_reh must be above −1/3').lte(1, 'w_reh is at most 1').optional(),
+    energyGeV: finite('the reheating energy').positive('the reheating energy must be positive').optional(),
+  }),
+]);
+export type ScanPivot = z.infer<typeof scanPivotSchema>;
+
+/**
+ * A scan as submitted: the web form and `POST /api/scans` validate with this one schema.
+ * Axes run in the order given, the last one fastest, so point i is a fixed set of values.
+ */
+export const createScanSchema = z
+  .object({
+    groupId: z.number().int().positive(),
+    name: z.string().trim().min(1, 'give the scan a name').max(200, 'names are at most 200 characters'),
+    tags: z.array(z.string().trim().min(1).max(64, 'tags are at most 64 characters')).max(20, 'at most 20 tags').default([]),
+    note: z.string().max(10_000, 'notes are at most 10,000 characters').default(''),
+    model: scanModelSchema,
+    /** Values of the model's parameters that no axis varies. */
+    params: z.record(z.string(), finite('each parameter value')).default({}),
+    phiInit: finite('φ_init').optional(),
+    axes: z.array(scanAxisSchema).min(1, 'add at least one axis').max(4, 'a scan has at most 4 axes'),
+    pivot: scanPivotSchema,
+    method: scanMethodSchema,
+    tolerance: z.number().min(1e-14).max(1e-4).optional(),
+  })
+  .superRefine((spec, ctx) => {
+    const seen = new Set<string>();
+    spec.axes.forEach((axis, i) => {
+      if (seen.has(axis.parameter)) {
+        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} is on two axes` });
+      }
+      seen.add(axis.parameter);
+      if (axis.parameter in spec.params) {
+        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} is both fixed and on an axis` });
+      }
+      if (axis.kind === 'range') {
+        if (axis.count > 1 && !(axis.max > axis.min)) {
+          ctx.addIssue({ code: 'custom', path: ['axes', i, 'max'], message: 'max must be above min' });
+        }
+        if (axis.spacing === 'log' && !(axis.min > 0)) {
+          ctx.addIssue({ code: 'custom', path: ['axes', i, 'min'], message: 'a logarithmic axis needs min > 0' });
+        }
+      }
+      const pivotAxis = (PIVOT_AXES as readonly string[]).includes(axis.parameter);
+      if (axis.parameter === 'nStar' && spec.pivot.kind !== 'fixed') {
+        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: 'an N_* axis needs a fixed pivot, not reheating' });
+      }
+      if (pivotAxis && axis.parameter !== 'nStar' && spec.pivot.kind !== 'reheating') {
+        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} needs N_* from reheating` });
+      }
+    });
+    const p = spec.pivot;
+    if (p.kind === 'fixed' && p.nStar === undefined && !seen.has('nStar')) {
+      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: 'give N_* or put it on an axis' });
+    }
+    if (p.kind === 'fixed' && p.nStar !== undefined && seen.has('nStar')) {
+      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: 'N_* is both fixed and on an axis' });
+    }
+    if (p.kind === 'reheating') {
+      for (const [field, axis] of [['w', 'reheatingW'], ['energyGeV', 'reheatingEnergyGeV']] as const) {
+        if ((p[field] === undefined) === !seen.has(axis)) {
+          ctx.addIssue({ code: 'custom', path: ['pivot', field], message: `give ${axis === 'reheatingW' ? 'w_reh' : 'the reheating energy'} either here or on an axis, once` });
+        }
+      }
+    }
+  });
+export type CreateScan = z.infer<typeof createScanSchema>;
+export type CreateScanInput = z.input<typeof createScanSchema>;
+
+/** Largest scan any group may submit unless the site sets a lower limit. */
+export const DEFAULT_POINT_LIMIT = 1_000_000;
