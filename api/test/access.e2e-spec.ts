@@ -46,6 +46,7 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/models/:id', url: () => `/api/models/${plateauModelId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
+    { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
     { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
@@ -54,6 +55,17 @@ describe('every route against every role', () => {
     // Sign-out runs last: it ends the sessions the rows above used.
     { method: 'post', route: '/api/auth/logout', url: () => '/api/auth/logout', expect: everyoneSignedIn(204) },
   ];
+
+  const bodyFor = (route: string, role: Role) => {
+    if (route === '/api/auth/login') return { email: `${role}@nowhere.example`, password: 'wrong password' };
+    if (route === '/api/scans') {
+      return {
+        groupId: plateauId, name: `access table (${role})`, model: { kind: 'family', family: 'starobinsky' },
+        axes: [{ kind: 'list', parameter: 'nStar', values: [55] }], pivot: { kind: 'fixed' }, method: 'slowroll',
+      };
+    }
+    return {};
+  };
 
   beforeAll(async () => {
     t = await createTestApp();
@@ -89,7 +101,7 @@ describe('every route against every role', () => {
         const agent = agents.get(role)!;
         const res = row.method === 'get'
           ? await agent.get(row.url())
-          : await agent.post(row.url()).send(row.route === '/api/auth/login' ? { email: `${role}@nowhere.example`, password: 'wrong password' } : {});
+          : await agent.post(row.url()).send(bodyFor(row.route, role));
         got[role] = res.status;
       }
       expect(got).toEqual(row.expect);

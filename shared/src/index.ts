@@ -12,3 +12,4 @@ export * from './engine/index.js';
 export * from './schemas/scan.schema.js';
 export * from './scans/scan-grid.js';
 export * from './scans/scan-point.js';
+export * from './queue/scan-queue.js';

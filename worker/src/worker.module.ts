@@ -4,6 +4,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { buildDataSourceOptions, readDatabaseConfig } from '@sixtyfold/api/database';
 import { workerConfig } from './config/worker.config';
 import { HeartbeatModule } from './heartbeat/heartbeat.module';
+import { ScansModule } from './scans/scans.module';
 
 /** The worker process: no HTTP server, one database connection pool, one place in the pool. */
 @Module({
@@ -11,6 +12,7 @@ import { HeartbeatModule } from './heartbeat/heartbeat.module';
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [workerConfig] }),
     TypeOrmModule.forRootAsync({ useFactory: () => buildDataSourceOptions(readDatabaseConfig()) }),
     HeartbeatModule,
+    ScansModule,
   ],
 })
 export class WorkerModule {}

@@ -15,6 +15,7 @@ const schema = z.object({
   TRUST_PROXY: booleanish.default(false),
   LOGIN_THROTTLE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_THROTTLE_TTL_SECONDS: z.coerce.number().int().min(1).default(60),
+  SITE_POINT_LIMIT: z.coerce.number().int().min(1).default(1_000_000),
   NODE_ENV: z.string().default('development'),
 });
 
@@ -27,6 +28,8 @@ export interface AppConfig {
   cookieSecure: 'auto' | boolean;
   trustProxy: boolean;
   loginThrottle: { limit: number; ttlMs: number };
+  /** Largest scan, in points, that any group may submit. */
+  sitePointLimit: number;
 }
 
 export function readAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -44,6 +47,7 @@ export function readAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     cookieSecure: e.COOKIE_SECURE === 'auto' ? 'auto' : e.COOKIE_SECURE === 'true',
     trustProxy: e.TRUST_PROXY,
     loginThrottle: { limit: e.LOGIN_THROTTLE_LIMIT, ttlMs: e.LOGIN_THROTTLE_TTL_SECONDS * 1000 },
+    sitePointLimit: e.SITE_POINT_LIMIT,
   };
 }
 

@@ -1,5 +1,5 @@
-import { Controller, Get, Param, ParseIntPipe, Query } from '@nestjs/common';
-import { pageQuerySchema, type Page, type PageQuery, type ScanSummary } from '@sixtyfold/shared';
+import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
+import { createScanSchema, pageQuerySchema, type CreateScan, type Page, type PageQuery, type ScanSummary } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
@@ -15,6 +15,11 @@ export class ScansController {
     @Query(new ZodValidationPipe(pageQuerySchema)) query: PageQuery,
   ): Promise<Page<ScanSummary>> {
     return this.scans.list(user, query);
+  }
+
+  @Post()
+  create(@CurrentUser() user: SessionUser, @Body(new ZodValidationPipe(createScanSchema)) spec: CreateScan): Promise<ScanSummary> {
+    return this.scans.create(user, spec);
   }
 
   @Get(':id')

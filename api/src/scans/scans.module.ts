@@ -1,15 +1,18 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditModule } from '../audit/audit.module';
 import { GroupsModule } from '../groups/groups.module';
+import { QueueModule } from '../queue/queue.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
+import { ScanQueueService } from './scan-queue.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule],
   controllers: [ScansController],
-  providers: [ScansService],
+  providers: [ScansService, ScanQueueService],
 })
 export class ScansModule {}

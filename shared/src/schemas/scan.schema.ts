@@ -110,3 +110,9 @@ export type CreateScanInput = z.input<typeof createScanSchema>;
 
 /** Largest scan any group may submit unless the site sets a lower limit. */
 export const DEFAULT_POINT_LIMIT = 1_000_000;
+
+/** A scan specification as stored: completed with defaults, and its potential frozen. */
+export type StoredScanSpec = CreateScan & {
+  /** Family key or expression, copied at submission so a later model edit changes nothing. */
+  potentialSource: string;
+};

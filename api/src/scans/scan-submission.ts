@@ -1,0 +1,38 @@
+import { BadRequestException } from '@nestjs/common';
+import { findFamily, PIVOT_AXES, type CreateScan, type ModelParameter, type StoredScanSpec } from '@sixtyfold/shared';
+
+/**
+ * Checks the specification against its model's parameters and completes it: every parameter
+ * is fixed or on an axis (defaults fill the rest), no unknown names, and a start φ exists.
+ */
+export function completeSpec(
+  spec: CreateScan,
+  model: { source: string; parameters: ModelParameter[]; phiInit: number | null; isFamily: boolean },
+): StoredScanSpec {
+  const names = new Set(model.parameters.map((p) => p.name));
+  const problems: Record<string, string[]> = {};
+  const complain = (field: string, message: string) => (problems[field] ??= []).push(message);
+  for (const name of Object.keys(spec.params)) {
+    if (!names.has(name)) complain(`params.${name}`, `the model has no parameter ${name}; it has ${[...names].join(', ') || 'none'}`);
+  }
+  spec.axes.forEach((axis, i) => {
+    if (!names.has(axis.parameter) && !(PIVOT_AXES as readonly string[]).includes(axis.parameter)) {
+      complain(`axes.${i}.parameter`, `the model has no parameter ${axis.parameter}; it has ${[...names].join(', ')}`);
+    }
+  });
+  const params = { ...spec.params };
+  const onAxis = new Set(spec.axes.map((a) => a.parameter));
+  for (const p of model.parameters) if (!(p.name in params) && !onAxis.has(p.name)) params[p.name] = p.defaultValue;
+  const phiInit = spec.phiInit ?? model.phiInit ?? undefined;
+  if (phiInit === undefined && !model.isFamily) complain('phiInit', 'give φ_init: this model does not say where it inflates');
+  if (Object.keys(problems).length > 0) {
+    const message = Object.entries(problems).map(([f, m]) => `${f}: ${m.join('; ')}`).join('. ');
+    throw new BadRequestException({ message, fieldErrors: problems });
+  }
+  return { ...spec, params, phiInit, potentialSource: model.source };
+}
+
+export function familyModel(key: string) {
+  const family = findFamily(key);
+  return family ? { source: family.key, parameters: family.parameters, phiInit: null, isFamily: true } : null;
+}

@@ -1,0 +1,126 @@
+import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import { pointRequest, RequestEvaluator, ScanGrid, type StoredScanSpec } from '@sixtyfold/shared';
+import { Group } from '../src/groups/entities/group.entity';
+import { Scan } from '../src/scans/entities/scan.entity';
+import { ScanPoint } from '../src/scans/entities/scan-point.entity';
+import { createTestApp, DEMO, type TestApp } from './support/test-app';
+
+// The whole path: POST /api/scans → MariaDB row → bull jobs in Redis → two real worker
+// processes (the built worker) → scan_points → GET /api/scans/:id.
+const WORKER_MAIN = path.resolve('../worker/dist/main.js');
+
+async function until<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 60_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const value = await probe();
+    if (value !== undefined) return value;
+    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+describe('a scan through queue and workers', () => {
+  let t: TestApp;
+  let plateauId: number;
+  const workers: ChildProcess[] = [];
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
+    for (let i = 0; i < 2; i++) workers.push(spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' }));
+  });
+  afterAll(async () => {
+    await Promise.all(workers.map((w) => new Promise<void>((resolve) => {
+      if (w.exitCode !== null) return resolve();
+      w.once('exit', () => resolve());
+      w.kill('SIGTERM');
+    })));
+    await t.close();
+  });
+
+  const spec = (groupId: number) => ({
+    groupId,
+    name: 'natural inflation over f and N_*',
+    tags: ['pipeline-test'],
+    model: { kind: 'family', family: 'natural' },
+    params: {},
+    axes: [
+      { kind: 'list', parameter: 'f', values: [5, 7, 10] },
+      { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 3, spacing: 'linear' },
+    ],
+    pivot: { kind: 'fixed' },
+    method: 'slowroll',
+  });
+
+  it('computes every point once and the stored results equal the engine run directly', async () => {
+    const agent = await t.signIn(DEMO.plateauMember);
+    const created = await agent.post('/api/scans').send(spec(plateauId));
+    expect(created.status).toBe(201);
+    expect(created.body).toMatchObject({ status: 'queued', totalPoints: 9, donePoints: 0, tags: ['pipeline-test'] });
+    const id = created.body.id as number;
+
+    const done = await until(async () => {
+      const res = await agent.get(`/api/scans/${id}`);
+      return res.body.status === 'completed' ? res.body : undefined;
+    }, 'the scan to complete');
+    expect(done).toMatchObject({ totalPoints: 9, donePoints: 9, failedPoints: 0 });
+    expect(done.finishedAt).not.toBeNull();
+
+    const rows = await t.db.getRepository(ScanPoint).find({ where: { scanId: id }, order: { pointIndex: 'ASC' } });
+    expect(rows.map((r) => r.pointIndex)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
+    const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
+    expect(stored.params).toEqual({ Lambda: 5e-3 }); // the family default filled in
+    const grid = new ScanGrid(stored.axes);
+    const engine = new RequestEvaluator();
+    for (const row of rows) {
+      const direct = engine.evaluate(pointRequest(stored, 'natural', grid.point(row.pointIndex)));
+      expect(row.inputs).toEqual(grid.point(row.pointIndex));
+      expect(row.status).toBe('ok');
+      expect(row.ns).toBe(direct.ns);
+      expect(row.r).toBe(direct.r);
+      expect(row.nStar).toBe(direct.nStar);
+    }
+  });
+
+  it('records point failures as data with their reason', async () => {
+    const agent = await t.signIn(DEMO.plateauLead);
+    const body = { ...spec(plateauId), name: 'some points lack e-folds', model: { kind: 'family', family: 'monomial' }, phiInit: 16,
+      axes: [{ kind: 'list', parameter: 'nStar', values: [50, 90] }] };
+    const created = await agent.post('/api/scans').send(body);
+    expect(created.status).toBe(201);
+    const done = await until(async () => {
+      const res = await agent.get(`/api/scans/${created.body.id}`);
+      return res.body.status === 'completed' ? res.body : undefined;
+    }, 'the scan to complete');
+    expect(done).toMatchObject({ donePoints: 1, failedPoints: 1 });
+    const failed = await t.db.getRepository(ScanPoint).findOneByOrFail({ scanId: created.body.id, pointIndex: 1 });
+    expect(failed.status).toBe('insufficient_efolds');
+    expect(failed.failureReason).toMatch(/fewer than N_\* = 90/);
+    expect(failed.ns).toBeNull();
+  });
+
+  it('refuses what cannot run, saying why', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const tooBig = await member.post('/api/scans').send({ ...spec(plateauId), axes: [
+      { kind: 'range', parameter: 'f', min: 1, max: 10, count: 1000, spacing: 'linear' },
+      { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 1001, spacing: 'linear' },
+    ] });
+    expect(tooBig.status).toBe(400);
+    expect(tooBig.body.message).toBe("This scan has 1,001,000 points, 1,000 more than Plateau Models's limit of 1,000,000");
+    const unknown = await member.post('/api/scans').send({ ...spec(plateauId), params: { g: 1 } });
+    expect(unknown.status).toBe(400);
+    expect(unknown.body.fieldErrors['params.g'][0]).toMatch(/no parameter g; it has Lambda, f/);
+    const noFamily = await member.post('/api/scans').send({ ...spec(plateauId), model: { kind: 'family', family: 'quintessence' } });
+    expect(noFamily.status).toBe(400);
+    const badAxis = await member.post('/api/scans').send({ ...spec(plateauId), axes: [] });
+    expect(badAxis.status).toBe(400);
+    expect(badAxis.body.fieldErrors.axes).toEqual(['add at least one axis']);
+
+    const viewer = await t.signIn(DEMO.plateauViewer);
+    expect((await viewer.post('/api/scans').send(spec(plateauId))).status).toBe(403);
+    const outsider = await t.signIn(DEMO.tensorMember);
+    expect((await outsider.post('/api/scans').send(spec(plateauId))).status).toBe(404);
+  });
+});
