@@ -18,11 +18,11 @@ const EMAIL: Record<Exclude<Role, 'anonymous'>, string> = {
 };
 
 interface RouteCase {
-  method: 'get' | 'post';
+  method: 'get' | 'post' | 'delete';
   /** Express path as registered, e.g. /api/groups/:id */
   route: string;
-  /** The concrete URL to call (ids of Plateau Models objects filled in). */
-  url: () => string;
+  /** The concrete URL to call (ids of Plateau Models objects filled in; a scan of its own per role for changes). */
+  url: (role: Role) => string;
   expect: Record<Role, number>;
 }
 
@@ -36,6 +36,7 @@ describe('every route against every role', () => {
   let plateauId: number;
   let plateauModelId: number;
   let plateauScanId: number;
+  const ownScan = new Map<Role, number>();
 
   const table: RouteCase[] = [
     { method: 'get', route: '/api/health', url: () => '/api/health', expect: { ...everyoneSignedIn(200), anonymous: 200 } },
@@ -47,6 +48,9 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
+    // The member owns these scans: members cancel their own, only leads and admins delete.
+    { method: 'post', route: '/api/scans/:id/cancel', url: (role) => `/api/scans/${ownScan.get(role)}/cancel`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
+    { method: 'delete', route: '/api/scans/:id', url: (role) => `/api/scans/${ownScan.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 403, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
     { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
@@ -77,6 +81,13 @@ describe('every route against every role', () => {
       spec: {}, note: '', totalPoints: 4,
     });
     plateauScanId = scan.id;
+    for (const role of ROLES) {
+      const own = await t.db.getRepository(Scan).save({
+        groupId: plateauId, ownerId: owner.id, name: `access-table queued (${role})`, method: 'slowroll', status: 'queued',
+        spec: {}, note: '', totalPoints: 1,
+      });
+      ownScan.set(role, own.id);
+    }
     agents.set('anonymous', t.agent());
     for (const role of ROLES.filter((r) => r !== 'anonymous') as Exclude<Role, 'anonymous'>[]) {
       agents.set(role, await t.signIn(EMAIL[role]));
@@ -84,6 +95,7 @@ describe('every route against every role', () => {
   });
   afterAll(async () => {
     await t.db.getRepository(Scan).delete({ id: plateauScanId });
+    for (const id of ownScan.values()) await t.db.getRepository(Scan).delete({ id });
     await t.close();
   });
 
@@ -99,9 +111,12 @@ describe('every route against every role', () => {
       const got: Record<string, number> = {};
       for (const role of ROLES) {
         const agent = agents.get(role)!;
+        const url = row.url(role);
         const res = row.method === 'get'
-          ? await agent.get(row.url())
-          : await agent.post(row.url()).send(bodyFor(row.route, role));
+          ? await agent.get(url)
+          : row.method === 'delete'
+            ? await agent.delete(url).set('content-type', 'application/json').send('{}')
+            : await agent.post(url).send(bodyFor(row.route, role));
         got[role] = res.status;
       }
       expect(got).toEqual(row.expect);

@@ -124,3 +124,76 @@ describe('a scan through queue and workers', () => {
     expect((await outsider.post('/api/scans').send(spec(plateauId))).status).toBe(404);
   });
 });
+
+describe('cancelling, deleting and recovering scans', () => {
+  let t: TestApp;
+  let plateauId: number;
+  beforeAll(async () => {
+    t = await createTestApp({ RECONCILE_INTERVAL_SECONDS: '0' });
+    plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
+  });
+  afterAll(() => t.close());
+
+  const exactScan = (groupId: number, name: string) => ({
+    groupId, name, model: { kind: 'family', family: 'starobinsky' },
+    axes: [{ kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 600, spacing: 'linear' }],
+    pivot: { kind: 'fixed' }, method: 'exact',
+  });
+
+  it('a cancelled scan leaves the queue and writes no new points; its deletion is on record', async () => {
+    // No worker runs here: the chunks wait in Redis until the cancel removes them.
+    const member = await t.signIn(DEMO.plateauMember);
+    const created = await member.post('/api/scans').send(exactScan(plateauId, 'to be cancelled'));
+    expect(created.status).toBe(201);
+    expect(created.body.progress).toMatchObject({ total: 600, done: 0, queued: 600, running: 0 });
+    const cancelled = await member.post(`/api/scans/${created.body.id}/cancel`).send({});
+    expect(cancelled.status).toBe(200);
+    expect(cancelled.body.status).toBe('cancelled');
+    expect(cancelled.body.progress.queued).toBe(0);
+    const again = await member.post(`/api/scans/${created.body.id}/cancel`).send({});
+    expect(again.status).toBe(409);
+
+    const worker = spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' });
+    try {
+      await new Promise((r) => setTimeout(r, 3000));
+      expect(await t.db.getRepository(ScanPoint).countBy({ scanId: created.body.id })).toBe(0);
+    } finally {
+      await new Promise<void>((resolve) => { worker.once('exit', () => resolve()); worker.kill('SIGTERM'); });
+    }
+
+    const lead = await t.signIn(DEMO.plateauLead);
+    expect((await lead.delete(`/api/scans/${created.body.id}`).send({})).status).toBe(204);
+    expect(await t.db.getRepository(Scan).countBy({ id: created.body.id })).toBe(0);
+    const events = await t.db.query("SELECT actor_id, details FROM audit_events WHERE action = 'scan.delete' AND target_id = ?", [String(created.body.id)]);
+    expect(events).toHaveLength(1);
+    expect(events[0].details).toMatchObject({ name: 'to be cancelled', points: 600 });
+  });
+
+  it('finishes a scan whose queued work Redis lost, once the API reconciles at start', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const created = await member.post('/api/scans').send({ ...exactScan(plateauId, 'survives a flush'), method: 'slowroll' });
+    expect(created.status).toBe(201);
+    const id = created.body.id as number;
+    // Redis loses everything (as after a crash without persistence).
+    const { createClient } = await import('redis');
+    const redis = createClient({ url: process.env.REDIS_URL });
+    await redis.connect();
+    await redis.flushDb();
+    await redis.close();
+    // A restarted API reconciles MariaDB against the (empty) queue and re-queues the chunks.
+    await t.close();
+    t = await createTestApp({ RECONCILE_INTERVAL_SECONDS: '0' });
+    const worker = spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' });
+    try {
+      const agent = await t.signIn(DEMO.plateauMember);
+      const done = await until(async () => {
+        const res = await agent.get(`/api/scans/${id}`);
+        return res.body.status === 'completed' ? res.body : undefined;
+      }, 'the reconciled scan to complete');
+      expect(done.progress).toMatchObject({ total: 600, done: 600, failed: 0, queued: 0 });
+      expect(await t.db.getRepository(ScanPoint).countBy({ scanId: id })).toBe(600);
+    } finally {
+      await new Promise<void>((resolve) => { worker.once('exit', () => resolve()); worker.kill('SIGTERM'); });
+    }
+  });
+});

@@ -16,6 +16,7 @@ const schema = z.object({
   LOGIN_THROTTLE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOGIN_THROTTLE_TTL_SECONDS: z.coerce.number().int().min(1).default(60),
   SITE_POINT_LIMIT: z.coerce.number().int().min(1).default(1_000_000),
+  RECONCILE_INTERVAL_SECONDS: z.coerce.number().int().min(0).default(30),
   NODE_ENV: z.string().default('development'),
 });
 
@@ -30,6 +31,8 @@ export interface AppConfig {
   loginThrottle: { limit: number; ttlMs: number };
   /** Largest scan, in points, that any group may submit. */
   sitePointLimit: number;
+  /** How often live scans are checked against their stored points (0: only at start). */
+  reconcileIntervalSeconds: number;
 }
 
 export function readAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
@@ -48,6 +51,7 @@ export function readAppConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     trustProxy: e.TRUST_PROXY,
     loginThrottle: { limit: e.LOGIN_THROTTLE_LIMIT, ttlMs: e.LOGIN_THROTTLE_TTL_SECONDS * 1000 },
     sitePointLimit: e.SITE_POINT_LIMIT,
+    reconcileIntervalSeconds: e.RECONCILE_INTERVAL_SECONDS,
   };
 }
 

@@ -7,12 +7,13 @@ import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
 import { ScanQueueService } from './scan-queue.service';
+import { ScanReconcilerService } from './scan-reconciler.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
   imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule],
   controllers: [ScansController],
-  providers: [ScansService, ScanQueueService],
+  providers: [ScansService, ScanQueueService, ScanReconcilerService],
 })
 export class ScansModule {}

@@ -1,8 +1,8 @@
-import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
-import type { DataSource, Repository } from 'typeorm';
-import { pointCount, pointLimitProblem, type CreateScan, type Page, type PageQuery, type ScanSummary } from '@sixtyfold/shared';
+import { In, type DataSource, type Repository } from 'typeorm';
+import { groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
 import type { AppConfig } from '../config/app.config';
@@ -26,7 +26,7 @@ export class ScansService {
   ) {}
 
   /** Validates against the model and the limits, stores the scan, then queues its chunks. */
-  async create(user: SessionUser, spec: CreateScan): Promise<ScanSummary> {
+  async create(user: SessionUser, spec: CreateScan): Promise<ScanDetail> {
     await this.access.require(user, spec.groupId, 'member');
     const group = await this.db.getRepository(Group).findOneByOrFail({ id: spec.groupId });
     let model;
@@ -69,27 +69,108 @@ export class ScansService {
     return this.get(user, scanId);
   }
 
-  async list(user: SessionUser, query: PageQuery): Promise<Page<ScanSummary>> {
+  async list(user: SessionUser, query: ScanListQuery): Promise<Page<ScanSummary>> {
     const ids = await this.access.readableGroupIds(user);
     if (ids && ids.length === 0) return { items: [], total: 0, page: query.page, pageSize: query.pageSize };
-    const qb = this.scans
-      .createQueryBuilder('s')
-      .leftJoinAndSelect('s.owner', 'owner')
-      .leftJoinAndSelect('s.tags', 'tags')
-      .orderBy('s.createdAt', 'DESC')
+    // One page of ids first (plain columns, so the ordering and paging happen in MariaDB),
+    // then those scans with their owner and tags.
+    const qb = this.scans.createQueryBuilder('s').select('s.id', 'id');
+    if (ids) qb.andWhere('s.groupId IN (:...ids)', { ids });
+    if (query.status) qb.andWhere('s.status = :status', { status: query.status });
+    if (query.groupId) qb.andWhere('s.groupId = :groupId', { groupId: query.groupId });
+    if (query.ownerId) qb.andWhere('s.ownerId = :ownerId', { ownerId: query.ownerId });
+    if (query.family) qb.andWhere('s.family = :family', { family: query.family });
+    if (query.modelId) qb.andWhere('s.modelId = :modelId', { modelId: query.modelId });
+    if (query.tag) qb.andWhere('s.id IN (SELECT t.scan_id FROM scan_tags t WHERE t.tag = :tag)', { tag: query.tag });
+    if (query.createdAfter) qb.andWhere('s.createdAt >= :after', { after: new Date(query.createdAfter) });
+    if (query.createdBefore) qb.andWhere('s.createdAt < :before', { before: new Date(query.createdBefore) });
+    const total = await qb.clone().getCount();
+    const page = await qb
+      // Running and queued first, then the newest.
+      .orderBy("CASE s.status WHEN 'running' THEN 0 WHEN 'queued' THEN 1 ELSE 2 END", 'ASC')
+      .addOrderBy('s.created_at', 'DESC')
       .addOrderBy('s.id', 'DESC')
-      .skip((query.page - 1) * query.pageSize)
-      .take(query.pageSize);
-    if (ids) qb.where('s.groupId IN (:...ids)', { ids });
-    const [rows, total] = await qb.getManyAndCount();
-    return { items: rows.map(toSummary), total, page: query.page, pageSize: query.pageSize };
+      .offset((query.page - 1) * query.pageSize)
+      .limit(query.pageSize)
+      .getRawMany<{ id: number }>();
+    const pageIds = page.map((r) => Number(r.id));
+    const rows = pageIds.length ? await this.scans.find({ where: { id: In(pageIds) }, relations: { owner: true, tags: true } }) : [];
+    const byId = new Map(rows.map((r) => [r.id, r]));
+    const items = pageIds.flatMap((id) => (byId.has(id) ? [toSummary(byId.get(id)!)] : []));
+    return { items, total, page: query.page, pageSize: query.pageSize };
   }
 
-  async get(user: SessionUser, id: number): Promise<ScanSummary> {
+  async get(user: SessionUser, id: number): Promise<ScanDetail> {
+    const scan = await this.load(user, id);
+    const running = scan.status === 'running' || scan.status === 'queued' ? await this.queue.runningPoints(id) : 0;
+    const finished = scan.donePoints + scan.failedPoints;
+    const pending = Math.max(0, scan.totalPoints - finished);
+    const end = scan.finishedAt ?? new Date();
+    const elapsed = scan.startedAt ? (end.getTime() - scan.startedAt.getTime()) / 1000 : null;
+    const rate = elapsed && finished > 0 ? finished / elapsed : null;
+    return {
+      ...toSummary(scan),
+      note: scan.note,
+      spec: scan.spec,
+      startedAt: scan.startedAt?.toISOString() ?? null,
+      progress: {
+        total: scan.totalPoints,
+        done: scan.donePoints,
+        failed: scan.failedPoints,
+        running: Math.min(running, pending),
+        queued: scan.status === 'cancelled' ? 0 : Math.max(0, pending - running),
+        elapsedSeconds: elapsed,
+        remainingSeconds: rate && pending > 0 ? pending / rate : pending === 0 ? 0 : null,
+      },
+    };
+  }
+
+  /** Members cancel their own scans, leads (and admins) any scan of the group. */
+  async cancel(user: SessionUser, id: number): Promise<ScanDetail> {
+    const scan = await this.load(user, id);
+    await this.requireOwnerOrLead(user, scan, 'cancel');
+    if (scan.status !== 'queued' && scan.status !== 'running') {
+      throw new ConflictException(`The scan is ${scan.status}; only queued or running scans can be cancelled`);
+    }
+    await this.scans
+      .createQueryBuilder()
+      .update(Scan)
+      .set({ status: 'cancelled', finishedAt: () => 'CURRENT_TIMESTAMP(3)' })
+      .where('id = :id AND status IN (:...live)', { id, live: ['queued', 'running'] })
+      .execute();
+    await this.queue.remove(id, scan.totalPoints, scan.method);
+    await this.audit.record({ action: 'scan.cancel', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id });
+    return this.get(user, id);
+  }
+
+  /** Leads and admins only; the points go with the scan, and the deletion is on record. */
+  async remove(user: SessionUser, id: number): Promise<void> {
+    const scan = await this.load(user, id);
+    await this.access.require(user, scan.groupId, 'lead', 'scan');
+    await this.db.transaction(async (tx) => {
+      await tx.getRepository(Scan).update({ id }, { status: 'cancelled' });
+      await this.audit.record({
+        action: 'scan.delete', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id,
+        details: { name: scan.name, points: scan.totalPoints, owner: scan.ownerId },
+      }, tx);
+      await tx.getRepository(Scan).delete({ id });
+    });
+    await this.queue.remove(id, scan.totalPoints, scan.method);
+  }
+
+  private async load(user: SessionUser, id: number): Promise<Scan> {
     const scan = await this.scans.findOne({ where: { id }, relations: { owner: true, tags: true } });
     if (!scan) throw new NotFoundException('No such scan');
     await this.access.require(user, scan.groupId, 'viewer', 'scan');
-    return toSummary(scan);
+    return scan;
+  }
+
+  private async requireOwnerOrLead(user: SessionUser, scan: Scan, verb: string): Promise<void> {
+    if (user.siteRole === 'admin') return;
+    const role = await this.access.roleIn(user, scan.groupId);
+    if (role && groupRoleAtLeast(role, 'lead')) return;
+    if (role === 'member' && scan.ownerId === user.id) return;
+    throw new ForbiddenException(`Only the scan's owner or a lead of the group can ${verb} it`);
   }
 }
 

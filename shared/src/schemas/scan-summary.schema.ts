@@ -25,3 +25,40 @@ export const scanSummarySchema = z.object({
   finishedAt: z.string().nullable(),
 });
 export type ScanSummary = z.infer<typeof scanSummarySchema>;
+
+/** Progress of a scan, counted in points; running and queued come from the live queue. */
+export const scanProgressSchema = z.object({
+  total: z.number().int(),
+  done: z.number().int(),
+  failed: z.number().int(),
+  running: z.number().int(),
+  queued: z.number().int(),
+  elapsedSeconds: z.number().nullable(),
+  /** From the rate observed so far; null until there is one. */
+  remainingSeconds: z.number().nullable(),
+});
+export type ScanProgress = z.infer<typeof scanProgressSchema>;
+
+/** One scan with its specification and progress (`GET /api/scans/:id`). */
+export const scanDetailSchema = scanSummarySchema.extend({
+  note: z.string(),
+  spec: z.record(z.string(), z.unknown()),
+  startedAt: z.string().nullable(),
+  progress: scanProgressSchema,
+});
+export type ScanDetail = z.infer<typeof scanDetailSchema>;
+
+/** Filters of `GET /api/scans`. */
+export const scanListQuerySchema = z.object({
+  page: z.coerce.number().int().min(1, 'page starts at 1').default(1),
+  pageSize: z.coerce.number().int().min(1).max(500, 'pageSize is at most 500').default(50),
+  status: scanStatusSchema.optional(),
+  groupId: z.coerce.number().int().positive().optional(),
+  ownerId: z.coerce.number().int().positive().optional(),
+  family: z.string().max(64).optional(),
+  modelId: z.coerce.number().int().positive().optional(),
+  tag: z.string().max(64).optional(),
+  createdAfter: z.iso.datetime({ message: 'createdAfter must be an ISO date-time' }).optional(),
+  createdBefore: z.iso.datetime({ message: 'createdBefore must be an ISO date-time' }).optional(),
+});
+export type ScanListQuery = z.infer<typeof scanListQuerySchema>;

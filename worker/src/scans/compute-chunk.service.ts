@@ -64,14 +64,25 @@ export class ComputeChunkService {
         energyScaleGeV: result.energyScaleGeV,
         computedAt: now,
       });
-      if ((i - job.start) % 250 === 249) await progress((i - job.start + 1) / (job.end - job.start));
+      if ((i - job.start) % 250 === 249) {
+        await progress((i - job.start + 1) / (job.end - job.start));
+        // A cancelled scan stops between points, and nothing of this chunk is written.
+        if (await this.cancelled(scan.id)) return { scanId: scan.id, chunk: job.chunk, computed: 0, failed: 0, skipped: 'cancelled' };
+      }
     }
-    await this.db.transaction((tx) => this.store(tx, scan.id, job, rows));
+    const stored = await this.db.transaction((tx) => this.store(tx, scan.id, job, rows));
+    if (!stored) return { scanId: scan.id, chunk: job.chunk, computed: 0, failed: 0, skipped: 'cancelled' };
     const failed = rows.filter((r) => r.status !== 'ok').length;
     return { scanId: scan.id, chunk: job.chunk, computed: rows.length - failed, failed };
   }
 
-  private async store(tx: EntityManager, scanId: number, job: ComputeChunkJob, rows: PointRow[]): Promise<void> {
+  private async cancelled(scanId: number): Promise<boolean> {
+    const row = await this.db.getRepository(Scan).findOne({ where: { id: scanId }, select: { id: true, status: true } });
+    return !row || row.status === 'cancelled';
+  }
+
+  /** Writes the chunk unless the scan was cancelled or deleted meanwhile; false when skipped. */
+  private async store(tx: EntityManager, scanId: number, job: ComputeChunkJob, rows: PointRow[]): Promise<boolean> {
     const counts = async () => {
       const [row] = await tx.query(
         `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
@@ -80,8 +91,10 @@ export class ComputeChunkService {
       );
       return { ok: Number(row.ok), bad: Number(row.bad) };
     };
-    // The scan row first: every chunk of a scan takes its lock in the same order.
-    await tx.query('SELECT id FROM scans WHERE id = ? FOR UPDATE', [scanId]);
+    // The scan row first: every chunk of a scan takes its lock in the same order, and a cancel
+    // (which updates this row) is either before this check or after this chunk's commit.
+    const [scanRow] = await tx.query('SELECT status FROM scans WHERE id = ? FOR UPDATE', [scanId]);
+    if (!scanRow || scanRow.status === 'cancelled') return false;
     const before = await counts();
     await tx
       .createQueryBuilder()
@@ -105,5 +118,6 @@ export class ComputeChunkService {
       [scanId],
     );
     this.logger.debug?.(`scan ${scanId} chunk ${job.chunk}: ${rows.length} points stored`);
+    return true;
   }
 }

@@ -1,0 +1,75 @@
+import { Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
+import { InjectDataSource } from '@nestjs/typeorm';
+import type { DataSource } from 'typeorm';
+import { CHUNK_POINTS, scanChunks } from '@sixtyfold/shared';
+import type { AppConfig } from '../config/app.config';
+import { Scan } from './entities/scan.entity';
+import { ScanQueueService } from './scan-queue.service';
+
+/**
+ * MariaDB is the record, Redis only the transport. At start and then periodically, every scan
+ * still queued or running gets the chunks whose points are missing put back on the queue
+ * (existing jobs keep their ids, so nothing runs twice), and a scan whose points are all
+ * stored is marked completed. A Redis that lost its data, or jobs that vanished, still finish.
+ */
+@Injectable()
+export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicationShutdown {
+  private readonly logger = new Logger('ScanReconciler');
+  private timer: NodeJS.Timeout | undefined;
+  private running = false;
+
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly queue: ScanQueueService,
+    private readonly config: ConfigService,
+  ) {}
+
+  onApplicationBootstrap(): void {
+    const seconds = this.config.getOrThrow<AppConfig>('app').reconcileIntervalSeconds;
+    void this.reconcileAll();
+    if (seconds > 0) this.timer = setInterval(() => void this.reconcileAll(), seconds * 1000);
+  }
+
+  onApplicationShutdown(): void {
+    clearInterval(this.timer);
+  }
+
+  /** Returns the number of chunks put back on the queue. */
+  async reconcileAll(): Promise<number> {
+    if (this.running) return 0;
+    this.running = true;
+    let requeued = 0;
+    try {
+      const live = await this.db.getRepository(Scan).find({ where: [{ status: 'queued' }, { status: 'running' }], select: { id: true, totalPoints: true, method: true } });
+      for (const scan of live) requeued += await this.reconcile(scan);
+      if (requeued > 0) this.logger.log(`re-queued ${requeued} chunk(s) of ${live.length} live scan(s)`);
+    } catch (err) {
+      this.logger.warn(`reconciliation failed, will try again: ${(err as Error).message}`);
+    } finally {
+      this.running = false;
+    }
+    return requeued;
+  }
+
+  private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method'>): Promise<number> {
+    const size = CHUNK_POINTS[scan.method];
+    const rows: { chunk: string; stored: string }[] = await this.db.query(
+      'SELECT FLOOR(point_index / ?) AS chunk, COUNT(*) AS stored FROM scan_points WHERE scan_id = ? GROUP BY chunk',
+      [size, scan.id],
+    );
+    const stored = new Map(rows.map((r) => [Number(r.chunk), Number(r.stored)]));
+    const missing = new Set(
+      scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start).map((c) => c.chunk),
+    );
+    if (missing.size === 0) {
+      await this.db.query(
+        `UPDATE scans SET status = 'completed', finished_at = CURRENT_TIMESTAMP(3)
+          WHERE id = ? AND status IN ('queued', 'running') AND done_points + failed_points >= total_points`,
+        [scan.id],
+      );
+      return 0;
+    }
+    return this.queue.enqueue(scan.id, scan.totalPoints, scan.method, missing);
+  }
+}
