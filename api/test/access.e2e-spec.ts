@@ -47,6 +47,8 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/models/:id', url: () => `/api/models/${plateauModelId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/points', url: () => `/api/scans/${plateauScanId}/points`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // The member owns these scans: members cancel their own, only leads and admins delete.
     { method: 'post', route: '/api/scans/:id/cancel', url: (role) => `/api/scans/${ownScan.get(role)}/cancel`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
@@ -78,7 +80,8 @@ describe('every route against every role', () => {
     const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
     const scan = await t.db.getRepository(Scan).save({
       groupId: plateauId, ownerId: owner.id, name: 'access-table draft', method: 'slowroll', status: 'draft',
-      spec: {}, note: '', totalPoints: 4,
+      spec: { axes: [{ kind: 'list', parameter: 'f', values: [5, 7] }, { kind: 'list', parameter: 'nStar', values: [50, 60] }] },
+      note: '', totalPoints: 4,
     });
     plateauScanId = scan.id;
     for (const role of ROLES) {

@@ -82,6 +82,42 @@ describe('a scan through queue and workers', () => {
       expect(row.r).toBe(direct.r);
       expect(row.nStar).toBe(direct.nStar);
     }
+
+    // Results: a page sorted by n_s, a range filter, the streamed exports and a heatmap slice.
+    const page = await agent.get(`/api/scans/${id}/points?sort=ns&order=desc&pageSize=4`);
+    expect(page.status).toBe(200);
+    expect(page.body.total).toBe(9);
+    const nsDesc = [...rows.map((r) => r.ns!)].sort((a, b) => b - a);
+    expect(page.body.items.map((p: { ns: number }) => p.ns)).toEqual(nsDesc.slice(0, 4));
+    const inRange = await agent.get(`/api/scans/${id}/points?ns_min=0.96&ns_max=0.965`);
+    expect(inRange.body.total).toBe(rows.filter((r) => r.ns! >= 0.96 && r.ns! <= 0.965).length);
+    expect((await agent.get(`/api/scans/${id}/points?ns_min=abc`)).status).toBe(400);
+
+    const csv = await agent.get(`/api/scans/${id}/points?format=csv`);
+    expect(csv.status).toBe(200);
+    expect(csv.headers['content-type']).toMatch(/text\/csv/);
+    const lines = csv.text.trim().split('\n');
+    expect(lines[0]).toBe('pointIndex,f,nStar,status,failureReason,ns,r,alphaS,As,amplitudeScale,nTotal,nStar,phiStar,phiEnd,energyScaleGeV');
+    expect(lines).toHaveLength(10);
+    const first = lines[1].split(',');
+    expect(Number(first[0])).toBe(0);
+    expect(Number(first[5])).toBe(rows[0].ns);
+    const json = await agent.get(`/api/scans/${id}/points?format=json&status=ok`).buffer(true).parse((res, cb) => {
+      let text = '';
+      res.on('data', (c: Buffer) => (text += c.toString()));
+      res.on('end', () => cb(null, text));
+    });
+    const exported = JSON.parse(json.body as string);
+    expect(exported).toHaveLength(9);
+    expect(exported[8]).toMatchObject({ pointIndex: 8, status: 'ok', ns: rows[8].ns });
+
+    const heat = await agent.get(`/api/scans/${id}/grid?x=nStar&y=f&output=r`);
+    expect(heat.status).toBe(200);
+    expect(heat.body.x).toEqual({ parameter: 'nStar', values: [50, 55, 60] });
+    expect(heat.body.y).toEqual({ parameter: 'f', values: [5, 7, 10] });
+    // z[iy][ix] is point (f index iy, nStar index ix) = iy*3 + ix.
+    expect(heat.body.z[2][1]).toBe(rows[7].r);
+    expect((await agent.get(`/api/scans/${id}/grid?x=nStar&y=g`)).body.fieldErrors.y[0]).toMatch(/no axis g; it has f, nStar/);
   });
 
   it('records point failures as data with their reason', async () => {
@@ -95,6 +131,10 @@ describe('a scan through queue and workers', () => {
       return res.body.status === 'completed' ? res.body : undefined;
     }, 'the scan to complete');
     expect(done).toMatchObject({ donePoints: 1, failedPoints: 1 });
+    const heat = await agent.get(`/api/scans/${created.body.id}/grid?x=nStar&y=nStar`);
+    expect(heat.status).toBe(400);
+    const failures = await agent.get(`/api/scans/${created.body.id}/points?status=failed`);
+    expect(failures.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([1]);
     const failed = await t.db.getRepository(ScanPoint).findOneByOrFail({ scanId: created.body.id, pointIndex: 1 });
     expect(failed.status).toBe('insufficient_efolds');
     expect(failed.failureReason).toMatch(/fewer than N_\* = 90/);

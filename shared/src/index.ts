@@ -13,3 +13,4 @@ export * from './schemas/scan.schema.js';
 export * from './scans/scan-grid.js';
 export * from './scans/scan-point.js';
 export * from './queue/scan-queue.js';
+export * from './schemas/scan-point.schema.js';

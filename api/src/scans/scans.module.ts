@@ -8,12 +8,13 @@ import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
 import { ScanQueueService } from './scan-queue.service';
 import { ScanReconcilerService } from './scan-reconciler.service';
+import { ScanResultsService } from './scan-results.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
   imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule],
   controllers: [ScansController],
-  providers: [ScansService, ScanQueueService, ScanReconcilerService],
+  providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })
 export class ScansModule {}

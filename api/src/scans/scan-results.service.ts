@@ -1,0 +1,169 @@
+import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { stringify } from 'csv-stringify';
+import { Transform, type Readable } from 'node:stream';
+import type { DataSource, SelectQueryBuilder } from 'typeorm';
+import {
+  POINT_OUTPUTS, ScanGrid, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice, type ScanPointDto,
+  type ScanPointsQuery, type StoredScanSpec,
+} from '@sixtyfold/shared';
+import type { SessionUser } from '../common/session-user';
+import { GroupAccessService } from '../groups/group-access.service';
+import { Scan } from './entities/scan.entity';
+import { ScanPoint } from './entities/scan-point.entity';
+
+/** API output name → scan_points column. */
+const COLUMN: Record<PointOutput | 'pointIndex', string> = {
+  pointIndex: 'point_index', ns: 'ns', r: 'r', alphaS: 'alpha_s', As: 'a_s', amplitudeScale: 'amplitude_scale',
+  nTotal: 'n_total', nStar: 'n_star', phiStar: 'phi_star', phiEnd: 'phi_end', energyScaleGeV: 'energy_scale_gev',
+};
+
+type RawPoint = Record<string, unknown>;
+
+function toDto(raw: RawPoint): ScanPointDto {
+  const inputs = typeof raw.inputs === 'string' ? JSON.parse(raw.inputs) : raw.inputs;
+  const dto = { pointIndex: Number(raw.point_index), inputs, status: String(raw.status), failureReason: (raw.failure_reason as string) ?? null } as ScanPointDto;
+  for (const o of POINT_OUTPUTS) {
+    const v = raw[COLUMN[o]];
+    dto[o] = v === null || v === undefined ? null : Number(v);
+  }
+  return dto;
+}
+
+/** A scan's stored points: pages, streamed exports and heatmap slices. */
+@Injectable()
+export class ScanResultsService {
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly access: GroupAccessService,
+  ) {}
+
+  async readable(user: SessionUser, id: number): Promise<Scan> {
+    const scan = await this.db.getRepository(Scan).findOneBy({ id });
+    if (!scan) throw new NotFoundException('No such scan');
+    await this.access.require(user, scan.groupId, 'viewer', 'scan');
+    return scan;
+  }
+
+  private filtered(scanId: number, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
+    const qb = this.db.getRepository(ScanPoint).createQueryBuilder('p').where('p.scan_id = :scanId', { scanId });
+    if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
+    else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
+    q.ranges.forEach((range, i) => {
+      if (range.min !== undefined) qb.andWhere(`p.${COLUMN[range.output]} >= :min${i}`, { [`min${i}`]: range.min });
+      if (range.max !== undefined) qb.andWhere(`p.${COLUMN[range.output]} <= :max${i}`, { [`max${i}`]: range.max });
+    });
+    return qb;
+  }
+
+  async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
+    await this.readable(user, id);
+    const qb = this.filtered(id, q);
+    const total = await qb.clone().getCount();
+    const rows = await qb
+      .select('p.*')
+      .orderBy(`p.${COLUMN[q.sort]}`, q.order === 'asc' ? 'ASC' : 'DESC')
+      .addOrderBy('p.point_index', 'ASC')
+      .offset((q.page - 1) * q.pageSize)
+      .limit(q.pageSize)
+      .getRawMany<RawPoint>();
+    return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
+  }
+
+  /**
+   * Every matching point as CSV or JSON, streamed from MariaDB row by row, so that a million
+   * points never sit in memory. Columns: point index, one per axis, status, reason, outputs.
+   */
+  async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json'): Promise<Readable> {
+    const scan = await this.readable(user, id);
+    const axes = (scan.spec as unknown as StoredScanSpec).axes.map((a) => a.parameter);
+    const source = await this.filtered(id, q)
+      .select('p.*')
+      .orderBy(`p.${COLUMN[q.sort]}`, q.order === 'asc' ? 'ASC' : 'DESC')
+      .addOrderBy('p.point_index', 'ASC')
+      .stream();
+    const toPoint = new Transform({
+      objectMode: true,
+      transform(raw: RawPoint, _enc, done) {
+        done(null, toDto(raw));
+      },
+    });
+    if (format === 'csv') {
+      const columns = ['pointIndex', ...axes, 'status', 'failureReason', ...POINT_OUTPUTS];
+      const flatten = new Transform({
+        objectMode: true,
+        transform(p: ScanPointDto, _enc, done) {
+          done(null, [p.pointIndex, ...axes.map((a) => p.inputs[a]), p.status, p.failureReason ?? '', ...POINT_OUTPUTS.map((o) => p[o] ?? '')]);
+        },
+      });
+      return source.pipe(toPoint).pipe(flatten).pipe(stringify({ header: true, columns }));
+    }
+    let first = true;
+    const json = new Transform({
+      writableObjectMode: true,
+      transform(p: ScanPointDto, _enc, done) {
+        done(null, `${first ? '[' : ','}\n${JSON.stringify(p)}`);
+        first = false;
+      },
+      flush(done) {
+        done(null, first ? '[]\n' : '\n]\n');
+      },
+    });
+    return source.pipe(toPoint).pipe(json);
+  }
+
+  /** Two axes as x and y, every other axis at the chosen index: z[iy][ix] of one output. */
+  async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
+    const scan = await this.readable(user, id);
+    const spec = scan.spec as unknown as StoredScanSpec;
+    const grid = new ScanGrid(spec.axes);
+    const names = spec.axes.map((a) => a.parameter);
+    const xi = names.indexOf(q.x);
+    const yi = names.indexOf(q.y);
+    const bad: Record<string, string[]> = {};
+    if (xi < 0) bad.x = [`the scan has no axis ${q.x}; it has ${names.join(', ')}`];
+    if (yi < 0) bad.y = [`the scan has no axis ${q.y}; it has ${names.join(', ')}`];
+    if (xi >= 0 && xi === yi) bad.y = ['x and y must be different axes'];
+    for (const [name, index] of Object.entries(q.at)) {
+      const a = names.indexOf(name);
+      if (a < 0) bad[`at.${name}`] = [`the scan has no axis ${name}`];
+      else if (index >= grid.lengths[a]) bad[`at.${name}`] = [`${name} has ${grid.lengths[a]} values (index 0 to ${grid.lengths[a] - 1})`];
+    }
+    if (Object.keys(bad).length) {
+      throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
+    }
+    const nx = grid.lengths[xi];
+    const ny = grid.lengths[yi];
+    if (nx * ny > 1_000_000) throw new BadRequestException(`a slice of ${nx} × ${ny} cells is more than a heatmap can show (1,000,000)`);
+    // Mixed-radix strides: the last axis moves fastest.
+    const strides = names.map((_, a) => grid.lengths.slice(a + 1).reduce((n, l) => n * l, 1));
+    const at: ScanGridSlice['at'] = {};
+    let base = 0;
+    names.forEach((name, a) => {
+      if (a === xi || a === yi) return;
+      const index = q.at[name] ?? 0;
+      base += index * strides[a];
+      at[name] = { index, value: grid.values[a][index] };
+    });
+    const z: (number | null)[][] = Array.from({ length: ny }, () => new Array<number | null>(nx).fill(null));
+    const status: (string | null)[][] = Array.from({ length: ny }, () => new Array<string | null>(nx).fill(null));
+    const cellOf = new Map<number, [number, number]>();
+    for (let iy = 0; iy < ny; iy++) for (let ix = 0; ix < nx; ix++) cellOf.set(base + ix * strides[xi] + iy * strides[yi], [iy, ix]);
+    const wanted = [...cellOf.keys()];
+    const column = q.output === 'status' ? null : COLUMN[q.output];
+    for (let i = 0; i < wanted.length; i += 5000) {
+      const slice = wanted.slice(i, i + 5000);
+      const rows: RawPoint[] = await this.db.query(
+        `SELECT point_index, status${column ? `, ${column} AS value` : ''} FROM scan_points WHERE scan_id = ? AND point_index IN (${slice.map(() => '?').join(',')})`,
+        [id, ...slice],
+      );
+      for (const row of rows) {
+        const [iy, ix] = cellOf.get(Number(row.point_index))!;
+        status[iy][ix] = String(row.status);
+        // Failed points are marked by their status, never drawn as numbers.
+        z[iy][ix] = row.status === 'ok' && column && row.value !== null ? Number(row.value) : null;
+      }
+    }
+    return { x: { parameter: q.x, values: grid.values[xi] }, y: { parameter: q.y, values: grid.values[yi] }, output: q.output, z, status, at };
+  }
+}
