@@ -120,6 +120,28 @@ describe('a scan through queue and workers', () => {
     expect((await agent.get(`/api/scans/${id}/grid?x=nStar&y=g`)).body.fieldErrors.y[0]).toMatch(/no axis g; it has f, nStar/);
   });
 
+  it('the two workers share the chunks of one scan', async () => {
+    const agent = await t.signIn(DEMO.plateauMember);
+    const before = new Map<number, number>(((await agent.get('/api/workers')).body as { pid: number; chunksDone: number }[]).map((w) => [w.pid, w.chunksDone]));
+    const created = await agent.post('/api/scans').send({ ...spec(plateauId), name: 'shared by the pool', axes: [
+      { kind: 'range', parameter: 'f', min: 5, max: 20, count: 80, spacing: 'linear' },
+      { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 100, spacing: 'linear' },
+    ] });
+    expect(created.body.totalPoints).toBe(8000);
+    await until(async () => {
+      const res = await agent.get(`/api/scans/${created.body.id}`);
+      return res.body.status === 'completed' ? res.body : undefined;
+    }, 'the scan to complete');
+    // Heartbeats are written after each chunk, so the pool view is current.
+    const pool = (await agent.get('/api/workers')).body as { pid: number; chunksDone: number }[];
+    const mine = pool.filter((w) => workers.some((c) => c.pid === w.pid));
+    expect(mine).toHaveLength(2);
+    const gained = mine.map((w) => w.chunksDone - (before.get(w.pid) ?? 0));
+    expect(gained.reduce((a, b) => a + b, 0)).toBe(4);
+    expect(Math.min(...gained)).toBeGreaterThanOrEqual(1);
+    expect(await t.db.getRepository(ScanPoint).countBy({ scanId: created.body.id })).toBe(8000);
+  });
+
   it('records point failures as data with their reason', async () => {
     const agent = await t.signIn(DEMO.plateauLead);
     const body = { ...spec(plateauId), name: 'some points lack e-folds', model: { kind: 'family', family: 'monomial' }, phiInit: 16,

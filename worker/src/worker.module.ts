@@ -3,7 +3,6 @@ import { ConfigModule } from '@nestjs/config';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { buildDataSourceOptions, readDatabaseConfig } from '@sixtyfold/api/database';
 import { workerConfig } from './config/worker.config';
-import { HeartbeatModule } from './heartbeat/heartbeat.module';
 import { ScansModule } from './scans/scans.module';
 
 /** The worker process: no HTTP server, one database connection pool, one place in the pool. */
@@ -11,7 +10,6 @@ import { ScansModule } from './scans/scans.module';
   imports: [
     ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [workerConfig] }),
     TypeOrmModule.forRootAsync({ useFactory: () => buildDataSourceOptions(readDatabaseConfig()) }),
-    HeartbeatModule,
     ScansModule,
   ],
 })

@@ -15,5 +15,8 @@ export const workerHeartbeatSchema = z.object({
   concurrency: z.number().int(),
   startedAt: z.string(),
   lastSeenAt: z.string(),
+  /** Work this process has finished since it started. */
+  chunksDone: z.number().int().default(0),
+  pointsDone: z.number().int().default(0),
 });
 export type WorkerHeartbeat = z.infer<typeof workerHeartbeatSchema>;

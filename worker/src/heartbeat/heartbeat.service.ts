@@ -14,6 +14,8 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
   private readonly id = `${os.hostname()}:${process.pid}`;
   private readonly startedAt = new Date().toISOString();
   private timer: NodeJS.Timeout | undefined;
+  private chunksDone = 0;
+  private pointsDone = 0;
 
   constructor(
     @Inject(REDIS_CLIENT) private readonly redis: RedisClient,
@@ -37,7 +39,13 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
     if (this.redis.isOpen) await this.redis.del(this.key).catch(() => undefined);
   }
 
-  private async beat(): Promise<void> {
+  /** Counts a finished chunk; the pool view shows how the work spreads over processes. */
+  recordChunk(points: number): void {
+    this.chunksDone++;
+    this.pointsDone += points;
+  }
+
+  async beat(): Promise<void> {
     const beat: WorkerHeartbeat = {
       id: this.id,
       host: os.hostname(),
@@ -45,6 +53,8 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
       concurrency: this.config.getOrThrow<WorkerConfig>('worker').concurrency,
       startedAt: this.startedAt,
       lastSeenAt: new Date().toISOString(),
+      chunksDone: this.chunksDone,
+      pointsDone: this.pointsDone,
     };
     await this.redis.set(this.key, JSON.stringify(beat), { expiration: { type: 'EX', value: WORKER_HEARTBEAT_TTL_SECONDS } });
   }

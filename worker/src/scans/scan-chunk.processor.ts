@@ -3,6 +3,7 @@ import { Logger } from '@nestjs/common';
 import type { Job } from 'bull';
 import { COMPUTE_CHUNK_JOB, computeChunkJobSchema, SCAN_QUEUE, type ComputeChunkJob } from '@sixtyfold/shared';
 import { readWorkerConfig } from '../config/worker.config';
+import { HeartbeatService } from '../heartbeat/heartbeat.service';
 import { ComputeChunkService, type ChunkOutcome } from './compute-chunk.service';
 
 // Bull takes the concurrency when the processor is declared, so it is read from the environment here.
@@ -13,13 +14,20 @@ const { concurrency } = readWorkerConfig();
 export class ScanChunkProcessor {
   private readonly logger = new Logger('ScanChunkProcessor');
 
-  constructor(private readonly compute: ComputeChunkService) {}
+  constructor(
+    private readonly compute: ComputeChunkService,
+    private readonly heartbeat: HeartbeatService,
+  ) {}
 
   @Process({ name: COMPUTE_CHUNK_JOB, concurrency })
   async handle(job: Job<ComputeChunkJob>): Promise<ChunkOutcome> {
     const data = computeChunkJobSchema.parse(job.data);
     const outcome = await this.compute.run(data, (fraction) => job.progress(Math.round(fraction * 100)));
     await job.progress(100);
+    if (!outcome.skipped) {
+      this.heartbeat.recordChunk(outcome.computed + outcome.failed);
+      await this.heartbeat.beat().catch(() => undefined);
+    }
     return outcome;
   }
 

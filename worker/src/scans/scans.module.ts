@@ -2,6 +2,7 @@ import { BullModule } from '@nestjs/bull';
 import { Module } from '@nestjs/common';
 import { readRedisConfig } from '@sixtyfold/api/database';
 import { SCAN_QUEUE } from '@sixtyfold/shared';
+import { HeartbeatModule } from '../heartbeat/heartbeat.module';
 import { ComputeChunkService } from './compute-chunk.service';
 import { ScanChunkProcessor } from './scan-chunk.processor';
 
@@ -14,6 +15,7 @@ import { ScanChunkProcessor } from './scan-chunk.processor';
       },
     }),
     BullModule.registerQueue({ name: SCAN_QUEUE }),
+    HeartbeatModule,
   ],
   providers: [ComputeChunkService, ScanChunkProcessor],
 })
