@@ -14,7 +14,12 @@ import { ScanChunkProcessor } from './scan-chunk.processor';
         return { redis: { host, port, db, password } };
       },
     }),
-    BullModule.registerQueue({ name: SCAN_QUEUE }),
+    BullModule.registerQueue({
+      name: SCAN_QUEUE,
+      // A chunk takes about a second and yields between points, so its lock renews in time; a
+      // killed worker's chunk is taken back within lockDuration + stalledInterval (~20 s).
+      settings: { lockDuration: 15_000, stalledInterval: 5_000, maxStalledCount: 3 },
+    }),
     HeartbeatModule,
   ],
   providers: [ComputeChunkService, ScanChunkProcessor],
