@@ -11,6 +11,7 @@ export const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 export const PROFILES = {
   dev: { dataDir: '.data/dev', dbPort: 3360, redisPort: 6390, apiPort: 3060, database: 'sixtyfold', dbUser: 'sixtyfold', dbPassword: 'sixtyfold' },
   test: { dataDir: '.data/test', dbPort: 3361, redisPort: 6391, apiPort: 3061, database: 'sixtyfold_test', dbUser: 'sixtyfold', dbPassword: 'sixtyfold' },
+  bench: { dataDir: '.data/bench', dbPort: 3362, redisPort: 6392, apiPort: 3062, database: 'sixtyfold_bench', dbUser: 'sixtyfold', dbPassword: 'sixtyfold' },
 };
 
 /** Loads `.env` from the repository root (variables already set win), as documented in .env.example. */
@@ -25,7 +26,7 @@ export function loadDotEnv() {
  */
 export function resolveProfile(name) {
   const p = PROFILES[name];
-  const prefix = name === 'test' ? 'TEST_' : '';
+  const prefix = name === 'dev' ? '' : `${name.toUpperCase()}_`;
   const num = (key, fallback) => Number(process.env[prefix + key] ?? fallback);
   const dbPort = num('SIXTYFOLD_DB_PORT', p.dbPort);
   const redisPort = num('SIXTYFOLD_REDIS_PORT', p.redisPort);

@@ -1,0 +1,93 @@
+#!/usr/bin/env node
+// `npm run bench`: the engine's own speed, then a 10,000-point slow-roll scan through the API,
+// the queue, the workers and MariaDB, against the engine alone on the same cores. Figures only.
+import { spawnSync } from 'node:child_process';
+import path from 'node:path';
+import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
+import { resolveProfile, ROOT } from './lib/environment.mjs';
+import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
+import { fail, log } from './lib/output.mjs';
+import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+
+const profile = resolveProfile('bench');
+ensureNodePackages();
+ensureDebianPackages({
+  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
+  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
+});
+npmRun(['run', '--silent', 'build'], { ...process.env, NODE_ENV: undefined });
+
+log('engine alone');
+const engineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/engine.bench.mjs')], { stdio: 'inherit' });
+if (engineBench.status !== 0) fail('the engine benchmark failed');
+
+const services = [];
+if (profile.manageDb) {
+  services.push(await startMariaDb({ dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort, database: profile.database, user: profile.dbUser, password: profile.dbPassword, freshDatabase: true }));
+}
+if (profile.manageRedis) services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: true }));
+const env = {
+  ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl,
+  API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
+  SESSION_SECRET: 'sixtyfold-benchmark-session-secret', FORCE_COLOR: '0',
+};
+npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
+npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
+
+const { createScanSchema, pointRequest, RequestEvaluator, ScanGrid } = await import('@sixtyfold/shared');
+const { DEMO_PASSWORD } = await import(path.join(ROOT, 'api/dist/database/seeds/demo-scenario.js'));
+const workers = profile.workers;
+const body = {
+  groupId: 1, name: 'benchmark: Starobinsky over μ and N_*', model: { kind: 'family', family: 'starobinsky' },
+  axes: [
+    { kind: 'range', parameter: 'mu', min: 1e-6, max: 1e-4, count: 100, spacing: 'log' },
+    { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 100, spacing: 'linear' },
+  ],
+  pivot: { kind: 'fixed' }, method: 'slowroll',
+};
+
+// The same 10,000 points with the engine alone, on one core.
+const spec = { ...createScanSchema.parse(body), potentialSource: 'starobinsky' };
+const grid = new ScanGrid(spec.axes);
+const engine = new RequestEvaluator();
+let start = performance.now();
+for (let i = 0; i < grid.size; i++) engine.evaluate(pointRequest(spec, 'starobinsky', grid.point(i)));
+const engineRate = grid.size / ((performance.now() - start) / 1000);
+
+const apps = startAppProcesses({ env, workers, quiet: true });
+let exitCode = 0;
+try {
+  if (!(await waitForApi(profile.apiPort, apps.api))) throw new Error('the API did not become healthy');
+  await new Promise((r) => setTimeout(r, 2000)); // let the workers join the pool
+  const base = `http://127.0.0.1:${profile.apiPort}/api`;
+  const login = await fetch(`${base}/auth/login`, {
+    method: 'POST', headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: 'lucia.marin@halvorsen.example', password: DEMO_PASSWORD }),
+  });
+  const cookie = (login.headers.get('set-cookie') ?? '').split(';')[0];
+  const headers = { 'content-type': 'application/json', cookie };
+  start = performance.now();
+  const created = await (await fetch(`${base}/scans`, { method: 'POST', headers, body: JSON.stringify(body) })).json();
+  if (!created.id) throw new Error(`the scan was refused: ${JSON.stringify(created)}`);
+  let scan;
+  do {
+    await new Promise((r) => setTimeout(r, 100));
+    scan = await (await fetch(`${base}/scans/${created.id}`, { headers })).json();
+  } while (scan.status !== 'completed' && performance.now() - start < 600_000);
+  const seconds = (performance.now() - start) / 1000;
+  const pipelineRate = grid.size / seconds;
+  const ideal = engineRate * workers;
+  process.stdout.write(
+    `\nend to end: ${grid.size} slow-roll points, ${workers} worker process(es)\n` +
+      `  engine alone, one core      ${engineRate.toFixed(0)} points/s (×${workers} cores = ${ideal.toFixed(0)})\n` +
+      `  API → queue → workers → DB  ${pipelineRate.toFixed(0)} points/s (${seconds.toFixed(2)} s, status ${scan.status})\n` +
+      `  ratio                       ${(pipelineRate / ideal).toFixed(2)} (goal ≥ 0.80)\n`,
+  );
+} catch (err) {
+  process.stderr.write(`benchmark failed: ${err.message}\n`);
+  exitCode = 1;
+} finally {
+  await apps.stop();
+  for (const s of services.reverse()) await s.stop();
+}
+process.exit(exitCode);
