@@ -52,6 +52,9 @@ describe('every route against every role', () => {
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // The member owns these scans: members cancel their own, only leads and admins delete.
     { method: 'post', route: '/api/scans/:id/cancel', url: (role) => `/api/scans/${ownScan.get(role)}/cancel`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
+    // The access-table draft has no failed points: whoever may retry gets 409, the rest as usual.
+    { method: 'post', route: '/api/scans/:id/retry', url: () => `/api/scans/${plateauScanId}/retry`, expect: { anonymous: 401, admin: 409, lead: 409, member: 409, viewer: 403, outsider: 404 } },
+    { method: 'post', route: '/api/scans/:id/clone', url: () => `/api/scans/${plateauScanId}/clone`, expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     { method: 'delete', route: '/api/scans/:id', url: (role) => `/api/scans/${ownScan.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 403, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },

@@ -161,6 +161,22 @@ describe('a scan through queue and workers', () => {
     expect(failed.status).toBe('insufficient_efolds');
     expect(failed.failureReason).toMatch(/fewer than N_\* = 90/);
     expect(failed.ns).toBeNull();
+
+    // Retrying recomputes the failed point (the engine is deterministic: it fails again), and
+    // the counters stay right because a chunk's rows are overwritten, not added.
+    const retried = await agent.post(`/api/scans/${created.body.id}/retry`).send({});
+    expect(retried.status).toBe(200);
+    const again = await until(async () => {
+      const res = await agent.get(`/api/scans/${created.body.id}`);
+      return res.body.status === 'completed' ? res.body : undefined;
+    }, 'the retried scan to complete');
+    expect(again).toMatchObject({ donePoints: 1, failedPoints: 1 });
+    expect(await t.db.getRepository(ScanPoint).countBy({ scanId: created.body.id })).toBe(2);
+
+    const clone = await agent.post(`/api/scans/${created.body.id}/clone`).send({});
+    expect(clone.status).toBe(201);
+    expect(clone.body).toMatchObject({ status: 'draft', name: 'Copy of some points lack e-folds', totalPoints: 2, donePoints: 0 });
+    expect(clone.body.spec).toEqual(again.spec);
   });
 
   it('refuses what cannot run, saying why', async () => {

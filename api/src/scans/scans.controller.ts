@@ -66,6 +66,17 @@ export class ScansController {
     return this.scans.cancel(user, id);
   }
 
+  @Post(':id/retry')
+  @HttpCode(200)
+  retry(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
+    return this.scans.retryFailed(user, id);
+  }
+
+  @Post(':id/clone')
+  clone(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
+    return this.scans.clone(user, id);
+  }
+
   @Delete(':id')
   @HttpCode(204)
   remove(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<void> {

@@ -2,7 +2,7 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
-import { groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
+import { CHUNK_POINTS, groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
 import type { AppConfig } from '../config/app.config';
@@ -141,6 +141,40 @@ export class ScansService {
     await this.queue.remove(id, scan.totalPoints, scan.method);
     await this.audit.record({ action: 'scan.cancel', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id });
     return this.get(user, id);
+  }
+
+  /** Computes the failed points again (after a fix, or with other settings): their chunks go back on the queue. */
+  async retryFailed(user: SessionUser, id: number): Promise<ScanDetail> {
+    const scan = await this.load(user, id);
+    await this.requireOwnerOrLead(user, scan, 'retry');
+    if (scan.status === 'queued' || scan.status === 'running') throw new ConflictException('The scan is still running; retry its failed points when it has finished');
+    const size = CHUNK_POINTS[scan.method];
+    const rows: { chunk: string }[] = await this.db.query(
+      "SELECT DISTINCT FLOOR(point_index / ?) AS chunk FROM scan_points WHERE scan_id = ? AND status <> 'ok'",
+      [size, id],
+    );
+    if (rows.length === 0) throw new ConflictException('The scan has no failed points');
+    await this.scans.update({ id }, { status: 'running', finishedAt: null });
+    await this.queue.enqueue(id, scan.totalPoints, scan.method, new Set(rows.map((r) => Number(r.chunk))));
+    await this.audit.record({ action: 'scan.retry', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id, details: { chunks: rows.length } });
+    return this.get(user, id);
+  }
+
+  /** A new draft with the same specification, owned by the caller, for the form to start from. */
+  async clone(user: SessionUser, id: number): Promise<ScanDetail> {
+    const scan = await this.load(user, id);
+    await this.access.require(user, scan.groupId, 'member', 'scan');
+    const copy = await this.db.transaction(async (tx) => {
+      const saved = await tx.getRepository(Scan).save({
+        groupId: scan.groupId, ownerId: user.id, modelId: scan.modelId, family: scan.family,
+        name: `Copy of ${scan.name}`.slice(0, 200), method: scan.method, status: 'draft', spec: scan.spec,
+        note: scan.note, totalPoints: scan.totalPoints,
+      });
+      const tags = (scan.tags ?? []).map((t) => ({ scanId: saved.id, tag: t.tag }));
+      if (tags.length) await tx.getRepository(ScanTag).insert(tags);
+      return saved;
+    });
+    return this.get(user, copy.id);
   }
 
   /** Leads and admins only; the points go with the scan, and the deletion is on record. */
