@@ -6,19 +6,10 @@ import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { until } from './support/until';
 
 // Fault tests against the real services: a worker killed with SIGKILL in the middle of a scan.
 const WORKER_MAIN = path.resolve('../worker/dist/main.js');
-
-async function until<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 120_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await probe();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 200));
-  }
-}
 
 const stop = (w: ChildProcess) => new Promise<void>((resolve) => {
   if (w.exitCode !== null || w.signalCode !== null) return resolve();

@@ -6,20 +6,11 @@ import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { until } from './support/until';
 
 // The whole path: POST /api/scans → MariaDB row → bull jobs in Redis → two real worker
 // processes (the built worker) → scan_points → GET /api/scans/:id.
 const WORKER_MAIN = path.resolve('../worker/dist/main.js');
-
-async function until<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 60_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const value = await probe();
-    if (value !== undefined) return value;
-    if (Date.now() > deadline) throw new Error(`timed out waiting for ${what}`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
-}
 
 describe('a scan through queue and workers', () => {
   let t: TestApp;
