@@ -88,7 +88,7 @@ describe('a scan through queue and workers', () => {
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
     const lines = csv.text.trim().split('\n');
-    expect(lines[0]).toBe('pointIndex,f,nStar,status,failureReason,ns,r,alphaS,As,amplitudeScale,nTotal,nStar,phiStar,phiEnd,energyScaleGeV');
+    expect(lines[0]).toBe('pointIndex,f,nStar,status,failureReason,ns,r,alphaS,As,amplitudeScale,nTotal,phiStar,phiEnd,energyScaleGeV');
     expect(lines).toHaveLength(10);
     const first = lines[1].split(',');
     expect(Number(first[0])).toBe(0);

@@ -89,11 +89,13 @@ export class ScanResultsService {
       },
     });
     if (format === 'csv') {
-      const columns = ['pointIndex', ...axes, 'status', 'failureReason', ...POINT_OUTPUTS];
+      // An output that is also an axis (N_* on an axis) is the same number: one column for it.
+      const outputs = POINT_OUTPUTS.filter((o) => !axes.includes(o));
+      const columns = ['pointIndex', ...axes, 'status', 'failureReason', ...outputs];
       const flatten = new Transform({
         objectMode: true,
         transform(p: ScanPointDto, _enc, done) {
-          done(null, [p.pointIndex, ...axes.map((a) => p.inputs[a]), p.status, p.failureReason ?? '', ...POINT_OUTPUTS.map((o) => p[o] ?? '')]);
+          done(null, [p.pointIndex, ...axes.map((a) => p.inputs[a]), p.status, p.failureReason ?? '', ...outputs.map((o) => p[o] ?? '')]);
         },
       });
       return source.pipe(toPoint).pipe(flatten).pipe(stringify({ header: true, columns }));
