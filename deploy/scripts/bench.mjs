@@ -7,25 +7,18 @@ import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
 import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
-import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
 const profile = resolveProfile('bench');
 ensureNodePackages();
-ensureDebianPackages({
-  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
-  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
-});
+ensureDebianPackages(profilePackages(profile));
 npmRun(['run', '--silent', 'build'], { ...process.env, NODE_ENV: undefined });
 
 log('engine alone');
 const engineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/engine.bench.mjs')], { stdio: 'inherit' });
 if (engineBench.status !== 0) fail('the engine benchmark failed');
 
-const services = [];
-if (profile.manageDb) {
-  services.push(await startMariaDb({ dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort, database: profile.database, user: profile.dbUser, password: profile.dbPassword, freshDatabase: true }));
-}
-if (profile.manageRedis) services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: true }));
+const services = await startProfileServices(profile, { fresh: true });
 const env = {
   ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl,
   API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', WEB_DIST_DIR: path.join(ROOT, 'web/dist'),

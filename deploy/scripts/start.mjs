@@ -8,18 +8,15 @@ import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { loadDotEnv, persistentSecret, resolveProfile, ROOT } from './lib/environment.mjs';
 import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
-import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
 loadDotEnv();
 const profile = resolveProfile('dev');
 
 ensureNodePackages();
-ensureDebianPackages({
-  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
-  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
-});
+ensureDebianPackages(profilePackages(profile));
 
-const services = [];
+let services = [];
 let apps = null;
 let stopping = false;
 async function shutdown(code) {
@@ -34,17 +31,7 @@ async function shutdown(code) {
 process.on('SIGINT', () => shutdown(0));
 process.on('SIGTERM', () => shutdown(0));
 
-if (profile.manageDb) {
-  log(`starting MariaDB on 127.0.0.1:${profile.dbPort}`);
-  services.push(await startMariaDb({
-    dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort,
-    database: profile.database, user: profile.dbUser, password: profile.dbPassword,
-  }));
-}
-if (profile.manageRedis) {
-  log(`starting Redis on 127.0.0.1:${profile.redisPort}`);
-  services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort }));
-}
+services = await startProfileServices(profile);
 
 const env = {
   ...process.env,

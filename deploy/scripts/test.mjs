@@ -9,7 +9,7 @@ import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
 import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
-import { ensureDebianPackages, startMariaDb, startRedis } from './lib/services.mjs';
+import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
 // Tests never read .env: a developer's settings must not point the suites at real data.
 const profile = resolveProfile('test');
@@ -24,13 +24,12 @@ mkdirSync(reports, { recursive: true });
 
 ensureNodePackages();
 ensureDebianPackages({
-  ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
-  ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
+  ...profilePackages(profile),
   chromium: 'chromium',
   '/usr/share/fonts/truetype/dejavu': 'fonts-dejavu-core',
 });
 
-const services = [];
+let services = [];
 let apps = null;
 async function cleanUp() {
   await apps?.stop();
@@ -38,17 +37,7 @@ async function cleanUp() {
 }
 process.on('SIGINT', () => cleanUp().then(() => process.exit(130)));
 
-if (profile.manageDb) {
-  log(`starting the test MariaDB on 127.0.0.1:${profile.dbPort} (fresh database ${profile.database})`);
-  services.push(await startMariaDb({
-    dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort, database: profile.database,
-    user: profile.dbUser, password: profile.dbPassword, freshDatabase: true,
-  }));
-}
-if (profile.manageRedis) {
-  log(`starting the test Redis on 127.0.0.1:${profile.redisPort} (emptied)`);
-  services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: true }));
-}
+services = await startProfileServices(profile, { fresh: true });
 
 const env = {
   ...process.env,
@@ -87,7 +76,7 @@ function runSuite(name, args, extraEnv = {}) {
   return { name, ok, passed, failed };
 }
 
-const vitestJson = (ws) => ['run', 'test', '-w', ws, '--', '--reporter=default', '--reporter=json', '--outputFile.json'];
+const vitestJson = (ws, script = 'test') => ['run', script, '-w', ws, '--', '--reporter=default', '--reporter=json', '--outputFile.json'];
 const jestJson = (ws) => ['run', 'test', '-w', ws, '--', '--json', '--outputFile'];
 const results = [];
 if (wanted('shared')) results.push(runSuite('shared', vitestJson('shared')));
@@ -95,16 +84,17 @@ if (wanted('web')) results.push(runSuite('web', vitestJson('web')));
 if (wanted('api')) results.push(runSuite('api', jestJson('api')));
 if (wanted('worker')) results.push(runSuite('worker', jestJson('worker')));
 
-if (!wanted('browser')) {
-  // nothing more to run
-} else if ((log('starting the API and a worker for the browser tests'), (apps = startAppProcesses({ env, workers: 1, quiet: true }))) &&
-  (await waitForApi(profile.apiPort, apps.api))) {
-  results.push(runSuite('browser', ['run', 'test:browser', '-w', 'web', '--', '--reporter=default', '--reporter=json', '--outputFile.json'], {
-    SIXTYFOLD_WEB_URL: `http://127.0.0.1:${profile.apiPort}/`,
-  }));
-} else {
-  results.push({ name: 'browser', ok: false, passed: 0, failed: 1 });
-  log('the API did not become healthy, so the browser tests could not run');
+if (wanted('browser')) {
+  log('starting the API and a worker for the browser tests');
+  apps = startAppProcesses({ env, workers: 1, quiet: true });
+  if (await waitForApi(profile.apiPort, apps.api)) {
+    results.push(runSuite('browser', vitestJson('web', 'test:browser'), {
+      SIXTYFOLD_WEB_URL: `http://127.0.0.1:${profile.apiPort}/`,
+    }));
+  } else {
+    results.push({ name: 'browser', ok: false, passed: 0, failed: 1 });
+    log('the API did not become healthy, so the browser tests could not run');
+  }
 }
 await cleanUp();
 

@@ -140,3 +140,14 @@ describe('potentials undefined on the path', () => {
     expect(result.ns).toBeNull();
   });
 });
+
+describe('default starts of families', () => {
+  it('do not depend on the overall scale, so one start serves a scan over it', () => {
+    // V → λV leaves the e-fold equations unchanged: the start found for one scale is right for all.
+    for (const [key, scale] of [['starobinsky', 'mu'], ['hilltop-quartic', 'V0'], ['double-well', 'lambda'], ['alpha-t', 'V0']] as const) {
+      const a = new RequestEvaluator().evaluate({ potential: key, params: { [scale]: 1e-6 }, nStar: 55, method: 'slowroll' });
+      const b = new RequestEvaluator().evaluate({ potential: key, params: { [scale]: 1e-2 }, nStar: 55, method: 'slowroll' });
+      expect(a.phiInit).toBeCloseTo(b.phiInit!, 9);
+    }
+  });
+});

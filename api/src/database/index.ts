@@ -4,3 +4,4 @@ export * from './entities';
 export { buildDataSourceOptions } from './typeorm-options';
 export { readDatabaseConfig, type DatabaseConfig } from '../config/database.config';
 export { readRedisConfig, type RedisConfig } from '../config/redis.config';
+export { completeIfAllStored } from '../scans/scan-completion';

@@ -5,6 +5,7 @@ import type { DataSource } from 'typeorm';
 import { CHUNK_POINTS, scanChunks } from '@sixtyfold/shared';
 import type { AppConfig } from '../config/app.config';
 import { Scan } from './entities/scan.entity';
+import { completeIfAllStored } from './scan-completion';
 import { ScanQueueService } from './scan-queue.service';
 
 /**
@@ -63,11 +64,7 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
       scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start).map((c) => c.chunk),
     );
     if (missing.size === 0) {
-      await this.db.query(
-        `UPDATE scans SET status = 'completed', finished_at = CURRENT_TIMESTAMP(3)
-          WHERE id = ? AND status IN ('queued', 'running') AND done_points + failed_points >= total_points`,
-        [scan.id],
-      );
+      await completeIfAllStored(this.db, scan.id);
       return 0;
     }
     return this.queue.enqueue(scan.id, scan.totalPoints, scan.method, missing);

@@ -185,3 +185,32 @@ export async function stopByPidFile(pidFile, name, graceMs = 30_000) {
 export function removeFolder(dir) {
   rmSync(dir, { recursive: true, force: true });
 }
+
+/** The Debian packages a profile needs: only for the services it runs itself. */
+export function profilePackages(profile) {
+  return {
+    ...(profile.manageDb ? { mariadbd: 'mariadb-server' } : {}),
+    ...(profile.manageRedis ? { 'redis-server': 'redis-server' } : {}),
+  };
+}
+
+/**
+ * Starts the MariaDB and Redis a profile runs itself (none where it points at existing servers).
+ * `fresh` recreates the database and empties Redis, for tests and benchmarks.
+ * Returns the started services, to stop in reverse order.
+ */
+export async function startProfileServices(profile, { fresh = false } = {}) {
+  const services = [];
+  if (profile.manageDb) {
+    log(`starting MariaDB on 127.0.0.1:${profile.dbPort}${fresh ? ` (fresh database ${profile.database})` : ''}`);
+    services.push(await startMariaDb({
+      dir: path.join(profile.dataDir, 'mariadb'), port: profile.dbPort, database: profile.database,
+      user: profile.dbUser, password: profile.dbPassword, freshDatabase: fresh,
+    }));
+  }
+  if (profile.manageRedis) {
+    log(`starting Redis on 127.0.0.1:${profile.redisPort}${fresh ? ' (emptied)' : ''}`);
+    services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: fresh }));
+  }
+  return services;
+}

@@ -1,7 +1,7 @@
 import { evaluateRequestSchema, type EvaluateRequest } from '../schemas/evaluate.schema.js';
-import { parsePotential, type ParsedPotential } from './expression/index.js';
+import { parsePotential, type CompiledPotential, type ParsedPotential } from './expression/index.js';
 import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
-import { findFamily } from './families/potential-families.js';
+import { findFamily, type PotentialFamily } from './families/potential-families.js';
 import { failure, type Failure } from './types.js';
 
 /** One evaluated point as scripts and the API see it: outputs are null when status is not ok. */
@@ -39,6 +39,8 @@ const NULL_OUTPUTS = {
  */
 export class RequestEvaluator {
   private readonly parsed = new Map<string, ParsedPotential | Failure>();
+  /** Default starts of families by the parameters they depend on: a scan over N_* or a scale finds one once. */
+  private readonly starts = new Map<string, number>();
   private readonly point = new PointEvaluator();
 
   evaluate(input: unknown): EvaluateResponse {
@@ -56,7 +58,7 @@ export class RequestEvaluator {
     const bound = parsed.bind(params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
     const potential = bound.potential;
-    const phiInit = req.phiInit ?? family?.phiInit(params, potential);
+    const phiInit = req.phiInit ?? (family ? this.defaultStart(family, params, potential) : undefined);
     if (phiInit === undefined) {
       return respond(failure('invalid_input', 'phiInit is required for an expression (built-in families know where they inflate)'), null);
     }
@@ -73,17 +75,32 @@ export class RequestEvaluator {
     return respond(outcome, phiInit);
   }
 
+  private defaultStart(family: PotentialFamily, params: Record<string, number>, potential: CompiledPotential): number {
+    const key = `${family.key}|${family.startDependsOn.map((name) => params[name]).join(',')}`;
+    let start = this.starts.get(key);
+    if (start === undefined) {
+      start = family.phiInit(params, potential);
+      remember(this.starts, key, start);
+    }
+    return start;
+  }
+
   private parse(source: string, names: string[]): ParsedPotential | Failure {
     const key = `${names.join(',')}|${source}`;
     let entry = this.parsed.get(key);
     if (!entry) {
       const result = parsePotential(source, names);
       entry = result.ok ? result.potential : failure('invalid_potential', result.problem.message);
-      if (this.parsed.size >= 64) this.parsed.delete(this.parsed.keys().next().value as string);
-      this.parsed.set(key, entry);
+      remember(this.parsed, key, entry);
     }
     return entry;
   }
+}
+
+/** Bounded cache: the oldest entry goes first. */
+function remember<V>(cache: Map<string, V>, key: string, value: V, limit = 256): void {
+  if (cache.size >= limit) cache.delete(cache.keys().next().value as string);
+  cache.set(key, value);
 }
 
 function respond(outcome: PointOutcome, phiInit: number | null): EvaluateResponse {

@@ -1,7 +1,7 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { ScanPoint, Scan } from '@sixtyfold/api/database';
+import { completeIfAllStored, Scan, ScanPoint } from '@sixtyfold/api/database';
 import { pointRequest, RequestEvaluator, ScanGrid, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 
 export interface ChunkOutcome {
@@ -111,13 +111,8 @@ export class ComputeChunkService {
       `UPDATE scans SET done_points = done_points + ?, failed_points = failed_points + ? WHERE id = ?`,
       [after.ok - before.ok, after.bad - before.bad, scanId],
     );
-    // The scan is finished exactly when its last point is stored.
-    await tx.query(
-      `UPDATE scans SET status = 'completed', finished_at = CURRENT_TIMESTAMP(3)
-        WHERE id = ? AND status IN ('queued', 'running') AND done_points + failed_points >= total_points`,
-      [scanId],
-    );
-    this.logger.debug?.(`scan ${scanId} chunk ${job.chunk}: ${rows.length} points stored`);
+    await completeIfAllStored(tx, scanId);
+    this.logger.debug(`scan ${scanId} chunk ${job.chunk}: ${rows.length} points stored`);
     return true;
   }
 }

@@ -17,6 +17,8 @@ export interface PotentialFamily {
   endsInflation: boolean;
   /** A start about 75 slow-roll e-folds before the end, from the parameters. */
   phiInit(params: Record<string, number>, potential: PotentialFunctions): number;
+  /** The parameters that start depends on (the overall scale never matters), so it can be reused. */
+  startDependsOn: string[];
 }
 
 const START_EFOLDS = 75;
@@ -27,6 +29,7 @@ const p = (name: string, defaultValue: number, min: number, max: number, descrip
 export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   {
     key: 'monomial',
+    startDependsOn: ['p'],
     name: 'Monomial (chaotic) inflation',
     expression: 'lambda * phi^p',
     parameters: [p('lambda', 1e-10, 1e-16, 1e-4, 'overall scale (fixed by A_s)'), p('p', 2, 0.1, 6, 'power of the field')],
@@ -38,6 +41,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'quadratic-quartic',
+    startDependsOn: [],
     name: 'Quadratic plus quartic',
     expression: '0.5 * m^2 * phi^2 + lambda4 / 4 * phi^4',
     parameters: [p('m', 6e-6, 1e-8, 1e-3, 'inflaton mass'), p('lambda4', 1e-14, 0, 1e-8, 'quartic self-coupling')],
@@ -49,6 +53,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'starobinsky',
+    startDependsOn: [],
     name: 'Starobinsky R² (Einstein frame)',
     expression: '0.75 * mu^2 * (1 - exp(-sqrt(2/3) * phi))^2',
     parameters: [p('mu', 1.3e-5, 1e-8, 1e-2, 'scalaron mass')],
@@ -59,6 +64,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'natural',
+    startDependsOn: ['f'],
     name: 'Natural inflation',
     expression: 'Lambda^4 * (1 + cos(phi / f))',
     parameters: [p('Lambda', 5e-3, 1e-6, 1e-1, 'scale of the axion potential'), p('f', 7, 0.5, 100, 'axion decay constant')],
@@ -73,6 +79,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'hilltop-quadratic',
+    startDependsOn: ['mu'],
     name: 'Hilltop, quadratic',
     expression: 'V0 * (1 - phi^2 / mu^2)',
     parameters: [p('V0', 1e-10, 1e-20, 1e-4, 'height of the hilltop'), p('mu', 10, 0.5, 100, 'field scale of the hilltop')],
@@ -83,6 +90,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'hilltop-quartic',
+    startDependsOn: ['mu'],
     name: 'Hilltop, quartic',
     expression: 'V0 * (1 - phi^4 / mu^4)',
     parameters: [p('V0', 1e-10, 1e-20, 1e-4, 'height of the hilltop'), p('mu', 10, 0.05, 100, 'field scale of the hilltop')],
@@ -93,6 +101,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'alpha-t',
+    startDependsOn: ['alpha', 'n'],
     name: 'α-attractor, T-model',
     expression: 'V0 * tanh(phi / sqrt(6 * alpha))^(2 * n)',
     parameters: [p('V0', 1e-10, 1e-20, 1e-4, 'plateau height'), p('alpha', 1, 0.01, 100, 'α (curvature of the Kähler geometry)'), p('n', 1, 0.5, 4, 'power')],
@@ -103,6 +112,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'alpha-e',
+    startDependsOn: ['alpha', 'n'],
     name: 'α-attractor, E-model',
     expression: 'V0 * (1 - exp(-sqrt(2 / (3 * alpha)) * phi))^(2 * n)',
     parameters: [p('V0', 1e-10, 1e-20, 1e-4, 'plateau height'), p('alpha', 1, 0.01, 100, 'α (α = n = 1 is Starobinsky)'), p('n', 1, 0.5, 4, 'power')],
@@ -113,6 +123,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'double-well',
+    startDependsOn: ['v'],
     name: 'Double well (symmetry breaking)',
     expression: 'lambda / 4 * (phi^2 - v^2)^2',
     parameters: [p('lambda', 1e-14, 1e-20, 1e-4, 'self-coupling'), p('v', 20, 1, 200, 'vacuum expectation value')],
@@ -123,6 +134,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'power-law',
+    startDependsOn: [],
     name: 'Power-law (exponential potential)',
     expression: 'V0 * exp(-lambda * phi)',
     parameters: [p('V0', 1e-10, 1e-20, 1e-4, 'scale'), p('lambda', 0.1, 0.001, 1.4, 'slope; ε = λ²/2')],
@@ -133,6 +145,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'monodromy-modulated',
+    startDependsOn: [],
     name: 'Linear monodromy with modulations',
     expression: 'mu3 * phi + Lambda4 * cos(phi / f)',
     parameters: [
