@@ -1,5 +1,5 @@
 import { evaluateRequestSchema, type EvaluateRequest } from '../schemas/evaluate.schema.js';
-import { parsePotential, type CompiledPotential, type ParsedPotential } from './expression/index.js';
+import { parsePotential, type ParsedPotential } from './expression/index.js';
 import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
 import { findFamily, type PotentialFamily } from './families/potential-families.js';
 import { failure, type Failure } from './types.js';
@@ -58,7 +58,7 @@ export class RequestEvaluator {
     const bound = parsed.bind(params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
     const potential = bound.potential;
-    const phiInit = req.phiInit ?? (family ? this.defaultStart(family, params, potential) : undefined);
+    const phiInit = req.phiInit ?? (family ? this.defaultStart(family, params, parsed) : undefined);
     if (phiInit === undefined) {
       return respond(failure('invalid_input', 'phiInit is required for an expression (built-in families know where they inflate)'), null);
     }
@@ -75,11 +75,20 @@ export class RequestEvaluator {
     return respond(outcome, phiInit);
   }
 
-  private defaultStart(family: PotentialFamily, params: Record<string, number>, potential: CompiledPotential): number {
+  /**
+   * The family's start for these parameters. It is computed with every parameter it does not
+   * depend on at its default, so the same start comes out to the last bit whichever point of a
+   * scan asked first, and one computation serves a whole scan over N_* or the overall scale.
+   */
+  private defaultStart(family: PotentialFamily, params: Record<string, number>, parsed: ParsedPotential): number | undefined {
     const key = `${family.key}|${family.startDependsOn.map((name) => params[name]).join(',')}`;
     let start = this.starts.get(key);
     if (start === undefined) {
-      start = family.phiInit(params, potential);
+      const startParams = Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue]));
+      for (const name of family.startDependsOn) startParams[name] = params[name];
+      const bound = parsed.bind(startParams);
+      if (!bound.ok) return undefined;
+      start = family.phiInit(startParams, bound.potential);
       remember(this.starts, key, start);
     }
     return start;
