@@ -2,7 +2,7 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
-import { CHUNK_POINTS, groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
+import { chunkSize, groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
 import type { AppConfig } from '../config/app.config';
@@ -148,15 +148,23 @@ export class ScansService {
     const scan = await this.load(user, id);
     await this.requireOwnerOrLead(user, scan, 'retry');
     if (scan.status === 'queued' || scan.status === 'running') throw new ConflictException('The scan is still running; retry its failed points when it has finished');
-    const size = CHUNK_POINTS[scan.method];
-    const rows: { chunk: string }[] = await this.db.query(
-      "SELECT DISTINCT FLOOR(point_index / ?) AS chunk FROM scan_points WHERE scan_id = ? AND status <> 'ok'",
-      [size, id],
-    );
-    if (rows.length === 0) throw new ConflictException('The scan has no failed points');
-    await this.scans.update({ id }, { status: 'running', finishedAt: null });
-    await this.queue.enqueue(id, scan.totalPoints, scan.method, new Set(rows.map((r) => Number(r.chunk))));
-    await this.audit.record({ action: 'scan.retry', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id, details: { chunks: rows.length } });
+    const size = chunkSize(scan.totalPoints, scan.method);
+    // The failed rows are deleted, so the points are missing again: the scan completes exactly
+    // when the last of them is stored anew, and reconciliation re-queues them if jobs vanish.
+    const chunks = await this.db.transaction(async (tx) => {
+      await tx.query('SELECT id FROM scans WHERE id = ? FOR UPDATE', [id]);
+      const rows: { chunk: string }[] = await tx.query(
+        "SELECT DISTINCT FLOOR(point_index / ?) AS chunk FROM scan_points WHERE scan_id = ? AND status <> 'ok'",
+        [size, id],
+      );
+      if (rows.length === 0) return [];
+      const removed: { affectedRows: number } = await tx.query("DELETE FROM scan_points WHERE scan_id = ? AND status <> 'ok'", [id]);
+      await tx.query("UPDATE scans SET status = 'running', finished_at = NULL, failed_points = failed_points - ? WHERE id = ?", [removed.affectedRows, id]);
+      return rows.map((r) => Number(r.chunk));
+    });
+    if (chunks.length === 0) throw new ConflictException('The scan has no failed points');
+    await this.queue.enqueue(id, scan.totalPoints, scan.method, new Set(chunks));
+    await this.audit.record({ action: 'scan.retry', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id, details: { chunks: chunks.length } });
     return this.get(user, id);
   }
 
