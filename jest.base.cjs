@@ -2,7 +2,7 @@
 // modules only (Node 20's jest cannot require() them); @swc/jest compiles TypeScript with
 // decorator metadata.
 module.exports = {
-  moduleFileExtensions: ['js', 'json', 'ts'],
+  moduleFileExtensions: ['js', 'mjs', 'json', 'ts'],
   testRegex: '(src|test)/.*\\.(spec|e2e-spec)\\.ts$',
   testEnvironment: 'node',
   extensionsToTreatAsEsm: ['.ts'],

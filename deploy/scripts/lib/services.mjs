@@ -155,12 +155,22 @@ export function stopChild(child, name, graceMs = 15_000) {
   });
 }
 
-function isAlive(pid) {
+/**
+ * Whether a process still runs. A server that has exited stays a zombie until its parent reaps
+ * it, and a parent busy in spawnSync (test.mjs running a suite) reaps nothing: that counts as gone.
+ */
+export function isAlive(pid) {
   try {
     process.kill(pid, 0);
-    return true;
   } catch {
     return false;
+  }
+  try {
+    // /proc/<pid>/stat: "pid (name) state …"; the name may hold spaces, so read after the last ')'.
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8');
+    return stat.slice(stat.lastIndexOf(')') + 2, stat.lastIndexOf(')') + 3) !== 'Z';
+  } catch {
+    return true; // no /proc: the signal check is all we have
   }
 }
 
