@@ -2,7 +2,7 @@ import { Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShut
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
-import { CHUNK_POINTS, scanChunks } from '@sixtyfold/shared';
+import { chunkSize, scanChunks } from '@sixtyfold/shared';
 import type { AppConfig } from '../config/app.config';
 import { Scan } from './entities/scan.entity';
 import { completeIfAllStored } from './scan-completion';
@@ -54,7 +54,7 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
   }
 
   private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method'>): Promise<number> {
-    const size = CHUNK_POINTS[scan.method];
+    const size = chunkSize(scan.totalPoints, scan.method);
     const rows: { chunk: string; stored: string }[] = await this.db.query(
       'SELECT FLOOR(point_index / ?) AS chunk, COUNT(*) AS stored FROM scan_points WHERE scan_id = ? GROUP BY chunk',
       [size, scan.id],

@@ -5,8 +5,19 @@ import type { ScanMethod } from '../schemas/scan-summary.schema.js';
 export const SCAN_QUEUE = 'scan-chunks';
 export const COMPUTE_CHUNK_JOB = 'compute-chunk';
 
-/** Points per chunk, so that one chunk takes about a second on one core (see `npm run bench`). */
-export const CHUNK_POINTS: Record<ScanMethod, number> = { slowroll: 2000, exact: 200 };
+/** Most points per chunk: about a second on one core (see `npm run bench`). */
+export const MAX_CHUNK_POINTS: Record<ScanMethod, number> = { slowroll: 2000, exact: 200 };
+/**
+ * A smaller scan is cut into at least this many chunks (down to an eighth of the maximum size),
+ * so that every worker of the pool gets a share and none is left finishing alone.
+ */
+const MIN_CHUNKS = 16;
+
+/** Points per chunk of a scan; it depends only on the scan's size and method, which never change. */
+export function chunkSize(total: number, method: ScanMethod): number {
+  const most = MAX_CHUNK_POINTS[method];
+  return Math.min(most, Math.max(Math.ceil(most / 8), Math.ceil(total / MIN_CHUNKS)));
+}
 
 /** Job data: ids only; the worker reads the scan itself from MariaDB. */
 export const computeChunkJobSchema = z.object({
@@ -25,7 +36,7 @@ export function chunkJobId(scanId: number, chunk: number): string {
 
 /** The chunks of a scan of `total` points. */
 export function scanChunks(scanId: number, total: number, method: ScanMethod): ComputeChunkJob[] {
-  const size = CHUNK_POINTS[method];
+  const size = chunkSize(total, method);
   const chunks: ComputeChunkJob[] = [];
   for (let chunk = 0, start = 0; start < total; chunk++, start += size) {
     chunks.push({ scanId, chunk, start, end: Math.min(total, start + size) });
