@@ -25,7 +25,16 @@ export class ComputeChunkService {
   private readonly logger = new Logger('ComputeChunk');
   private readonly engine = new RequestEvaluator();
 
-  constructor(@InjectDataSource() private readonly db: DataSource) {}
+  private readonly pointColumns: { name: string; property: keyof PointRow; primary: boolean; json: boolean }[];
+
+  constructor(@InjectDataSource() private readonly db: DataSource) {
+    this.pointColumns = db.getMetadata(ScanPoint).columns.map((c) => ({
+      name: c.databaseName,
+      property: c.propertyName as keyof PointRow,
+      primary: c.isPrimary,
+      json: c.type === 'json',
+    }));
+  }
 
   async run(job: ComputeChunkJob, progress: (fraction: number) => Promise<void> | void = () => undefined): Promise<ChunkOutcome> {
     const scan = await this.db.getRepository(Scan).findOneBy({ id: job.scanId });
@@ -83,36 +92,41 @@ export class ComputeChunkService {
 
   /** Writes the chunk unless the scan was cancelled or deleted meanwhile; false when skipped. */
   private async store(tx: EntityManager, scanId: number, job: ComputeChunkJob, rows: PointRow[]): Promise<boolean> {
-    const counts = async () => {
-      const [row] = await tx.query(
-        `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
-           FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE`,
-        [scanId, job.start, job.end],
-      );
-      return { ok: Number(row.ok), bad: Number(row.bad) };
-    };
     // The scan row first: every chunk of a scan takes its lock in the same order, and a cancel
     // (which updates this row) is either before this check or after this chunk's commit.
     const [scanRow] = await tx.query('SELECT status FROM scans WHERE id = ? FOR UPDATE', [scanId]);
     if (!scanRow || scanRow.status === 'cancelled') return false;
-    const before = await counts();
-    await tx
-      .createQueryBuilder()
-      .insert()
-      .into(ScanPoint)
-      .values(rows)
-      .orUpdate(
-        ['inputs', 'status', 'failure_reason', 'ns', 'r', 'alpha_s', 'a_s', 'amplitude_scale', 'n_total', 'n_star', 'phi_star', 'phi_end', 'energy_scale_gev', 'computed_at'],
-        ['scan_id', 'point_index'],
-      )
-      .execute();
-    const after = await counts();
+    // What an earlier attempt of this chunk stored; after the write the range holds exactly `rows`.
+    const [before] = await tx.query(
+      `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
+         FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE`,
+      [scanId, job.start, job.end],
+    );
+    const { sql, parameters } = this.upsert(rows);
+    await tx.query(sql, parameters);
+    const ok = rows.filter((r) => r.status === 'ok').length;
     await tx.query(
       `UPDATE scans SET done_points = done_points + ?, failed_points = failed_points + ? WHERE id = ?`,
-      [after.ok - before.ok, after.bad - before.bad, scanId],
+      [ok - Number(before.ok), rows.length - ok - Number(before.bad), scanId],
     );
     await completeIfAllStored(tx, scanId);
     this.logger.debug(`scan ${scanId} chunk ${job.chunk}: ${rows.length} points stored`);
     return true;
   }
+
+  /**
+   * One INSERT … ON DUPLICATE KEY UPDATE for the whole chunk, with the columns taken from the
+   * entity's metadata. Written out here rather than with the query builder, which spent as long
+   * preparing a chunk's statement as MariaDB took to run it (see DEVELOPERS.md).
+   */
+  private upsert(rows: PointRow[]): { sql: string; parameters: unknown[] } {
+    const columns = this.pointColumns;
+    const tuple = `(${columns.map(() => '?').join(', ')})`;
+    const sql =
+      `INSERT INTO scan_points (${columns.map((c) => `\`${c.name}\``).join(', ')}) VALUES ${rows.map(() => tuple).join(', ')}` +
+      ` ON DUPLICATE KEY UPDATE ${columns.filter((c) => !c.primary).map((c) => `\`${c.name}\` = VALUES(\`${c.name}\`)`).join(', ')}`;
+    const parameters = rows.flatMap((row) => columns.map((c) => (c.json ? JSON.stringify(row[c.property]) : row[c.property])));
+    return { sql, parameters };
+  }
+
 }
