@@ -9,6 +9,7 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import passport from 'passport';
 import { SESSION_COOKIE } from './auth/session.constants';
+import { readBearerToken } from './common/bearer-token';
 import { csrfMiddleware } from './common/middleware/csrf.middleware';
 import type { AppConfig } from './config/app.config';
 import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
@@ -42,25 +43,29 @@ export function configureApp(nestApp: INestApplication): void {
     }),
   );
   app.useBodyParser('json', { limit: '2mb' });
-  app.use(
-    session({
-      name: SESSION_COOKIE,
-      store: new RedisStore({ client: redis, prefix: 'sixtyfold:sess:' }),
-      secret: config.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: config.cookieSecure,
-        maxAge: config.sessionTtlSeconds * 1000,
-        path: '/',
-      },
-    }),
-  );
+  const sessions = session({
+    name: SESSION_COOKIE,
+    store: new RedisStore({ client: redis, prefix: 'sixtyfold:sess:' }),
+    secret: config.sessionSecret,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: config.cookieSecure,
+      maxAge: config.sessionTtlSeconds * 1000,
+      path: '/',
+    },
+  });
+  const passportSessions = passport.session();
+  // A bearer-token request is authenticated by its token alone (AccessGuard): no session is read,
+  // created or prolonged for it, so one request never mixes two identities.
+  const unlessBearer = (middleware: express.RequestHandler): express.RequestHandler => (req, res, next) =>
+    readBearerToken(req) === undefined ? middleware(req, res, next) : next();
+  app.use(unlessBearer(sessions));
   app.use(passport.initialize());
-  app.use(passport.session());
+  app.use(unlessBearer(passportSessions));
   app.use('/api', csrfMiddleware);
   app.setGlobalPrefix('api');
   serveWebApp(app, config.webDistDir);

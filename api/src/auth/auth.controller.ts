@@ -4,6 +4,7 @@ import type { CurrentUser as CurrentUserDto } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Public } from '../common/decorators/public.decorator';
+import { SessionOnly } from '../common/decorators/session-only.decorator';
 import type { SessionUser } from '../common/session-user';
 import { UsersService } from '../users/users.service';
 import { LocalAuthGuard } from './guards/local-auth.guard';
@@ -18,6 +19,7 @@ export class AuthController {
   ) {}
 
   @Public()
+  @SessionOnly()
   @Post('login')
   @HttpCode(200)
   @UseGuards(LoginThrottlerGuard, LocalAuthGuard)
@@ -25,6 +27,7 @@ export class AuthController {
     return this.users.describe(user);
   }
 
+  @SessionOnly()
   @Post('logout')
   @HttpCode(204)
   async logout(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
