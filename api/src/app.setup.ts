@@ -12,12 +12,13 @@ import { SESSION_COOKIE } from './auth/session.constants';
 import { readBearerToken } from './common/bearer-token';
 import { csrfMiddleware } from './common/middleware/csrf.middleware';
 import type { AppConfig } from './config/app.config';
+import { setupOpenApi } from './openapi/openapi.setup';
 import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
 
 /**
  * Everything around the routes, in one place so that main.ts and the end-to-end tests run
  * the same stack: security headers, JSON bodies, sessions in Redis, passport, CSRF, the
- * `/api` prefix and the built web app with its client-side routes.
+ * `/api` prefix, the OpenAPI document and the built web app with its client-side routes.
  */
 export function configureApp(nestApp: INestApplication): void {
   const app = nestApp as NestExpressApplication;
@@ -26,6 +27,8 @@ export function configureApp(nestApp: INestApplication): void {
 
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
+  // The API docs page (/api/docs) fits this policy as is: swagger-ui-dist's scripts are files served
+  // from here (no inline script), its inline <style> is allowed below, and its icons are data: URIs.
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -68,6 +71,7 @@ export function configureApp(nestApp: INestApplication): void {
   app.use(unlessBearer(passportSessions));
   app.use('/api', csrfMiddleware);
   app.setGlobalPrefix('api');
+  setupOpenApi(app);
   serveWebApp(app, config.webDistDir);
 }
 
