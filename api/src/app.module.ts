@@ -16,6 +16,7 @@ import { HealthModule } from './health/health.module';
 import { ModelsModule } from './models/models.module';
 import { RedisModule } from './redis/redis.module';
 import { ScansModule } from './scans/scans.module';
+import { TokensModule } from './tokens/tokens.module';
 import { UsersModule } from './users/users.module';
 import { WorkersModule } from './workers/workers.module';
 
@@ -34,6 +35,7 @@ import { WorkersModule } from './workers/workers.module';
     GroupsModule,
     ModelsModule,
     ScansModule,
+    TokensModule,
     AdminModule,
     HealthModule,
     WorkersModule,

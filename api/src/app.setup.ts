@@ -9,14 +9,16 @@ import { existsSync } from 'node:fs';
 import path from 'node:path';
 import passport from 'passport';
 import { SESSION_COOKIE } from './auth/session.constants';
+import { readBearerToken } from './common/bearer-token';
 import { csrfMiddleware } from './common/middleware/csrf.middleware';
 import type { AppConfig } from './config/app.config';
+import { setupOpenApi } from './openapi/openapi.setup';
 import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
 
 /**
  * Everything around the routes, in one place so that main.ts and the end-to-end tests run
  * the same stack: security headers, JSON bodies, sessions in Redis, passport, CSRF, the
- * `/api` prefix and the built web app with its client-side routes.
+ * `/api` prefix, the OpenAPI document and the built web app with its client-side routes.
  */
 export function configureApp(nestApp: INestApplication): void {
   const app = nestApp as NestExpressApplication;
@@ -25,6 +27,8 @@ export function configureApp(nestApp: INestApplication): void {
 
   if (config.trustProxy) app.set('trust proxy', 1);
   app.disable('x-powered-by');
+  // The API docs page (/api/docs) fits this policy as is: swagger-ui-dist's scripts are files served
+  // from here (no inline script), its inline <style> is allowed below, and its icons are data: URIs.
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -42,27 +46,32 @@ export function configureApp(nestApp: INestApplication): void {
     }),
   );
   app.useBodyParser('json', { limit: '2mb' });
-  app.use(
-    session({
-      name: SESSION_COOKIE,
-      store: new RedisStore({ client: redis, prefix: 'sixtyfold:sess:' }),
-      secret: config.sessionSecret,
-      resave: false,
-      saveUninitialized: false,
-      rolling: true,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: config.cookieSecure,
-        maxAge: config.sessionTtlSeconds * 1000,
-        path: '/',
-      },
-    }),
-  );
+  const sessions = session({
+    name: SESSION_COOKIE,
+    store: new RedisStore({ client: redis, prefix: 'sixtyfold:sess:' }),
+    secret: config.sessionSecret,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    cookie: {
+      httpOnly: true,
+      sameSite: 'lax',
+      secure: config.cookieSecure,
+      maxAge: config.sessionTtlSeconds * 1000,
+      path: '/',
+    },
+  });
+  const passportSessions = passport.session();
+  // A bearer-token request is authenticated by its token alone (AccessGuard): no session is read,
+  // created or prolonged for it, so one request never mixes two identities.
+  const unlessBearer = (middleware: express.RequestHandler): express.RequestHandler => (req, res, next) =>
+    readBearerToken(req) === undefined ? middleware(req, res, next) : next();
+  app.use(unlessBearer(sessions));
   app.use(passport.initialize());
-  app.use(passport.session());
+  app.use(unlessBearer(passportSessions));
   app.use('/api', csrfMiddleware);
   app.setGlobalPrefix('api');
+  setupOpenApi(app);
   serveWebApp(app, config.webDistDir);
 }
 

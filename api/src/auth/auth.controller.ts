@@ -1,15 +1,19 @@
 import { Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
 import type { Request, Response } from 'express';
-import type { CurrentUser as CurrentUserDto } from '@sixtyfold/shared';
+import { ApiOperation, ApiTags } from '@nestjs/swagger';
+import { currentUserSchema, loginSchema, type CurrentUser as CurrentUserDto } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { Public } from '../common/decorators/public.decorator';
+import { SessionOnly } from '../common/decorators/session-only.decorator';
 import type { SessionUser } from '../common/session-user';
+import { ApiErrorResponses, ApiZodBody, ApiZodResponse } from '../openapi/zod-openapi.decorators';
 import { UsersService } from '../users/users.service';
 import { LocalAuthGuard } from './guards/local-auth.guard';
 import { LoginThrottlerGuard } from './guards/login-throttler.guard';
 import { SESSION_COOKIE } from './session.constants';
 
+@ApiTags('auth')
 @Controller('auth')
 export class AuthController {
   constructor(
@@ -18,15 +22,22 @@ export class AuthController {
   ) {}
 
   @Public()
+  @SessionOnly()
   @Post('login')
   @HttpCode(200)
   @UseGuards(LoginThrottlerGuard, LocalAuthGuard)
+  @ApiOperation({ summary: 'Sign in: starts a session (cookie sixtyfold.sid)' })
+  @ApiZodBody(loginSchema)
+  @ApiZodResponse(200, currentUserSchema, 'Signed in; the answer is the user with their group memberships')
+  @ApiErrorResponses(400, 401)
   login(@CurrentUser() user: SessionUser): Promise<CurrentUserDto> {
     return this.users.describe(user);
   }
 
+  @SessionOnly()
   @Post('logout')
   @HttpCode(204)
+  @ApiOperation({ summary: 'Sign out: ends the session' })
   async logout(@Req() req: Request, @Res({ passthrough: true }) res: Response): Promise<void> {
     const userId = req.user?.id ?? null;
     await new Promise<void>((resolve, reject) => req.logout((err) => (err ? reject(err) : resolve())));
@@ -36,6 +47,9 @@ export class AuthController {
   }
 
   @Get('me')
+  @ApiOperation({ summary: 'Who I am: the caller, with group ids and roles (works with a session or a token)' })
+  @ApiZodResponse(200, currentUserSchema, 'The caller')
+  @ApiErrorResponses(401)
   me(@CurrentUser() user: SessionUser): Promise<CurrentUserDto> {
     return this.users.describe(user);
   }

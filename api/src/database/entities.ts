@@ -6,9 +6,10 @@ import { PotentialModel } from '../models/entities/potential-model.entity';
 import { Scan } from '../scans/entities/scan.entity';
 import { ScanPoint } from '../scans/entities/scan-point.entity';
 import { ScanTag } from '../scans/entities/scan-tag.entity';
+import { ApiToken } from '../tokens/entities/api-token.entity';
 import { User } from '../users/entities/user.entity';
 
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
-export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent];
+export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent, ApiToken];
 
-export { AuditEvent, Comment, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };
+export { ApiToken, AuditEvent, Comment, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };

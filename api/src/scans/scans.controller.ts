@@ -1,16 +1,20 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
+import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
-  createScanSchema, scanGridQuerySchema, scanListQuerySchema, scanPointsQuerySchema, type CreateScan, type Page, type ScanDetail,
+  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanListQuerySchema, scanPointSchema, scanPointsQuerySchema,
+  scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPointDto, type ScanPointsQuery, type ScanSummary,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
+import { ApiErrorResponses, ApiZodBody, ApiZodQuery, ApiZodResponse, openApiSchemaOf } from '../openapi/zod-openapi.decorators';
 import { ScanResultsService } from './scan-results.service';
 import { ScansService } from './scans.service';
 
+@ApiTags('scans')
 @Controller('scans')
 export class ScansController {
   constructor(
@@ -19,6 +23,10 @@ export class ScansController {
   ) {}
 
   @Get()
+  @ApiOperation({ summary: 'Scans of my groups, filtered and paged, newest first' })
+  @ApiZodQuery(scanListQuerySchema)
+  @ApiZodResponse(200, pageOf(scanSummarySchema), 'One page of scans')
+  @ApiErrorResponses(400, 401)
   list(
     @CurrentUser() user: SessionUser,
     @Query(new ZodValidationPipe(scanListQuerySchema)) query: ScanListQuery,
@@ -27,17 +35,36 @@ export class ScansController {
   }
 
   @Post()
+  @ApiOperation({ summary: 'Submit a scan: stored, then queued for the workers (needs the member role in the group)' })
+  @ApiZodBody(createScanSchema, 'The scan specification; axes run in the order given, the last one fastest')
+  @ApiZodResponse(201, scanDetailSchema, 'The stored scan, status `queued`')
+  @ApiErrorResponses(400, 401, 403, 404)
   create(@CurrentUser() user: SessionUser, @Body(new ZodValidationPipe(createScanSchema)) spec: CreateScan): Promise<ScanDetail> {
     return this.scans.create(user, spec);
   }
 
   @Get(':id')
+  @ApiOperation({ summary: 'One scan with its specification and progress' })
+  @ApiZodResponse(200, scanDetailSchema, 'The scan; poll `status` and `progress` until it is `completed`')
+  @ApiErrorResponses(400, 401, 404)
   get(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
     return this.scans.get(user, id);
   }
 
   /** A page of points as JSON, or with `format=csv|json` every matching point, streamed as a download. */
   @Get(':id/points')
+  @ApiOperation({ summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download' })
+  @ApiZodQuery(scanPointsQuerySchema)
+  @ApiProduces('application/json', 'text/csv')
+  @ApiResponse({
+    status: 200,
+    description: 'A page of points; with `format`, a CSV (one row per point) or a JSON array of every matching point',
+    content: {
+      'application/json': { schema: openApiSchemaOf(pageOf(scanPointSchema), 'output') },
+      'text/csv': { schema: { type: 'string' } },
+    },
+  })
+  @ApiErrorResponses(400, 401, 404)
   async points(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,
@@ -52,6 +79,9 @@ export class ScansController {
   }
 
   @Get(':id/grid')
+  @ApiOperation({ summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)' })
+  @ApiResponse({ status: 200, description: 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)' })
+  @ApiErrorResponses(400, 401, 404)
   grid(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,
@@ -62,23 +92,35 @@ export class ScansController {
 
   @Post(':id/cancel')
   @HttpCode(200)
+  @ApiOperation({ summary: 'Cancel a queued or running scan (its owner, or a lead)' })
+  @ApiZodResponse(200, scanDetailSchema, 'The cancelled scan')
+  @ApiErrorResponses(401, 403, 404, 409)
   cancel(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
     return this.scans.cancel(user, id);
   }
 
   @Post(':id/retry')
   @HttpCode(200)
+  @ApiOperation({ summary: 'Queue the failed points of a finished scan again' })
+  @ApiZodResponse(200, scanDetailSchema, 'The scan, queued again')
+  @ApiErrorResponses(401, 403, 404, 409)
   retry(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
     return this.scans.retryFailed(user, id);
   }
 
   @Post(':id/clone')
+  @ApiOperation({ summary: 'Copy a scan into a new draft' })
+  @ApiZodResponse(201, scanDetailSchema, 'The new draft')
+  @ApiErrorResponses(401, 403, 404)
   clone(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
     return this.scans.clone(user, id);
   }
 
   @Delete(':id')
   @HttpCode(204)
+  @ApiOperation({ summary: 'Delete a scan and its points (a lead of its group)' })
+  @ApiResponse({ status: 204, description: 'Deleted' })
+  @ApiErrorResponses(401, 403, 404)
   remove(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<void> {
     return this.scans.remove(user, id);
   }

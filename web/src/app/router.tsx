@@ -10,6 +10,7 @@ import { NotFoundRoute } from './routes/not-found';
 import { RouteError } from './routes/route-error';
 import { ScansRoute } from './routes/scans';
 import { SignInRoute } from './routes/sign-in';
+import { TokensRoute } from './routes/tokens';
 
 export const routes: RouteObject[] = [
   { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
@@ -27,6 +28,7 @@ export const routes: RouteObject[] = [
           { path: paths.models.path, element: <ModelsRoute /> },
           { path: paths.compare.path, element: <CompareRoute /> },
           { path: paths.admin.path, element: <AdminRoute /> },
+          { path: paths.tokens.path, element: <TokensRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],

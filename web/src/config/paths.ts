@@ -12,5 +12,6 @@ export const paths = {
     getHref: (scanIds: number[] = []) => (scanIds.length ? `/compare?scans=${scanIds.join(',')}` : '/compare'),
   },
   admin: { path: '/admin', getHref: () => '/admin' },
+  tokens: { path: '/tokens', getHref: () => '/tokens' },
   group: { path: '/groups/:groupId', getHref: (groupId: number) => `/groups/${groupId}` },
 } as const;

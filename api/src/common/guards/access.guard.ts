@@ -1,23 +1,37 @@
 import { type CanActivate, type ExecutionContext, ForbiddenException, Injectable, UnauthorizedException } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import type { Request } from 'express';
+import { TokensService } from '../../tokens/tokens.service';
+import { readBearerToken } from '../bearer-token';
 import { ADMIN_ONLY } from '../decorators/admin-only.decorator';
 import { IS_PUBLIC } from '../decorators/public.decorator';
+import { SESSION_ONLY } from '../decorators/session-only.decorator';
 
 /**
  * The one global guard: deny by default. A route is open only when marked @Public();
- * otherwise it needs a signed-in user, and @AdminOnly() routes need the site admin role.
+ * otherwise it needs a caller, and @AdminOnly() routes need the site admin role.
+ * The caller comes from exactly one place: the bearer token when an `Authorization: Bearer`
+ * header is present (the session is then not even read), otherwise the session.
  * Group roles are checked by the services, which know which group an object belongs to.
  */
 @Injectable()
 export class AccessGuard implements CanActivate {
-  constructor(private readonly reflector: Reflector) {}
+  constructor(
+    private readonly reflector: Reflector,
+    private readonly tokens: TokensService,
+  ) {}
 
-  canActivate(context: ExecutionContext): boolean {
+  async canActivate(context: ExecutionContext): Promise<boolean> {
     const targets = [context.getHandler(), context.getClass()];
-    if (this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, targets)) return true;
     const req = context.switchToHttp().getRequest<Request>();
-    if (!req.isAuthenticated?.() || !req.user) {
+    const bearer = readBearerToken(req);
+    if (bearer !== undefined && this.reflector.getAllAndOverride<boolean>(SESSION_ONLY, targets)) {
+      throw new ForbiddenException('Signing in and out and managing API tokens need a browser session; send this request without the Authorization header');
+    }
+    if (this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, targets)) return true;
+    if (bearer !== undefined) {
+      req.user = await this.tokens.authenticate(bearer);
+    } else if (!req.isAuthenticated?.() || !req.user) {
       throw new UnauthorizedException('Sign in first: your session is missing or has expired');
     }
     if (this.reflector.getAllAndOverride<boolean>(ADMIN_ONLY, targets) && req.user.siteRole !== 'admin') {

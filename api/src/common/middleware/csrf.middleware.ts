@@ -1,5 +1,6 @@
 import { ForbiddenException, UnsupportedMediaTypeException } from '@nestjs/common';
 import type { NextFunction, Request, Response } from 'express';
+import { readBearerToken } from '../bearer-token';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
@@ -30,7 +31,7 @@ export function csrfMiddleware(req: Request, _res: Response, next: NextFunction)
   } else if (origin === 'null') {
     return next(new ForbiddenException('Requests from an opaque origin are refused'));
   }
-  if (/^Bearer\s/i.test(req.get('authorization') ?? '')) return next();
+  if (readBearerToken(req) !== undefined) return next();
   if (req.is('application/json') || req.get('x-sixtyfold-request')) return next();
   next(new UnsupportedMediaTypeException('Send the request body as JSON (Content-Type: application/json)'));
 }

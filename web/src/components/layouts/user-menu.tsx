@@ -80,6 +80,9 @@ export function UserMenu({ user, onSignOut, signingOut }: UserMenuProps) {
               )}
             </Menu.ItemGroup>
             <Menu.Separator />
+            <Menu.Item value="api-tokens" asChild>
+              <RouterLink to={paths.tokens.getHref()}>API tokens</RouterLink>
+            </Menu.Item>
             <Menu.Item value="sign-out" onSelect={onSignOut} disabled={signingOut}>
               {signingOut ? 'Signing out…' : 'Sign out'}
             </Menu.Item>

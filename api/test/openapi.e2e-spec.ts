@@ -1,0 +1,83 @@
+import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import { createApiTokenSchema, createScanSchema, scanDetailSchema } from '@sixtyfold/shared';
+import { z } from 'zod';
+import { createTestApp, type TestApp } from './support/test-app';
+
+// What the document must say about a schema: exactly zod's own JSON Schema of it.
+const requestSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { target: 'openapi-3.0', io: 'input', unrepresentable: 'any' });
+const answerSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { target: 'openapi-3.0', io: 'output', unrepresentable: 'any' });
+
+interface Operation {
+  security?: Record<string, string[]>[];
+  parameters?: { name: string; in: string; required?: boolean; schema: Record<string, unknown> }[];
+  requestBody?: { content: Record<string, { schema: unknown }> };
+  responses: Record<string, { content?: Record<string, { schema: unknown }> }>;
+}
+
+describe('the OpenAPI document and its UI', () => {
+  let t: TestApp;
+  let doc: { openapi: string; paths: Record<string, Record<string, Operation>>; components: { securitySchemes: Record<string, unknown> }; security: unknown };
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    const res = await t.http().get('/api/docs/openapi.json');
+    expect(res.status).toBe(200);
+    expect(res.headers['content-type']).toMatch(/application\/json/);
+    doc = res.body;
+  });
+  afterAll(() => t.close());
+
+  it('is served without signing in and lists the scan routes with the shared scan schema', () => {
+    expect(doc.openapi).toMatch(/^3\./);
+    const create = doc.paths['/api/scans'].post;
+    expect(create.requestBody!.content['application/json'].schema).toEqual(requestSchema(createScanSchema));
+    expect(create.responses['201'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
+    expect(Object.keys(create.responses).sort()).toEqual(['201', '400', '401', '403', '404']);
+
+    const list = doc.paths['/api/scans'].get;
+    const status = list.parameters!.find((p) => p.name === 'status');
+    expect(status).toMatchObject({ in: 'query', required: false, schema: { enum: ['draft', 'queued', 'running', 'completed', 'failed', 'cancelled'] } });
+    const points = doc.paths['/api/scans/{id}/points'].get;
+    expect(points.parameters!.map((p) => p.name)).toEqual(expect.arrayContaining(['id', 'format', 'page', 'ns_min']));
+    expect(Object.keys(points.responses['200'].content!).sort()).toEqual(['application/json', 'text/csv']);
+    expect(doc.paths['/api/scans/{id}'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
+  });
+
+  it('declares the session cookie and bearer tokens, and which routes take which', () => {
+    expect(doc.components.securitySchemes).toMatchObject({
+      session: { type: 'apiKey', in: 'cookie', name: 'sixtyfold.sid' },
+      token: { type: 'http', scheme: 'bearer' },
+    });
+    expect(doc.security).toEqual([{ session: [] }, { token: [] }]);
+    expect(doc.paths['/api/health'].get.security).toEqual([{}]);
+    for (const op of [doc.paths['/api/tokens'].get, doc.paths['/api/tokens'].post, doc.paths['/api/tokens/{id}'].delete]) {
+      expect(op.security).toEqual([{ session: [] }]);
+    }
+    expect(doc.paths['/api/tokens'].post.requestBody!.content['application/json'].schema).toEqual(requestSchema(createApiTokenSchema));
+    const created = doc.paths['/api/tokens'].post.responses['201'].content!['application/json'].schema as { required: string[] };
+    expect(created.required).toContain('token');
+    expect(doc.paths['/api/auth/login'].post.requestBody).toBeDefined();
+  });
+
+  it('serves the docs page as HTML whose scripts all load from this server, as the CSP requires', async () => {
+    const page = await t.http().get('/api/docs');
+    expect(page.status).toBe(200);
+    expect(page.headers['content-type']).toMatch(/text\/html/);
+    expect(page.text).toContain('<div id="swagger-ui">');
+    // script-src 'self' without 'unsafe-inline': every script must be a file from here.
+    expect(page.headers['content-security-policy']).toContain("script-src 'self'");
+    const scripts = [...page.text.matchAll(/<script([^>]*)>([\s\S]*?)<\/script>/g)];
+    expect(scripts.length).toBeGreaterThanOrEqual(3);
+    for (const [, attributes, body] of scripts) {
+      expect(body.trim()).toBe('');
+      const src = /src="([^"]+)"/.exec(attributes)?.[1];
+      expect(src).toBeDefined();
+      expect(src).not.toMatch(/^(https?:)?\/\//);
+      const asset = await t.http().get(new URL(src!, `${t.url}/api/docs`).pathname);
+      expect({ src, status: asset.status }).toEqual({ src, status: 200 });
+      expect(asset.headers['content-type']).toMatch(/javascript/);
+    }
+    const init = await t.http().get('/api/docs/swagger-ui-init.js');
+    expect(init.text).toContain('"/api/scans"');
+  });
+});
