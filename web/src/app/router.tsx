@@ -1,20 +1,27 @@
 import { useState } from 'react';
-import { createBrowserRouter, Navigate, RouterProvider, type RouteObject } from 'react-router-dom';
+import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { AdminRoute } from './routes/admin';
 import { AppRoot } from './routes/app-root';
 import { CompareRoute } from './routes/compare';
+import { FamilyRoute } from './routes/family';
 import { GroupRoute } from './routes/group';
+import { HomeRoute } from './routes/home';
+import { ModelRoute } from './routes/model';
+import { ModelEditRoute } from './routes/model-edit';
+import { ModelNewRoute } from './routes/model-new';
 import { ModelsRoute } from './routes/models';
 import { NotFoundRoute } from './routes/not-found';
+import { PointRoute } from './routes/point';
 import { RouteError } from './routes/route-error';
+import { ScanRoute } from './routes/scan';
+import { ScanNewRoute } from './routes/scan-new';
 import { ScansRoute } from './routes/scans';
 import { SignInRoute } from './routes/sign-in';
 import { TokensRoute } from './routes/tokens';
 
 export const routes: RouteObject[] = [
   { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
-  { path: paths.home.path, element: <Navigate to={paths.scans.getHref()} replace /> },
   {
     // Everything below needs a signed-in user; AppRoot checks and draws the header.
     element: <AppRoot />,
@@ -24,8 +31,16 @@ export const routes: RouteObject[] = [
         // A page that crashes keeps the header, so the user can still navigate away.
         errorElement: <RouteError />,
         children: [
+          { path: paths.home.path, element: <HomeRoute /> },
           { path: paths.scans.path, element: <ScansRoute /> },
+          { path: paths.scanNew.path, element: <ScanNewRoute /> },
+          { path: paths.scan.path, element: <ScanRoute /> },
+          { path: paths.point.path, element: <PointRoute /> },
           { path: paths.models.path, element: <ModelsRoute /> },
+          { path: paths.modelNew.path, element: <ModelNewRoute /> },
+          { path: paths.family.path, element: <FamilyRoute /> },
+          { path: paths.model.path, element: <ModelRoute /> },
+          { path: paths.modelEdit.path, element: <ModelEditRoute /> },
           { path: paths.compare.path, element: <CompareRoute /> },
           { path: paths.admin.path, element: <AdminRoute /> },
           { path: paths.tokens.path, element: <TokensRoute /> },

@@ -6,7 +6,27 @@ export const paths = {
     getHref: (next?: string) => (next ? `/sign-in?next=${encodeURIComponent(next)}` : '/sign-in'),
   },
   scans: { path: '/scans', getHref: () => '/scans' },
+  scanNew: {
+    path: '/scans/new',
+    /** `from` starts the form from a copy of an earlier scan. */
+    getHref: (fromScanId?: number) => (fromScanId ? `/scans/new?from=${fromScanId}` : '/scans/new'),
+  },
+  scan: {
+    path: '/scans/:scanId',
+    getHref: (scanId: number, view?: string) => (view ? `/scans/${scanId}?view=${view}` : `/scans/${scanId}`),
+  },
+  point: {
+    path: '/scans/:scanId/points/:pointIndex',
+    getHref: (scanId: number, pointIndex: number) => `/scans/${scanId}/points/${pointIndex}`,
+  },
   models: { path: '/models', getHref: () => '/models' },
+  modelNew: {
+    path: '/models/new',
+    getHref: (groupId?: number) => (groupId ? `/models/new?group=${groupId}` : '/models/new'),
+  },
+  family: { path: '/models/families/:familyKey', getHref: (familyKey: string) => `/models/families/${familyKey}` },
+  model: { path: '/models/:modelId', getHref: (modelId: number) => `/models/${modelId}` },
+  modelEdit: { path: '/models/:modelId/edit', getHref: (modelId: number) => `/models/${modelId}/edit` },
   compare: {
     path: '/compare',
     getHref: (scanIds: number[] = []) => (scanIds.length ? `/compare?scans=${scanIds.join(',')}` : '/compare'),

@@ -9,6 +9,7 @@ export interface NavItem {
 /** Main navigation; Admin only appears for site administrators (the route checks again). */
 export function navItemsFor(user: CurrentUser): NavItem[] {
   const items: NavItem[] = [
+    { label: 'Overview', href: paths.home.getHref() },
     { label: 'Scans', href: paths.scans.getHref() },
     { label: 'Models', href: paths.models.getHref() },
     { label: 'Compare', href: paths.compare.getHref() },
