@@ -50,7 +50,7 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
                       asChild
                       _currentPage={{ fontWeight: '600', color: 'ember.fg', bg: 'ember.subtle' }}
                     >
-                      <NavLink to={item.href}>{item.label}</NavLink>
+                      <NavLink to={item.href} end={item.href === paths.home.getHref()}>{item.label}</NavLink>
                     </Menu.Item>
                   ))}
                 </Menu.Content>
@@ -59,7 +59,7 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
           </Menu.Root>
 
           <Link asChild _focusVisible={chromeFocus} borderRadius="sm" _hover={{ textDecoration: 'none' }}>
-            <RouterLink to={paths.scans.getHref()} aria-label="Sixtyfold, go to scans">
+            <RouterLink to={paths.home.getHref()} aria-label="Sixtyfold, go to the overview">
               <Wordmark />
             </RouterLink>
           </Link>
@@ -80,7 +80,7 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
                 _currentPage={{ color: 'chrome.fg', borderColor: 'ember.400' }}
                 _focusVisible={chromeFocus}
               >
-                <NavLink to={item.href}>{item.label}</NavLink>
+                <NavLink to={item.href} end={item.href === paths.home.getHref()}>{item.label}</NavLink>
               </Link>
             ))}
           </HStack>
