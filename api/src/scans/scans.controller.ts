@@ -3,7 +3,7 @@ import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger
 import type { Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
-  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanListQuerySchema, scanPointSchema, scanPointsQuerySchema,
+  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanListQuerySchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema,
   scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPointDto, type ScanPointsQuery, type ScanSummary,
 } from '@sixtyfold/shared';
@@ -53,8 +53,11 @@ export class ScansController {
 
   /** A page of points as JSON, or with `format=csv|json` every matching point, streamed as a download. */
   @Get(':id/points')
-  @ApiOperation({ summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download' })
-  @ApiZodQuery(scanPointsQuerySchema)
+  @ApiOperation({
+    summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download',
+    description: 'Sort by `pointIndex`, an output or `input.<axis parameter>`; filter outputs with `<output>_min`/`_max` and axis inputs with `input.<axis parameter>_min`/`_max`.',
+  })
+  @ApiZodQuery(scanPointsQueryFieldsSchema)
   @ApiProduces('application/json', 'text/csv')
   @ApiResponse({
     status: 200,
