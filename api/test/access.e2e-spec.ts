@@ -4,6 +4,7 @@ import { Like } from 'typeorm';
 import { Group } from '../src/groups/entities/group.entity';
 import { PotentialModel } from '../src/models/entities/potential-model.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
+import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 
@@ -60,6 +61,7 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/points', url: () => `/api/scans/${plateauScanId}/points`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/points/:pointIndex', url: () => `/api/scans/${plateauScanId}/points/0`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/plane', url: () => `/api/scans/${plateauScanId}/plane`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
@@ -108,6 +110,11 @@ describe('every route against every role', () => {
       note: '', totalPoints: 4,
     });
     plateauScanId = scan.id;
+    // One stored point, so that reading it answers 200 to everyone who may see the scan.
+    await t.db.getRepository(ScanPoint).insert({
+      scanId: scan.id, pointIndex: 0, inputs: { f: 5, nStar: 50 }, status: 'ok', failureReason: null, ns: 0.96, r: 0.1,
+      alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar: 50, phiStar: null, phiEnd: null, energyScaleGeV: null, computedAt: new Date(),
+    });
     for (const role of ROLES) {
       const own = await t.db.getRepository(Scan).save({
         groupId: plateauId, ownerId: owner.id, name: `access-table queued (${role})`, method: 'slowroll', status: 'queued',

@@ -103,6 +103,17 @@ export class ScanResultsService {
     return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
   }
 
+  /** One point by index; 404 says whether the index is outside the grid or not computed yet. */
+  async point(user: SessionUser, id: number, pointIndex: number): Promise<ScanPointDto> {
+    const scan = await this.readable(user, id);
+    if (pointIndex < 0 || pointIndex >= scan.totalPoints) {
+      throw new NotFoundException(`point ${pointIndex} is outside the grid of ${scan.totalPoints} points (index 0 to ${scan.totalPoints - 1})`);
+    }
+    const [row] = await this.db.query<RawPoint[]>('SELECT * FROM scan_points WHERE scan_id = ? AND point_index = ?', [id, pointIndex]);
+    if (!row) throw new NotFoundException(`point ${pointIndex} is not stored yet`);
+    return toDto(row);
+  }
+
   /**
    * Every matching point as CSV or JSON, streamed from MariaDB row by row, so that a million
    * points never sit in memory. Columns: point index, one per axis, status, reason, outputs.

@@ -82,6 +82,18 @@ export class ScansController {
     await pipeline(stream, res);
   }
 
+  @Get(':id/points/:pointIndex')
+  @ApiOperation({ summary: 'One point of a scan by its index in the grid (last axis fastest)' })
+  @ApiZodResponse(200, scanPointSchema, 'The stored point: its inputs, status and outputs')
+  @ApiErrorResponses(400, 401, 404)
+  point(
+    @CurrentUser() user: SessionUser,
+    @Param('id', ParseIntPipe) id: number,
+    @Param('pointIndex', ParseIntPipe) pointIndex: number,
+  ): Promise<ScanPointDto> {
+    return this.results.point(user, id, pointIndex);
+  }
+
   @Get(':id/grid')
   @ApiOperation({ summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)' })
   @ApiZodResponse(200, scanGridSliceSchema, 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)')

@@ -1,7 +1,86 @@
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
+import { pointCount } from '@sixtyfold/shared';
+import { Link as RouterLink, useParams } from 'react-router-dom';
+import { AppLink } from '@/components/ui/app-link';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { ScanGridIcon } from '@/components/ui/icons';
+import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { paths } from '@/config/paths';
+import { useScan } from '@/features/scans/api/get-scan';
+import { ScanPointView } from '@/features/scans/components/point/scan-point-view';
+import { readWholeNumber } from '@/features/scans/utils/route-params';
+import { storedSpecOf } from '@/features/scans/utils/scan-spec';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 
 export function PointRoute() {
-  useDocumentTitle('Point');
-  return <PageHeader title="Point" />;
+  const params = useParams();
+  const scanId = readWholeNumber(params.scanId);
+  const pointIndex = readWholeNumber(params.pointIndex);
+  const scan = useScan(scanId ?? 0);
+  useDocumentTitle(pointIndex === null ? 'Point' : `Point ${pointIndex}${scan.data ? ` · ${scan.data.name}` : ''}`);
+
+  if (scanId === null || pointIndex === null) {
+    return <EmptyState icon={<ScanGridIcon />} title="No such point" description="Point addresses look like /scans/12/points/340." />;
+  }
+  if (scan.isPending) return <LoadingState label="Loading the scan…" />;
+  if (scan.isError && !scan.data) return <ErrorState title={`Could not load scan ${scanId}`} error={scan.error} onRetry={() => scan.refetch()} />;
+
+  const spec = storedSpecOf(scan.data);
+  const size = spec ? pointCount(spec) : scan.data.totalPoints;
+  const back = (
+    <AppLink to={paths.scan.getHref(scanId)} color="ink.fg">
+      Back to the scan
+    </AppLink>
+  );
+  if (!spec || pointIndex >= size) {
+    return (
+      <EmptyState
+        icon={<ScanGridIcon />}
+        title={spec ? `Point ${pointIndex} is outside this scan` : 'This scan cannot be read by this version of Sixtyfold'}
+        description={spec ? `“${scan.data.name}” has ${size.toLocaleString('en-US')} points, numbered 0 to ${(size - 1).toLocaleString('en-US')}.` : 'Reload the page to get the latest version of the app.'}
+      >
+        {back}
+      </EmptyState>
+    );
+  }
+
+  const neighbour = (index: number, label: string) =>
+    index >= 0 && index < size ? (
+      <Button asChild size="sm" variant="outline">
+        <RouterLink to={paths.point.getHref(scanId, index)}>{label}</RouterLink>
+      </Button>
+    ) : (
+      <Button size="sm" variant="outline" disabled>
+        {label}
+      </Button>
+    );
+
+  return (
+    <Stack gap="0">
+      <PageHeader
+        title={`Point ${pointIndex.toLocaleString('en-US')}`}
+        description={
+          <Text as="span">
+            Of{' '}
+            <AppLink to={paths.scan.getHref(scanId)} color="ink.fg">
+              {scan.data.name}
+            </AppLink>
+            , {size.toLocaleString('en-US')} points, numbered with the last axis varying fastest.
+          </Text>
+        }
+        actions={
+          <HStack as="nav" aria-label="Neighbouring points" gap="2" wrap="wrap">
+            {neighbour(pointIndex - 1, 'Previous point')}
+            {neighbour(pointIndex + 1, 'Next point')}
+            <Button asChild size="sm" variant="ghost">
+              <RouterLink to={paths.scan.getHref(scanId)}>Back to the scan</RouterLink>
+            </Button>
+          </HStack>
+        }
+      />
+      <ScanPointView key={`${scanId}-${pointIndex}`} scan={scan.data} spec={spec} pointIndex={pointIndex} />
+    </Stack>
+  );
 }

@@ -1,7 +1,59 @@
-import { PageHeader } from '@/components/ui/page-header';
+import { Alert, Stack } from '@chakra-ui/react';
+import { useNavigate, useParams } from 'react-router-dom';
+import { EmptyState } from '@/components/ui/empty-state';
+import { ErrorState } from '@/components/ui/error-state';
+import { ScanGridIcon } from '@/components/ui/icons';
+import { LoadingState } from '@/components/ui/loading-state';
+import { paths } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { useScan } from '@/features/scans/api/get-scan';
+import { ScanActions } from '@/features/scans/components/scan-actions';
+import { ScanHeader } from '@/features/scans/components/scan-header';
+import { ScanViews } from '@/features/scans/components/scan-views';
+import { useRefreshWhenFinished } from '@/features/scans/hooks/use-refresh-when-finished';
+import { readWholeNumber } from '@/features/scans/utils/route-params';
+import { storedSpecOf } from '@/features/scans/utils/scan-spec';
 import { useDocumentTitle } from '@/hooks/use-document-title';
+import { groupNamesOf } from '@/lib/group-names';
 
 export function ScanRoute() {
-  useDocumentTitle('Scan');
-  return <PageHeader title="Scan" />;
+  const scanId = readWholeNumber(useParams().scanId);
+  const navigate = useNavigate();
+  const { data: user } = useMe();
+  const scan = useScan(scanId ?? 0);
+  useDocumentTitle(scan.data?.name ?? 'Scan');
+  useRefreshWhenFinished(scan.data);
+
+  if (scanId === null) {
+    return <EmptyState icon={<ScanGridIcon />} title="No such scan" description="Scan addresses end in the scan's number, like /scans/12." />;
+  }
+  if (scan.isPending) return <LoadingState label="Loading the scan…" />;
+  if (scan.isError && !scan.data) return <ErrorState title={`Could not load scan ${scanId}`} error={scan.error} onRetry={() => scan.refetch()} />;
+
+  const spec = storedSpecOf(scan.data);
+  const groupName = groupNamesOf(user).get(scan.data.groupId) ?? `Group ${scan.data.groupId}`;
+  return (
+    <Stack gap="0">
+      {scan.isError && <ErrorState title="Could not refresh the scan; showing what was loaded last" error={scan.error} onRetry={() => scan.refetch()} />}
+      {spec ? (
+        <>
+          <ScanHeader
+            scan={scan.data}
+            spec={spec}
+            groupName={groupName}
+            actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
+          />
+          <ScanViews scan={scan.data} spec={spec} />
+        </>
+      ) : (
+        <Alert.Root status="error" variant="subtle" borderRadius="lg" role="alert">
+          <Alert.Indicator />
+          <Alert.Content>
+            <Alert.Title>Scan {scan.data.id}, “{scan.data.name}”, has a specification this version of Sixtyfold cannot read</Alert.Title>
+            <Alert.Description>Reload the page to get the latest version of the app; if it stays, tell your site administrator.</Alert.Description>
+          </Alert.Content>
+        </Alert.Root>
+      )}
+    </Stack>
+  );
 }

@@ -24,6 +24,8 @@ export function ScansRoute() {
   const { data: user } = useMe();
   const scans = useScans({ page, pageSize: PAGE_SIZE });
   const groupNames = groupNamesOf(user);
+  // Members and leads submit scans (site admins act as leads everywhere).
+  const canSubmit = user?.siteRole === 'admin' || (user?.memberships ?? []).some((m) => m.role !== 'viewer');
 
   const goTo = (next: number) =>
     setParams((current) => {
@@ -38,6 +40,13 @@ export function ScansRoute() {
       <PageHeader
         title="Scans"
         description="Parameter scans run by the groups you belong to, with their status and how far each grid has got."
+        actions={
+          canSubmit && (
+            <Button asChild colorPalette="ember" size="sm">
+              <RouterLink to={paths.scanNew.getHref()}>New scan</RouterLink>
+            </Button>
+          )
+        }
       />
       {scans.isPending ? (
         <LoadingState label="Loading scans…" />

@@ -1,5 +1,6 @@
 import { Badge, HStack, Stack, Table, Text } from '@chakra-ui/react';
 import type { ScanSummary } from '@sixtyfold/shared';
+import { useNavigate } from 'react-router-dom';
 import { AppLink } from '@/components/ui/app-link';
 import { DateTime } from '@/components/ui/date-time';
 import { paths } from '@/config/paths';
@@ -13,6 +14,7 @@ interface ScansTableProps {
 }
 
 export function ScansTable({ scans, groupNames }: ScansTableProps) {
+  const navigate = useNavigate();
   return (
     <Table.ScrollArea>
       <Table.Root size="sm" interactive>
@@ -31,12 +33,19 @@ export function ScansTable({ scans, groupNames }: ScansTableProps) {
           {scans.map((scan) => {
             const groupName = groupNames.get(scan.groupId);
             return (
-              <Table.Row key={scan.id}>
+              <Table.Row
+                key={scan.id}
+                cursor="pointer"
+                // The name is the link; a click anywhere else on the row goes there too (keyboards use the link).
+                onClick={(event) => {
+                  if (!(event.target as HTMLElement).closest('a, button')) navigate(paths.scan.getHref(scan.id));
+                }}
+              >
                 <Table.Cell>
                   <Stack gap="1">
-                    <Text fontWeight="500" color="ink.900">
+                    <AppLink to={paths.scan.getHref(scan.id)} fontWeight="500" color="ink.900">
                       {scan.name}
-                    </Text>
+                    </AppLink>
                     {scan.tags.length > 0 && (
                       <HStack gap="1" wrap="wrap">
                         {scan.tags.map((tag) => (

@@ -1,0 +1,281 @@
+import type { CurrentUser, ScanGridSlice } from '@sixtyfold/shared';
+import { act, screen, waitFor, within } from '@testing-library/react';
+import { adminUser, memberUser } from '@/testing/fixtures';
+import { plotIn } from '@/testing/plotly-chart-mock';
+import { apiError, json, mockApi, type MockRequest } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render';
+import { naturalSpec, scanDetail, slice } from '@/testing/scan-fixtures';
+
+vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
+// Whole pages with several queries each: give a busy machine time.
+vi.setConfig({ testTimeout: 20_000 });
+const slow = { timeout: 5_000 };
+
+const viewer: CurrentUser = { ...memberUser, id: 3, memberships: [{ groupId: 10, groupSlug: 'plateau-lab', groupName: 'Plateau Lab', role: 'viewer' }] };
+
+// The 3 × 3 grid of naturalSpec as the API slices it with x = f, y = N_*: z[iy][ix].
+const status = [
+  ['ok', 'ok', 'insufficient_efolds'],
+  ['ok', 'ok', 'insufficient_efolds'],
+  ['ok', 'ok', null],
+];
+const axes = { x: { parameter: 'f', values: [5, 7, 10] }, y: { parameter: 'nStar', values: [50, 55, 60] } };
+const slices: Record<string, ScanGridSlice> = {
+  ns: slice('ns', [[0.955, 0.958, null], [0.961, 0.9649, null], [0.966, 0.967, null]], status, axes),
+  r: slice('r', [[0.09, 0.05, null], [0.08, 0.03, null], [0.07, 0.02, null]], status, axes),
+  alphaS: slice('alphaS', [[-7e-4, -6e-4, null], [-6e-4, -5e-4, null], [-5e-4, -4e-4, null]], status, axes),
+  status: slice('status', [], status, axes),
+};
+
+function api(user: CurrentUser, detail = scanDetail(), extra: Record<string, (request: MockRequest) => Response> = {}) {
+  return mockApi({
+    'GET /api/auth/me': () => json(200, user),
+    'GET /api/scans/42': () => json(200, detail),
+    'GET /api/scans/42/grid': (request) => json(200, slices[request.url.searchParams.get('output') ?? 'ns']),
+    ...extra,
+  });
+}
+
+describe('scan page', () => {
+  it('says who ran what, how it was set up and how far it got', async () => {
+    api(memberUser, scanDetail({ status: 'running', donePoints: 120, failedPoints: 3, totalPoints: 400, finishedAt: null,
+      progress: { total: 400, done: 120, failed: 3, running: 16, queued: 261, elapsedSeconds: 60, remainingSeconds: 90 } }));
+    renderApp('/scans/42');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Natural inflation, f against N_*' }, slow)).toBeInTheDocument();
+    expect(screen.getByText('Running')).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Natural inflation' })).toHaveAttribute('href', '/models/families/natural');
+    expect(screen.getByRole('link', { name: 'Plateau Lab' })).toHaveAttribute('href', '/groups/10');
+    const settings = screen.getByRole('region', { name: 'Settings' });
+    expect(within(settings).getByText('Slow-roll')).toBeInTheDocument();
+    expect(within(settings).getByText('Lambda = 0.005')).toBeInTheDocument();
+    expect(within(settings).getByText('N_* on an axis')).toBeInTheDocument();
+    const axesTable = within(settings).getByRole('table', { name: 'Scan axes' });
+    expect(within(axesTable).getAllByRole('row').map((row) => row.textContent)).toEqual([
+      'fList of 3 values: 5, 7, 10',
+      'N_*50 to 60, 3 values, linear spacing (varies fastest)',
+    ]);
+    const about = screen.getByRole('region', { name: 'About' });
+    expect(within(about).getByText('axion')).toBeInTheDocument();
+    expect(within(about).getByText('Where natural inflation meets the n_s window.')).toBeInTheDocument();
+
+    const progress = screen.getByRole('region', { name: 'Progress' });
+    expect(within(progress).getByRole('progressbar', { name: '123 of 400 points computed' })).toBeInTheDocument();
+    expect(progress).toHaveTextContent('Done120');
+    expect(progress).toHaveTextContent('Failed3');
+    expect(progress).toHaveTextContent('Rate2.05 points/s');
+    expect(progress).toHaveTextContent('Time left1 min 30 s');
+    expect(progress).toHaveTextContent('Running · queued16 · 261');
+  });
+
+  it('offers the owner cancel and clone while it runs, and says why delete is missing', async () => {
+    const { requests } = api(memberUser, scanDetail({ status: 'running', finishedAt: null }), {
+      'POST /api/scans/42/cancel': () => apiError(409, 'The scan is completed; only queued or running scans can be cancelled'),
+    });
+    const { user } = renderApp('/scans/42');
+
+    const cancel = await screen.findByRole('button', { name: 'Cancel scan' }, slow);
+    expect(screen.getByRole('link', { name: 'Clone scan' })).toHaveAttribute('href', '/scans/new?from=42');
+    expect(screen.queryByRole('button', { name: 'Delete scan' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Retry failed points' })).not.toBeInTheDocument();
+    expect(screen.getByText('As a member of Plateau Lab you cannot delete it (leads).')).toBeInTheDocument();
+
+    await user.click(cancel);
+    const alert = await screen.findByRole('alert', undefined, slow);
+    expect(alert).toHaveTextContent('Could not cancel the scan');
+    expect(alert).toHaveTextContent('only queued or running scans can be cancelled');
+    expect(requests.filter((r) => r.method === 'POST').map((r) => r.url.pathname)).toEqual(['/api/scans/42/cancel']);
+  });
+
+  it('gives a viewer nothing to change and says so', async () => {
+    api(viewer, scanDetail({ status: 'running', finishedAt: null }));
+    renderApp('/scans/42');
+
+    expect(await screen.findByText(/As a viewer of Plateau Lab you cannot start a new scan from it/, undefined, slow)).toHaveTextContent('cancel it (its owner or a lead)');
+    expect(screen.queryByRole('button', { name: 'Cancel scan' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('link', { name: 'Clone scan' })).not.toBeInTheDocument();
+  });
+
+  it('queues the failed points again for the owner and shows the scan running', async () => {
+    let detail = scanDetail({ failedPoints: 2, donePoints: 7 });
+    api(memberUser, undefined, {
+      'GET /api/scans/42': () => json(200, detail),
+      'POST /api/scans/42/retry': () => {
+        detail = { ...detail, status: 'running', failedPoints: 0, finishedAt: null };
+        return json(200, detail);
+      },
+    });
+    const { user } = renderApp('/scans/42');
+
+    await user.click(await screen.findByRole('button', { name: 'Retry failed points' }, slow));
+    expect(await screen.findByText('Running', undefined, slow)).toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Cancel scan' })).toBeInTheDocument();
+  });
+
+  it('lets a lead delete the scan after confirming, then goes to the scans list', async () => {
+    const { requests } = api(adminUser, scanDetail(), {
+      'DELETE /api/scans/42': () => new Response(null, { status: 204 }),
+      'GET /api/scans': () => json(200, { items: [], total: 0, page: 1, pageSize: 25 }),
+    });
+    const { user, router } = renderApp('/scans/42');
+
+    await user.click(await screen.findByRole('button', { name: 'Delete scan' }, slow));
+    const dialog = await screen.findByRole('alertdialog', undefined, slow);
+    expect(dialog).toHaveTextContent('Delete “Natural inflation, f against N_*”?');
+    expect(dialog).toHaveTextContent('all 9 of its points');
+    await user.click(within(dialog).getByRole('button', { name: 'Keep it' }));
+    await waitFor(() => expect(screen.queryByRole('alertdialog')).not.toBeInTheDocument(), slow);
+    expect(requests.some((r) => r.method === 'DELETE')).toBe(false);
+
+    await user.click(screen.getByRole('button', { name: 'Delete scan' }));
+    await user.click(within(await screen.findByRole('alertdialog', undefined, slow)).getByRole('button', { name: 'Delete scan and points' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans'), slow);
+    expect(requests.filter((r) => r.method === 'DELETE').map((r) => r.url.pathname)).toEqual(['/api/scans/42']);
+  });
+
+  it('says so when the scan cannot be loaded', async () => {
+    mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/scans/42': () => apiError(404, 'No such scan') });
+    renderApp('/scans/42');
+    const alert = await screen.findByRole('alert', undefined, slow);
+    expect(alert).toHaveTextContent('Could not load scan 42');
+    expect(alert).toHaveTextContent('No such scan. It may have been removed');
+  });
+});
+
+describe('scan heatmaps', () => {
+  it('draws n_s and r side by side and the chosen output, with failures grouped by reason', async () => {
+    const { requests } = api(memberUser);
+    const { user, router } = renderApp('/scans/42');
+
+    const ns = await screen.findByRole('img', { name: 'Heatmap of n_s over f and N_*' }, slow);
+    expect(screen.getByRole('img', { name: 'Heatmap of r over f and N_*' })).toBeInTheDocument();
+    expect(screen.getByRole('img', { name: 'Heatmap of α_s over f and N_*' })).toBeInTheDocument();
+    const grids = requests.filter((r) => r.url.pathname === '/api/scans/42/grid').map((r) => Object.fromEntries(r.url.searchParams));
+    expect(grids).toEqual(expect.arrayContaining([{ x: 'f', y: 'nStar', output: 'ns' }, { x: 'f', y: 'nStar', output: 'r' }, { x: 'f', y: 'nStar', output: 'alphaS' }]));
+
+    // Failed cells carry no value; the legend counts them by reason, and missing cells apart.
+    expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('insufficient_efolds (2)');
+    expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('not stored yet (1)');
+    await waitFor(() => expect(plotIn(ns).data[0]).toMatchObject({ type: 'heatmap' }), slow);
+    expect((plotIn(ns).data[0] as { z: unknown }).z).toEqual(slices.ns.z);
+    expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3);
+
+    // Inside the 95% n_s interval and r ≤ 0.036: only (f = 7, N_* = 55) and (f = 7, N_* = 60).
+    expect(screen.getByText(/^Outlined \(2 cells\)/)).toHaveTextContent('Source: n_s = 0.9649 ± 0.0042 (68%): Planck Collaboration 2020');
+    await user.click(screen.getByRole('checkbox', { name: 'Outline cells inside the limits' }));
+    await waitFor(() => expect(router.state.location.search).toBe('?outline=off'), slow);
+    await waitFor(() => expect(screen.queryByText(/^Outlined/)).not.toBeInTheDocument(), slow);
+
+    await user.selectOptions(screen.getByLabelText('Third panel'), 'Status');
+    expect(await screen.findByRole('heading', { name: 'Status of each point' }, slow)).toBeInTheDocument();
+    expect(requests.some((r) => r.url.searchParams.get('output') === 'status')).toBe(true);
+  });
+
+  it('opens the point of a clicked cell, last axis fastest', async () => {
+    api(memberUser);
+    const { router } = renderApp('/scans/42');
+    const ns = await screen.findByRole('img', { name: 'Heatmap of n_s over f and N_*' }, slow);
+    await waitFor(() => expect(plotIn(ns).onClick).toBeDefined(), slow);
+    // Cell (ix 1, iy 2) is f = 7, N_* = 60: point 1 × 3 + 2.
+    act(() => plotIn(ns).onClick!({ points: [{ x: 1, y: 2, curveNumber: 0 }] }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans/42/points/5'), slow);
+  });
+
+  it('swaps the axes and holds a third axis with a slider that keyboards can move', async () => {
+    const spec = { ...naturalSpec, axes: [...naturalSpec.axes, { kind: 'list' as const, parameter: 'Lambda', values: [1e-3, 5e-3, 1e-2] }], params: {} };
+    const { requests } = api(memberUser, scanDetail({}, spec), {
+      'GET /api/scans/42/grid': (request) => {
+        const at = Number(request.url.searchParams.get('at.Lambda') ?? 0);
+        const base = slices[request.url.searchParams.get('output') ?? 'ns'];
+        // With x = N_* the slice is the transpose.
+        const swapped = request.url.searchParams.get('x') === 'nStar';
+        const flip = <T,>(rows: T[][]) => rows[0].map((_, i) => rows.map((row) => row[i]));
+        const cut = swapped ? { ...base, x: base.y, y: base.x, z: flip(base.z), status: flip(base.status) } : base;
+        return json(200, { ...cut, at: { Lambda: { index: at, value: [1e-3, 5e-3, 1e-2][at] } } });
+      },
+    });
+    const { user, router } = renderApp('/scans/42');
+
+    const slider = await screen.findByRole('slider', { name: 'Lambda' }, slow);
+    expect(slider).toHaveAttribute('aria-valuetext', '0.005 (value 2 of 3)');
+    expect(requests.find((r) => r.url.pathname.endsWith('/grid'))?.url.searchParams.get('at.Lambda')).toBe('1');
+    act(() => slider.focus());
+    await user.keyboard('{ArrowRight}');
+    await waitFor(() => expect(router.state.location.search).toBe('?at.Lambda=2'), slow);
+    await waitFor(() => expect(requests.some((r) => r.url.searchParams.get('at.Lambda') === '2')).toBe(true), slow);
+
+    await user.click(screen.getByRole('button', { name: 'Swap axes' }));
+    await waitFor(() => expect(router.state.location.search).toContain('x=nStar&y=f'), slow);
+    expect(await screen.findByRole('img', { name: 'Heatmap of n_s over N_* and f' }, slow)).toBeInTheDocument();
+  });
+
+  it('fills in while the scan runs', async () => {
+    let calls = 0;
+    api(memberUser, scanDetail({ status: 'running', finishedAt: null }), {
+      'GET /api/scans/42/grid': (request) => {
+        const output = request.url.searchParams.get('output') ?? 'ns';
+        if (output === 'ns') calls++;
+        const stored = calls > 1 ? status : status.map((row) => row.map(() => null));
+        return json(200, { ...slices[output], status: stored, z: slices[output].z.map((row, iy) => row.map((v, ix) => (stored[iy][ix] ? v : null))) });
+      },
+    });
+    renderApp('/scans/42');
+
+    expect(await screen.findAllByText(/^0 ok, 0 failed, 9 not stored yet$/)).toHaveLength(3);
+    await waitFor(() => expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3), { timeout: 8_000 });
+  });
+
+  it('draws a one-axis scan as lines against its axis', async () => {
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const point = (pointIndex: number, nStar: number, ok = true) => ({
+      pointIndex, inputs: { nStar }, status: ok ? 'ok' : 'no_end', failureReason: ok ? null : 'inflation never ends',
+      ns: ok ? 0.96 : null, r: ok ? 0.05 : null, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,
+    });
+    const { requests } = api(memberUser, scanDetail({}, spec), {
+      'GET /api/scans/42/points': () => json(200, { items: [point(0, 50), point(1, 55, false), point(2, 60)], total: 3, page: 1, pageSize: 1000 }),
+    });
+    renderApp('/scans/42');
+
+    expect(await screen.findByRole('tab', { name: 'Line plots' }, slow)).toHaveAttribute('aria-selected', 'true');
+    const ns = await screen.findByRole('img', { name: 'Line plot of n_s against N_*' }, slow);
+    await waitFor(() => expect(plotIn(ns).data[0]).toMatchObject({ x: [50, 60], y: [0.96, 0.96] }), slow);
+    expect(plotIn(ns).layout.shapes).toHaveLength(1);
+    expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('no_end (1)');
+    expect(requests.some((r) => r.url.pathname.endsWith('/grid'))).toBe(false);
+  });
+});
+
+describe('scan n_s–r plane', () => {
+  const plane = {
+    okPoints: 12_000, stride: 3, parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
+    inputs: { f: [5, 7], nStar: [50, 55] },
+  };
+
+  it('opens as a tab, plots the ok points over the limits and says when they are sampled', async () => {
+    const { requests } = api(memberUser, scanDetail(), { 'GET /api/scans/42/plane': () => json(200, plane) });
+    const { user, router } = renderApp('/scans/42');
+
+    await user.click(await screen.findByRole('tab', { name: 'n_s–r plane' }, slow));
+    await waitFor(() => expect(router.state.location.search).toBe('?view=plane'), slow);
+    const chart = await screen.findByRole('img', { name: 'n_s–r plane of Natural inflation, f against N_* with the Planck 2018 + BICEP/Keck 2018 limits' }, slow);
+    expect(requests.find((r) => r.url.pathname === '/api/scans/42/plane')?.url.searchParams.get('limit')).toBe('5000');
+    expect(screen.getByText(/sampled, 1 in 3 of its 12,000 ok points shown \(2\)/)).toBeInTheDocument();
+    expect(screen.getByText(/^Shaded: n_s interval × r bound/)).toHaveTextContent('BICEP/Keck Collaboration 2021');
+
+    await user.selectOptions(screen.getByLabelText('Observational limits'), 'Planck 2018 alone');
+    expect(await screen.findByText(/^Shaded/, undefined, slow)).toHaveTextContent('r_0.002 < 0.10 (95%)');
+    await user.click(screen.getByRole('radio', { name: 'Log' }));
+    await waitFor(() => expect(plotIn(screen.getByRole('img', { name: /n_s–r plane/ })).layout.yaxis?.type).toBe('log'), slow);
+    await user.selectOptions(screen.getByLabelText('Colour by'), 'N_*');
+    expect(router.state.location.search).toContain('color=nStar');
+
+    act(() => plotIn(chart).onClick!({ points: [{ customdata: [0, 4], curveNumber: 9 }] }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans/42/points/4'), slow);
+  });
+
+  it('explains an empty plane', async () => {
+    api(memberUser, scanDetail(), { 'GET /api/scans/42/plane': () => json(200, { ...plane, okPoints: 0, stride: 1, pointIndex: [], ns: [], r: [], alphaS: [], nStar: [], inputs: { f: [], nStar: [] } }) });
+    renderApp('/scans/42?view=plane');
+    expect(await screen.findByText('No ok points yet', undefined, slow)).toBeInTheDocument();
+  });
+});

@@ -1,0 +1,213 @@
+import { Button, Checkbox, Field, HStack, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import type { UseQueryResult } from '@tanstack/react-query';
+import { useCallback, useMemo } from 'react';
+import { useNavigate } from 'react-router-dom';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/loading-state';
+import { Panel } from '@/components/ui/panel';
+import { paths } from '@/config/paths';
+import { isLive } from '../../api/get-scan';
+import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
+import { useViewParams } from '../../hooks/use-view-params';
+import { cellCounts, cellIndices, failureGroups, insideLimitsMask, pointIndexOf, sameCells } from '../../utils/grid-cells';
+import { outputLabel } from '../../utils/output-labels';
+import { formatValue, inputLabel } from '../../utils/point-columns';
+import { LimitSetSelect } from '../limit-set-select';
+import { AxisSlider } from './axis-slider';
+import { FailureLegend } from './failure-legend';
+import { ScanHeatmap } from './scan-heatmap';
+
+/** The outputs the third panel may show beside n_s and r. */
+export const THIRD_OUTPUTS = ['alphaS', 'nTotal', 'amplitudeScale', 'status'] as const;
+type ThirdOutput = (typeof THIRD_OUTPUTS)[number];
+
+const TITLES: Record<'ns' | 'r' | ThirdOutput, string> = {
+  ns: 'Spectral index n_s',
+  r: 'Tensor-to-scalar ratio r',
+  alphaS: 'Running α_s',
+  nTotal: 'N_total, e-folds from φ_init to the end',
+  amplitudeScale: 'A_s normalisation, the factor on V for A_s = 2.1 × 10⁻⁹',
+  status: 'Status of each point',
+};
+
+interface ScanHeatmapsProps {
+  scan: ScanDetail;
+  spec: StoredScanSpec;
+}
+
+function AxisSelect({ label, value, options, onChange }: { label: string; value: string; options: string[]; onChange: (value: string) => void }) {
+  return (
+    <Field.Root w="auto" minW="36">
+      <Field.Label fontSize="sm">{label}</Field.Label>
+      <NativeSelect.Root size="sm">
+        <NativeSelect.Field bg="bg.panel" value={value} onChange={(event) => onChange(event.target.value)}>
+          {options.map((name) => (
+            <option key={name} value={name}>
+              {inputLabel(name)}
+            </option>
+          ))}
+        </NativeSelect.Field>
+        <NativeSelect.Indicator />
+      </NativeSelect.Root>
+    </Field.Root>
+  );
+}
+
+/** A panel of one slice query: the heatmap once there is data, else loading or what went wrong. */
+function SlicePanel({ query, what, children }: { query: UseQueryResult<ScanGridSlice>; what: string; children: (slice: ScanGridSlice) => React.ReactNode }) {
+  return (
+    <Panel p={{ base: '3', md: '4' }} minW="0">
+      {query.data ? (
+        <Stack gap="2">
+          {query.isError && <Text fontSize="xs" color="fg.error">Could not refresh {what}: {query.error.message}</Text>}
+          {children(query.data)}
+        </Stack>
+      ) : query.isError ? (
+        <ErrorState title={`Could not load the ${what} slice`} error={query.error} onRetry={() => query.refetch()} />
+      ) : (
+        <LoadingState label={`Loading ${what}…`} />
+      )}
+    </Panel>
+  );
+}
+
+/** n_s and r side by side and one output of choice, over two axes, with the others held by sliders. */
+export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
+  const navigate = useNavigate();
+  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
+  const names = spec.axes.map((axis) => axis.parameter);
+  const [params, update] = useViewParams();
+
+  const xParam = params.get('x');
+  const yParam = params.get('y');
+  const thirdParam = params.get('third');
+  const x = xParam && names.includes(xParam) ? xParam : names[0];
+  const y = yParam && names.includes(yParam) && yParam !== x ? yParam : names.find((name) => name !== x)!;
+  const third: ThirdOutput = (THIRD_OUTPUTS as readonly string[]).includes(thirdParam ?? '') ? (thirdParam as ThirdOutput) : 'alphaS';
+  const outlined = params.get('outline') !== 'off';
+  const limits = findLimits(params.get('limits') ?? undefined);
+
+  // Axes other than x and y sit at an index kept in the address as at.<parameter>; the middle by default.
+  const at: Record<string, number> = {};
+  names.forEach((name, a) => {
+    if (name === x || name === y) return;
+    const raw = params.get(`at.${name}`);
+    const index = Number(raw);
+    at[name] = raw !== null && Number.isInteger(index) && index >= 0 && index < grid.lengths[a] ? index : Math.floor((grid.lengths[a] - 1) / 2);
+  });
+  const setAt = useCallback((name: string, index: number) => update({ [`at.${name}`]: String(index) }), [update]);
+
+  const live = isLive(scan);
+  const base = { x, y, at };
+  const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
+  const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
+  const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
+
+  // n_s and r are combined (hover, outline) only while both describe the same cells.
+  const nsSlice = ns.data;
+  const rSlice = r.data;
+  const matched = nsSlice && rSlice && sameCells(nsSlice, rSlice) ? { ns: nsSlice, r: rSlice } : null;
+  const hoverSlices = useMemo(() => (nsSlice && rSlice ? [nsSlice, rSlice] : []), [nsSlice, rSlice]);
+  const outline = useMemo(
+    () => (outlined && nsSlice && rSlice && sameCells(nsSlice, rSlice) ? insideLimitsMask(nsSlice, rSlice, limits) : null),
+    [outlined, nsSlice, rSlice, limits],
+  );
+  const insideCount = outline ? outline.reduce((n, row) => n + row.filter(Boolean).length, 0) : 0;
+
+  const openCell = (slice: ScanGridSlice) => (cell: { ix: number; iy: number }) =>
+    navigate(paths.point.getHref(scan.id, pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy))));
+  const panelProps = (slice: ScanGridSlice) => ({
+    slice,
+    hoverSlices: matched && sameCells(slice, matched.ns) ? hoverSlices : undefined,
+    outline: outline && matched && sameCells(slice, matched.ns) ? outline : null,
+    onCellClick: openCell(slice),
+  });
+
+  const statusSource = ns.data ?? r.data;
+  const [nsLow, nsHigh] = nsInterval(limits, 95);
+
+  return (
+    <Stack gap="4">
+      <Panel p={{ base: '3', md: '4' }}>
+        <Stack gap="4">
+          <HStack gap="3" wrap="wrap" align="end">
+            <AxisSelect
+              label="x axis"
+              value={x}
+              options={names}
+              // Choosing the current y for x swaps the two.
+              onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })}
+            />
+            <AxisSelect label="y axis" value={y} options={names.filter((name) => name !== x)} onChange={(next) => update({ y: next })} />
+            <Button size="sm" variant="outline" onClick={() => update({ x: y, y: x })}>
+              Swap axes
+            </Button>
+            <Field.Root w="auto" minW="48">
+              <Field.Label fontSize="sm">Third panel</Field.Label>
+              <NativeSelect.Root size="sm">
+                <NativeSelect.Field bg="bg.panel" value={third} onChange={(event) => update({ third: event.target.value })}>
+                  {THIRD_OUTPUTS.map((output) => (
+                    <option key={output} value={output}>
+                      {outputLabel(output)}
+                    </option>
+                  ))}
+                </NativeSelect.Field>
+                <NativeSelect.Indicator />
+              </NativeSelect.Root>
+            </Field.Root>
+            <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
+            <Checkbox.Root
+              checked={outlined}
+              onCheckedChange={(details) => update({ outline: details.checked === true ? null : 'off' })}
+              colorPalette="ember"
+              size="sm"
+              pb="2"
+            >
+              <Checkbox.HiddenInput />
+              <Checkbox.Control />
+              <Checkbox.Label>Outline cells inside the limits</Checkbox.Label>
+            </Checkbox.Root>
+          </HStack>
+          {Object.keys(at).length > 0 && (
+            <Stack direction={{ base: 'column', md: 'row' }} gap="6">
+              {Object.entries(at).map(([name, index]) => (
+                <AxisSlider
+                  key={name}
+                  parameter={name}
+                  values={grid.values[names.indexOf(name)]}
+                  index={index}
+                  onChange={(next) => setAt(name, next)}
+                />
+              ))}
+            </Stack>
+          )}
+        </Stack>
+      </Panel>
+
+      <SimpleGrid columns={{ base: 1, md: 2, xl: 3 }} gap="4">
+        <SlicePanel query={ns} what="n_s">
+          {(slice) => <ScanHeatmap title={TITLES.ns} {...panelProps(slice)} />}
+        </SlicePanel>
+        <SlicePanel query={r} what="r">
+          {(slice) => <ScanHeatmap title={TITLES.r} {...panelProps(slice)} />}
+        </SlicePanel>
+        <SlicePanel query={extra} what={outputLabel(third)}>
+          {(slice) => <ScanHeatmap title={TITLES[third]} {...panelProps(slice)} />}
+        </SlicePanel>
+      </SimpleGrid>
+
+      <Stack gap="2" fontSize="sm" color="fg.muted">
+        {statusSource && <FailureLegend groups={failureGroups(statusSource.status)} missing={cellCounts(statusSource.status).missing} />}
+        {outlined && (
+          <Text>
+            Outlined{matched ? ` (${insideCount.toLocaleString('en-US')} cells)` : ''}: n_s in the 95% interval {formatValue(nsLow)} to{' '}
+            {formatValue(nsHigh)} and r below {formatValue(limits.r.max95)}, the n_s interval × r bound of {limits.label} (the product of the two
+            one-dimensional limits, not the joint contour). Source: {limits.source}.
+          </Text>
+        )}
+        <Text>Click a cell to open its point.{live ? ' The maps fill in as workers store points.' : ''}</Text>
+      </Stack>
+    </Stack>
+  );
+}

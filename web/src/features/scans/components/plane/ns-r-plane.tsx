@@ -1,0 +1,62 @@
+import { Stack, Text } from '@chakra-ui/react';
+import type { ObservationalLimits } from '@sixtyfold/shared';
+import { useMemo } from 'react';
+import { Plot } from '@/components/plots/plot';
+import { planeFigure, type PlaneSeries } from '../../utils/plane-figure';
+
+export interface NsRPlaneProps {
+  /** One scan, or 2 to 4 overlaid; each labelled in the legend. */
+  series: PlaneSeries[];
+  /** With one series: colour its points by this axis parameter or 'nStar'. */
+  colorBy?: string | null;
+  limits: ObservationalLimits;
+  rScale?: 'linear' | 'log';
+  /** Draw the φ^p and α-attractor lines at N_* = 50 and 60. */
+  references?: boolean;
+  /** A click on a scan's point: which series, and the point's index in that scan. */
+  onPointClick?: (point: { series: number; pointIndex: number }) => void;
+  height?: number;
+}
+
+/** OK points of one or more scans on the n_s–r plane, over the observational regions, with their source. */
+export function NsRPlane({ series, colorBy, limits, rScale = 'linear', references = true, onPointClick, height = 480 }: NsRPlaneProps) {
+  const figure = useMemo(() => planeFigure({ series, colorBy, limits, rScale, references }), [series, colorBy, limits, rScale, references]);
+  const sampled = series.filter((s) => s.plane.stride > 1);
+  const n = (value: number) => value.toLocaleString('en-US');
+
+  return (
+    <Stack gap="2">
+      <Plot
+        data={figure.data}
+        layout={figure.layout}
+        height={height}
+        label={`n_s–r plane of ${series.map((s) => s.label).join(', ')} with the ${limits.label} limits`}
+        onPointClick={
+          onPointClick
+            ? (point) => {
+                const data = point.customdata;
+                if (Array.isArray(data) && typeof data[0] === 'number' && typeof data[1] === 'number') onPointClick({ series: data[0], pointIndex: data[1] });
+              }
+            : undefined
+        }
+      />
+      <Stack gap="1" fontSize="xs" color="fg.muted">
+        {sampled.map((s) => (
+          <Text key={s.label} color="fg.warning">
+            {s.label}: sampled, 1 in {n(s.plane.stride)} of its {n(s.plane.okPoints)} ok points shown ({n(s.plane.ns.length)}).
+          </Text>
+        ))}
+        <Text>
+          Shaded: n_s interval × r bound, the product of the one-dimensional 68% and 95% n_s intervals with the 95% upper limit on r
+          (quoted at k = {limits.r.pivotPerMpc} Mpc⁻¹), not the joint contour. Source: {limits.source}.
+        </Text>
+        {references && (
+          <Text>
+            Lines: first-order slow-roll predictions of V ∝ φ^p (Liddle &amp; Lyth 2000) and of α-attractors, n_s = 1 − 2/N_*, r = 12α/N_*²
+            (Kallosh, Linde &amp; Roest 2013, arXiv:1311.0472), at N_* = 50 (dotted) and 60 (dashed).
+          </Text>
+        )}
+      </Stack>
+    </Stack>
+  );
+}

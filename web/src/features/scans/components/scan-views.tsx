@@ -1,0 +1,46 @@
+import { Tabs } from '@chakra-ui/react';
+import type { ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
+import { ScanPointsTable } from '@/features/scans/components/points-table';
+import { useViewParams } from '../hooks/use-view-params';
+import { ScanHeatmaps } from './heatmaps/scan-heatmaps';
+import { ScanLinePlots } from './heatmaps/scan-line-plots';
+import { ScanPlaneView } from './plane/scan-plane-view';
+
+export const SCAN_VIEWS = ['heatmaps', 'plane', 'points'] as const;
+export type ScanView = (typeof SCAN_VIEWS)[number];
+
+/** The view in the address (`?view=`), heatmaps when there is none or it is unknown. */
+export const readScanView = (value: string | null): ScanView => ((SCAN_VIEWS as readonly string[]).includes(value ?? '') ? (value as ScanView) : 'heatmaps');
+
+/**
+ * The scan's results as tabs. Only the open tab is mounted, so a live scan polls only for what is
+ * on screen; each view keeps its settings in the address, so coming back finds them.
+ */
+export function ScanViews({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
+  const [params, update] = useViewParams();
+  const view = readScanView(params.get('view'));
+  const oneAxis = spec.axes.length === 1;
+  return (
+    <Tabs.Root
+      value={view}
+      onValueChange={(details) => update({ view: details.value === 'heatmaps' ? null : details.value })}
+      lazyMount
+      unmountOnExit
+      colorPalette="ember"
+      variant="line"
+    >
+      <Tabs.List aria-label="Scan results">
+        <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>
+        <Tabs.Trigger value="plane">n_s–r plane</Tabs.Trigger>
+        <Tabs.Trigger value="points">Points</Tabs.Trigger>
+      </Tabs.List>
+      <Tabs.Content value="heatmaps">{oneAxis ? <ScanLinePlots scan={scan} spec={spec} /> : <ScanHeatmaps scan={scan} spec={spec} />}</Tabs.Content>
+      <Tabs.Content value="plane">
+        <ScanPlaneView scan={scan} spec={spec} />
+      </Tabs.Content>
+      <Tabs.Content value="points">
+        <ScanPointsTable scan={scan} />
+      </Tabs.Content>
+    </Tabs.Root>
+  );
+}

@@ -1,0 +1,96 @@
+import { findLimits, nsInterval, ScanGrid } from '@sixtyfold/shared';
+import { naturalSpec, slice } from '@/testing/scan-fixtures';
+import { cellCounts, cellIndices, failureGroups, insideLimitsMask, isLogSpaced, outlineSegments, pointIndexOf, sameCells, zRangeOf } from './grid-cells';
+
+describe('point index and axis indices', () => {
+  it('is the inverse of ScanGrid.indices, last axis fastest', () => {
+    const grid = new ScanGrid([
+      { kind: 'list', parameter: 'a', values: [1, 2, 3] },
+      { kind: 'range', parameter: 'b', min: 0, max: 1, count: 4, spacing: 'linear' },
+      { kind: 'list', parameter: 'c', values: [7, 8] },
+    ]);
+    for (let index = 0; index < grid.size; index++) expect(pointIndexOf(grid.lengths, grid.indices(index))).toBe(index);
+    expect(pointIndexOf(grid.lengths, [1, 2, 1])).toBe(1 * 8 + 2 * 2 + 1);
+  });
+
+  it('places a heatmap cell on every axis, the others at the slice’s cut', () => {
+    const cut = { x: { parameter: 'c', values: [7, 8] }, y: { parameter: 'a', values: [1, 2, 3] }, at: { b: { index: 3, value: 1 } } };
+    expect(cellIndices(['a', 'b', 'c'], cut, 1, 2)).toEqual([2, 3, 1]);
+    const grid = new ScanGrid(naturalSpec.axes);
+    // x = N_* (fast axis), y = f: cell (ix 1, iy 2) is f = 10, N_* = 55.
+    const index = pointIndexOf(grid.lengths, cellIndices(['f', 'nStar'], slice('ns', [], []), 1, 2));
+    expect(grid.point(index)).toEqual({ f: 10, nStar: 55 });
+  });
+});
+
+describe('failed and missing cells', () => {
+  const status = [
+    ['ok', 'insufficient_efolds', null],
+    ['no_end', 'insufficient_efolds', 'ok'],
+    ['insufficient_efolds', null, 'ok'],
+  ];
+
+  it('groups failures by reason, most frequent first, leaving ok and missing cells out', () => {
+    expect(failureGroups(status)).toEqual([
+      { reason: 'insufficient_efolds', count: 3 },
+      { reason: 'no_end', count: 1 },
+    ]);
+    expect(cellCounts(status)).toEqual({ ok: 3, failed: 4, missing: 2 });
+  });
+});
+
+describe('cells inside the observational limits', () => {
+  const limits = findLimits('planck18-bk18');
+  const [low, high] = nsInterval(limits, 95);
+
+  it('needs n_s inside the 95% interval and r at most the 95% bound, both stored', () => {
+    const ns = slice('ns', [[limits.ns.mean, low - 1e-6, high - 1e-9], [limits.ns.mean, limits.ns.mean, null]], [['ok', 'ok', 'ok'], ['ok', 'ok', 'no_end']]);
+    const r = slice('r', [[0.01, 0.01, limits.r.max95], [limits.r.max95 * 1.01, null, 0.01]], [['ok', 'ok', 'ok'], ['ok', 'ok', 'no_end']]);
+    expect(insideLimitsMask(ns, r, limits)).toEqual([
+      [true, false, true],
+      [false, false, false],
+    ]);
+  });
+
+  it('judges by the chosen limit set', () => {
+    const ns = slice('ns', [[limits.ns.mean]], [['ok']]);
+    const r = slice('r', [[0.05]], [['ok']]);
+    expect(insideLimitsMask(ns, r, findLimits('planck18-bk18'))).toEqual([[false]]);
+    expect(insideLimitsMask(ns, r, findLimits('planck18'))).toEqual([[true]]);
+  });
+
+  it('outlines a region once, along its border only', () => {
+    const { x, y } = outlineSegments([
+      [true, true],
+      [true, false],
+    ]);
+    // Three cells in an L: 8 outer edges, each drawn as two points and a break.
+    expect(x).toHaveLength(8 * 3);
+    const edges = new Set<string>();
+    for (let i = 0; i < x.length; i += 3) edges.add(`${x[i]},${y[i]}-${x[i + 1]},${y[i + 1]}`);
+    expect(edges.has('0.5,-0.5-0.5,0.5')).toBe(false); // between the two top cells
+    expect(edges.has('0.5,0.5-1.5,0.5')).toBe(true); // under the top right cell, above the empty one
+    expect(outlineSegments([[false]])).toEqual({ x: [], y: [] });
+  });
+});
+
+describe('axis spacing, colour ranges and matching slices', () => {
+  it('tells log-spaced values from linear ones and lists', () => {
+    expect(isLogSpaced([1e-3, 1e-2, 1e-1, 1])).toBe(true);
+    expect(isLogSpaced([50, 55, 60])).toBe(false);
+    expect(isLogSpaced([5, 7, 10])).toBe(false);
+    expect(isLogSpaced([0, 1, 10])).toBe(false);
+  });
+
+  it('takes one colour range over several slices, ignoring empty cells', () => {
+    expect(zRangeOf([slice('ns', [[0.95, null]], [['ok', null]]), slice('ns', [[0.97, 0.96]], [['ok', 'ok']])])).toEqual([0.95, 0.97]);
+    expect(zRangeOf([slice('ns', [[null]], [[null]])])).toBeUndefined();
+  });
+
+  it('combines slices only when they cut the other axes at the same place', () => {
+    const at3 = { x: { parameter: 'a', values: [1] }, y: { parameter: 'b', values: [1] }, at: { c: { index: 3, value: 0.3 } } };
+    expect(sameCells(at3, { ...at3 })).toBe(true);
+    expect(sameCells(at3, { ...at3, at: { c: { index: 4, value: 0.4 } } })).toBe(false);
+    expect(sameCells(at3, { ...at3, x: at3.y, y: at3.x })).toBe(false);
+  });
+});

@@ -1,0 +1,71 @@
+import { slice } from '@/testing/scan-fixtures';
+import { failureSlot } from './failure-colors';
+import { heatmapFigure, tickIndices } from './heatmap-figure';
+
+type Trace = { type: string; name: string; z?: (number | null)[][]; text?: string[][]; zmin?: number; zmax?: number; x?: (number | null)[] };
+
+const status = [
+  ['ok', 'insufficient_efolds', 'ok'],
+  ['ok', null, 'no_end'],
+];
+const ns = slice('ns', [[0.961, null, 0.965], [0.962, null, null]], status, { y: { parameter: 'f', values: [5, 7] } });
+const r = slice('r', [[0.071, null, 0.052], [0.07, null, null]], status, { y: { parameter: 'f', values: [5, 7] } });
+
+describe('heatmap traces', () => {
+  it('never draws a failed cell as a number: it goes to the overlay, by reason', () => {
+    const traces = heatmapFigure({ slice: ns }).data as Trace[];
+    const [values, failed] = traces;
+    expect(values.z).toEqual([[0.961, null, 0.965], [0.962, null, null]]);
+    expect(failed.name).toBe('failed');
+    expect(failed.z).toEqual([
+      [null, failureSlot('insufficient_efolds'), null],
+      [null, null, failureSlot('no_end')],
+    ]);
+    expect(failureSlot('insufficient_efolds')).not.toBe(failureSlot('no_end'));
+  });
+
+  it('says on hover where a cell is and what came out there', () => {
+    const cut = slice('alphaS', [[-6e-4, null, -5e-4], [-6.1e-4, null, null]], status, {
+      y: { parameter: 'f', values: [5, 7] },
+      at: { Lambda: { index: 1, value: 0.005 } },
+    });
+    const [values] = heatmapFigure({ slice: cut, hoverSlices: [ns, r] }).data as Trace[];
+    expect(values.text![0][0]).toBe('N_* = 50<br>f = 5<br>Lambda = 0.005<br>n_s = 0.961<br>r = 0.071<br>α_s = -6.0000e-4');
+    expect(values.text![0][1]).toContain('failed: insufficient_efolds');
+    expect(values.text![0][1]).not.toContain('n_s =');
+    expect(values.text![1][1]).toContain('not stored yet');
+  });
+
+  it('uses a shared colour range when given one, on log₁₀ for outputs spanning decades', () => {
+    const [values] = heatmapFigure({ slice: ns, zRange: [0.95, 0.98] }).data as Trace[];
+    expect([values.zmin, values.zmax]).toEqual([0.95, 0.98]);
+    const scale = slice('amplitudeScale', [[1e-10, 1e-8]], [['ok', 'ok']], { x: { parameter: 'f', values: [5, 7] }, y: { parameter: 'nStar', values: [55] } });
+    const [logged] = heatmapFigure({ slice: scale, zRange: [1e-11, 1e-7] }).data as Trace[];
+    expect(logged.z).toEqual([[-10, -8]]);
+    expect([logged.zmin, logged.zmax]).toEqual([-11, -7]);
+  });
+
+  it('outlines only when some cell is inside', () => {
+    const none = heatmapFigure({ slice: ns, outline: [[false, false, false], [false, false, false]] }).data as Trace[];
+    expect(none.some((t) => t.type === 'scatter')).toBe(false);
+    const some = heatmapFigure({ slice: ns, outline: [[true, false, false], [false, false, false]] }).data as Trace[];
+    const lines = some.filter((t) => t.type === 'scatter');
+    expect(lines).toHaveLength(2);
+    expect(lines[0].x).toEqual([-0.5, -0.5, null, 0.5, 0.5, null, -0.5, 0.5, null, -0.5, 0.5, null]);
+  });
+
+  it('draws a status slice as ok cells plus the failure overlay', () => {
+    const traces = heatmapFigure({ slice: slice('status', [], status, { y: { parameter: 'f', values: [5, 7] } }) }).data as Trace[];
+    expect(traces.map((t) => t.name)).toEqual(['ok', 'failed']);
+    expect(traces[0].z).toEqual([[1, null, 1], [1, null, null]]);
+  });
+
+  it('labels the axes with their values and says when one is log-spaced', () => {
+    const logAxis = slice('ns', [[0.96, 0.96, 0.96, 0.96]], [['ok', 'ok', 'ok', 'ok']], { x: { parameter: 'alpha', values: [0.01, 0.1, 1, 10] }, y: { parameter: 'nStar', values: [55] } });
+    const { layout } = heatmapFigure({ slice: logAxis });
+    expect(layout.xaxis?.title).toEqual({ text: 'alpha (log-spaced)' });
+    expect(layout.xaxis?.ticktext).toEqual(['0.01', '0.1', '1', '10']);
+    expect(layout.yaxis?.title).toEqual({ text: 'N_*' });
+    expect(tickIndices(100)).toEqual([0, 17, 33, 50, 66, 83, 99]);
+  });
+});

@@ -1,0 +1,120 @@
+import type { ScanGridSlice } from '@sixtyfold/shared';
+import type { Data, Layout } from 'plotly.js';
+import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
+import { failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
+import { isLogSpaced, outlineSegments } from './grid-cells';
+import { LOG_OUTPUTS, outputLabel } from './output-labels';
+import { formatValue, inputLabel } from './point-columns';
+
+export interface HeatmapFigureInput {
+  /** The output drawn, with every cell's status. */
+  slice: ScanGridSlice;
+  /** Colour range in the output's units, shared across panels or scans; from the data when absent. */
+  zRange?: [number, number];
+  /** Other outputs at the same cells (n_s and r, say), listed when hovering a cell. */
+  hoverSlices?: ScanGridSlice[];
+  /** Cells to outline, e.g. those inside the observational limits. */
+  outline?: boolean[][] | null;
+}
+
+// Past this many cells a text label per cell costs more memory than a hover is worth.
+const MAX_HOVER_CELLS = 62_500;
+const OK_CELL_COLOR = '#d9dcea';
+
+/** Up to `most` evenly spread tick positions along an axis of n cells, ends included. */
+export function tickIndices(n: number, most = 7): number[] {
+  if (n <= most) return Array.from({ length: n }, (_, i) => i);
+  const step = (n - 1) / (most - 1);
+  return [...new Set(Array.from({ length: most }, (_, i) => Math.round(i * step)))];
+}
+
+function axisLayout(axis: ScanGridSlice['x']): Partial<Layout['xaxis']> {
+  const ticks = tickIndices(axis.values.length);
+  const log = isLogSpaced(axis.values);
+  return {
+    title: { text: `${inputLabel(axis.parameter)}${log ? ' (log-spaced)' : ''}` },
+    tickmode: 'array',
+    tickvals: ticks,
+    ticktext: ticks.map((i) => formatValue(axis.values[i])),
+    range: [-0.5, axis.values.length - 0.5],
+    showgrid: false,
+  };
+}
+
+/** What hovering a cell shows: where it is (every axis value) and what came out there. */
+function hoverTexts(slice: ScanGridSlice, others: ScanGridSlice[]): string[][] {
+  const fixed = Object.entries(slice.at).map(([name, { value }]) => `${inputLabel(name)} = ${formatValue(value)}`);
+  const shown = [...others, slice].filter((s, i, all) => s.output !== 'status' && all.findIndex((o) => o.output === s.output) === i);
+  return slice.y.values.map((yValue, iy) =>
+    slice.x.values.map((xValue, ix) => {
+      const lines = [`${inputLabel(slice.x.parameter)} = ${formatValue(xValue)}`, `${inputLabel(slice.y.parameter)} = ${formatValue(yValue)}`, ...fixed];
+      const status = slice.status[iy][ix];
+      if (status === null) lines.push('not stored yet');
+      else if (status !== 'ok') lines.push(`failed: ${status}`);
+      else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatValue(s.z[iy]?.[ix])}`);
+      return lines.join('<br>');
+    }),
+  );
+}
+
+/**
+ * The Plotly traces of one heatmap panel, in cell coordinates (cell ix spans ix ± ½) with the
+ * axis values as tick labels, so list and log-spaced axes get equal cells. Failed cells are
+ * never drawn as numbers: their z is null in the data and a second trace colours them by reason.
+ */
+export function heatmapFigure({ slice, zRange, hoverSlices = [], outline }: HeatmapFigureInput): { data: Data[]; layout: Partial<Layout> } {
+  const xs = slice.x.values.map((_, i) => i);
+  const ys = slice.y.values.map((_, i) => i);
+  const cells = xs.length * ys.length;
+  const text = cells <= MAX_HOVER_CELLS ? hoverTexts(slice, hoverSlices) : undefined;
+  const hover = text ? { text, hovertemplate: '%{text}<extra></extra>' } : { hoverinfo: 'z' as const };
+  const label = outputLabel(slice.output);
+  const logScale = LOG_OUTPUTS.has(slice.output);
+  const data: Data[] = [];
+
+  if (slice.output === 'status') {
+    data.push({
+      type: 'heatmap', name: 'ok', x: xs, y: ys, hoverongaps: false, showscale: false, ...hover,
+      z: slice.status.map((row) => row.map((s) => (s === 'ok' ? 1 : null))),
+      colorscale: [[0, OK_CELL_COLOR], [1, OK_CELL_COLOR]],
+    } as Data);
+  } else {
+    const log = logScale;
+    const scale = (v: number | null) => (v === null ? null : log ? (v > 0 ? Math.log10(v) : null) : v);
+    const range = zRange ? zRange.map((v) => scale(v)) : [];
+    data.push({
+      type: 'heatmap', name: label, x: xs, y: ys, hoverongaps: false, ...hover,
+      z: slice.z.map((row) => row.map(scale)),
+      colorscale: PLOT_COLORSCALE,
+      ...(range[0] !== null && range[0] !== undefined && range[1] !== null && range[1] !== undefined ? { zmin: range[0], zmax: range[1] } : {}),
+      colorbar: { title: { text: log ? `log₁₀ ${label}` : label, side: 'right' }, thickness: 12, outlinewidth: 0 },
+    } as Data);
+  }
+
+  const failed = slice.status.map((row) => row.map((s) => (s !== null && s !== 'ok' ? failureSlot(s) : null)));
+  if (failed.some((row) => row.some((v) => v !== null))) {
+    data.push({
+      type: 'heatmap', name: 'failed', x: xs, y: ys, z: failed, hoverongaps: false, showscale: false, ...hover,
+      colorscale: failureColorscale(), zmin: -0.5, zmax: FAILURE_SLOTS - 0.5,
+    } as Data);
+  }
+
+  if (outline?.some((row) => row.some(Boolean))) {
+    const segments = outlineSegments(outline);
+    // A dark line under a light one stays visible on every colour of the scale.
+    for (const line of [{ color: PLOT_COLORS.ink, width: 4 }, { color: '#ffffff', width: 1.6 }]) {
+      data.push({ type: 'scatter', mode: 'lines', name: 'inside the limits', ...segments, line, hoverinfo: 'skip', showlegend: false } as Data);
+    }
+  }
+
+  return {
+    data,
+    layout: {
+      xaxis: axisLayout(slice.x),
+      yaxis: axisLayout(slice.y),
+      margin: { l: 72, r: 16, t: 12, b: 56 },
+      showlegend: false,
+      hovermode: 'closest',
+    },
+  };
+}

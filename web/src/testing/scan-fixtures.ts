@@ -1,0 +1,54 @@
+import type { ScanDetail, ScanGridSlice, StoredScanSpec } from '@sixtyfold/shared';
+
+// Scans of the invented Halvorsen Institute groups (see fixtures.ts), with their full detail.
+
+/** Natural inflation over the decay constant f and N_*: 3 × 3 points, N_* fastest. */
+export const naturalSpec: StoredScanSpec = {
+  groupId: 10,
+  name: 'Natural inflation, f against N_*',
+  tags: ['axion'],
+  note: 'Where natural inflation meets the n_s window.',
+  model: { kind: 'family', family: 'natural' },
+  params: { Lambda: 5e-3 },
+  axes: [
+    { kind: 'list', parameter: 'f', values: [5, 7, 10] },
+    { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 3, spacing: 'linear' },
+  ],
+  pivot: { kind: 'fixed' },
+  method: 'slowroll',
+  potentialSource: 'natural',
+};
+
+export function scanDetail(overrides: Partial<ScanDetail> = {}, spec: StoredScanSpec = naturalSpec): ScanDetail {
+  const total = spec.axes.reduce((n, axis) => n * (axis.kind === 'list' ? axis.values.length : axis.count), 1);
+  return {
+    id: 42,
+    groupId: 10,
+    ownerId: 2,
+    ownerName: 'Tomas Lindqvist',
+    name: spec.name,
+    method: spec.method,
+    status: 'completed',
+    tags: spec.tags,
+    totalPoints: total,
+    donePoints: total,
+    failedPoints: 0,
+    createdAt: '2026-11-30T09:15:00.000Z',
+    finishedAt: '2026-11-30T09:20:00.000Z',
+    note: spec.note,
+    spec: spec as unknown as Record<string, unknown>,
+    startedAt: '2026-11-30T09:15:05.000Z',
+    progress: { total, done: total, failed: 0, running: 0, queued: 0, elapsedSeconds: 295, remainingSeconds: 0 },
+    ...overrides,
+  };
+}
+
+/** A slice over x and y with z[iy][ix] and statuses; `at` as the API reports it. */
+export function slice(
+  output: ScanGridSlice['output'],
+  z: (number | null)[][],
+  status: (string | null)[][],
+  { x = { parameter: 'nStar', values: [50, 55, 60] }, y = { parameter: 'f', values: [5, 7, 10] }, at = {} }: Partial<Pick<ScanGridSlice, 'x' | 'y' | 'at'>> = {},
+): ScanGridSlice {
+  return { x, y, output, z: output === 'status' ? z.map((row) => row.map(() => null)) : z, status, at };
+}
