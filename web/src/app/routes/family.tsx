@@ -1,13 +1,19 @@
 import { Button, Stack } from '@chakra-ui/react';
 import { findFamily } from '@sixtyfold/shared';
+import { lazy, Suspense } from 'react';
 import { Link as RouterLink, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { CurveIcon } from '@/components/ui/icons';
+import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
-import { PotentialExplorer } from '@/features/models/components/potential-explorer';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
 import { useDocumentTitle } from '@/hooks/use-document-title';
+
+// The explorer brings the engine and symbolic differentiation; they load when a page needs them.
+const PotentialExplorer = lazy(() =>
+  import('@/features/models/components/potential-explorer').then((module) => ({ default: module.PotentialExplorer })),
+);
 
 export function FamilyRoute() {
   const { familyKey = '' } = useParams();
@@ -49,7 +55,9 @@ export function FamilyRoute() {
             { label: 'Engine key', value: family.key },
           ]}
         />
-        <PotentialExplorer key={family.key} subject={{ kind: 'family', family }} />
+        <Suspense fallback={<LoadingState label="Loading the plot and the engine…" />}>
+          <PotentialExplorer key={family.key} subject={{ kind: 'family', family }} />
+        </Suspense>
       </Stack>
     </Stack>
   );

@@ -1,4 +1,5 @@
 import { Button, Stack } from '@chakra-ui/react';
+import { lazy, Suspense } from 'react';
 import { Link as RouterLink, useNavigate, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -8,12 +9,14 @@ import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useModel } from '@/features/models/api/get-model';
-import { ModelForm } from '@/features/models/components/model-form';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { ApiRequestError } from '@/lib/api-client';
 import { groupNamesOf } from '@/lib/group-names';
 import { NotFoundRoute } from './not-found';
+
+// The form brings the expression checker (symbolic differentiation); it loads when a page needs it.
+const ModelForm = lazy(() => import('@/features/models/components/model-form').then((module) => ({ default: module.ModelForm })));
 
 export function ModelEditRoute() {
   const modelId = Number(useParams().modelId);
@@ -63,13 +66,15 @@ function ModelEditPage({ modelId }: { modelId: number }) {
         title={`Edit ${m.name}`}
         description="Scans already submitted keep the definition they were run with; new scans and trials use what you save here."
       />
-      <ModelForm
-        mode="edit"
-        model={m}
-        groupName={groupNamesOf(user).get(m.groupId) ?? `Group ${m.groupId}`}
-        cancelHref={back}
-        onSaved={(saved) => navigate(paths.model.getHref(saved.id))}
-      />
+      <Suspense fallback={<LoadingState label="Loading the form…" />}>
+        <ModelForm
+          mode="edit"
+          model={m}
+          groupName={groupNamesOf(user).get(m.groupId) ?? `Group ${m.groupId}`}
+          cancelHref={back}
+          onSaved={(saved) => navigate(paths.model.getHref(saved.id))}
+        />
+      </Suspense>
     </Stack>
   );
 }

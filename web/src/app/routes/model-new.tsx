@@ -1,4 +1,5 @@
 import { Button, Stack } from '@chakra-ui/react';
+import { lazy, Suspense } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { UsersIcon } from '@/components/ui/icons';
@@ -6,9 +7,11 @@ import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
-import { ModelForm } from '@/features/models/components/model-form';
 import { groupsWithRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
+
+// The form brings the expression checker (symbolic differentiation); it loads when a page needs it.
+const ModelForm = lazy(() => import('@/features/models/components/model-form').then((module) => ({ default: module.ModelForm })));
 
 export function ModelNewRoute() {
   useDocumentTitle('New model');
@@ -37,13 +40,15 @@ export function ModelNewRoute() {
           </Button>
         </EmptyState>
       ) : (
-        <ModelForm
-          mode="create"
-          groups={groups}
-          groupId={groupId}
-          cancelHref={paths.models.getHref()}
-          onSaved={(model) => navigate(paths.model.getHref(model.id))}
-        />
+        <Suspense fallback={<LoadingState label="Loading the form…" />}>
+          <ModelForm
+            mode="create"
+            groups={groups}
+            groupId={groupId}
+            cancelHref={paths.models.getHref()}
+            onSaved={(model) => navigate(paths.model.getHref(model.id))}
+          />
+        </Suspense>
       )}
     </Stack>
   );

@@ -1,5 +1,5 @@
 import { Button, HStack, Stack, Text } from '@chakra-ui/react';
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { Link as RouterLink, useNavigate, useParams } from 'react-router-dom';
 import { DateTime } from '@/components/ui/date-time';
 import { ErrorState } from '@/components/ui/error-state';
@@ -9,13 +9,17 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useModel } from '@/features/models/api/get-model';
 import { DeleteModelDialog } from '@/features/models/components/delete-model-dialog';
-import { PotentialExplorer } from '@/features/models/components/potential-explorer';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { ApiRequestError } from '@/lib/api-client';
 import { groupNamesOf } from '@/lib/group-names';
 import { NotFoundRoute } from './not-found';
+
+// The explorer brings the engine and symbolic differentiation; they load when a page needs them.
+const PotentialExplorer = lazy(() =>
+  import('@/features/models/components/potential-explorer').then((module) => ({ default: module.PotentialExplorer })),
+);
 
 export function ModelRoute() {
   const modelId = Number(useParams().modelId);
@@ -100,7 +104,9 @@ function ModelPage({ modelId }: { modelId: number }) {
           ]}
         />
         {/* A saved edit starts the explorer afresh from the new defaults. */}
-        <PotentialExplorer key={`${m.id}-${m.updatedAt}`} subject={{ kind: 'model', model: m }} />
+        <Suspense fallback={<LoadingState label="Loading the plot and the engine…" />}>
+          <PotentialExplorer key={`${m.id}-${m.updatedAt}`} subject={{ kind: 'model', model: m }} />
+        </Suspense>
       </Stack>
       {canDelete && (
         <DeleteModelDialog

@@ -1,5 +1,6 @@
-import { renderWithProviders } from '@/testing/render';
+import { waitFor } from '@testing-library/react';
 import { POTENTIAL_FAMILIES } from '@sixtyfold/shared';
+import { renderWithProviders } from '@/testing/render';
 import { expressionToTex, Formula, symbolTex } from './formula';
 
 describe('expressionToTex', () => {
@@ -28,16 +29,18 @@ describe('expressionToTex', () => {
 });
 
 describe('Formula', () => {
-  it('renders every built-in family with KaTeX, with MathML for screen readers', () => {
+  it('renders every built-in family with KaTeX once it has loaded, with MathML for screen readers', async () => {
     for (const family of POTENTIAL_FAMILIES) {
       const { container, unmount } = renderWithProviders(<Formula expression={family.expression} lhs="V(\phi) =" />);
+      await waitFor(() => expect(container.querySelector('math')).not.toBeNull());
       expect(container.querySelector('.katex-error')).toBeNull();
-      expect(container.querySelector('math')).not.toBeNull();
       unmount();
     }
   });
 
-  it('shows the source text when the expression does not parse', () => {
+  it('shows the source text when the expression does not parse', async () => {
+    renderWithProviders(<Formula expression="phi" />);
+    await waitFor(() => expect(document.querySelector('.katex')).not.toBeNull()); // KaTeX is ready
     const { container } = renderWithProviders(<Formula expression="lambda * (phi" />);
     expect(container.querySelector('.katex')).toBeNull();
     expect(container).toHaveTextContent('lambda * (phi');

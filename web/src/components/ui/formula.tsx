@@ -1,8 +1,7 @@
 import { Box, type BoxProps } from '@chakra-ui/react';
-import katex from 'katex';
-import 'katex/dist/katex.min.css';
+import type katexModule from 'katex';
 import { create, parseDependencies, type MathNode } from 'mathjs/number';
-import { useMemo } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 
 // Parsing only: the formula is typeset from the parse tree and never evaluated here.
 const math = create({ parseDependencies }, {});
@@ -60,6 +59,17 @@ export function expressionToTex(expression: string): string {
   return tex.replace(/\\cdot(?!\s*\{?\s*[0-9.])/g, '\\,');
 }
 
+type Katex = typeof katexModule;
+
+// KaTeX and its stylesheet are a quarter of a megabyte, so they load with the first formula
+// shown, not with the app; until then a formula shows its source text.
+let katex: Katex | null = null;
+let loading: Promise<Katex> | null = null;
+function loadKatex(): Promise<Katex> {
+  loading ??= Promise.all([import('katex'), import('katex/dist/katex.min.css')]).then(([module]) => (katex = module.default));
+  return loading;
+}
+
 interface FormulaProps extends Omit<BoxProps, 'children'> {
   /** The expression in the engine's syntax. */
   expression: string;
@@ -69,16 +79,30 @@ interface FormulaProps extends Omit<BoxProps, 'children'> {
   block?: boolean;
 }
 
-/** A potential typeset with KaTeX; screen readers get KaTeX's MathML, and the raw text if it fails. */
+/** A potential typeset with KaTeX; screen readers get KaTeX's MathML, and the source text before KaTeX loads or if it fails. */
 export function Formula({ expression, lhs, block = false, ...boxProps }: FormulaProps) {
+  const [typesetter, setTypesetter] = useState(katex);
+  useEffect(() => {
+    if (typesetter) return;
+    let current = true;
+    loadKatex().then(
+      (loaded) => current && setTypesetter(() => loaded),
+      () => undefined, // offline or a failed chunk: the source text stays, which is still correct
+    );
+    return () => {
+      current = false;
+    };
+  }, [typesetter]);
+
   const html = useMemo(() => {
+    if (!typesetter) return null;
     try {
       const tex = `${lhs ? `${lhs} ` : ''}${expressionToTex(expression)}`;
-      return katex.renderToString(tex, { displayMode: block, throwOnError: true, output: 'htmlAndMathml' });
+      return typesetter.renderToString(tex, { displayMode: block, throwOnError: true, output: 'htmlAndMathml' });
     } catch {
       return null;
     }
-  }, [expression, lhs, block]);
+  }, [typesetter, expression, lhs, block]);
 
   if (html === null) {
     return (

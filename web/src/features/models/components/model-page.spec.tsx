@@ -25,7 +25,7 @@ describe('model page', () => {
     expect(screen.getByRole('link', { name: 'Edit model' })).toHaveAttribute('href', '/models/7/edit');
     expect(screen.queryByRole('button', { name: 'Delete model' })).not.toBeInTheDocument();
     // The stored start prefills the trial's φ_init.
-    expect(screen.getByLabelText('φ_init')).toHaveValue('17');
+    expect(await screen.findByLabelText('φ_init')).toHaveValue('17');
   });
 
   it('shows neither Edit nor Delete to a viewer', async () => {
