@@ -114,14 +114,13 @@ export function ExpressionCheck({ expression, parameterNames, id, formError }: E
       <Text color="green.700" fontSize="sm" fontWeight="500">
         The engine reads this potential.
       </Text>
-      {parsed.ok && (
-        <Box fontSize="sm" color="fg.muted">
-          <Text mb="1">Its derivative, as the engine will use it:</Text>
-          <Box bg="dust.50" borderRadius="md" px="3" py="2" borderWidth="1px" borderColor="border.muted">
-            <Formula expression={parsed.potential.derivatives.dV} lhs="V'(\phi) =" block />
-          </Box>
-        </Box>
-      )}
+      <Box fontSize="sm" color="fg.muted">
+        <Text mb="1">{parsed.ok ? 'Read as V, with the derivative the engine will use:' : 'Read as:'}</Text>
+        <Stack gap="1" bg="dust.50" borderRadius="md" px="3" py="2" borderWidth="1px" borderColor="border.muted">
+          <Formula expression={source} lhs="V(\phi) =" block />
+          {parsed.ok && <Formula expression={parsed.potential.derivatives.dV} lhs="V'(\phi) =" block />}
+        </Stack>
+      </Box>
       {unused.length > 0 && (
         <Text color="ember.fg" fontSize="sm">
           Declared but not used:{' '}

@@ -75,4 +75,20 @@ describe('trial errors', () => {
     expect(screen.getByRole('button', { name: 'Run trial' })).toBeDisabled();
     expect(screen.queryByRole('img', { name: /V\(φ\) above/ })).not.toBeInTheDocument();
   });
+
+  it('plots over the range typed in, refuses an empty one, and fits it to the roll again', async () => {
+    const { user } = renderApp('/models/families/starobinsky');
+    const phiMax = await screen.findByLabelText('φ max');
+    expect(screen.getByRole('img', { name: /V\(φ\) above/ })).toBeInTheDocument();
+    const fitted = (phiMax as HTMLInputElement).value;
+
+    await user.clear(phiMax);
+    await user.type(phiMax, '-1');
+    expect(screen.getByRole('alert')).toHaveTextContent('φ max must be larger than φ min');
+    expect(screen.queryByRole('img', { name: /V\(φ\) above/ })).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Fit range to the roll' }));
+    expect(screen.getByLabelText('φ max')).toHaveValue(fitted);
+    expect(screen.getByRole('img', { name: /V\(φ\) above/ })).toBeInTheDocument();
+  });
 });

@@ -1,7 +1,8 @@
 import { Alert, Box, Button, Field, Flex, Heading, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
 import type { CompiledPotential, EvaluateRequest, Method, PotentialFamily, PotentialModel } from '@sixtyfold/shared';
 import { useMutation } from '@tanstack/react-query';
-import { useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
+import { useDeferredValue, useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
+import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { runEnginePoint } from '@/lib/engine/run-engine';
 import { formatNumber } from '../utils/format-number';
@@ -38,14 +39,17 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
   const { expression, parameters } = subject.kind === 'family' ? subject.family : subject.model;
   const names = parameters.map((p) => p.name);
   const namesKey = names.join(',');
-  // names is a new array each render; namesKey stands for it in the dependencies.
-  const parsed = useMemo(() => parsePotentialOnce(expression, names), [expression, namesKey]);
+  // Parsing waits one render: the first one only posts the trial, so the engine's worker, which
+  // parses too, starts at once and both parse side by side. names is a new array each render;
+  // namesKey stands for it in the dependencies.
+  const parseNow = useDeferredValue(true, false);
+  const parsed = useMemo(() => (parseNow ? parsePotentialOnce(expression, names) : null), [parseNow, expression, namesKey]);
 
   const [texts, setTexts] = useState(() => defaultValueTexts(parameters));
   const read = readValues(parameters, texts);
   const valuesKey = read.ok ? JSON.stringify(read.values) : '';
   // valuesKey stands for read.values, which is a new object each render.
-  const bound = useMemo(() => (parsed.ok && read.ok ? parsed.potential.bind(read.values) : null), [parsed, valuesKey]);
+  const bound = useMemo(() => (parsed?.ok && read.ok ? parsed.potential.bind(read.values) : null), [parsed, valuesKey]);
   const potential = bound?.ok ? bound.potential : null;
 
   const [phiInitText, setPhiInitText] = useState(() =>
@@ -60,7 +64,10 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
     // valuesKey stands for read.values; potential changes with it.
   }, [family, potential, phiInitText, valuesKey]);
 
-  const [range, setRange] = useState<RangeTexts>(() => suggestedRange(potential, start));
+  // The range follows the start and the end of slow roll until the user types one of their own.
+  const [ownRange, setOwnRange] = useState<RangeTexts | null>(null);
+  const suggested = useMemo(() => suggestedRange(potential, start), [potential, start]);
+  const range = ownRange ?? suggested;
   const phiMin = readNumber(range.min);
   const phiMax = readNumber(range.max);
   const rangeError =
@@ -166,7 +173,7 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
         </Panel>
       </Box>
 
-      {!parsed.ok ? (
+      {parsed && !parsed.ok ? (
         <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
           <Alert.Indicator />
           <Alert.Content>
@@ -196,49 +203,53 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
           small and ends near ε_V = 1.
         </Text>
         <Panel p={{ base: '3', md: '5' }}>
-          <Stack gap="4">
-            <Flex gap="3" align={{ base: 'stretch', sm: 'end' }} direction={{ base: 'column', sm: 'row' }} wrap="wrap">
-              <Field.Root invalid={phiMin === null || rangeError?.includes('larger') === true} maxW={{ sm: '40' }}>
-                <Field.Label>φ min</Field.Label>
-                <Input
-                  value={range.min}
-                  onChange={(event) => setRange((current) => ({ ...current, min: event.target.value }))}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  fontFamily="mono"
-                  bg="bg.panel"
-                />
-              </Field.Root>
-              <Field.Root invalid={phiMax === null || rangeError?.includes('larger') === true} maxW={{ sm: '40' }}>
-                <Field.Label>φ max</Field.Label>
-                <Input
-                  value={range.max}
-                  onChange={(event) => setRange((current) => ({ ...current, max: event.target.value }))}
-                  inputMode="decimal"
-                  autoComplete="off"
-                  fontFamily="mono"
-                  bg="bg.panel"
-                />
-              </Field.Root>
-              <Button variant="outline" onClick={() => setRange(suggestedRange(potential, start))} disabled={!potential}>
-                Fit range to the roll
-              </Button>
-            </Flex>
-            {rangeError && (
-              <Text color="fg.error" fontSize="sm" role="alert">
-                {rangeError}
-              </Text>
-            )}
-            {potential && !rangeError && phiMin !== null && phiMax !== null ? (
-              <PotentialPlot potential={potential} phiMin={phiMin} phiMax={phiMax} phiStart={start} />
-            ) : (
-              !rangeError && (
-                <Text color="fg.muted" fontSize="sm">
-                  The plot appears once every parameter has a number.
+          {parsed === null ? (
+            <LoadingState label="Preparing the potential…" />
+          ) : (
+            <Stack gap="4">
+              <Flex gap="3" align={{ base: 'stretch', sm: 'end' }} direction={{ base: 'column', sm: 'row' }} wrap="wrap">
+                <Field.Root invalid={phiMin === null || rangeError?.includes('larger') === true} maxW={{ sm: '40' }}>
+                  <Field.Label>φ min</Field.Label>
+                  <Input
+                    value={range.min}
+                    onChange={(event) => setOwnRange({ ...range, min: event.target.value })}
+                    inputMode="decimal"
+                    autoComplete="off"
+                    fontFamily="mono"
+                    bg="bg.panel"
+                  />
+                </Field.Root>
+                <Field.Root invalid={phiMax === null || rangeError?.includes('larger') === true} maxW={{ sm: '40' }}>
+                  <Field.Label>φ max</Field.Label>
+                  <Input
+                    value={range.max}
+                    onChange={(event) => setOwnRange({ ...range, max: event.target.value })}
+                    inputMode="decimal"
+                    autoComplete="off"
+                    fontFamily="mono"
+                    bg="bg.panel"
+                  />
+                </Field.Root>
+                <Button variant="outline" onClick={() => setOwnRange(null)} disabled={ownRange === null}>
+                  Fit range to the roll
+                </Button>
+              </Flex>
+              {rangeError && (
+                <Text color="fg.error" fontSize="sm" role="alert">
+                  {rangeError}
                 </Text>
-              )
-            )}
-          </Stack>
+              )}
+              {potential && !rangeError && phiMin !== null && phiMax !== null ? (
+                <PotentialPlot potential={potential} phiMin={phiMin} phiMax={phiMax} phiStart={start} />
+              ) : (
+                !rangeError && (
+                  <Text color="fg.muted" fontSize="sm">
+                    The plot appears once every parameter has a number.
+                  </Text>
+                )
+              )}
+            </Stack>
+          )}
         </Panel>
       </Box>
 

@@ -77,6 +77,7 @@ export function PotentialPlot({ potential, phiMin, phiMax, phiStart }: Potential
         domain: [0, 0.45],
         type: 'log',
         exponentformat: 'power',
+        dtick: 1,
         gridcolor: PLOT_COLORS.grid,
       },
       shapes:

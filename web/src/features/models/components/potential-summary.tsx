@@ -25,7 +25,7 @@ export function PotentialSummary({ name, expression, parameters, facts }: Potent
           <Box bg="dust.50" borderRadius="md" px="4" py="3" borderWidth="1px" borderColor="border.muted">
             <Formula expression={expression} lhs="V(\phi) =" block />
           </Box>
-          <DataList.Root orientation={{ base: 'vertical', md: 'horizontal' }} size="md" gap="3">
+          <DataList.Root orientation="horizontal" size="md" gap="3">
             <DataList.Item>
               <DataList.ItemLabel minW="32">Expression</DataList.ItemLabel>
               <DataList.ItemValue>

@@ -117,7 +117,7 @@ function TrajectoryPlots({ result }: TrialResultsProps) {
     margin: { l: 64, r: 16, t: 28, b: 52 },
     showlegend: false,
     xaxis: { title: { text: 'N (e-folds from φ_init)' } },
-    yaxis: { title: { text: 'ε_H' }, type: 'log', exponentformat: 'power' },
+    yaxis: { title: { text: 'ε_H' }, type: 'log', exponentformat: 'power', dtick: 1 },
     shapes: [
       ...(pivotShapes ?? []),
       { type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: 1, y1: 1, line: { color: PLOT_COLORS.muted, width: 1, dash: 'dash' } },

@@ -30,12 +30,12 @@ export function slowRollCurves(potential: CompiledPotential, phiMin: number, phi
 }
 
 const STEP_EFOLDS = 0.05;
-const MAX_STEPS = 6000; // 300 e-folds
+const MAX_STEPS = 40_000; // 2000 e-folds, where the engine also gives up
 
 /**
  * Where slow roll ends (ε_V = 1) starting from `phiStart`, following the slow-roll attractor
  * dφ/dN = −V′/V (Liddle, Parsons & Barrow 1994, arXiv:astro-ph/9408015) with RK4 steps of
- * 0.05 e-folds. It only places the plot's default range, so it gives up after 300 e-folds,
+ * 0.05 e-folds. It only places the plot's default range, so it gives up after 2000 e-folds,
  * or where V stops being positive, and returns where it got to.
  */
 export function slowRollEnd(potential: CompiledPotential, phiStart: number): { phiEnd: number; ended: boolean } {
