@@ -24,6 +24,8 @@ export default defineConfig({
     globals: true,
     setupFiles: ['./src/testing/test-setup.ts'],
     include: ['src/**/*.spec.{ts,tsx}'],
+    // Generous: a busy 2-core machine renders a page of Chakra slowly; this is not a speed check.
+    testTimeout: 20_000,
     restoreMocks: true,
     unstubGlobals: true,
   },

@@ -83,6 +83,19 @@ describe('a scan through queue and workers', () => {
     const inRange = await agent.get(`/api/scans/${id}/points?ns_min=0.96&ns_max=0.965`);
     expect(inRange.body.total).toBe(rows.filter((r) => r.ns! >= 0.96 && r.ns! <= 0.965).length);
     expect((await agent.get(`/api/scans/${id}/points?ns_min=abc`)).status).toBe(400);
+    // Any column: sorted by an axis input (f descending, then point index) and filtered on another.
+    const byInput = await agent.get(`/api/scans/${id}/points?sort=input.f&order=desc&input.nStar_min=55&pageSize=10`);
+    expect(byInput.status).toBe(200);
+    expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([7, 8, 4, 5, 1, 2]);
+    expect(byInput.body.total).toBe(6);
+    const csvFiltered = await agent.get(`/api/scans/${id}/points?format=csv&input.f_max=5&sort=r`);
+    const filteredRows = csvFiltered.text.trim().split('\n').slice(1).map((l) => l.split(','));
+    expect(filteredRows.map((cols) => Number(cols[1]))).toEqual([5, 5, 5]);
+    expect(filteredRows.map((cols) => Number(cols[6]))).toEqual(rows.slice(0, 3).map((r) => r.r!).sort((a, b) => a - b));
+    const unknownAxis = await agent.get(`/api/scans/${id}/points?sort=input.lambda`);
+    expect(unknownAxis.status).toBe(400);
+    expect(unknownAxis.body.message).toMatch(/no axis lambda; its axes are f, nStar/);
+    expect((await agent.get(`/api/scans/${id}/points?sort=input.1bad`)).status).toBe(400);
 
     const csv = await agent.get(`/api/scans/${id}/points?format=csv`);
     expect(csv.status).toBe(200);

@@ -1,73 +1,26 @@
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import type { BrowserContext, Page } from 'playwright-core';
+import { heading as headingOn, mainNav as mainNavOn, openBrowser, settled as settledOn, shot as shotOn, signIn as signInOn, webUrl, DEMO_PASSWORD, type BrowserSession } from './support/browser';
 
-// Drives Debian's chromium against a running Sixtyfold (API serving the built web app).
-// Run: SIXTYFOLD_WEB_URL=http://127.0.0.1:3060 npm run test:browser -w web
-const webUrl = process.env.SIXTYFOLD_WEB_URL?.replace(/\/+$/, '');
 const email = process.env.SIXTYFOLD_DEMO_EMAIL ?? 'amara.okafor@halvorsen.example';
-const password = process.env.SIXTYFOLD_DEMO_PASSWORD ?? 'inflaton-demo-1';
-const screenshotDir = fileURLToPath(new URL('../test-results/screenshots/', import.meta.url));
+const password = DEMO_PASSWORD;
 
-let profileDir = '';
+let session: BrowserSession;
 let context: BrowserContext;
 let page: Page;
 
-async function assertReachable(url: string) {
-  try {
-    await fetch(url, { signal: AbortSignal.timeout(5_000) });
-  } catch (error) {
-    const reason = error instanceof Error ? (error.cause instanceof Error ? error.cause.message : error.message) : String(error);
-    throw new Error(`SIXTYFOLD_WEB_URL=${url} is not reachable (${reason}). Start Sixtyfold first (npm start at the repo root).`);
-  }
-}
-
-const shot = (name: string) => page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
-const heading = (name: string) => page.getByRole('heading', { name, level: 1, exact: true });
-const mainNav = () => page.getByRole('navigation', { name: 'Main' });
-
-/** Waits until no "Loading …" status is on screen, so screenshots show data, empty or error states. */
-async function settled() {
-  await page.waitForFunction(() => ![...document.querySelectorAll('[role="status"]')].some((el) => /Loading/.test(el.textContent ?? '')));
-}
-
-async function signIn(withPassword: string) {
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(withPassword);
-  await page.getByRole('button', { name: 'Sign in', exact: true }).click();
-}
+const shot = (name: string) => shotOn(page, name);
+const heading = (name: string) => headingOn(page, name);
+const mainNav = () => mainNavOn(page);
+const settled = () => settledOn(page);
+const signIn = (withPassword: string) => signInOn(page, email, withPassword);
 
 beforeAll(async () => {
-  if (!webUrl) {
-    throw new Error('SIXTYFOLD_WEB_URL is not set. Point it at a running Sixtyfold, e.g. SIXTYFOLD_WEB_URL=http://127.0.0.1:3060');
-  }
-  await assertReachable(webUrl);
-  mkdirSync(screenshotDir, { recursive: true });
-  profileDir = mkdtempSync(join(tmpdir(), 'sixtyfold-chromium-'));
-  context = await chromium.launchPersistentContext(profileDir, {
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    viewport: { width: 1280, height: 860 },
-    args: [
-      '--headless',
-      '--no-sandbox',
-      '--disable-gpu',
-      '--disable-quic',
-      '--no-first-run',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-    ],
-  });
-  page = context.pages()[0] ?? (await context.newPage());
-  page.setDefaultTimeout(15_000);
+  session = await openBrowser();
+  ({ context, page } = session);
 });
 
 afterAll(async () => {
-  await context?.close();
-  if (profileDir) rmSync(profileDir, { recursive: true, force: true });
+  await session?.close();
 });
 
 describe('Sixtyfold web shell', () => {
@@ -78,9 +31,14 @@ describe('Sixtyfold web shell', () => {
     await shot('sign-in');
 
     await signIn(password);
-    await heading('Scans').waitFor();
-    expect(new URL(page.url()).pathname).toBe('/scans');
+    await heading('Overview').waitFor();
+    expect(new URL(page.url()).pathname).toBe('/');
     await mainNav().getByRole('link', { name: 'Admin', exact: true }).waitFor();
+    await settled();
+    await shot('overview');
+
+    await mainNav().getByRole('link', { name: 'Scans', exact: true }).click();
+    await heading('Scans').waitFor();
     await settled();
     await shot('scans');
 

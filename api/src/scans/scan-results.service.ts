@@ -4,8 +4,8 @@ import { stringify } from 'csv-stringify';
 import { Transform, type Readable } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice, type ScanPlane,
-  type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
+  POINT_OUTPUTS, ScanGrid, sortedInput, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
+  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { GroupAccessService } from '../groups/group-access.service';
@@ -19,6 +19,19 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 };
 
 type RawPoint = Record<string, unknown>;
+
+/**
+ * An axis input as a number. Inputs are one JSON object per point; the name was checked against
+ * the scan's axes and matches [A-Za-z][A-Za-z0-9_]*, so it is safe inside the JSON path.
+ */
+function inputExpression(name: string): string {
+  return `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
+}
+
+function sortExpression(sort: PointSortKey): string {
+  const input = sortedInput(sort);
+  return input ? inputExpression(input) : `p.${COLUMN[sort as PointOutput | 'pointIndex']}`;
+}
 
 /** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
 function inputsOf(raw: RawPoint): Record<string, number> {
@@ -50,25 +63,40 @@ export class ScanResultsService {
     return scan;
   }
 
-  private filtered(scanId: number, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
-    const qb = this.db.getRepository(ScanPoint).createQueryBuilder('p').where('p.scan_id = :scanId', { scanId });
+  /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
+  private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
+    const axes = (scan.spec as unknown as StoredScanSpec).axes.map((a) => a.parameter);
+    const unknown = [...q.inputRanges.map((r) => r.name), sortedInput(q.sort)].filter((n): n is string => n !== null && !axes.includes(n));
+    if (unknown.length) {
+      throw new BadRequestException(`the scan has no axis ${unknown.join(', ')}; its axes are ${axes.join(', ')}`);
+    }
+    const qb = this.db
+      .getRepository(ScanPoint)
+      .createQueryBuilder('p')
+      .select('p.*')
+      .addSelect(sortExpression(q.sort), 'sort_key')
+      .where('p.scan_id = :scanId', { scanId: scan.id });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
     q.ranges.forEach((range, i) => {
       if (range.min !== undefined) qb.andWhere(`p.${COLUMN[range.output]} >= :min${i}`, { [`min${i}`]: range.min });
       if (range.max !== undefined) qb.andWhere(`p.${COLUMN[range.output]} <= :max${i}`, { [`max${i}`]: range.max });
     });
-    return qb;
+    q.inputRanges.forEach((range, i) => {
+      const value = inputExpression(range.name);
+      if (range.min !== undefined) qb.andWhere(`${value} >= :inMin${i}`, { [`inMin${i}`]: range.min });
+      if (range.max !== undefined) qb.andWhere(`${value} <= :inMax${i}`, { [`inMax${i}`]: range.max });
+    });
+    return qb
+      .orderBy('sort_key', q.order === 'asc' ? 'ASC' : 'DESC')
+      .addOrderBy('p.point_index', 'ASC');
   }
 
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
-    await this.readable(user, id);
-    const qb = this.filtered(id, q);
-    const total = await qb.clone().getCount();
+    const scan = await this.readable(user, id);
+    const qb = this.filtered(scan, q);
+    const total = await qb.clone().orderBy().getCount();
     const rows = await qb
-      .select('p.*')
-      .orderBy(`p.${COLUMN[q.sort]}`, q.order === 'asc' ? 'ASC' : 'DESC')
-      .addOrderBy('p.point_index', 'ASC')
       .offset((q.page - 1) * q.pageSize)
       .limit(q.pageSize)
       .getRawMany<RawPoint>();
@@ -82,11 +110,7 @@ export class ScanResultsService {
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json'): Promise<Readable> {
     const scan = await this.readable(user, id);
     const axes = (scan.spec as unknown as StoredScanSpec).axes.map((a) => a.parameter);
-    const source = await this.filtered(id, q)
-      .select('p.*')
-      .orderBy(`p.${COLUMN[q.sort]}`, q.order === 'asc' ? 'ASC' : 'DESC')
-      .addOrderBy('p.point_index', 'ASC')
-      .stream();
+    const source = await this.filtered(scan, q).stream();
     const toPoint = new Transform({
       objectMode: true,
       transform(raw: RawPoint, _enc, done) {

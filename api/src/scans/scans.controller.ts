@@ -4,7 +4,7 @@ import type { Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
   createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
-  scanPlaneSchema, scanPointSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
+  scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
   type ScanPointsQuery, type ScanSummary,
 } from '@sixtyfold/shared';
@@ -54,8 +54,11 @@ export class ScansController {
 
   /** A page of points as JSON, or with `format=csv|json` every matching point, streamed as a download. */
   @Get(':id/points')
-  @ApiOperation({ summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download' })
-  @ApiZodQuery(scanPointsQuerySchema)
+  @ApiOperation({
+    summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download',
+    description: 'Sort by `pointIndex`, an output or `input.<axis parameter>`; filter outputs with `<output>_min`/`_max` and axis inputs with `input.<axis parameter>_min`/`_max`.',
+  })
+  @ApiZodQuery(scanPointsQueryFieldsSchema)
   @ApiProduces('application/json', 'text/csv')
   @ApiResponse({
     status: 200,

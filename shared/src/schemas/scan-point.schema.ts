@@ -25,39 +25,83 @@ export type ScanPointDto = z.infer<typeof scanPointSchema>;
 
 const optionalNumber = z.coerce.number({ error: 'must be a number' }).optional();
 
-/**
- * `GET /api/scans/:id/points`: paged and sorted, filtered by status and by ranges of any
- * output (`ns_min=0.96&ns_max=0.97`); `format=csv|json` streams every matching point instead.
- */
-export const scanPointsQuerySchema = z
-  .object({
-    page: z.coerce.number().int().min(1, 'page starts at 1').default(1),
-    pageSize: z.coerce.number().int().min(1).max(1000, 'pageSize is at most 1000').default(100),
-    sort: z.enum(['pointIndex', ...POINT_OUTPUTS]).default('pointIndex'),
-    order: z.enum(['asc', 'desc']).default('asc'),
-    /** `ok`, `failed` (any failure) or one failure code. */
-    status: z.string().max(32).optional(),
-    format: z.enum(['csv', 'json']).optional(),
-    ...Object.fromEntries(POINT_OUTPUTS.flatMap((k) => [[`${k}_min`, optionalNumber], [`${k}_max`, optionalNumber]])),
-  })
-  .transform((q) => {
-    const ranges: { output: PointOutput; min?: number; max?: number }[] = [];
-    const raw = q as Record<string, unknown>;
-    for (const output of POINT_OUTPUTS) {
-      const min = raw[`${output}_min`] as number | undefined;
-      const max = raw[`${output}_max`] as number | undefined;
-      if (min !== undefined || max !== undefined) ranges.push({ output, min, max });
+/** A point column to sort or filter by: the index, an output, or an input as `input.<axis parameter>`. */
+export type PointSortKey = 'pointIndex' | PointOutput | `input.${string}`;
+const INPUT_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)$/;
+const INPUT_RANGE_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)_(min|max)$/;
+
+/** The input a sort key names, or null for the index and the outputs. */
+export function sortedInput(sort: PointSortKey): string | null {
+  return INPUT_KEY.exec(sort)?.[1] ?? null;
+}
+
+/** The named query fields of the points route, as documented; input ranges come as `input.<name>_min|max`. */
+export const scanPointsQueryFieldsSchema = z.object({
+  page: z.coerce.number().int().min(1, 'page starts at 1').default(1),
+  pageSize: z.coerce.number().int().min(1).max(1000, 'pageSize is at most 1000').default(100),
+  sort: z
+    .string()
+    .default('pointIndex')
+    .refine((s) => s === 'pointIndex' || (POINT_OUTPUTS as readonly string[]).includes(s) || INPUT_KEY.test(s), {
+      message: `sort by pointIndex, an output (${POINT_OUTPUTS.join(', ')}) or input.<axis parameter>`,
+    }),
+  order: z.enum(['asc', 'desc']).default('asc'),
+  /** `ok`, `failed` (any failure) or one failure code. */
+  status: z.string().max(32).optional(),
+  format: z.enum(['csv', 'json']).optional(),
+  ...Object.fromEntries(POINT_OUTPUTS.flatMap((k) => [[`${k}_min`, optionalNumber], [`${k}_max`, optionalNumber]])),
+});
+
+/** Gathers flat `input.<name>_min|max` keys of a query string into `inputRanges`. */
+function gatherInputRanges(raw: unknown): unknown {
+  if (!raw || typeof raw !== 'object') return raw;
+  const ranges = new Map<string, { name: string; min?: unknown; max?: unknown }>();
+  const rest: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(raw as Record<string, unknown>)) {
+    const match = INPUT_RANGE_KEY.exec(key);
+    if (!match) {
+      rest[key] = value;
+      continue;
     }
-    return {
-      page: q.page as number,
-      pageSize: q.pageSize as number,
-      sort: q.sort as 'pointIndex' | PointOutput,
-      order: q.order as 'asc' | 'desc',
-      status: q.status as string | undefined,
-      format: q.format as 'csv' | 'json' | undefined,
-      ranges,
-    };
-  });
+    const range = ranges.get(match[1]) ?? { name: match[1] };
+    range[match[2] as 'min' | 'max'] = value;
+    ranges.set(match[1], range);
+  }
+  return { ...rest, inputRanges: [...ranges.values()] };
+}
+
+/**
+ * `GET /api/scans/:id/points`: paged and sorted by any column, filtered by status and by ranges of
+ * any output (`ns_min=0.96&ns_max=0.97`) or axis input (`input.lambda_min=1e-12`); `format=csv|json`
+ * streams every matching point instead.
+ */
+export const scanPointsQuerySchema = z.preprocess(
+  gatherInputRanges,
+  scanPointsQueryFieldsSchema
+    .extend({
+      inputRanges: z.array(z.object({ name: z.string(), min: optionalNumber, max: optionalNumber })).max(8, 'at most 8 input filters').default([]),
+    })
+    .transform((q) => {
+      const ranges: { output: PointOutput; min?: number; max?: number }[] = [];
+      const raw = q as Record<string, unknown>;
+      for (const output of POINT_OUTPUTS) {
+        const min = raw[`${output}_min`] as number | undefined;
+        const max = raw[`${output}_max`] as number | undefined;
+        if (min !== undefined || max !== undefined) ranges.push({ output, min, max });
+      }
+      return {
+        page: q.page,
+        pageSize: q.pageSize,
+        sort: q.sort as PointSortKey,
+        order: q.order,
+        status: q.status,
+        format: q.format,
+        ranges,
+        /** Ranges of axis parameters; the API checks the names against the scan's axes. */
+        inputRanges: q.inputRanges as { name: string; min?: number; max?: number }[],
+      };
+    }),
+);
 export type ScanPointsQuery = z.output<typeof scanPointsQuerySchema>;
 
 /** `GET /api/scans/:id/grid?x=f&y=nStar&output=ns&at.lambda=3`: a 2-D slice for a heatmap. */

@@ -16,7 +16,7 @@ export function SignInRoute() {
   // Set by sign-out, which clears the cached user a moment after arriving here.
   const signedOut = (location.state as { signedOut?: boolean } | null)?.signedOut === true;
   const wanted = params.get('next');
-  const next = safeNextPath(wanted, paths.scans.getHref());
+  const next = safeNextPath(wanted, paths.home.getHref());
 
   // Already signed in (another tab, or the back button): go straight on.
   if (user && !signedOut) return <Navigate to={next} replace />;
@@ -29,7 +29,7 @@ export function SignInRoute() {
           <Alert.Title fontWeight="400">You have signed out.</Alert.Title>
         </Alert.Root>
       )}
-      {!signedOut && wanted && next !== paths.scans.getHref() && (
+      {!signedOut && wanted && next !== paths.home.getHref() && (
         <Alert.Root status="info" variant="subtle" colorPalette="ink" mb="6" borderRadius="md">
           <Alert.Indicator />
           <Alert.Title fontWeight="400">Sign in to continue where you left off.</Alert.Title>

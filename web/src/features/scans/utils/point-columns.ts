@@ -1,0 +1,50 @@
+import type { FailureCode, PointOutput } from '@sixtyfold/shared';
+
+/** How each stored output is named on screen: symbol first, as the field writes it. */
+export const OUTPUT_LABELS: Record<PointOutput, string> = {
+  ns: 'n_s',
+  r: 'r',
+  alphaS: 'α_s',
+  As: 'A_s (as given)',
+  amplitudeScale: 'A_s normalisation',
+  nTotal: 'N_total',
+  nStar: 'N_*',
+  phiStar: 'φ_*',
+  phiEnd: 'φ_end',
+  energyScaleGeV: 'V_*^¼ (GeV)',
+};
+
+/** Axis parameters that are not potential parameters, by their on-screen names. */
+const PIVOT_LABELS: Record<string, string> = {
+  nStar: 'N_*',
+  reheatingW: 'w_reh',
+  reheatingEnergyGeV: 'ρ_reh^¼ (GeV)',
+};
+
+export const inputLabel = (parameter: string) => PIVOT_LABELS[parameter] ?? parameter;
+
+/**
+ * Numbers as a table shows them: enough digits to tell neighbouring grid points apart
+ * (n_s differs in the 4th decimal across a typical scan), exponents for the very small or large.
+ */
+export function formatValue(value: number | null | undefined, digits = 6): string {
+  if (value === null || value === undefined) return '—';
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  if (magnitude >= 1e-3 && magnitude < 1e5) return String(Number(value.toPrecision(digits)));
+  return value.toExponential(digits - 2);
+}
+
+/** Why a point has no observables, in a few words (the stored reason says the rest). */
+export const FAILURE_LABELS: Record<FailureCode, string> = {
+  invalid_input: 'invalid input',
+  invalid_potential: 'potential cannot be evaluated',
+  negative_potential: 'V(φ) < 0',
+  no_inflation_at_start: 'not inflating at φ_init',
+  insufficient_efolds: 'too few e-folds',
+  no_end: 'inflation does not end',
+  trapped: 'field trapped',
+  integration_failed: 'integration failed',
+};
+
+export const failureLabel = (status: string) => FAILURE_LABELS[status as FailureCode] ?? status;
