@@ -14,5 +14,6 @@ export * from './scans/scan-grid.js';
 export * from './scans/scan-point.js';
 export * from './queue/scan-queue.js';
 export * from './schemas/scan-point.schema.js';
+export * from './schemas/scan-plane.schema.js';
 export * from './schemas/api-token.schema.js';
 export * from './observations/observational-limits.js';

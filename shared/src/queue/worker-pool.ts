@@ -20,3 +20,12 @@ export const workerHeartbeatSchema = z.object({
   pointsDone: z.number().int().default(0),
 });
 export type WorkerHeartbeat = z.infer<typeof workerHeartbeatSchema>;
+
+const count = z.number().int();
+
+/** `GET /api/workers/pool`: the live workers and the scan queue's job counts, at one glance. */
+export const workerPoolSchema = z.object({
+  workers: z.array(workerHeartbeatSchema),
+  queue: z.object({ waiting: count, active: count, delayed: count, failed: count }),
+});
+export type WorkerPool = z.infer<typeof workerPoolSchema>;

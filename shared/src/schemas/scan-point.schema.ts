@@ -79,12 +79,17 @@ export const scanGridQuerySchema = z.preprocess(
 );
 export type ScanGridQuery = z.infer<typeof scanGridQuerySchema>;
 
+const sliceAxis = z.object({ parameter: z.string(), values: z.array(z.number()) });
+
 /** The slice: x and y axis values, and z[iy][ix] (null where the point failed or is not yet stored). */
-export interface ScanGridSlice {
-  x: { parameter: string; values: number[] };
-  y: { parameter: string; values: number[] };
-  output: PointOutput | 'status';
-  z: (number | null)[][];
-  status: (string | null)[][];
-  at: Record<string, { index: number; value: number }>;
-}
+export const scanGridSliceSchema = z.object({
+  x: sliceAxis,
+  y: sliceAxis,
+  output: z.enum([...POINT_OUTPUTS, 'status']),
+  z: z.array(z.array(z.number().nullable())),
+  /** Each cell's point status, null where no point is stored yet. */
+  status: z.array(z.array(z.string().nullable())),
+  /** Where the slice cuts every other axis: its index and value there. */
+  at: z.record(z.string(), z.object({ index: z.number().int(), value: z.number() })),
+});
+export type ScanGridSlice = z.infer<typeof scanGridSliceSchema>;

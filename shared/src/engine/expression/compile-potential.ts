@@ -167,15 +167,25 @@ export function parsePotential(source: string, parameterNames: readonly string[]
   return { ok: true, potential: Object.freeze(potential) };
 }
 
+/**
+ * Why `name` cannot be a parameter of a potential (its form, or a reserved word), or undefined
+ * when it can. Pure, for forms that check one name at a time.
+ */
+export function parameterNameProblem(name: string): string | undefined {
+  if (!PARAMETER_NAME.test(name)) {
+    return `Parameter name '${name}' is not allowed: start with a letter and use letters, digits and _`;
+  }
+  if (RESERVED_NAMES.has(name)) {
+    return `Parameter name '${name}' is reserved: phi, pi, e, the function names and ${PARSER_WORDS.join(', ')} cannot be parameters`;
+  }
+  return undefined;
+}
+
 function checkParameterNames(names: readonly string[]): ExpressionProblem | undefined {
   const seen = new Set<string>();
   for (const name of names) {
-    if (!PARAMETER_NAME.test(name)) {
-      return { message: `Parameter name '${name}' is not allowed: start with a letter and use letters, digits and _` };
-    }
-    if (RESERVED_NAMES.has(name)) {
-      return { message: `Parameter name '${name}' is reserved: phi, pi, e, the function names and ${PARSER_WORDS.join(', ')} cannot be parameters` };
-    }
+    const problem = parameterNameProblem(name);
+    if (problem) return { message: problem };
     if (seen.has(name)) return { message: `Parameter '${name}' is declared twice` };
     seen.add(name);
   }

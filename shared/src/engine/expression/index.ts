@@ -1,5 +1,6 @@
 export {
   MAX_POTENTIAL_LENGTH,
+  parameterNameProblem,
   parsePotential,
   type CompiledPotential,
   type ExpressionProblem,
