@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import type request from 'supertest';
+import { Like } from 'typeorm';
 import { Group } from '../src/groups/entities/group.entity';
 import { PotentialModel } from '../src/models/entities/potential-model.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
@@ -18,13 +19,17 @@ const EMAIL: Record<Exclude<Role, 'anonymous'>, string> = {
 };
 
 interface RouteCase {
-  method: 'get' | 'post' | 'delete';
+  method: 'get' | 'post' | 'patch' | 'delete';
   /** Express path as registered, e.g. /api/groups/:id */
   route: string;
   /** The concrete URL to call (ids of Plateau Models objects filled in; a scan of its own per role for changes). */
   url: (role: Role) => string;
   expect: Record<Role, number>;
 }
+
+const accessModel = (name: string) => ({
+  name, expression: 'm^2 * phi^2 / 2', parameters: [{ name: 'm', defaultValue: 6e-6, description: '' }], phiInit: 16, description: '',
+});
 
 const everyoneSignedIn = (status: number) => ({ anonymous: 401, admin: status, lead: status, member: status, viewer: status, outsider: status });
 const plateauOnly = { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 200, outsider: 404 };
@@ -36,7 +41,9 @@ describe('every route against every role', () => {
   let plateauId: number;
   let plateauModelId: number;
   let plateauScanId: number;
+  let editedModelId: number;
   const ownScan = new Map<Role, number>();
+  const ownModel = new Map<Role, number>();
   const ownToken = new Map<Role, number>();
 
   const table: RouteCase[] = [
@@ -46,10 +53,15 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/groups/:id', url: () => `/api/groups/${plateauId}`, expect: plateauOnly },
     { method: 'get', route: '/api/models', url: () => '/api/models', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/models/:id', url: () => `/api/models/${plateauModelId}`, expect: plateauOnly },
+    { method: 'post', route: '/api/models', url: () => '/api/models', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
+    { method: 'patch', route: '/api/models/:id', url: () => `/api/models/${editedModelId}`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
+    // A model of its own per role, so each allowed deletion has something to delete.
+    { method: 'delete', route: '/api/models/:id', url: (role) => `/api/models/${ownModel.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 403, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/points', url: () => `/api/scans/${plateauScanId}/points`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/plane', url: () => `/api/scans/${plateauScanId}/plane`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // The member owns these scans: members cancel their own, only leads and admins delete.
     { method: 'post', route: '/api/scans/:id/cancel', url: (role) => `/api/scans/${ownScan.get(role)}/cancel`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
@@ -58,6 +70,7 @@ describe('every route against every role', () => {
     { method: 'post', route: '/api/scans/:id/clone', url: () => `/api/scans/${plateauScanId}/clone`, expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     { method: 'delete', route: '/api/scans/:id', url: (role) => `/api/scans/${ownScan.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 403, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/workers/pool', url: () => '/api/workers/pool', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
     { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
     // Everyone manages their own tokens; DELETE revokes the caller's own (the member's for anonymous).
@@ -73,6 +86,8 @@ describe('every route against every role', () => {
   const bodyFor = (route: string, role: Role) => {
     if (route === '/api/tokens') return { name: `access table (${role})` };
     if (route === '/api/auth/login') return { email: `${role}@nowhere.example`, password: 'wrong password' };
+    if (route === '/api/models') return { ...accessModel(`access table (${role})`), groupId: plateauId };
+    if (route === '/api/models/:id') return { description: `edited by the access table (${role})` };
     if (route === '/api/scans') {
       return {
         groupId: plateauId, name: `access table (${role})`, model: { kind: 'family', family: 'starobinsky' },
@@ -107,10 +122,14 @@ describe('every route against every role', () => {
       ownToken.set(role, token.body.id);
     }
     ownToken.set('anonymous', ownToken.get('member')!);
+    const models = t.db.getRepository(PotentialModel);
+    editedModelId = (await models.save({ ...accessModel('access table, edited'), groupId: plateauId })).id;
+    for (const role of ROLES) ownModel.set(role, (await models.save({ ...accessModel(`access table, to delete (${role})`), groupId: plateauId })).id);
   });
   afterAll(async () => {
     await t.db.getRepository(Scan).delete({ id: plateauScanId });
     for (const id of ownScan.values()) await t.db.getRepository(Scan).delete({ id });
+    await t.db.getRepository(PotentialModel).delete({ name: Like('access table%') });
     await t.close();
   });
 
@@ -132,7 +151,7 @@ describe('every route against every role', () => {
           ? await agent.get(url)
           : row.method === 'delete'
             ? await agent.delete(url).set('content-type', 'application/json').send('{}')
-            : await agent.post(url).send(bodyFor(row.route, role));
+            : await agent[row.method](url).send(bodyFor(row.route, role));
         got[role] = res.status;
       }
       expect(got).toEqual(row.expect);

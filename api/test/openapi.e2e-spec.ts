@@ -1,5 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
-import { createApiTokenSchema, createScanSchema, scanDetailSchema } from '@sixtyfold/shared';
+import {
+  createApiTokenSchema, createScanSchema, modelInputSchema, modelUpdateSchema, potentialModelSchema, scanDetailSchema,
+  scanGridSliceSchema, scanPlaneSchema, workerPoolSchema,
+} from '@sixtyfold/shared';
 import { z } from 'zod';
 import { createTestApp, type TestApp } from './support/test-app';
 
@@ -41,6 +44,23 @@ describe('the OpenAPI document and its UI', () => {
     expect(points.parameters!.map((p) => p.name)).toEqual(expect.arrayContaining(['id', 'format', 'page', 'ns_min']));
     expect(Object.keys(points.responses['200'].content!).sort()).toEqual(['application/json', 'text/csv']);
     expect(doc.paths['/api/scans/{id}'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
+  });
+
+  it('describes the model, plane, grid and pool routes with their shared schemas', () => {
+    const json = (op: Operation, status: string) => op.responses[status].content!['application/json'].schema;
+    const models = doc.paths['/api/models'];
+    expect(models.post.requestBody!.content['application/json'].schema).toEqual(requestSchema(modelInputSchema));
+    expect(json(models.post, '201')).toEqual(answerSchema(potentialModelSchema));
+    expect(Object.keys(models.post.responses).sort()).toEqual(['201', '400', '401', '403', '404', '409']);
+    const model = doc.paths['/api/models/{id}'];
+    expect(model.patch.requestBody!.content['application/json'].schema).toEqual(requestSchema(modelUpdateSchema));
+    expect(json(model.patch, '200')).toEqual(answerSchema(potentialModelSchema));
+    expect(Object.keys(model.delete.responses).sort()).toEqual(['204', '400', '401', '403', '404']);
+    const plane = doc.paths['/api/scans/{id}/plane'].get;
+    expect(json(plane, '200')).toEqual(answerSchema(scanPlaneSchema));
+    expect(plane.parameters!.find((p) => p.name === 'limit')).toMatchObject({ in: 'query', required: false, schema: { default: 20_000, maximum: 100_000 } });
+    expect(json(doc.paths['/api/scans/{id}/grid'].get, '200')).toEqual(answerSchema(scanGridSliceSchema));
+    expect(json(doc.paths['/api/workers/pool'].get, '200')).toEqual(answerSchema(workerPoolSchema));
   });
 
   it('declares the session cookie and bearer tokens, and which routes take which', () => {

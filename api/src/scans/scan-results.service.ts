@@ -4,8 +4,8 @@ import { stringify } from 'csv-stringify';
 import { Transform, type Readable } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice, type ScanPointDto,
-  type ScanPointsQuery, type StoredScanSpec,
+  POINT_OUTPUTS, ScanGrid, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice, type ScanPlane,
+  type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { GroupAccessService } from '../groups/group-access.service';
@@ -20,8 +20,13 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 
 type RawPoint = Record<string, unknown>;
 
+/** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
+function inputsOf(raw: RawPoint): Record<string, number> {
+  return typeof raw.inputs === 'string' ? JSON.parse(raw.inputs) : (raw.inputs as Record<string, number>);
+}
+
 function toDto(raw: RawPoint): ScanPointDto {
-  const inputs = typeof raw.inputs === 'string' ? JSON.parse(raw.inputs) : raw.inputs;
+  const inputs = inputsOf(raw);
   const dto = { pointIndex: Number(raw.point_index), inputs, status: String(raw.status), failureReason: (raw.failure_reason as string) ?? null } as ScanPointDto;
   for (const o of POINT_OUTPUTS) {
     const v = raw[COLUMN[o]];
@@ -112,6 +117,63 @@ export class ScanResultsService {
       },
     });
     return source.pipe(toPoint).pipe(json);
+  }
+
+  /**
+   * The OK points as columns for an n_s–r plot, at most `limit` of them. When there are more,
+   * the OK points are numbered in point-index order (ROW_NUMBER over the (scan, status) index,
+   * which holds the point index, so this reads no row) and every stride-th is kept with MOD;
+   * the sample spreads evenly over the grid and only the kept rows are read in full, by primary
+   * key. Count and sample come from one snapshot (a REPEATABLE READ transaction), so they agree
+   * while a scan is still storing points.
+   */
+  async plane(user: SessionUser, id: number, q: ScanPlaneQuery): Promise<ScanPlane> {
+    const scan = await this.readable(user, id);
+    const parameters = ((scan.spec as unknown as Partial<StoredScanSpec>).axes ?? []).map((a) => a.parameter);
+    const columns = 'p.point_index, p.ns, p.r, p.alpha_s, p.n_star, p.inputs';
+    const { okPoints, stride, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
+      const [{ n }]: { n: string | number }[] = await tx.query("SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? AND status = 'ok'", [id]);
+      const okPoints = Number(n);
+      const stride = Math.max(1, Math.ceil(okPoints / q.limit));
+      let rows: RawPoint[] = [];
+      if (okPoints > 0 && stride === 1) {
+        rows = await tx.query(`SELECT ${columns} FROM scan_points p WHERE p.scan_id = ? AND p.status = 'ok' ORDER BY p.point_index`, [id]);
+      } else if (okPoints > 0) {
+        rows = await tx.query(
+          `SELECT ${columns}
+             FROM (SELECT point_index, ROW_NUMBER() OVER (ORDER BY point_index) AS k
+                     FROM scan_points FORCE INDEX (ix_scan_points_scan_status)
+                    WHERE scan_id = ? AND status = 'ok') ranked
+             STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = ranked.point_index
+            WHERE MOD(ranked.k - 1, ?) = 0
+            ORDER BY ranked.point_index`,
+          [id, id, stride],
+        );
+      }
+      return { okPoints, stride, rows };
+    });
+    // An OK point always has all four outputs: the worker stores them with the status.
+    const plane: ScanPlane = {
+      okPoints,
+      stride,
+      parameters,
+      pointIndex: new Array(rows.length),
+      ns: new Array(rows.length),
+      r: new Array(rows.length),
+      alphaS: new Array(rows.length),
+      nStar: new Array(rows.length),
+      inputs: Object.fromEntries(parameters.map((name) => [name, new Array<number>(rows.length)])),
+    };
+    rows.forEach((row, i) => {
+      plane.pointIndex[i] = Number(row.point_index);
+      plane.ns[i] = Number(row.ns);
+      plane.r[i] = Number(row.r);
+      plane.alphaS[i] = Number(row.alpha_s);
+      plane.nStar[i] = Number(row.n_star);
+      const inputs = inputsOf(row);
+      for (const name of parameters) plane.inputs[name][i] = inputs[name];
+    });
+    return plane;
   }
 
   /** Two axes as x and y, every other axis at the chosen index: z[iy][ix] of one output. */

@@ -4,6 +4,9 @@ import { findFamily, PIVOT_AXES, type CreateScan, type ModelParameter, type Stor
 /**
  * Checks the specification against its model's parameters and completes it: every parameter
  * is fixed or on an axis (defaults fill the rest), no unknown names, and a start φ exists.
+ * The result freezes the model: its expression (`potentialSource`), the parameter values and
+ * φ_init are copied in, and workers read only this spec, so editing or deleting the model later
+ * leaves a submitted scan as it was.
  */
 export function completeSpec(
   spec: CreateScan,

@@ -3,9 +3,10 @@ import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger
 import type { Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
-  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanListQuerySchema, scanPointSchema, scanPointsQuerySchema,
-  scanSummarySchema, type CreateScan, type Page, type ScanDetail,
-  type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPointDto, type ScanPointsQuery, type ScanSummary,
+  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
+  scanPlaneSchema, scanPointSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
+  type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
+  type ScanPointsQuery, type ScanSummary,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -80,7 +81,7 @@ export class ScansController {
 
   @Get(':id/grid')
   @ApiOperation({ summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)' })
-  @ApiResponse({ status: 200, description: 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)' })
+  @ApiZodResponse(200, scanGridSliceSchema, 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)')
   @ApiErrorResponses(400, 401, 404)
   grid(
     @CurrentUser() user: SessionUser,
@@ -88,6 +89,19 @@ export class ScansController {
     @Query(new ZodValidationPipe(scanGridQuerySchema)) query: ScanGridQuery,
   ): Promise<ScanGridSlice> {
     return this.results.grid(user, id, query);
+  }
+
+  @Get(':id/plane')
+  @ApiOperation({ summary: 'The OK points of a scan as columns for an n_s–r plot; evenly sampled down to `limit` points' })
+  @ApiZodQuery(scanPlaneQuerySchema)
+  @ApiZodResponse(200, scanPlaneSchema, 'Aligned arrays, element i of each being one point; `stride` > 1 when sampled')
+  @ApiErrorResponses(400, 401, 404)
+  plane(
+    @CurrentUser() user: SessionUser,
+    @Param('id', ParseIntPipe) id: number,
+    @Query(new ZodValidationPipe(scanPlaneQuerySchema)) query: ScanPlaneQuery,
+  ): Promise<ScanPlane> {
+    return this.results.plane(user, id, query);
   }
 
   @Post(':id/cancel')

@@ -53,6 +53,15 @@ describe('checkPotentialExpression', () => {
     });
   });
 
+  it('gives the same answer again, and a copy a caller may change', () => {
+    const first = checkPotentialExpression('V0 * phi^2', ['V0']);
+    expect(first).toEqual({ ok: true, usedParameters: ['V0'] });
+    if (first.ok) first.usedParameters.push('changed by the caller');
+    expect(checkPotentialExpression('V0 * phi^2', ['V0'])).toEqual({ ok: true, usedParameters: ['V0'] });
+    // Other names are another question.
+    expect(checkPotentialExpression('V0 * phi^2', ['W0'])).toMatchObject({ ok: false, index: 0, length: 2 });
+  });
+
   it('passes on problems that have no position as they are', () => {
     expect(checkPotentialExpression('V0 * 2', ['V0'])).toEqual({
       ok: false,
@@ -102,6 +111,21 @@ describe('modelInputSchema', () => {
       'parameters.3.name: phi is the field; give the parameter another name',
       expect.stringMatching(/^parameters\.4\.name: Parameter name 'sin' is reserved/),
     ]);
+  });
+
+  it('applies the cross-field rules also while another field is missing', () => {
+    const { phiInit: _, ...noStart } = plateau;
+    expect(issuesOf(modelInputSchema.safeParse({ ...noStart, parameters: [...plateau.parameters, { name: 'alpha', defaultValue: 1 }] }))).toEqual([
+      'phiInit: give φ_init, the field value where inflation starts (M_pl = 1)',
+      'parameters.2.name: there is already a parameter named alpha',
+    ]);
+    expect(issuesOf(modelInputSchema.safeParse({ ...noStart, expression: 'V0 * alpha * phi^^2' }))).toEqual([
+      'phiInit: give φ_init, the field value where inflation starts (M_pl = 1)',
+      'expression: at character 18: syntax error: value expected',
+    ]);
+    // Parameters of the wrong shape are the field's problem; the expression is not read against them.
+    expect(issuesOf(modelInputSchema.safeParse({ ...plateau, parameters: [{ name: 3 }, null] })).every((i) => i.startsWith('parameters.'))).toBe(true);
+    expect(issuesOf(modelInputSchema.safeParse(null))).toHaveLength(1);
   });
 
   it('wants min below max and the default inside [min, max]', () => {

@@ -30,13 +30,33 @@ export type PotentialExpressionCheck =
   | { ok: true; usedParameters: string[] }
   | { ok: false; message: string; index?: number; length?: number };
 
+/** Recent answers of checkPotentialExpression, most recent last. */
+const recentChecks = new Map<string, PotentialExpressionCheck>();
+const RECENT_CHECKS = 32;
+
 /**
  * Checks a potential V(phi) the way a scan will read it, with `parameterNames` declared besides
- * the field phi. Pure and quick enough to run as the user types. `message` says where (the
- * 1-based character, for people) and why; `index` and `length` are 0-based offsets in
- * `expression` for highlighting.
+ * the field phi. `message` says where (the 1-based character, for people) and why; `index` and
+ * `length` are 0-based offsets in `expression` for highlighting.
+ *
+ * Parsing differentiates the expression three times, which takes a second or more for a long
+ * one, so the last answers are kept: a form that validates every field on each keystroke asks
+ * again only when the expression or the parameter names change. Same input, same answer.
  */
 export function checkPotentialExpression(expression: string, parameterNames: string[]): PotentialExpressionCheck {
+  const key = JSON.stringify([expression, parameterNames]);
+  let check = recentChecks.get(key);
+  if (check) {
+    recentChecks.delete(key);
+  } else {
+    check = readPotential(expression, parameterNames);
+    if (recentChecks.size >= RECENT_CHECKS) recentChecks.delete(recentChecks.keys().next().value!);
+  }
+  recentChecks.set(key, check);
+  return check.ok ? { ok: true, usedParameters: [...check.usedParameters] } : { ...check };
+}
+
+function readPotential(expression: string, parameterNames: string[]): PotentialExpressionCheck {
   const parsed = parsePotential(expression, parameterNames);
   if (parsed.ok) return { ok: true, usedParameters: [...parsed.potential.parameterNames] };
   const { message, index, length } = parsed.problem;
@@ -69,6 +89,7 @@ interface ModelFields {
  * expression that reads with these parameters. Fields left out are not checked here.
  */
 function refineModel(model: ModelFields, ctx: z.RefinementCtx): void {
+  // Runs even when other fields failed (see refineAlways), so it trusts no field's type.
   const parameters = Array.isArray(model.parameters) ? model.parameters : undefined;
   let namesOk = true;
   const seen = new Set<string>();
@@ -116,6 +137,12 @@ function refineModel(model: ModelFields, ctx: z.RefinementCtx): void {
   }
 }
 
+/**
+ * Zod skips a refinement once a field is missing or of the wrong type; a form should still learn
+ * about a duplicate parameter while φ_init is empty, so the rules run on any object.
+ */
+const refineAlways = { when: (payload: { value: unknown }) => typeof payload.value === 'object' && payload.value !== null && !Array.isArray(payload.value) };
+
 /** `POST /api/models`: a new potential model of a group. */
 export const modelInputSchema = z
   .object({
@@ -126,7 +153,7 @@ export const modelInputSchema = z
     phiInit: modelPhiInit,
     description: modelDescription.default(''),
   })
-  .superRefine(refineModel);
+  .superRefine(refineModel, refineAlways);
 export type ModelInput = z.infer<typeof modelInputSchema>;
 
 /**
@@ -142,5 +169,5 @@ export const modelUpdateSchema = z
     phiInit: modelPhiInit.optional(),
     description: modelDescription.optional(),
   })
-  .superRefine(refineModel);
+  .superRefine(refineModel, refineAlways);
 export type ModelUpdate = z.infer<typeof modelUpdateSchema>;

@@ -26,7 +26,7 @@ export class Scan {
   @Column({ name: 'owner_id', type: 'int', unsigned: true })
   ownerId: number;
 
-  /** A group's own model, or null when `family` names a built-in one. */
+  /** A group's own model; null when `family` names a built-in one, or once the model is deleted. */
   @Column({ name: 'model_id', type: 'int', unsigned: true, nullable: true })
   modelId: number | null;
 
@@ -81,7 +81,8 @@ export class Scan {
   @JoinColumn({ name: 'owner_id' })
   owner: User;
 
-  @ManyToOne(() => PotentialModel, { onDelete: 'RESTRICT' })
+  // A scan keeps its model's definition in its spec, so deleting the model leaves it whole.
+  @ManyToOne(() => PotentialModel, { onDelete: 'SET NULL' })
   @JoinColumn({ name: 'model_id' })
   model: PotentialModel | null;
 
