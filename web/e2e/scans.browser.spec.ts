@@ -49,7 +49,12 @@ async function launchScan(name: string, nStarMax: number) {
   await form.getByText(`${POINTS} points`).first().waitFor();
   await shot(page, 'scan-new');
   await form.getByRole('button', { name: 'Launch scan' }).click();
-  await page.waitForURL(/\/scans\/\d+$/);
+  await page.waitForURL(/\/scans\/\d+$/).catch(async (error: Error) => {
+    // Say what the form said, rather than only that the page did not change.
+    await shot(page, 'scan-new-refused');
+    const said = await page.locator('[role="alert"], [data-part="error-text"]').allTextContents();
+    throw new Error(`the scan was not launched: ${said.join(' | ') || error.message}`);
+  });
   await heading(page, name).waitFor();
   return scanIdOnPage();
 }

@@ -13,7 +13,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { LiveScanCard } from '@/features/overview/components/live-scan-card';
 import { RecentScanItem } from '@/features/overview/components/recent-scan-item';
-import { scanPace } from '@/features/overview/utils/scan-pace';
+import { scanPace } from '@/features/scans/utils/scan-pace';
 import { getScanQueryOptions, isLive } from '@/features/scans/api/get-scan';
 import { liveRefreshMs, useLiveScans } from '@/features/scans/api/get-live-scans';
 import { useScans } from '@/features/scans/api/get-scans';

@@ -1,7 +1,8 @@
 import { Progress, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import type { ScanDetail } from '@sixtyfold/shared';
 import { isLive, LIVE_REFRESH_MS } from '../api/get-scan';
-import { formatRate, formatSeconds } from '../utils/format';
+import { formatDuration, formatRate } from '@/lib/format-duration';
+import { scanPace } from '../utils/scan-pace';
 
 function Figure({ label, value, tone }: { label: string; value: string; tone?: string }) {
   return (
@@ -20,16 +21,16 @@ function Figure({ label, value, tone }: { label: string; value: string; tone?: s
 export function ScanLiveProgress({ scan }: { scan: ScanDetail }) {
   const { total, done, failed, running, queued, elapsedSeconds, remainingSeconds } = scan.progress;
   const finished = done + failed;
+  const rate = scanPace(scan.progress).pointsPerSecond;
   const percent = total > 0 ? (finished / total) * 100 : 0;
   const live = isLive(scan);
-  const rate = elapsedSeconds && elapsedSeconds > 0 && finished > 0 ? finished / elapsedSeconds : null;
   const n = (value: number) => value.toLocaleString('en-US');
 
   let timeLabel = 'Took';
-  let timeValue = elapsedSeconds === null ? '—' : formatSeconds(elapsedSeconds);
+  let timeValue = elapsedSeconds === null ? '—' : formatDuration(elapsedSeconds);
   if (live) {
     timeLabel = 'Time left';
-    timeValue = remainingSeconds === null ? (scan.status === 'queued' ? 'waiting for a worker' : 'estimating…') : formatSeconds(remainingSeconds);
+    timeValue = remainingSeconds === null ? (scan.status === 'queued' ? 'waiting for a worker' : 'estimating…') : formatDuration(remainingSeconds);
   }
 
   return (

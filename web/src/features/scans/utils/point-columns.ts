@@ -48,3 +48,6 @@ export const FAILURE_LABELS: Record<FailureCode, string> = {
 };
 
 export const failureLabel = (status: string) => FAILURE_LABELS[status as FailureCode] ?? status;
+
+/** Axis parameters as choices of a select, by their on-screen names. */
+export const axisOptions = (parameters: string[]) => parameters.map((parameter) => ({ value: parameter, label: inputLabel(parameter) }));

@@ -1,5 +1,6 @@
-import { Alert, Button, CloseButton, Dialog, Portal, Text } from '@chakra-ui/react';
+import { Text } from '@chakra-ui/react';
 import type { ApiToken } from '@sixtyfold/shared';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { useRevokeToken } from '../api/revoke-token';
 
 interface RevokeTokenDialogProps {
@@ -10,57 +11,27 @@ interface RevokeTokenDialogProps {
 
 export function RevokeTokenDialog({ token, onClose }: RevokeTokenDialogProps) {
   const revoke = useRevokeToken({ onSuccess: onClose });
-  const close = () => {
-    revoke.reset();
-    onClose();
-  };
-
   return (
-    <Dialog.Root role="alertdialog" open={token !== null} onOpenChange={(details) => !details.open && close()} placement="center">
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>Revoke “{token?.name}”?</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body>
-              <Text>
-                Scripts using{' '}
-                <Text as="code" fontFamily="mono">
-                  {token?.prefix}…
-                </Text>{' '}
-                stop working at once. This cannot be undone; create a new token if you need one again.
-              </Text>
-              {revoke.isError && (
-                <Alert.Root status="error" variant="subtle" borderRadius="md" mt="4" role="alert">
-                  <Alert.Indicator />
-                  <Alert.Content>
-                    <Alert.Title>Could not revoke the token</Alert.Title>
-                    <Alert.Description>{revoke.error.message}</Alert.Description>
-                  </Alert.Content>
-                </Alert.Root>
-              )}
-            </Dialog.Body>
-            <Dialog.Footer>
-              <Dialog.ActionTrigger asChild>
-                <Button variant="outline">Keep it</Button>
-              </Dialog.ActionTrigger>
-              <Button
-                colorPalette="red"
-                loading={revoke.isPending}
-                loadingText="Revoking…"
-                onClick={() => token && revoke.mutate(token.id)}
-              >
-                Revoke token
-              </Button>
-            </Dialog.Footer>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <ConfirmDialog
+      open={token !== null}
+      title={`Revoke “${token?.name}”?`}
+      confirmLabel="Revoke token"
+      busyLabel="Revoking…"
+      busy={revoke.isPending}
+      error={revoke.isError ? { title: 'Could not revoke the token', message: revoke.error.message } : null}
+      onConfirm={() => token && revoke.mutate(token.id)}
+      onClose={() => {
+        revoke.reset();
+        onClose();
+      }}
+    >
+      <Text>
+        Scripts using{' '}
+        <Text as="code" fontFamily="mono">
+          {token?.prefix}…
+        </Text>{' '}
+        stop working at once. This cannot be undone; create a new token if you need one again.
+      </Text>
+    </ConfirmDialog>
   );
 }

@@ -1,10 +1,11 @@
-import { Checkbox, Field, Heading, HStack, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
+import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions } from '../../api/get-scan-grid';
@@ -12,7 +13,8 @@ import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellIndices, insideLimitsMask, pointIndexOf, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { formatValue, inputLabel } from '../../utils/point-columns';
+import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
+import { OutlineToggle } from '../heatmaps/outline-toggle';
 import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LimitSetSelect } from '../limit-set-select';
 import { NsRPlane } from '../plane/ns-r-plane';
@@ -114,21 +116,11 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
           <>
             <Panel p={{ base: '3', md: '4' }}>
               <HStack gap="3" wrap="wrap" align="end">
-                <Choice label="Output" value={output} options={COMPARED_OUTPUTS.map((o) => [o, outputLabel(o)])} onChange={(next) => update({ output: next })} />
-                <Choice label="x axis" value={x} options={axes.map((a) => [a, inputLabel(a)])} onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })} />
-                <Choice label="y axis" value={y} options={axes.filter((a) => a !== x).map((a) => [a, inputLabel(a)])} onChange={(next) => update({ y: next })} />
+                <SelectField label="Output" value={output} options={COMPARED_OUTPUTS.map((o) => ({ value: o, label: outputLabel(o) }))} onChange={(next) => update({ output: next })} />
+                <SelectField label="x axis" value={x} options={axisOptions(axes)} onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })} />
+                <SelectField label="y axis" value={y} options={axisOptions(axes.filter((a) => a !== x))} onChange={(next) => update({ y: next })} />
                 <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
-                <Checkbox.Root
-                  checked={outlined}
-                  onCheckedChange={(details) => update({ outline: details.checked === true ? null : 'off' })}
-                  colorPalette="ember"
-                  size="sm"
-                  pb="2"
-                >
-                  <Checkbox.HiddenInput />
-                  <Checkbox.Control />
-                  <Checkbox.Label>Outline cells inside the limits</Checkbox.Label>
-                </Checkbox.Root>
+                <OutlineToggle checked={outlined} onChange={(checked) => update({ outline: checked ? null : 'off' })} />
               </HStack>
               <Text fontSize="xs" color="fg.muted" mt="3">
                 {zRange
@@ -190,23 +182,5 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
         </Panel>
       </Stack>
     </Stack>
-  );
-}
-
-function Choice({ label, value, options, onChange }: { label: string; value: string; options: [string, string][]; onChange: (value: string) => void }) {
-  return (
-    <Field.Root w="auto" minW="36">
-      <Field.Label fontSize="sm">{label}</Field.Label>
-      <NativeSelect.Root size="sm">
-        <NativeSelect.Field bg="bg.panel" value={value} onChange={(event) => onChange(event.target.value)}>
-          {options.map(([key, text]) => (
-            <option key={key} value={key}>
-              {text}
-            </option>
-          ))}
-        </NativeSelect.Field>
-        <NativeSelect.Indicator />
-      </NativeSelect.Root>
-    </Field.Root>
   );
 }

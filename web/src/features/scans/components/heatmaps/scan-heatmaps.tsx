@@ -1,4 +1,4 @@
-import { Button, Checkbox, Field, HStack, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
@@ -6,16 +6,18 @@ import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
+import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { isLive } from '../../api/get-scan';
 import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellCounts, cellIndices, failureGroups, insideLimitsMask, pointIndexOf, sameCells } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { formatValue, inputLabel } from '../../utils/point-columns';
+import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
 import { AxisSlider } from './axis-slider';
 import { FailureLegend } from './failure-legend';
+import { OutlineToggle } from './outline-toggle';
 import { ScanHeatmap } from './scan-heatmap';
 
 /** The outputs the third panel may show beside n_s and r. */
@@ -34,24 +36,6 @@ const TITLES: Record<'ns' | 'r' | ThirdOutput, string> = {
 interface ScanHeatmapsProps {
   scan: ScanDetail;
   spec: StoredScanSpec;
-}
-
-function AxisSelect({ label, value, options, onChange }: { label: string; value: string; options: string[]; onChange: (value: string) => void }) {
-  return (
-    <Field.Root w="auto" minW="36">
-      <Field.Label fontSize="sm">{label}</Field.Label>
-      <NativeSelect.Root size="sm">
-        <NativeSelect.Field bg="bg.panel" value={value} onChange={(event) => onChange(event.target.value)}>
-          {options.map((name) => (
-            <option key={name} value={name}>
-              {inputLabel(name)}
-            </option>
-          ))}
-        </NativeSelect.Field>
-        <NativeSelect.Indicator />
-      </NativeSelect.Root>
-    </Field.Root>
-  );
 }
 
 /** A panel of one slice query: the heatmap once there is data, else loading or what went wrong. */
@@ -132,42 +116,26 @@ export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
       <Panel p={{ base: '3', md: '4' }}>
         <Stack gap="4">
           <HStack gap="3" wrap="wrap" align="end">
-            <AxisSelect
+            <SelectField
               label="x axis"
               value={x}
-              options={names}
+              options={axisOptions(names)}
               // Choosing the current y for x swaps the two.
               onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })}
             />
-            <AxisSelect label="y axis" value={y} options={names.filter((name) => name !== x)} onChange={(next) => update({ y: next })} />
+            <SelectField label="y axis" value={y} options={axisOptions(names.filter((name) => name !== x))} onChange={(next) => update({ y: next })} />
             <Button size="sm" variant="outline" onClick={() => update({ x: y, y: x })}>
               Swap axes
             </Button>
-            <Field.Root w="auto" minW="48">
-              <Field.Label fontSize="sm">Third panel</Field.Label>
-              <NativeSelect.Root size="sm">
-                <NativeSelect.Field bg="bg.panel" value={third} onChange={(event) => update({ third: event.target.value })}>
-                  {THIRD_OUTPUTS.map((output) => (
-                    <option key={output} value={output}>
-                      {outputLabel(output)}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-            </Field.Root>
+            <SelectField
+              label="Third panel"
+              value={third}
+              options={THIRD_OUTPUTS.map((output) => ({ value: output, label: outputLabel(output) }))}
+              onChange={(next) => update({ third: next })}
+              minW="48"
+            />
             <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
-            <Checkbox.Root
-              checked={outlined}
-              onCheckedChange={(details) => update({ outline: details.checked === true ? null : 'off' })}
-              colorPalette="ember"
-              size="sm"
-              pb="2"
-            >
-              <Checkbox.HiddenInput />
-              <Checkbox.Control />
-              <Checkbox.Label>Outline cells inside the limits</Checkbox.Label>
-            </Checkbox.Root>
+            <OutlineToggle checked={outlined} onChange={(checked) => update({ outline: checked ? null : 'off' })} />
           </HStack>
           {Object.keys(at).length > 0 && (
             <Stack direction={{ base: 'column', md: 'row' }} gap="6">

@@ -1,4 +1,4 @@
-import { Field, Heading, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { axisValues, type PointOutput, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
@@ -6,6 +6,7 @@ import { Plot } from '@/components/plots/plot';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
+import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { isLive } from '../../api/get-scan';
 import { LINE_POINT_LIMIT, useScanLine } from '../../api/get-scan-line';
@@ -40,19 +41,12 @@ export function ScanLinePlots({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   return (
     <Stack gap="4">
       <Panel p={{ base: '3', md: '4' }}>
-        <Field.Root w="auto" maxW="64">
-          <Field.Label fontSize="sm">Third panel</Field.Label>
-          <NativeSelect.Root size="sm">
-            <NativeSelect.Field bg="bg.panel" value={third} onChange={(event) => update({ third: event.target.value })}>
-              {THIRD_LINE_OUTPUTS.map((output) => (
-                <option key={output} value={output}>
-                  {outputLabel(output)}
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
-        </Field.Root>
+        <SelectField
+          label="Third panel"
+          value={third}
+          options={THIRD_LINE_OUTPUTS.map((output) => ({ value: output, label: outputLabel(output) }))}
+          onChange={(next) => update({ third: next })}
+        />
       </Panel>
       {line.isError && <Text fontSize="sm" color="fg.error">Could not refresh the points: {line.error.message}</Text>}
       <SimpleGrid columns={{ base: 1, md: 2, xl: 3 }} gap="4">

@@ -1,4 +1,5 @@
-import { Checkbox, Field, HStack, NativeSelect, SegmentGroup } from '@chakra-ui/react';
+import { Checkbox, Field, HStack, SegmentGroup } from '@chakra-ui/react';
+import { SelectField } from '@/components/ui/select-field';
 import { useId } from 'react';
 import { inputLabel } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
@@ -23,19 +24,13 @@ export function PlaneControls({ settings, onChange, colorOptions = [] }: PlaneCo
   return (
     <HStack gap="4" wrap="wrap" align="end">
       {colorOptions.length > 0 && (
-        <Field.Root w="auto" minW="40">
-          <Field.Label fontSize="sm">Colour by</Field.Label>
-          <NativeSelect.Root size="sm">
-            <NativeSelect.Field bg="bg.panel" value={settings.colorBy ?? ''} onChange={(event) => onChange({ colorBy: event.target.value })}>
-              {colorOptions.map((name) => (
-                <option key={name} value={name}>
-                  {inputLabel(name)}
-                </option>
-              ))}
-            </NativeSelect.Field>
-            <NativeSelect.Indicator />
-          </NativeSelect.Root>
-        </Field.Root>
+        <SelectField
+          label="Colour by"
+          value={settings.colorBy ?? ''}
+          options={colorOptions.map((name) => ({ value: name, label: inputLabel(name) }))}
+          onChange={(colorBy) => onChange({ colorBy })}
+          minW="40"
+        />
       )}
       <LimitSetSelect value={settings.limitsKey} onChange={(limitsKey) => onChange({ limitsKey })} />
       <Field.Root w="auto">

@@ -50,6 +50,21 @@ describe('the scan the form would submit', () => {
     });
   });
 
+  it('never sends a fixed value for what an axis varies, even if the hidden field kept one', () => {
+    const values = { ...blankValues(10), name: 'Over N_*' };
+    // As the form library leaves it when the N_* field unmounts under an N_* axis.
+    values.pivot = { ...values.pivot, nStar: 55 };
+    values.params = { ...values.params, p: 2 };
+    values.axes = [
+      { ...values.axes[0], parameter: 'p' },
+      { ...values.axes[0], parameter: 'nStar', min: 50, max: 60, count: 3 },
+    ];
+    const input = toScanInput(values).input as { pivot: Record<string, unknown>; params: Record<string, unknown> };
+    expect(input.pivot).toEqual({ kind: 'fixed', nStar: undefined });
+    expect(input.params).not.toHaveProperty('p');
+    expect(createScanSchema.safeParse(input).success).toBe(true);
+  });
+
   it('turns tags and a pasted list into arrays, and reports words in the list by field', () => {
     const values = blankValues(10);
     values.tags = ' plateau, , first try ';

@@ -278,14 +278,22 @@ export function toScanInput(values: ScanFormValues): { input: unknown; problems:
     if (bad.length) problems[`axes.${i}.values`] = badTokensMessage(bad);
     return { parameter: axis.parameter, kind: axis.kind, values: numbers };
   });
-  const { kind, nStar, w, energyGeV } = values.pivot;
+  // A quantity on an axis is not fixed as well: its fixed field is hidden meanwhile, and a value it
+  // kept from before (the form library keeps the values of unmounted inputs) must not be sent.
+  const onAxis = new Set(values.axes.map((axis) => axis.parameter));
+  const unlessOnAxis = <T,>(name: string, value: T) => (onAxis.has(name) ? undefined : value);
+  const { kind } = values.pivot;
+  const nStar = unlessOnAxis('nStar', values.pivot.nStar);
+  const w = unlessOnAxis('reheatingW', values.pivot.w);
+  const energyGeV = unlessOnAxis('reheatingEnergyGeV', values.pivot.energyGeV);
+  const params = Object.fromEntries(Object.entries(values.params).filter(([name]) => !onAxis.has(name)));
   const input = {
     groupId: values.groupId,
     name: values.name,
     tags: values.tags.split(',').map((t) => t.trim()).filter(Boolean),
     note: values.note,
     model: decodeModel(values.model),
-    params: values.params,
+    params,
     phiInit: values.phiInit,
     axes,
     pivot: kind === 'fixed' ? { kind, nStar } : { kind, w, energyGeV },
