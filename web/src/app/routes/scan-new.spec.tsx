@@ -55,6 +55,9 @@ function mockForm(overrides: Record<string, (request: MockRequest) => Response> 
   });
 }
 
+/** The form loads with its page (a lazy chunk), which takes a moment on a busy test machine. */
+const formReady = () => screen.findByRole('button', { name: 'Launch scan' }, { timeout: 10_000 });
+
 const posts = (requests: MockRequest[]) => requests.filter((r) => r.method === 'POST' && r.url.pathname === '/api/scans');
 
 // Typing re-validates the whole form, and timing points runs the engine on this thread here: allow time.
@@ -62,6 +65,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('counts the points of the grid as the axes change', async () => {
     mockForm();
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     expect(await screen.findByRole('heading', { name: 'New scan', level: 1 })).toBeInTheDocument();
     expect(await screen.findByLabelText('Axis 1 parameter')).toHaveValue('p');
@@ -89,6 +93,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('refuses a logarithmic axis that starts at zero, with the schema’s message, and sends nothing', async () => {
     const { requests } = mockForm();
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
     await user.selectOptions(screen.getByLabelText('Axis 1 spacing'), 'log');
@@ -104,6 +109,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('shows the schema’s message for an empty number, and names a word in a pasted list', async () => {
     const { requests } = mockForm();
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
     await user.clear(screen.getByLabelText('N_*'));
@@ -119,6 +125,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('posts exactly the body the API validates, then opens the new scan', async () => {
     const { requests } = mockForm();
     const { user, router } = renderApp('/scans/new');
+    await formReady();
 
     await user.type(await screen.findByLabelText('Name'), 'T-model α sweep');
     await user.type(screen.getByLabelText('Tags'), ' plateau,attractor , ');
@@ -158,6 +165,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
         apiError(400, `${limit}. params.lambda: lambda is out of range`, { axes: [limit], 'params.lambda': ['lambda is out of range'] }),
     });
     const { user, router } = renderApp('/scans/new');
+    await formReady();
 
     await user.type(await screen.findByLabelText('Name'), 'Too big');
     await user.click(screen.getByRole('button', { name: 'Launch scan' }));
@@ -192,6 +200,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
         json(200, { ...scan({ id: 55, name: 'Bump position sweep', status: 'completed' }), note: spec.note, spec, startedAt: null, progress: { total: 4, done: 4, failed: 0, running: 0, queued: 0, elapsedSeconds: 3, remainingSeconds: 0 } }),
     });
     const { user } = renderApp('/scans/new?from=55');
+    await formReady();
 
     expect(await screen.findByLabelText('Name')).toHaveValue('Copy of Bump position sweep');
     expect(screen.getByLabelText('Group')).toHaveValue('10');
@@ -228,6 +237,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('offers group models of the chosen group only, prefilling their parameters and φ_init', async () => {
     mockForm();
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     const model = await screen.findByLabelText('Model');
     expect(within(model).queryByRole('option', { name: 'Log-corrected quadratic' })).not.toBeInTheDocument();
@@ -255,6 +265,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
       adminUser,
     );
     renderApp('/scans/new');
+    await formReady();
 
     const group = await screen.findByLabelText('Group');
     expect(within(group).getAllByRole('option').map((o) => o.textContent)).toEqual(['Plateau Lab', 'Tensor Desk']);
@@ -272,6 +283,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('estimates the run time from points timed in this browser, shared among the live workers', async () => {
     mockForm();
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     // No estimate while the form would be refused (it has no name yet).
     expect(await screen.findByText('The run time is estimated once every field is valid.')).toBeInTheDocument();
@@ -284,6 +296,7 @@ describe('New scan page', { timeout: 30_000 }, () => {
   it('says when no worker is alive to run the scan', async () => {
     mockForm({ 'GET /api/workers/pool': () => json(200, pool([])) });
     const { user } = renderApp('/scans/new');
+    await formReady();
 
     await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
     expect(await screen.findByText('No worker is alive', {}, { timeout: 5_000 })).toBeInTheDocument();

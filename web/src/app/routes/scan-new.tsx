@@ -1,6 +1,6 @@
 import { Alert, Button, Stack } from '@chakra-ui/react';
 import { groupRoleAtLeast, type ScanDetail } from '@sixtyfold/shared';
-import type { ReactNode } from 'react';
+import { lazy, Suspense, type ReactNode } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -13,12 +13,15 @@ import { useMe } from '@/features/auth/api/get-me';
 import { useGroups } from '@/features/groups/api/get-groups';
 import { useModels } from '@/features/models/api/get-models';
 import { useScan } from '@/features/scans/api/get-scan';
-import { ScanForm, type LaunchGroup } from '@/features/scans/components/scan-form/scan-form';
+import type { LaunchGroup } from '@/features/scans/components/scan-form/scan-form';
 import { blankValues, valuesFromSpec, withGroup } from '@/features/scans/components/scan-form/scan-form-values';
 import { useWorkerPool } from '@/features/workers/api/get-worker-pool';
 import { workerSlots } from '@/features/workers/utils/worker-slots';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { readId } from '@/lib/search-params';
+
+// The form (and what it validates and times with) loads with this page, not with the app.
+const ScanForm = lazy(() => import('@/features/scans/components/scan-form/scan-form').then((m) => ({ default: m.ScanForm })));
 
 export function ScanNewRoute() {
   useDocumentTitle('New scan');
@@ -128,13 +131,15 @@ function NewScanPage({ source }: { source?: ScanDetail }) {
         </Alert.Root>
       )}
       <Panel p={{ base: '4', md: '6' }}>
-        <ScanForm
-          groups={groups}
-          models={models.data}
-          initialValues={initialValues}
-          workerSlots={slots}
-          onLaunched={(scan) => navigate(paths.scan.getHref(scan.id))}
-        />
+        <Suspense fallback={<LoadingState label="Loading the form…" />}>
+          <ScanForm
+            groups={groups}
+            models={models.data}
+            initialValues={initialValues}
+            workerSlots={slots}
+            onLaunched={(scan) => navigate(paths.scan.getHref(scan.id))}
+          />
+        </Suspense>
       </Panel>
     </Page>
   );

@@ -336,8 +336,8 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
             <Alert.Content>
               <Alert.Title>{refused ? 'The server refused this scan' : 'Could not launch the scan'}</Alert.Title>
               <Alert.Description>
-                {launch.error.message}
-                {refused ? ' Correct the marked fields and launch again.' : ` ${errorAdvice(launch.error)}`}
+                {/[.!?]$/.test(launch.error.message) ? launch.error.message : `${launch.error.message}.`}{' '}
+                {refused ? 'Correct the marked fields and launch again.' : errorAdvice(launch.error)}
               </Alert.Description>
             </Alert.Content>
           </Alert.Root>

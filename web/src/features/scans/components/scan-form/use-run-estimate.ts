@@ -1,6 +1,5 @@
 import { pointRequest, ScanGrid, type CreateScan } from '@sixtyfold/shared';
 import { useEffect, useState } from 'react';
-import { runEngine } from '@/lib/engine/run-engine';
 
 /** Points timed per estimate: enough to average out one slow point, few enough to feel instant. */
 export const SAMPLE_POINTS = 6;
@@ -39,29 +38,30 @@ export function useRunEstimate(spec: CreateScan | null, potentialSource: string 
   useEffect(() => {
     if (!key) return;
     let current = true;
-    const timer = setTimeout(() => {
+    const timer = setTimeout(async () => {
       const { spec: s, potentialSource: source } = JSON.parse(key) as { spec: CreateScan; potentialSource: string };
       const grid = new ScanGrid(s.axes);
       const requests = sampleIndices(grid.size).map((i) => pointRequest(s, source, grid.point(i)));
-      runEngine(requests).then(
-        (run) => {
-          if (!current) return;
-          const failures = run.results.filter((r) => r.status !== 'ok');
-          setResult({
-            key,
-            estimate: {
-              status: 'done',
-              sampled: requests.length,
-              msPerPoint: run.milliseconds / requests.length,
-              failed: failures.length,
-              firstFailure: failures[0]?.message ?? null,
-            },
-          });
-        },
-        (error: unknown) => {
-          if (current) setResult({ key, estimate: { status: 'failed', message: error instanceof Error ? error.message : String(error) } });
-        },
-      );
+      let estimate: RunEstimate;
+      try {
+        // The first point of a potential parses and compiles it (and warms the JIT): evaluate it
+        // once untimed, so the cost per point is what the rest of a long scan pays.
+        // Loaded on first use: the engine and its expression parser stay out of the main bundle.
+        const { runEngine } = await import('@/lib/engine/run-engine');
+        await runEngine(requests.slice(0, 1));
+        const run = await runEngine(requests);
+        const failures = run.results.filter((r) => r.status !== 'ok');
+        estimate = {
+          status: 'done',
+          sampled: requests.length,
+          msPerPoint: run.milliseconds / requests.length,
+          failed: failures.length,
+          firstFailure: failures[0]?.message ?? null,
+        };
+      } catch (error) {
+        estimate = { status: 'failed', message: error instanceof Error ? error.message : String(error) };
+      }
+      if (current) setResult({ key, estimate });
     }, DEBOUNCE_MS);
     return () => {
       current = false;
