@@ -17,5 +17,10 @@ if (!('defaultSelected' in HTMLOptionElement.prototype)) {
     get(this: HTMLOptionElement) {
       return this.hasAttribute('selected');
     },
+    // React sets it for a <select defaultValue>; as in browsers, it is the `selected` attribute.
+    set(this: HTMLOptionElement, value: boolean) {
+      if (value) this.setAttribute('selected', '');
+      else this.removeAttribute('selected');
+    },
   });
 }
