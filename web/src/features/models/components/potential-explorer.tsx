@@ -99,9 +99,9 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
   // parsed the potential by the time the user asks for another point.
   const ranOnArrival = useRef(false);
   useEffect(() => {
-    if (ranOnArrival.current || !request) return;
+    if (ranOnArrival.current) return;
     ranOnArrival.current = true;
-    trial.mutate(request);
+    if (request) trial.mutate(request);
   }, [request, trial]);
 
   const runTrial = (event: FormEvent) => {
