@@ -15,15 +15,27 @@ describe('app routes', () => {
     expect(router.state.location.search).toBe('?next=%2Fmodels');
   });
 
-  it('redirects / to the scans list and shows what the API returned', async () => {
+  it('opens the Overview at /, the home of the app', async () => {
+    mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      'GET /api/scans': () => page([]),
+      'GET /api/workers/pool': () => json(200, { workers: [], queue: { waiting: 0, active: 0, delayed: 0, failed: 0 } }),
+    });
+    const { router } = renderApp('/');
+
+    expect(await screen.findByRole('heading', { name: 'Overview', level: 1 })).toBeInTheDocument();
+    expect(router.state.location.pathname).toBe('/');
+    expect(await screen.findByText('Nothing is running')).toBeInTheDocument();
+  });
+
+  it('lists the scans at /scans with what the API returned', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
       'GET /api/scans': () => page([scan({ name: 'Plateau width sweep' })]),
     });
-    const { router } = renderApp('/');
+    renderApp('/scans');
 
     expect(await screen.findByRole('heading', { name: 'Scans' })).toBeInTheDocument();
-    expect(router.state.location.pathname).toBe('/scans');
     expect(await screen.findByText('Plateau width sweep')).toBeInTheDocument();
     expect(screen.getByText('Running')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'Plateau Lab' })).toHaveAttribute('href', '/groups/10');

@@ -8,6 +8,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { Panel } from '@/components/ui/panel';
 import { useMe } from '@/features/auth/api/get-me';
 import { useScans } from '@/features/scans/api/get-scans';
+import { ComparePlots } from '@/features/scans/components/compare/compare-plots';
 import { ScanComparison } from '@/features/scans/components/scan-comparison';
 import { ScanPicker } from '@/features/scans/components/scan-picker';
 import { formatScanIds, MAX_COMPARED_SCANS, parseScanIds } from '@/features/scans/utils/scan-ids-param';
@@ -107,9 +108,12 @@ export function CompareRoute() {
                 {chosen.length === 0 ? 'Pick at least two scans above.' : 'Pick one more scan to see them side by side.'}
               </Text>
             ) : (
-              <Panel>
-                <ScanComparison scans={chosen} groupNames={groupNames} />
-              </Panel>
+              <Stack gap="6">
+                <Panel>
+                  <ScanComparison scans={chosen} groupNames={groupNames} />
+                </Panel>
+                <ComparePlots scanIds={chosen.map((scan) => scan.id)} />
+              </Stack>
             )}
           </Box>
         </Stack>

@@ -1,21 +1,26 @@
-import { Badge, Box, Code, HStack, Heading, Stack, Table, Text } from '@chakra-ui/react';
+import { Badge, Box, HStack, Heading, Stack, Text } from '@chakra-ui/react';
 import type { PotentialModel } from '@sixtyfold/shared';
+import { AppLink } from '@/components/ui/app-link';
+import { Formula } from '@/components/ui/formula';
 import { Panel } from '@/components/ui/panel';
-
-const num = (value: number | undefined) => (value === undefined ? '—' : String(value));
+import { paths } from '@/config/paths';
 
 interface ModelCardProps {
   model: PotentialModel;
   groupName: string;
 }
 
+/** A group's model on the models list; the name leads to its page. */
 export function ModelCard({ model, groupName }: ModelCardProps) {
+  const headingId = `model-${model.id}`;
   return (
-    <Panel as="article" aria-labelledby={`model-${model.id}`}>
-      <Stack gap="4" p="5">
+    <Panel as="article" aria-labelledby={headingId}>
+      <Stack gap="3" p="5">
         <HStack justify="space-between" align="start" gap="3">
-          <Heading as="h2" size="md" id={`model-${model.id}`} color="ink.900" fontWeight="600">
-            {model.name}
+          <Heading as="h3" size="md" id={headingId} fontWeight="600">
+            <AppLink to={paths.model.getHref(model.id)} color="ink.900">
+              {model.name}
+            </AppLink>
           </Heading>
           <Badge colorPalette="ink" variant="subtle" size="sm" flexShrink="0">
             {groupName}
@@ -26,71 +31,27 @@ export function ModelCard({ model, groupName }: ModelCardProps) {
             {model.description}
           </Text>
         )}
-        <Box>
-          <Text fontSize="xs" color="fg.muted" fontWeight="500" mb="1.5">
-            Potential V(φ)
+        <Box bg="dust.50" borderRadius="md" px="3" py="2.5" borderWidth="1px" borderColor="border.muted">
+          <Formula expression={model.expression} lhs="V(\phi) =" block />
+        </Box>
+        <Text fontSize="sm" color="fg.muted">
+          <Text as="span" fontWeight="500" color="fg">
+            Parameters:
+          </Text>{' '}
+          <Text as="span" fontFamily="mono">
+            {model.parameters.length ? model.parameters.map((p) => p.name).join(', ') : 'none'}
           </Text>
-          <Code
-            display="block"
-            whiteSpace="pre-wrap"
-            wordBreak="break-word"
-            fontFamily="mono"
-            fontSize="sm"
-            px="3"
-            py="2.5"
-            bg="ink.900"
-            color="ember.200"
-            borderRadius="md"
-          >
-            {model.expression}
-          </Code>
           {model.phiInit !== null && (
-            <Text fontSize="xs" color="fg.muted" mt="1.5">
-              Initial field value φ₀ ={' '}
+            <>
+              {' · '}
+              starts at φ_init ={' '}
               <Text as="span" fontFamily="mono">
                 {model.phiInit}
               </Text>
-            </Text>
+            </>
           )}
-        </Box>
-      </Stack>
-      {model.parameters.length === 0 ? (
-        <Text px="5" pb="5" fontSize="sm" color="fg.muted">
-          This potential has no free parameters.
         </Text>
-      ) : (
-        <Table.ScrollArea borderTopWidth="1px" borderColor="border.muted">
-          <Table.Root size="sm">
-            <Table.Caption srOnly>Parameters of {model.name}</Table.Caption>
-            <Table.Header>
-              <Table.Row bg="bg.subtle">
-                <Table.ColumnHeader>Parameter</Table.ColumnHeader>
-                <Table.ColumnHeader textAlign="end">Default</Table.ColumnHeader>
-                <Table.ColumnHeader textAlign="end">Range</Table.ColumnHeader>
-                <Table.ColumnHeader>Meaning</Table.ColumnHeader>
-              </Table.Row>
-            </Table.Header>
-            <Table.Body>
-              {model.parameters.map((p) => (
-                <Table.Row key={p.name}>
-                  <Table.Cell fontFamily="mono" fontWeight="500">
-                    {p.name}
-                  </Table.Cell>
-                  <Table.Cell fontFamily="mono" textAlign="end">
-                    {p.defaultValue}
-                  </Table.Cell>
-                  <Table.Cell fontFamily="mono" textAlign="end" whiteSpace="nowrap" color="fg.muted">
-                    {p.min === undefined && p.max === undefined ? '—' : `${num(p.min)} … ${num(p.max)}`}
-                  </Table.Cell>
-                  <Table.Cell fontSize="sm" color="fg.muted">
-                    {p.description || '—'}
-                  </Table.Cell>
-                </Table.Row>
-              ))}
-            </Table.Body>
-          </Table.Root>
-        </Table.ScrollArea>
-      )}
+      </Stack>
     </Panel>
   );
 }

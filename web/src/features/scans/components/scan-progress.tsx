@@ -6,8 +6,9 @@ export function ScanProgress({ scan }: { scan: ScanSummary }) {
   const percent = totalPoints > 0 ? Math.round((donePoints / totalPoints) * 100) : 0;
   return (
     <Stack gap="1" minW="32">
-      <Progress.Root value={percent} size="xs" colorPalette={scan.status === 'failed' ? 'red' : 'ember'} aria-label={`${donePoints} of ${totalPoints} points done`}>
-        <Progress.Track bg="ink.50">
+      <Progress.Root value={percent} size="xs" colorPalette={scan.status === 'failed' ? 'red' : 'ember'}>
+        {/* The track carries role=progressbar, so it gets the name (Ark would call it just "28%"). */}
+        <Progress.Track bg="ink.50" aria-label={`${donePoints} of ${totalPoints} points done`}>
           <Progress.Range />
         </Progress.Track>
       </Progress.Root>

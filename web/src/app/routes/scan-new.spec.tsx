@@ -1,0 +1,292 @@
+import { screen, waitFor, within } from '@testing-library/react';
+import { createScanSchema, type CurrentUser, type PotentialModel, type ScanDetail, type StoredScanSpec, type WorkerPool } from '@sixtyfold/shared';
+import { adminUser, memberUser, scan } from '@/testing/fixtures';
+import { apiError, json, mockApi, type MockRequest } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render';
+// Imported for its options argument (the global type is shadowed by @types/jest from the API workspace).
+import { describe } from 'vitest';
+
+const bumpModel: PotentialModel = {
+  id: 7,
+  groupId: 10,
+  name: 'Plateau with a bump',
+  expression: 'V0 * (1 - exp(-sqrt(2/3) * phi))^2 * (1 + A * exp(-(phi - phi0)^2 / (2 * sigma^2)))',
+  parameters: [
+    { name: 'V0', defaultValue: 1e-10, min: 1e-14, max: 1e-8, description: 'overall scale' },
+    { name: 'A', defaultValue: 0.001, min: 0, max: 0.05, description: 'height of the bump' },
+    { name: 'phi0', defaultValue: 5, min: 3, max: 7, description: 'position of the bump' },
+    { name: 'sigma', defaultValue: 0.1, min: 0.01, max: 1, description: 'width of the bump' },
+  ],
+  phiInit: 7.5,
+  description: '',
+  createdById: 2,
+  createdAt: '2026-11-01T08:00:00.000Z',
+  updatedAt: '2026-11-01T08:00:00.000Z',
+};
+const otherGroupModel: PotentialModel = { ...bumpModel, id: 8, groupId: 11, name: 'Log-corrected quadratic' };
+
+const pool = (concurrencies: number[]): WorkerPool => ({
+  workers: concurrencies.map((concurrency, i) => ({
+    id: `calc-0${i}:${100 + i}`,
+    host: `calc-0${i}`,
+    pid: 100 + i,
+    concurrency,
+    startedAt: '2026-11-30T08:00:00.000Z',
+    lastSeenAt: new Date().toISOString(),
+    chunksDone: 0,
+    pointsDone: 0,
+  })),
+  queue: { waiting: 0, active: 0, delayed: 0, failed: 0 },
+});
+
+function created(body: unknown): ScanDetail {
+  const spec = body as StoredScanSpec;
+  return { ...scan({ id: 321, name: spec.name, status: 'queued', donePoints: 0 }), note: '', spec: { ...spec }, startedAt: null, progress: { total: 10, done: 0, failed: 0, running: 0, queued: 10, elapsedSeconds: null, remainingSeconds: null } };
+}
+
+function mockForm(overrides: Record<string, (request: MockRequest) => Response> = {}, user: CurrentUser = memberUser) {
+  return mockApi({
+    'GET /api/auth/me': () => json(200, user),
+    'GET /api/models': () => json(200, [bumpModel, otherGroupModel]),
+    'GET /api/workers/pool': () => json(200, pool([4, 4])),
+    'POST /api/scans': (request) => json(201, created(request.body)),
+    'GET /api/scans/321': (request) => json(200, created({ name: 'launched', ...(request.body as object) })),
+    ...overrides,
+  });
+}
+
+const posts = (requests: MockRequest[]) => requests.filter((r) => r.method === 'POST' && r.url.pathname === '/api/scans');
+
+// Typing re-validates the whole form, and timing points runs the engine on this thread here: allow time.
+describe('New scan page', { timeout: 30_000 }, () => {
+  it('counts the points of the grid as the axes change', async () => {
+    mockForm();
+    const { user } = renderApp('/scans/new');
+
+    expect(await screen.findByRole('heading', { name: 'New scan', level: 1 })).toBeInTheDocument();
+    expect(await screen.findByLabelText('Axis 1 parameter')).toHaveValue('p');
+    expect(await screen.findByText('10 points')).toBeInTheDocument();
+
+    await user.clear(screen.getByLabelText('Axis 1 count'));
+    await user.type(screen.getByLabelText('Axis 1 count'), '25');
+    expect(await screen.findByText('25 points')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Add axis' }));
+    expect(screen.getByLabelText('Axis 2 parameter')).toHaveValue('lambda');
+    expect(await screen.findByText('250 points')).toBeInTheDocument();
+    // lambda is on an axis now, so it is no longer a fixed value.
+    expect(screen.queryByLabelText('lambda')).not.toBeInTheDocument();
+
+    await user.selectOptions(screen.getByLabelText('Axis 2 kind'), 'list');
+    await user.type(screen.getByLabelText('Axis 2 values'), '1e-10, 2e-10\n4e-10');
+    expect(await screen.findByText('75 points')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Remove axis 2' }));
+    expect(await screen.findByText('25 points')).toBeInTheDocument();
+    expect(screen.getByLabelText('lambda')).toHaveValue(1e-10);
+  });
+
+  it('refuses a logarithmic axis that starts at zero, with the schema’s message, and sends nothing', async () => {
+    const { requests } = mockForm();
+    const { user } = renderApp('/scans/new');
+
+    await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
+    await user.selectOptions(screen.getByLabelText('Axis 1 spacing'), 'log');
+    await user.clear(screen.getByLabelText('Axis 1 min'));
+    await user.type(screen.getByLabelText('Axis 1 min'), '0');
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+
+    expect(await screen.findByText('a logarithmic axis needs min > 0')).toBeInTheDocument();
+    expect(screen.getByLabelText('Axis 1 min')).toHaveAttribute('aria-invalid', 'true');
+    expect(posts(requests)).toHaveLength(0);
+  });
+
+  it('shows the schema’s message for an empty number, and names a word in a pasted list', async () => {
+    const { requests } = mockForm();
+    const { user } = renderApp('/scans/new');
+
+    await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
+    await user.clear(screen.getByLabelText('N_*'));
+    await user.selectOptions(screen.getByLabelText('Axis 1 kind'), 'list');
+    await user.type(screen.getByLabelText('Axis 1 values'), '1, 2 three 4');
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+
+    expect(await screen.findByText('give N_* or put it on an axis')).toBeInTheDocument();
+    expect(screen.getByText('“three” is not a number')).toBeInTheDocument();
+    expect(posts(requests)).toHaveLength(0);
+  });
+
+  it('posts exactly the body the API validates, then opens the new scan', async () => {
+    const { requests } = mockForm();
+    const { user, router } = renderApp('/scans/new');
+
+    await user.type(await screen.findByLabelText('Name'), 'T-model α sweep');
+    await user.type(screen.getByLabelText('Tags'), ' plateau,attractor , ');
+    await user.type(screen.getByLabelText('Note'), 'α over four decades');
+    await user.selectOptions(screen.getByLabelText('Model'), 'family:alpha-t');
+    await user.selectOptions(screen.getByLabelText('Axis 1 parameter'), 'alpha');
+    await user.clear(screen.getByLabelText('Axis 1 count'));
+    await user.type(screen.getByLabelText('Axis 1 count'), '5');
+    await user.clear(screen.getByLabelText('N_*'));
+    await user.type(screen.getByLabelText('N_*'), '57');
+    await user.type(screen.getByLabelText('Tolerance'), '1e-9');
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans/321'));
+    const [post] = posts(requests);
+    const expected = {
+      groupId: 10,
+      name: 'T-model α sweep',
+      tags: ['plateau', 'attractor'],
+      note: 'α over four decades',
+      model: { kind: 'family', family: 'alpha-t' },
+      params: { V0: 1e-10, n: 1 },
+      axes: [{ kind: 'range', parameter: 'alpha', min: 0.01, max: 100, count: 5, spacing: 'log' }],
+      pivot: { kind: 'fixed', nStar: 57 },
+      method: 'slowroll',
+      tolerance: 1e-9,
+    };
+    expect(post.body).toEqual(expected);
+    // What the API's validation pipe would make of it: the same, so nothing is lost or added.
+    expect(createScanSchema.parse(post.body)).toEqual(expected);
+  });
+
+  it('maps the server’s field errors back onto the form, with its message in an alert', async () => {
+    const limit = 'This scan has 2,000,000 points, 1,000,000 more than Plateau Lab’s limit of 1,000,000';
+    mockForm({
+      'POST /api/scans': () =>
+        apiError(400, `${limit}. params.lambda: lambda is out of range`, { axes: [limit], 'params.lambda': ['lambda is out of range'] }),
+    });
+    const { user, router } = renderApp('/scans/new');
+
+    await user.type(await screen.findByLabelText('Name'), 'Too big');
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent('The server refused this scan');
+    expect(alert).toHaveTextContent(limit);
+    expect(screen.getByText('lambda is out of range')).toBeInTheDocument();
+    expect(screen.getByLabelText('lambda')).toHaveAttribute('aria-invalid', 'true');
+    // The axes message sits with the axes as well as in the alert.
+    expect(screen.getAllByText(limit, { exact: false })).toHaveLength(2);
+    expect(router.state.location.pathname).toBe('/scans/new');
+  });
+
+  it('starts from a copy of an earlier scan with ?from=', async () => {
+    const spec: StoredScanSpec = {
+      groupId: 10,
+      name: 'Bump position sweep',
+      tags: ['bump', 'features'],
+      note: 'Where does the bump stop mattering?',
+      model: { kind: 'group', modelId: 7 },
+      params: { V0: 1e-10, A: 0.002, sigma: 0.1 },
+      phiInit: 7.5,
+      axes: [{ kind: 'list', parameter: 'phi0', values: [4, 4.5, 5, 6] }],
+      pivot: { kind: 'reheating', w: 0.25, energyGeV: 1e12 },
+      method: 'exact',
+      tolerance: 1e-10,
+      potentialSource: bumpModel.expression,
+    };
+    const { requests } = mockForm({
+      'GET /api/scans/55': () =>
+        json(200, { ...scan({ id: 55, name: 'Bump position sweep', status: 'completed' }), note: spec.note, spec, startedAt: null, progress: { total: 4, done: 4, failed: 0, running: 0, queued: 0, elapsedSeconds: 3, remainingSeconds: 0 } }),
+    });
+    const { user } = renderApp('/scans/new?from=55');
+
+    expect(await screen.findByLabelText('Name')).toHaveValue('Copy of Bump position sweep');
+    expect(screen.getByLabelText('Group')).toHaveValue('10');
+    expect(screen.getByLabelText('Tags')).toHaveValue('bump, features');
+    expect(screen.getByLabelText('Note')).toHaveValue('Where does the bump stop mattering?');
+    expect(screen.getByLabelText('Model')).toHaveValue('group:7');
+    expect(screen.getByLabelText('A')).toHaveValue(0.002);
+    expect(screen.queryByLabelText('phi0')).not.toBeInTheDocument();
+    expect(screen.getByLabelText('φ_init')).toHaveValue(7.5);
+    expect(screen.getByLabelText('Axis 1 parameter')).toHaveValue('phi0');
+    expect(screen.getByLabelText('Axis 1 kind')).toHaveValue('list');
+    expect(screen.getByLabelText('Axis 1 values')).toHaveValue('4, 4.5, 5, 6');
+    expect(screen.getByLabelText('Pivot')).toHaveValue('reheating');
+    expect(screen.getByLabelText('w_reh')).toHaveValue(0.25);
+    expect(screen.getByLabelText('ρ_reh^1/4 (GeV)')).toHaveValue(1e12);
+    expect(screen.getByLabelText('Method')).toHaveValue('exact');
+    expect(screen.getByLabelText('Tolerance')).toHaveValue(1e-10);
+    expect(screen.getByText('4 points')).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+    await waitFor(() => expect(posts(requests)).toHaveLength(1));
+    const { potentialSource: _source, ...submitted } = spec;
+    expect(posts(requests)[0].body).toEqual({ ...submitted, name: 'Copy of Bump position sweep' });
+  });
+
+  it('says when the scan to copy cannot be loaded, and offers a blank form', async () => {
+    mockForm({ 'GET /api/scans/404': () => apiError(404, 'No such scan') });
+    renderApp('/scans/new?from=404');
+
+    expect(await screen.findByText('Could not load scan 404 to copy')).toBeInTheDocument();
+    expect(screen.getByRole('link', { name: 'Start from a blank form' })).toHaveAttribute('href', '/scans/new');
+  });
+
+  it('offers group models of the chosen group only, prefilling their parameters and φ_init', async () => {
+    mockForm();
+    const { user } = renderApp('/scans/new');
+
+    const model = await screen.findByLabelText('Model');
+    expect(within(model).queryByRole('option', { name: 'Log-corrected quadratic' })).not.toBeInTheDocument();
+    await user.selectOptions(model, 'group:7');
+
+    // The axis moves to a parameter of this model; the others are fixed at their defaults.
+    expect(screen.getByLabelText('Axis 1 parameter')).toHaveValue('sigma');
+    expect(screen.getByLabelText('Axis 1 spacing')).toHaveValue('linear');
+    expect(screen.getByLabelText('V0')).toHaveValue(1e-10);
+    expect(screen.getByLabelText('A')).toHaveValue(0.001);
+    expect(screen.getByLabelText('phi0')).toHaveValue(5);
+    expect(screen.queryByLabelText('sigma')).not.toBeInTheDocument();
+    expect(screen.getByLabelText('φ_init')).toHaveValue(7.5);
+  });
+
+  it('lets a site administrator launch in any group', async () => {
+    mockForm(
+      {
+        'GET /api/groups': () =>
+          json(200, [
+            { id: 10, slug: 'plateau-lab', name: 'Plateau Lab', description: '', myRole: 'lead', memberCount: 3 },
+            { id: 12, slug: 'tensor-desk', name: 'Tensor Desk', description: '', myRole: null, memberCount: 2 },
+          ]),
+      },
+      adminUser,
+    );
+    renderApp('/scans/new');
+
+    const group = await screen.findByLabelText('Group');
+    expect(within(group).getAllByRole('option').map((o) => o.textContent)).toEqual(['Plateau Lab', 'Tensor Desk']);
+  });
+
+  it('tells a viewer that launching needs the member role', async () => {
+    const viewer: CurrentUser = { ...memberUser, memberships: [{ ...memberUser.memberships[0], role: 'viewer' }] };
+    mockForm({}, viewer);
+    renderApp('/scans/new');
+
+    expect(await screen.findByText('You cannot launch scans yet')).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Launch scan' })).not.toBeInTheDocument();
+  });
+
+  it('estimates the run time from points timed in this browser, shared among the live workers', async () => {
+    mockForm();
+    const { user } = renderApp('/scans/new');
+
+    // No estimate while the form would be refused (it has no name yet).
+    expect(await screen.findByText('The run time is estimated once every field is valid.')).toBeInTheDocument();
+    await user.type(screen.getByLabelText('Name'), 'Monomial powers');
+
+    expect(await screen.findByText(/^Estimated run time: .+ on the 8 worker slots alive now\.$/, {}, { timeout: 5_000 })).toBeInTheDocument();
+    expect(screen.getByText(/^Timed from 6 points of this grid in your browser \([\d.]+ ms each\), times 10 points, shared among 8 slots\./)).toBeInTheDocument();
+  });
+
+  it('says when no worker is alive to run the scan', async () => {
+    mockForm({ 'GET /api/workers/pool': () => json(200, pool([])) });
+    const { user } = renderApp('/scans/new');
+
+    await user.type(await screen.findByLabelText('Name'), 'Monomial powers');
+    expect(await screen.findByText('No worker is alive', {}, { timeout: 5_000 })).toBeInTheDocument();
+    expect(screen.getByText(/The scan will wait in the queue until a worker starts/)).toBeInTheDocument();
+  });
+});

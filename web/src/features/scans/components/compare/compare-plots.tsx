@@ -1,0 +1,212 @@
+import { Checkbox, Field, Heading, HStack, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
+import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { useQueries } from '@tanstack/react-query';
+import { useNavigate } from 'react-router-dom';
+import { ErrorState } from '@/components/ui/error-state';
+import { LoadingState } from '@/components/ui/loading-state';
+import { Panel } from '@/components/ui/panel';
+import { paths } from '@/config/paths';
+import { getScanQueryOptions, isLive } from '../../api/get-scan';
+import { getScanGridQueryOptions } from '../../api/get-scan-grid';
+import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
+import { useViewParams } from '../../hooks/use-view-params';
+import { cellIndices, insideLimitsMask, pointIndexOf, sameCells, zRangeOf } from '../../utils/grid-cells';
+import { outputLabel } from '../../utils/output-labels';
+import { formatValue, inputLabel } from '../../utils/point-columns';
+import { ScanHeatmap } from '../heatmaps/scan-heatmap';
+import { LimitSetSelect } from '../limit-set-select';
+import { NsRPlane } from '../plane/ns-r-plane';
+import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
+
+/** What the side-by-side maps can show; one colour scale spans all of them. */
+export const COMPARED_OUTPUTS = ['ns', 'r', 'alphaS', 'nTotal', 'amplitudeScale'] as const satisfies readonly PointOutput[];
+type ComparedOutput = (typeof COMPARED_OUTPUTS)[number];
+
+/** Axis parameters every scan has, in the first scan's order: only those can be compared cell by cell. */
+export function commonAxes(specs: Pick<StoredScanSpec, 'axes'>[]): string[] {
+  if (specs.length === 0) return [];
+  const [first, ...rest] = specs;
+  return first.axes.map((axis) => axis.parameter).filter((name) => rest.every((spec) => spec.axes.some((axis) => axis.parameter === name)));
+}
+
+/** Each axis that is neither x nor y sits at its middle value, in each scan's own grid. */
+function middleOfOtherAxes(spec: StoredScanSpec, x: string, y: string): Record<string, number> {
+  const grid = new ScanGrid(spec.axes);
+  return Object.fromEntries(
+    spec.axes.flatMap((axis, a) => (axis.parameter === x || axis.parameter === y ? [] : [[axis.parameter, Math.floor((grid.lengths[a] - 1) / 2)]])),
+  );
+}
+
+/**
+ * Two to four scans side by side: the same output over the same two axes on one colour scale,
+ * then all of them on one n_s–r plane. Settings live in the address with the selection.
+ */
+export function ComparePlots({ scanIds }: { scanIds: number[] }) {
+  const details = useQueries({ queries: scanIds.map((id) => getScanQueryOptions(id)) });
+  const failed = details.find((query) => query.isError);
+  if (failed?.isError) return <ErrorState title="Could not load a scan to compare" error={failed.error} onRetry={() => failed.refetch()} />;
+  if (details.some((query) => !query.data)) return <LoadingState label="Loading the scans…" />;
+  return <ComparedScans scans={details.map((query) => query.data!)} />;
+}
+
+function ComparedScans({ scans }: { scans: ScanDetail[] }) {
+  const navigate = useNavigate();
+  const specs = scans.map((scan) => scan.spec as unknown as StoredScanSpec);
+  const axes = commonAxes(specs);
+  const [params, update] = useViewParams();
+
+  const outputParam = params.get('output');
+  const output: ComparedOutput = (COMPARED_OUTPUTS as readonly string[]).includes(outputParam ?? '') ? (outputParam as ComparedOutput) : 'ns';
+  const xParam = params.get('x');
+  const yParam = params.get('y');
+  const x = xParam && axes.includes(xParam) ? xParam : axes[0];
+  const y = yParam && axes.includes(yParam) && yParam !== x ? yParam : axes.find((name) => name !== x);
+  const outlined = params.get('outline') !== 'off';
+  const limits = findLimits(params.get('limits') ?? undefined);
+  const canMap = x !== undefined && y !== undefined;
+
+  // n_s and r of every scan (for the outline and hover), and the chosen output when it is another.
+  const outputs: ComparedOutput[] = output === 'ns' || output === 'r' ? ['ns', 'r'] : ['ns', 'r', output];
+  const sliceQueries = useQueries({
+    queries: canMap
+      ? scans.flatMap((scan, s) =>
+          outputs.map((o) => ({
+            ...getScanGridQueryOptions(scan.id, { x, y, output: o, at: middleOfOtherAxes(specs[s], x, y) }, { live: isLive(scan) }),
+          })),
+        )
+      : [],
+  });
+  const sliceOf = (s: number, o: ComparedOutput): ScanGridSlice | undefined => sliceQueries[s * outputs.length + outputs.indexOf(o)]?.data;
+  const shown = scans.map((_, s) => sliceOf(s, output));
+  const zRange = zRangeOf(shown.filter((slice): slice is ScanGridSlice => !!slice));
+  const sliceError = sliceQueries.find((query) => query.isError);
+
+  const planeQueries = useQueries({ queries: scans.map((scan) => getScanPlaneQueryOptions(scan.id, { live: isLive(scan) })) });
+  const series = scans.flatMap((scan, s) => {
+    const plane = planeQueries[s]?.data;
+    return plane ? [{ label: scan.name, plane }] : [];
+  });
+  const planeSettings: PlaneSettings = {
+    colorBy: null,
+    limitsKey: limits.key,
+    rScale: params.get('rscale') === 'log' ? 'log' : 'linear',
+    references: params.get('refs') !== 'off',
+  };
+  const onPlaneChange = (changes: Partial<PlaneSettings>) =>
+    update({
+      ...(changes.limitsKey !== undefined && { limits: changes.limitsKey }),
+      ...(changes.rScale !== undefined && { rscale: changes.rScale === 'log' ? 'log' : null }),
+      ...(changes.references !== undefined && { refs: changes.references ? null : 'off' }),
+    });
+
+  return (
+    <Stack gap="6">
+      <Stack gap="3">
+        <Heading as="h2" size="md" color="ink.900">
+          Heatmaps on one colour scale
+        </Heading>
+        {!canMap ? (
+          <Text color="fg.muted">
+            These scans share {axes.length === 0 ? 'no axis' : `only the axis ${inputLabel(axes[0])}`}, so their cells cannot be laid
+            side by side; the n_s–r plane below still compares them.
+          </Text>
+        ) : (
+          <>
+            <Panel p={{ base: '3', md: '4' }}>
+              <HStack gap="3" wrap="wrap" align="end">
+                <Choice label="Output" value={output} options={COMPARED_OUTPUTS.map((o) => [o, outputLabel(o)])} onChange={(next) => update({ output: next })} />
+                <Choice label="x axis" value={x} options={axes.map((a) => [a, inputLabel(a)])} onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })} />
+                <Choice label="y axis" value={y} options={axes.filter((a) => a !== x).map((a) => [a, inputLabel(a)])} onChange={(next) => update({ y: next })} />
+                <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
+                <Checkbox.Root
+                  checked={outlined}
+                  onCheckedChange={(details) => update({ outline: details.checked === true ? null : 'off' })}
+                  colorPalette="ember"
+                  size="sm"
+                  pb="2"
+                >
+                  <Checkbox.HiddenInput />
+                  <Checkbox.Control />
+                  <Checkbox.Label>Outline cells inside the limits</Checkbox.Label>
+                </Checkbox.Root>
+              </HStack>
+              <Text fontSize="xs" color="fg.muted" mt="3">
+                {zRange
+                  ? `One colour scale for every scan: ${outputLabel(output)} from ${formatValue(zRange[0])} to ${formatValue(zRange[1])}.`
+                  : 'No stored values yet.'}{' '}
+                Other axes sit at their middle value in each scan.
+              </Text>
+            </Panel>
+            {sliceError?.isError && <ErrorState title="Could not load a heatmap" error={sliceError.error} onRetry={() => sliceError.refetch()} />}
+            <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+              {scans.map((scan, s) => {
+                const slice = shown[s];
+                const ns = sliceOf(s, 'ns');
+                const r = sliceOf(s, 'r');
+                const matched = slice && ns && r && sameCells(ns, r) && sameCells(slice, ns);
+                const grid = new ScanGrid(specs[s].axes);
+                const names = specs[s].axes.map((axis) => axis.parameter);
+                return (
+                  <Panel key={scan.id} p={{ base: '3', md: '4' }} minW="0">
+                    {slice ? (
+                      <ScanHeatmap
+                        title={`${scan.name} — ${outputLabel(output)}`}
+                        slice={slice}
+                        zRange={zRange}
+                        hoverSlices={matched ? [ns, r] : undefined}
+                        outline={outlined && matched ? insideLimitsMask(ns, r, limits) : null}
+                        onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, pointIndexOf(grid.lengths, cellIndices(names, slice, ix, iy))))}
+                      />
+                    ) : (
+                      <LoadingState label={`Loading ${scan.name}…`} />
+                    )}
+                  </Panel>
+                );
+              })}
+            </SimpleGrid>
+          </>
+        )}
+      </Stack>
+
+      <Stack gap="3">
+        <Heading as="h2" size="md" color="ink.900">
+          Together on the n_s–r plane
+        </Heading>
+        <Panel p={{ base: '3', md: '4' }}>
+          <PlaneControls settings={planeSettings} onChange={onPlaneChange} />
+        </Panel>
+        <Panel p={{ base: '3', md: '4' }}>
+          {series.length < scans.length ? (
+            <LoadingState label="Loading the n_s–r planes…" />
+          ) : (
+            <NsRPlane
+              series={series}
+              limits={limits}
+              rScale={planeSettings.rScale}
+              references={planeSettings.references}
+              onPointClick={({ series: s, pointIndex }) => navigate(paths.point.getHref(scans[s].id, pointIndex))}
+            />
+          )}
+        </Panel>
+      </Stack>
+    </Stack>
+  );
+}
+
+function Choice({ label, value, options, onChange }: { label: string; value: string; options: [string, string][]; onChange: (value: string) => void }) {
+  return (
+    <Field.Root w="auto" minW="36">
+      <Field.Label fontSize="sm">{label}</Field.Label>
+      <NativeSelect.Root size="sm">
+        <NativeSelect.Field bg="bg.panel" value={value} onChange={(event) => onChange(event.target.value)}>
+          {options.map(([key, text]) => (
+            <option key={key} value={key}>
+              {text}
+            </option>
+          ))}
+        </NativeSelect.Field>
+        <NativeSelect.Indicator />
+      </NativeSelect.Root>
+    </Field.Root>
+  );
+}

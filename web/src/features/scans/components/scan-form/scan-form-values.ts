@@ -1,0 +1,321 @@
+import { zodResolver } from '@hookform/resolvers/zod';
+import {
+  createScanSchema, findFamily, PIVOT_AXES, POTENTIAL_FAMILIES, type CreateScan, type ModelParameter, type PivotAxis,
+  type PotentialModel, type ScanModel,
+} from '@sixtyfold/shared';
+import { set, type FieldErrors, type Resolver } from 'react-hook-form';
+
+/**
+ * The form edits a scan in the shape of `createScanSchema`, with the same field names, so the
+ * schema's error paths and the API's `fieldErrors` land on the right inputs unchanged. Three
+ * fields hold text while being edited and become the schema's values in `toScanInput`:
+ * `tags` (comma separated), `model` ("family:<key>" or "group:<id>") and a list axis' `values`.
+ */
+export interface ScanFormValues {
+  groupId: number | undefined;
+  name: string;
+  tags: string;
+  note: string;
+  model: string;
+  params: Record<string, number | undefined>;
+  phiInit: number | undefined;
+  axes: AxisDraft[];
+  /** Every pivot value at once, so switching between fixed and reheating loses nothing. */
+  pivot: { kind: 'fixed' | 'reheating'; nStar: number | undefined; w: number | undefined; energyGeV: number | undefined };
+  method: CreateScan['method'];
+  tolerance: number | undefined;
+}
+
+/** One axis with both kinds' fields, so switching between range and list loses nothing. */
+export interface AxisDraft {
+  parameter: string;
+  kind: 'range' | 'list';
+  min: number | undefined;
+  max: number | undefined;
+  count: number | undefined;
+  spacing: 'linear' | 'log';
+  /** The pasted list, as typed. */
+  values: string;
+}
+
+export const MAX_AXES = 4;
+
+/** Which pivot value each pivot axis replaces. */
+export const PIVOT_FIELDS: Record<PivotAxis, 'nStar' | 'w' | 'energyGeV'> = { nStar: 'nStar', reheatingW: 'w', reheatingEnergyGeV: 'energyGeV' };
+
+/** What the axis menu calls the pivot quantities, and the range a new axis over them starts with. */
+export const PIVOT_AXIS_INFO: Record<PivotAxis, { label: string; axis: Pick<AxisDraft, 'min' | 'max' | 'spacing'> }> = {
+  nStar: { label: 'N_* (needs a fixed pivot)', axis: { min: 50, max: 60, spacing: 'linear' } },
+  reheatingW: { label: 'w_reh (needs N_* from reheating)', axis: { min: -0.3, max: 1, spacing: 'linear' } },
+  reheatingEnergyGeV: { label: 'ρ_reh^1/4 in GeV (needs N_* from reheating)', axis: { min: 1e4, max: 1e15, spacing: 'log' } },
+};
+
+// Usual starting values: N_* in the commonly quoted 50–60 window, matter-like reheating, a mid-range scale.
+export const PIVOT_DEFAULTS = { nStar: 55, w: 0, energyGeV: 1e10 } as const;
+
+const DEFAULT_COUNT = 10;
+export const DEFAULT_FAMILY = POTENTIAL_FAMILIES[0].key;
+
+export const familyModelKey = (family: string) => `family:${family}`;
+export const groupModelKey = (modelId: number) => `group:${modelId}`;
+
+export function decodeModel(key: string): ScanModel | undefined {
+  const [kind, value] = key.split(':');
+  if (kind === 'family' && value) return { kind: 'family', family: value };
+  if (kind === 'group' && Number(value) > 0) return { kind: 'group', modelId: Number(value) };
+  return undefined;
+}
+
+/** The parameters, the source the engine evaluates, and the start φ of the chosen model. */
+export interface ChosenModel {
+  parameters: ModelParameter[];
+  /** A family's key or a group model's expression, as the API stores in `potentialSource`. */
+  source: string;
+  phiInit: number | null;
+  expression: string;
+  reference: string | null;
+}
+
+export function chosenModel(key: string, models: PotentialModel[]): ChosenModel | undefined {
+  const model = decodeModel(key);
+  if (model?.kind === 'family') {
+    const family = findFamily(model.family);
+    return family && { parameters: family.parameters, source: family.key, phiInit: null, expression: family.expression, reference: family.reference };
+  }
+  const row = model && models.find((m) => m.id === model.modelId);
+  return row && { parameters: row.parameters, source: row.expression, phiInit: row.phiInit, expression: row.expression, reference: null };
+}
+
+export const isPivotAxis = (name: string): name is PivotAxis => (PIVOT_AXES as readonly string[]).includes(name);
+
+/** A fresh axis over `parameter`, spanning its suggested range. */
+export function axisOver(parameter: string, parameters: ModelParameter[]): AxisDraft {
+  const base = { parameter, kind: 'range' as const, count: DEFAULT_COUNT, values: '' };
+  if (isPivotAxis(parameter)) return { ...base, ...PIVOT_AXIS_INFO[parameter].axis };
+  const p = parameters.find((q) => q.name === parameter);
+  if (!p) return { ...base, min: undefined, max: undefined, spacing: 'linear' };
+  const spread = Math.abs(p.defaultValue) || 1;
+  const min = p.min ?? p.defaultValue - spread / 2;
+  const max = p.max ?? p.defaultValue + spread / 2;
+  // Ranges over several decades (overall scales, couplings) read best on a log axis.
+  const spacing = min > 0 && max / min >= 1e3 ? 'log' : 'linear';
+  return { ...base, min, max, spacing };
+}
+
+/**
+ * The axis "Add axis" creates: over a model parameter no axis varies yet. The families list their
+ * overall scale first, so the last free parameter is usually one that changes the predictions.
+ */
+export function nextAxis(parameters: ModelParameter[], axes: Pick<AxisDraft, 'parameter'>[]): AxisDraft {
+  const taken = new Set(axes.map((a) => a.parameter));
+  const free = parameters.filter((p) => !taken.has(p.name));
+  const parameter = free.at(-1)?.name ?? (taken.has('nStar') ? '' : 'nStar');
+  return axisOver(parameter, parameters);
+}
+
+/** A new scan in `groupId`: the first family, one axis, N_* = 55, slow-roll. */
+export function blankValues(groupId: number | undefined): ScanFormValues {
+  const family = findFamily(DEFAULT_FAMILY)!;
+  const axes = [nextAxis(family.parameters, [])];
+  return {
+    groupId,
+    name: '',
+    tags: '',
+    note: '',
+    model: familyModelKey(family.key),
+    params: fixedParams(family.parameters, axes),
+    phiInit: undefined,
+    axes,
+    pivot: { kind: 'fixed', ...PIVOT_DEFAULTS },
+    method: 'slowroll',
+    tolerance: undefined,
+  };
+}
+
+/** Defaults for every model parameter that no axis varies. */
+export function fixedParams(parameters: ModelParameter[], axes: Pick<AxisDraft, 'parameter'>[]): Record<string, number | undefined> {
+  const onAxis = new Set(axes.map((a) => a.parameter));
+  return Object.fromEntries(parameters.filter((p) => !onAxis.has(p.name)).map((p) => [p.name, p.defaultValue]));
+}
+
+/**
+ * The fixed values after the axes changed from `before` to `values.axes`. What went onto an axis
+ * is no longer fixed (the schema refuses both); what came off gets its default back; the rest
+ * keeps what the user typed.
+ */
+export function syncFixedValues(
+  values: Pick<ScanFormValues, 'params' | 'pivot' | 'axes'>,
+  before: string[],
+  parameters: ModelParameter[],
+): Pick<ScanFormValues, 'params' | 'pivot'> {
+  const now = new Set(values.axes.map((a) => a.parameter));
+  const params: Record<string, number | undefined> = {};
+  for (const p of parameters) {
+    if (now.has(p.name)) continue;
+    params[p.name] = before.includes(p.name) || !(p.name in values.params) ? p.defaultValue : values.params[p.name];
+  }
+  const pivot = { ...values.pivot };
+  for (const [axis, field] of Object.entries(PIVOT_FIELDS) as [PivotAxis, 'nStar' | 'w' | 'energyGeV'][]) {
+    if (now.has(axis)) pivot[field] = undefined;
+    else if (before.includes(axis)) pivot[field] = PIVOT_DEFAULTS[field];
+  }
+  return { params, pivot };
+}
+
+/**
+ * The values after choosing another model: axes over parameters it lacks move to ones it has,
+ * its parameters start from their defaults, and φ_init from the model's own start (families
+ * find theirs, so it is left empty for them).
+ */
+export function withModel(values: ScanFormValues, modelKey: string, models: PotentialModel[]): ScanFormValues {
+  const model = chosenModel(modelKey, models);
+  const parameters = model?.parameters ?? [];
+  const keep = (axis: AxisDraft) => isPivotAxis(axis.parameter) || parameters.some((p) => p.name === axis.parameter);
+  const taken = values.axes.filter(keep);
+  const axes = values.axes.map((axis) => {
+    if (keep(axis)) return axis;
+    const replacement = nextAxis(parameters, taken);
+    taken.push(replacement);
+    return replacement;
+  });
+  const fixed = syncFixedValues({ params: {}, pivot: values.pivot, axes }, values.axes.map((a) => a.parameter), parameters);
+  return { ...values, model: modelKey, axes, ...fixed, phiInit: model?.phiInit ?? undefined };
+}
+
+/** The values in another group: a model of the previous group gives way to the first family. */
+export function withGroup(values: ScanFormValues, groupId: number, models: PotentialModel[]): ScanFormValues {
+  const model = decodeModel(values.model);
+  const next = { ...values, groupId };
+  const foreign = model?.kind === 'group' && !models.some((m) => m.id === model.modelId && m.groupId === groupId);
+  return foreign ? withModel(next, familyModelKey(DEFAULT_FAMILY), models) : next;
+}
+
+/** The values after axis `index` took `parameter`, spanning that parameter's suggested range. */
+export function withAxisParameter(values: ScanFormValues, index: number, parameter: string, parameters: ModelParameter[]): ScanFormValues {
+  const before = values.axes.map((a) => a.parameter);
+  const { min, max, spacing } = axisOver(parameter, parameters);
+  const axes = values.axes.map((axis, i) => (i === index ? { ...axis, parameter, min, max, spacing } : axis));
+  return { ...values, axes, ...syncFixedValues({ ...values, axes }, before, parameters) };
+}
+
+/** Points of the grid the axes describe, or null while an axis has no length yet. */
+export function countPoints(axes: AxisDraft[]): number | null {
+  let total = 1;
+  for (const axis of axes) {
+    const length = axis.kind === 'range' ? axis.count : parseNumberList(axis.values).values.length;
+    if (!length || !Number.isInteger(length) || length < 1) return null;
+    total *= length;
+  }
+  return total;
+}
+
+/** The form values of an earlier scan's stored specification, named "Copy of …"; null if it does not read as a scan. */
+export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | null {
+  const parsed = createScanSchema.safeParse(spec);
+  if (!parsed.success) return null;
+  const s = parsed.data;
+  return {
+    groupId: s.groupId,
+    name: `Copy of ${name}`.slice(0, 200),
+    tags: s.tags.join(', '),
+    note: s.note,
+    model: s.model.kind === 'family' ? familyModelKey(s.model.family) : groupModelKey(s.model.modelId),
+    params: { ...s.params },
+    phiInit: s.phiInit,
+    axes: s.axes.map((axis) =>
+      axis.kind === 'range'
+        ? { parameter: axis.parameter, kind: 'range', min: axis.min, max: axis.max, count: axis.count, spacing: axis.spacing, values: '' }
+        : { parameter: axis.parameter, kind: 'list', min: undefined, max: undefined, count: undefined, spacing: 'linear', values: axis.values.join(', ') },
+    ),
+    pivot:
+      s.pivot.kind === 'fixed'
+        ? { kind: 'fixed', nStar: s.pivot.nStar, w: PIVOT_DEFAULTS.w, energyGeV: PIVOT_DEFAULTS.energyGeV }
+        : { kind: 'reheating', nStar: PIVOT_DEFAULTS.nStar, w: s.pivot.w, energyGeV: s.pivot.energyGeV },
+    method: s.method,
+    tolerance: s.tolerance,
+  };
+}
+
+/** What a number input gives: a number, or undefined when empty so the schema's own message shows. */
+export function toNumber(value: unknown): number | undefined {
+  if (typeof value === 'number') return Number.isFinite(value) ? value : undefined;
+  if (typeof value !== 'string' || value.trim() === '') return undefined;
+  const n = Number(value);
+  return Number.isFinite(n) ? n : undefined;
+}
+
+/** Numbers separated by commas, spaces or newlines; the tokens that are not numbers, by name. */
+export function parseNumberList(text: string): { values: number[]; bad: string[] } {
+  const values: number[] = [];
+  const bad: string[] = [];
+  for (const token of text.split(/[\s,]+/).filter(Boolean)) {
+    const n = Number(token);
+    if (Number.isFinite(n)) values.push(n);
+    else bad.push(token);
+  }
+  return { values, bad };
+}
+
+function badTokensMessage(bad: string[]): string {
+  const quoted = bad.slice(0, 3).map((t) => `“${t}”`);
+  if (bad.length === 1) return `${quoted[0]} is not a number`;
+  const more = bad.length > 3 ? ` and ${bad.length - 3} more` : '';
+  return `${quoted.join(', ')}${more} are not numbers`;
+}
+
+/**
+ * The body `POST /api/scans` would receive, before the schema checks it, and the problems only
+ * the form can see (words in a pasted list), by field path.
+ */
+export function toScanInput(values: ScanFormValues): { input: unknown; problems: Record<string, string> } {
+  const problems: Record<string, string> = {};
+  const axes = values.axes.map((axis, i) => {
+    if (axis.kind === 'range') {
+      const { parameter, kind, min, max, count, spacing } = axis;
+      return { parameter, kind, min, max, count, spacing };
+    }
+    const { values: numbers, bad } = parseNumberList(axis.values);
+    if (bad.length) problems[`axes.${i}.values`] = badTokensMessage(bad);
+    return { parameter: axis.parameter, kind: axis.kind, values: numbers };
+  });
+  const { kind, nStar, w, energyGeV } = values.pivot;
+  const input = {
+    groupId: values.groupId,
+    name: values.name,
+    tags: values.tags.split(',').map((t) => t.trim()).filter(Boolean),
+    note: values.note,
+    model: decodeModel(values.model),
+    params: values.params,
+    phiInit: values.phiInit,
+    axes,
+    pivot: kind === 'fixed' ? { kind, nStar } : { kind, w, energyGeV },
+    method: values.method,
+    tolerance: values.tolerance,
+  };
+  return { input, problems };
+}
+
+const schemaResolver = zodResolver(createScanSchema);
+
+/** Validates with `createScanSchema`, the schema the API uses, after `toScanInput`. */
+export const scanFormResolver: Resolver<ScanFormValues, unknown, CreateScan> = async (values, context, options) => {
+  const { input, problems } = toScanInput(values);
+  const result = await schemaResolver(input as never, context, options as never);
+  const errors = { ...result.errors } as FieldErrors<ScanFormValues>;
+  for (const [path, message] of Object.entries(problems)) set(errors, path, { type: 'custom', message });
+  if (Object.keys(errors).length > 0) return { values: {}, errors };
+  return { values: result.values as CreateScan, errors: {} };
+};
+
+/** The first message under a field's errors, for fields the schema checks item by item (tags, a list). */
+export function firstMessage(error: unknown): string | undefined {
+  if (!error || typeof error !== 'object') return undefined;
+  const { message } = error as { message?: unknown };
+  if (typeof message === 'string' && message) return message;
+  for (const [key, child] of Object.entries(error)) {
+    if (key === 'ref') continue;
+    const found = firstMessage(child);
+    if (found) return found;
+  }
+  return undefined;
+}

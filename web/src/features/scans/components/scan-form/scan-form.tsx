@@ -1,0 +1,383 @@
+import { Alert, Box, Button, Code, Field, Fieldset, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
+import { createScanSchema, POTENTIAL_FAMILIES, type CreateScan, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { useRef, type ReactNode } from 'react';
+import { useFieldArray, useForm, useWatch, type FieldPath } from 'react-hook-form';
+import { errorAdvice } from '@/components/ui/error-state';
+import { ApiRequestError } from '@/lib/api-client';
+import { useCreateScan } from '../../api/create-scan';
+import { methodLabels } from '../../utils/scan-labels';
+import { AxisFields } from './axis-fields';
+import { LaunchSummary, type WorkerSlots } from './launch-summary';
+import {
+  chosenModel, countPoints, familyModelKey, firstMessage, groupModelKey, MAX_AXES, nextAxis, scanFormResolver, syncFixedValues, toNumber,
+  toScanInput, withAxisParameter, withGroup, withModel, type ScanFormValues,
+} from './scan-form-values';
+import { useRunEstimate } from './use-run-estimate';
+
+export interface LaunchGroup {
+  id: number;
+  name: string;
+}
+
+interface ScanFormProps {
+  /** Groups where I may launch scans. */
+  groups: LaunchGroup[];
+  /** Group models; the form offers those of the chosen group. */
+  models: PotentialModel[];
+  initialValues: ScanFormValues;
+  /** Total concurrency of the live workers, for the run-time estimate. */
+  workerSlots: WorkerSlots;
+  onLaunched: (scan: ScanDetail) => void;
+}
+
+const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+export function ScanForm({ groups, models, initialValues, workerSlots, onLaunched }: ScanFormProps) {
+  const {
+    register,
+    control,
+    handleSubmit,
+    getValues,
+    setValue,
+    setError,
+    trigger,
+    formState: { errors, isSubmitted },
+  } = useForm<ScanFormValues, unknown, CreateScan>({ resolver: scanFormResolver, defaultValues: initialValues });
+  const axisArray = useFieldArray({ control, name: 'axes' });
+  const values = useWatch({ control }) as ScanFormValues;
+  const addAxisButton = useRef<HTMLButtonElement>(null);
+  const launch = useCreateScan({ onSuccess: onLaunched });
+
+  const groupModels = models.filter((m) => m.groupId === values.groupId);
+  const model = chosenModel(values.model, models);
+  const parameters = model?.parameters ?? [];
+  const onAxis = new Set(values.axes.map((a) => a.parameter));
+  const fixedParameters = parameters.filter((p) => !onAxis.has(p.name));
+
+  // The same check as the submit button, on every edit, so the summary only times a valid scan.
+  const { input, problems } = toScanInput(values);
+  const parsed = createScanSchema.safeParse(input);
+  const spec = parsed.success && model && Object.keys(problems).length === 0 ? { ...parsed.data, phiInit: parsed.data.phiInit ?? model.phiInit ?? undefined } : null;
+  const estimate = useRunEstimate(spec, model?.source ?? null);
+
+  /** Writes back what a change implies elsewhere (fixed values, axes), field by field so no input remounts. */
+  const apply = (next: ScanFormValues) => {
+    const current = getValues();
+    for (const key of Object.keys(next) as (keyof ScanFormValues)[]) {
+      if (key === 'axes') {
+        next.axes.forEach((axis, i) => !same(axis, current.axes[i]) && setValue(`axes.${i}`, axis));
+      } else if (!same(next[key], current[key])) {
+        setValue(key, next[key]);
+      }
+    }
+    // After a failed launch, errors follow the edits; before it, the form stays quiet.
+    if (isSubmitted) void trigger();
+  };
+  const syncAfterAxes = (before: string[]) => apply({ ...getValues(), ...syncFixedValues(getValues(), before, parameters) });
+  const axisNames = () => getValues('axes').map((a) => a.parameter);
+
+  const addAxis = () => {
+    const before = axisNames();
+    axisArray.append(nextAxis(parameters, getValues('axes')));
+    syncAfterAxes(before);
+  };
+  const removeAxis = (index: number) => {
+    const before = axisNames();
+    axisArray.remove(index);
+    syncAfterAxes(before);
+    addAxisButton.current?.focus();
+  };
+
+  const onSubmit = handleSubmit((scan) =>
+    launch.mutate(scan, {
+      onError: (error) => {
+        // The API checks with the same schema and more (the model, the point limit): show its words where they belong.
+        if (!(error instanceof ApiRequestError) || error.status !== 400) return;
+        for (const [field, messages] of Object.entries(error.fieldErrors)) {
+          if (messages[0]) setError(field as FieldPath<ScanFormValues>, { type: 'server', message: messages[0] });
+        }
+      },
+    }),
+  );
+
+  const refused = launch.error instanceof ApiRequestError && launch.error.status === 400;
+  const axesError = errors.axes?.message ?? errors.axes?.root?.message;
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="New scan">
+      <Stack gap="8">
+        <Fieldset.Root>
+          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
+            The scan
+          </Fieldset.Legend>
+          <Stack gap="4">
+            <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+              <Field.Root invalid={!!errors.groupId}>
+                <Field.Label>Group</Field.Label>
+                <NativeSelect.Root>
+                  <NativeSelect.Field
+                    bg="bg.panel"
+                    {...register('groupId', { setValueAs: toNumber })}
+                    value={values.groupId ?? ''}
+                    onChange={(event) => apply(withGroup(getValues(), Number(event.target.value), models))}
+                  >
+                    {groups.map((g) => (
+                      <option key={g.id} value={g.id}>
+                        {g.name}
+                      </option>
+                    ))}
+                  </NativeSelect.Field>
+                  <NativeSelect.Indicator />
+                </NativeSelect.Root>
+                <Field.ErrorText>{errors.groupId?.message}</Field.ErrorText>
+              </Field.Root>
+              <Field.Root invalid={!!errors.name}>
+                <Field.Label>Name</Field.Label>
+                <Input bg="bg.panel" autoComplete="off" placeholder="e.g. T-model, α from 0.1 to 10" {...register('name')} />
+                <Field.ErrorText>{errors.name?.message}</Field.ErrorText>
+              </Field.Root>
+            </SimpleGrid>
+            <Field.Root invalid={!!errors.tags}>
+              <Field.Label>Tags</Field.Label>
+              <Input bg="bg.panel" autoComplete="off" placeholder="plateau, draft" {...register('tags')} />
+              <Field.HelperText>Separated by commas; the scans list can filter by them.</Field.HelperText>
+              <Field.ErrorText>{firstMessage(errors.tags)}</Field.ErrorText>
+            </Field.Root>
+            <Field.Root invalid={!!errors.note}>
+              <Field.Label>Note</Field.Label>
+              <Textarea bg="bg.panel" rows={2} placeholder="What this scan is for" {...register('note')} />
+              <Field.ErrorText>{errors.note?.message}</Field.ErrorText>
+            </Field.Root>
+          </Stack>
+        </Fieldset.Root>
+
+        <Fieldset.Root>
+          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
+            Potential
+          </Fieldset.Legend>
+          <Stack gap="4">
+            <Field.Root invalid={!!errors.model || !model}>
+              <Field.Label>Model</Field.Label>
+              <NativeSelect.Root>
+                <NativeSelect.Field
+                  bg="bg.panel"
+                  {...register('model')}
+                  // Controlled: its options depend on the group, and a changing option list must keep the choice.
+                  value={values.model}
+                  onChange={(event) => apply(withModel(getValues(), event.target.value, models))}
+                >
+                  <optgroup label="Built-in families">
+                    {POTENTIAL_FAMILIES.map((family) => (
+                      <option key={family.key} value={familyModelKey(family.key)}>
+                        {family.name}
+                      </option>
+                    ))}
+                  </optgroup>
+                  {groupModels.length > 0 && (
+                    <optgroup label={`Models of ${groups.find((g) => g.id === values.groupId)?.name ?? 'this group'}`}>
+                      {groupModels.map((m) => (
+                        <option key={m.id} value={groupModelKey(m.id)}>
+                          {m.name}
+                        </option>
+                      ))}
+                    </optgroup>
+                  )}
+                  {!model && <option value={values.model}>A model that is no longer available</option>}
+                </NativeSelect.Field>
+                <NativeSelect.Indicator />
+              </NativeSelect.Root>
+              {model ? (
+                <Field.HelperText>
+                  V(φ) ={' '}
+                  <Code fontFamily="mono" fontSize="xs" bg="ink.subtle" color="ink.fg" whiteSpace="normal" wordBreak="break-word">
+                    {model.expression}
+                  </Code>
+                  {model.reference && <> · {model.reference}</>}
+                </Field.HelperText>
+              ) : (
+                <Field.ErrorText>This model is not in the chosen group any more; choose another.</Field.ErrorText>
+              )}
+              <Field.ErrorText>{firstMessage(errors.model)}</Field.ErrorText>
+            </Field.Root>
+
+            {fixedParameters.length > 0 && (
+              <Box>
+                <Text fontSize="sm" fontWeight="500" mb="2">
+                  Fixed parameters
+                </Text>
+                <SimpleGrid columns={{ base: 1, sm: 2, lg: 3 }} gap="4">
+                  {fixedParameters.map((p) => (
+                    <Field.Root key={p.name} invalid={!!errors.params?.[p.name]}>
+                      <Field.Label fontFamily="mono">{p.name}</Field.Label>
+                      <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register(`params.${p.name}`, { setValueAs: toNumber })} />
+                      {p.description && <Field.HelperText>{p.description}</Field.HelperText>}
+                      <Field.ErrorText>{errors.params?.[p.name]?.message}</Field.ErrorText>
+                    </Field.Root>
+                  ))}
+                </SimpleGrid>
+              </Box>
+            )}
+
+            <Field.Root invalid={!!errors.phiInit} maxW={{ md: 'xs' }}>
+              <Field.Label>φ_init</Field.Label>
+              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('phiInit', { setValueAs: toNumber })} />
+              <Field.HelperText>
+                {values.model.startsWith('family:')
+                  ? 'Optional: a built-in family starts about 75 e-folds before the end of inflation.'
+                  : 'Where the field starts rolling, from the model unless you change it.'}
+              </Field.HelperText>
+              <Field.ErrorText>{errors.phiInit?.message}</Field.ErrorText>
+            </Field.Root>
+          </Stack>
+        </Fieldset.Root>
+
+        <Fieldset.Root invalid={!!axesError}>
+          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900">
+            Axes
+          </Fieldset.Legend>
+          <Fieldset.HelperText mb="3">
+            Up to {MAX_AXES}. The grid is every combination of their values; the last axis runs fastest.
+          </Fieldset.HelperText>
+          <Stack gap="4">
+            {axisArray.fields.map((field, index) => (
+              <AxisFields
+                key={field.id}
+                index={index}
+                kind={values.axes[index]?.kind ?? 'range'}
+                parameter={values.axes[index]?.parameter ?? ''}
+                parameters={parameters}
+                register={register}
+                errors={errors.axes?.[index]}
+                onParameterChange={(parameter) => apply(withAxisParameter(getValues(), index, parameter, parameters))}
+                onRemove={axisArray.fields.length > 1 ? () => removeAxis(index) : undefined}
+              />
+            ))}
+            {axesError && <Fieldset.ErrorText>{axesError}</Fieldset.ErrorText>}
+            <Button
+              ref={addAxisButton}
+              alignSelf="start"
+              variant="outline"
+              size="sm"
+              onClick={addAxis}
+              disabled={axisArray.fields.length >= MAX_AXES}
+            >
+              Add axis
+            </Button>
+          </Stack>
+        </Fieldset.Root>
+
+        <Fieldset.Root>
+          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
+            Pivot and method
+          </Fieldset.Legend>
+          <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
+            <Field.Root>
+              <Field.Label>Pivot</Field.Label>
+              <NativeSelect.Root>
+                <NativeSelect.Field bg="bg.panel" {...register('pivot.kind')}>
+                  <option value="fixed">Fixed N_*</option>
+                  <option value="reheating">N_* from reheating</option>
+                </NativeSelect.Field>
+                <NativeSelect.Indicator />
+              </NativeSelect.Root>
+              <Field.HelperText>
+                {values.pivot.kind === 'fixed'
+                  ? 'The pivot leaves the horizon N_* e-folds before the end of inflation.'
+                  : 'N_* follows from the reheating history: its equation of state and the energy where radiation takes over.'}
+              </Field.HelperText>
+            </Field.Root>
+            {values.pivot.kind === 'fixed' ? (
+              <PivotValue label="N_*" onAxisNote={onAxis.has('nStar') ? 'N_* varies on an axis.' : null} error={errors.pivot?.nStar?.message}>
+                <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.nStar', { setValueAs: toNumber })} />
+              </PivotValue>
+            ) : (
+              <>
+                <PivotValue label="w_reh" onAxisNote={onAxis.has('reheatingW') ? 'w_reh varies on an axis.' : null} error={errors.pivot?.w?.message}>
+                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.w', { setValueAs: toNumber })} />
+                </PivotValue>
+                <PivotValue
+                  label="ρ_reh^1/4 (GeV)"
+                  onAxisNote={onAxis.has('reheatingEnergyGeV') ? 'The reheating energy varies on an axis.' : null}
+                  error={errors.pivot?.energyGeV?.message}
+                >
+                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.energyGeV', { setValueAs: toNumber })} />
+                </PivotValue>
+              </>
+            )}
+            <Field.Root>
+              <Field.Label>Method</Field.Label>
+              <NativeSelect.Root>
+                <NativeSelect.Field bg="bg.panel" {...register('method')}>
+                  <option value="slowroll">{methodLabels.slowroll}</option>
+                  <option value="exact">{methodLabels.exact}</option>
+                </NativeSelect.Field>
+                <NativeSelect.Indicator />
+              </NativeSelect.Root>
+              <Field.HelperText>
+                {values.method === 'slowroll'
+                  ? 'Observables from the slow-roll parameters at the pivot: fast.'
+                  : 'Solves the mode equation for the spectra near the pivot: slower, exact.'}
+              </Field.HelperText>
+            </Field.Root>
+            <Field.Root invalid={!!errors.tolerance}>
+              <Field.Label>Tolerance</Field.Label>
+              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" placeholder="engine default" {...register('tolerance', { setValueAs: toNumber })} />
+              <Field.HelperText>Optional relative tolerance of the integrator, between 1e-14 and 1e-4.</Field.HelperText>
+              <Field.ErrorText>{errors.tolerance?.message}</Field.ErrorText>
+            </Field.Root>
+          </SimpleGrid>
+        </Fieldset.Root>
+
+        <LaunchSummary points={countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
+
+        {launch.isError && (
+          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
+            <Alert.Indicator />
+            <Alert.Content>
+              <Alert.Title>{refused ? 'The server refused this scan' : 'Could not launch the scan'}</Alert.Title>
+              <Alert.Description>
+                {launch.error.message}
+                {refused ? ' Correct the marked fields and launch again.' : ` ${errorAdvice(launch.error)}`}
+              </Alert.Description>
+            </Alert.Content>
+          </Alert.Root>
+        )}
+
+        <Button type="submit" colorPalette="ember" alignSelf={{ base: 'stretch', sm: 'start' }} loading={launch.isPending} loadingText="Launching…">
+          Launch scan
+        </Button>
+      </Stack>
+    </form>
+  );
+}
+
+interface PivotValueProps {
+  label: string;
+  /** Set when an axis varies this value, which then has no fixed value. */
+  onAxisNote: string | null;
+  error: string | undefined;
+  children: ReactNode;
+}
+
+function PivotValue({ label, onAxisNote, error, children }: PivotValueProps) {
+  if (onAxisNote) {
+    return (
+      <Stack gap="1.5" justify="center">
+        <Text fontSize="sm" fontWeight="500">
+          {label}
+        </Text>
+        <Text fontSize="sm" color="fg.muted">
+          {onAxisNote}
+        </Text>
+        {error && <Text fontSize="sm" color="fg.error">{error}</Text>}
+      </Stack>
+    );
+  }
+  return (
+    <Field.Root invalid={!!error}>
+      <Field.Label>{label}</Field.Label>
+      {children}
+      <Field.ErrorText>{error}</Field.ErrorText>
+    </Field.Root>
+  );
+}
