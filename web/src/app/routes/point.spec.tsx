@@ -57,7 +57,7 @@ describe('point page', () => {
     expect(inputs).toHaveTextContent('lambda1.0000e-10fixed');
     expect(inputs).toHaveTextContent('φ_init16');
 
-    // Every output agrees to the last bit, printed in full.
+    // The same engine on the same JavaScript engine: every output agrees to the last bit, printed in full.
     await waitFor(() => expect(screen.getAllByText('identical')).toHaveLength(11), slow);
     expect(outputRow('n_s')).toHaveTextContent(`n_s${String(stored.ns)}${String(stored.ns)}identical`);
 
@@ -77,16 +77,17 @@ describe('point page', () => {
     expect(screen.queryByRole('button', { name: 'Compute the spectrum' })).not.toBeInTheDocument();
   });
 
-  it('says when a stored value does not match what the engine gives now', async () => {
+  it('tells rounding apart from a stored value that does not match what the engine gives now', async () => {
     const stored = storedPoint(chaotic, 0);
     mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
       'GET /api/scans/42': () => json(200, scanDetail({}, chaotic)),
-      'GET /api/scans/42/points/0': () => json(200, { ...stored, r: stored.r! * (1 + 1e-12) }),
+      'GET /api/scans/42/points/0': () => json(200, { ...stored, r: stored.r! * (1 + 1e-3), alphaS: stored.alphaS! * (1 + 1e-12) }),
     });
     renderApp('/scans/42/points/0');
 
-    await waitFor(() => expect(within(outputRow('r')).getByText('differs')).toBeInTheDocument(), slow);
+    await waitFor(() => expect(within(outputRow('r')).getByText('differs by 1.0e-3')).toBeInTheDocument(), slow);
+    expect(within(outputRow('α_s')).getByText('rounding by 1.0e-12')).toBeInTheDocument();
     expect(within(outputRow('n_s')).getByText('identical')).toBeInTheDocument();
     expect(screen.getByRole('button', { name: 'Previous point' })).toBeDisabled();
     expect(screen.getByRole('link', { name: 'Next point' })).toHaveAttribute('href', '/scans/42/points/1');

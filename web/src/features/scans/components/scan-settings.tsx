@@ -21,7 +21,7 @@ function axisText(axis: ScanAxis): string {
   return `List of ${values.length.toLocaleString('en-US')} values: ${shown}${values.length > 6 ? ', …' : ''}`;
 }
 
-const mono = { fontFamily: 'mono', fontSize: 'sm' } as const;
+const mono = { fontFamily: 'mono' } as const;
 
 /** How the scan was set up: method, pivot, start, fixed parameters and the axes in grid order. */
 export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
@@ -53,7 +53,7 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
       <DataList.Item alignItems="start">
         <DataList.ItemLabel>Axes</DataList.ItemLabel>
         <DataList.ItemValue minW="0">
-          <Table.Root size="sm" variant="outline" aria-label="Scan axes" fontSize="sm">
+          <Table.Root size="sm" variant="outline" aria-label="Scan axes">
             <Table.Body>
               {spec.axes.map((axis, index) => (
                 <Table.Row key={axis.parameter}>

@@ -20,6 +20,14 @@ export interface HeatmapFigureInput {
 // Past this many cells a text label per cell costs more memory than a hover is worth.
 const MAX_HOVER_CELLS = 62_500;
 const OK_CELL_COLOR = '#d9dcea';
+/** The background that shows through cells not stored yet. */
+export const NOT_STORED_COLOR = '#e7e3da';
+
+/** Tick labels are short: three significant digits say where a cell is; hovering gives all digits. */
+function tickLabel(value: number): string {
+  const magnitude = Math.abs(value);
+  return magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e5) ? value.toExponential(1) : String(Number(value.toPrecision(3)));
+}
 
 /** Up to `most` evenly spread tick positions along an axis of n cells, ends included. */
 export function tickIndices(n: number, most = 7): number[] {
@@ -35,7 +43,7 @@ function axisLayout(axis: ScanGridSlice['x']): Partial<Layout['xaxis']> {
     title: { text: `${inputLabel(axis.parameter)}${log ? ' (log-spaced)' : ''}` },
     tickmode: 'array',
     tickvals: ticks,
-    ticktext: ticks.map((i) => formatValue(axis.values[i])),
+    ticktext: ticks.map((i) => tickLabel(axis.values[i])),
     range: [-0.5, axis.values.length - 0.5],
     showgrid: false,
   };
@@ -87,7 +95,7 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline }: Heat
       z: slice.z.map((row) => row.map(scale)),
       colorscale: PLOT_COLORSCALE,
       ...(range[0] !== null && range[0] !== undefined && range[1] !== null && range[1] !== undefined ? { zmin: range[0], zmax: range[1] } : {}),
-      colorbar: { title: { text: log ? `log₁₀ ${label}` : label, side: 'right' }, thickness: 12, outlinewidth: 0 },
+      colorbar: { title: { text: log ? `log₁₀ ${label}` : label, side: 'right' }, thickness: 12, outlinewidth: 0, exponentformat: 'power' },
     } as Data);
   }
 
@@ -112,7 +120,9 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline }: Heat
     layout: {
       xaxis: axisLayout(slice.x),
       yaxis: axisLayout(slice.y),
-      margin: { l: 72, r: 16, t: 12, b: 56 },
+      margin: { l: 72, r: 16, t: 12, b: 60 },
+      // Cells not stored yet show this through the gaps, apart from the light end of the scale.
+      plot_bgcolor: NOT_STORED_COLOR,
       showlegend: false,
       hovermode: 'closest',
     },

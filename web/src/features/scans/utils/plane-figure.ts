@@ -58,7 +58,9 @@ export function referenceTraces(): Data[] {
         line: { color: PLOT_COLORS.muted, width: 1.5, dash },
       },
       {
-        type: 'scatter', mode: 'markers+text', name: `φ^p markers, N_* = ${nStar}`, legendgroup: `mono-${nStar}`, showlegend: false,
+        // Powers are written on one curve only, the other keeps the same marks unlabelled.
+        type: 'scatter', mode: i === REFERENCE_EFOLDS.length - 1 ? 'markers+text' : 'markers', name: `φ^p markers, N_* = ${nStar}`,
+        legendgroup: `mono-${nStar}`, showlegend: false,
         x: marked.map((m) => m.ns), y: marked.map((m) => m.r), text: marked.map((m) => (m.p === 2 / 3 ? 'p=2/3' : `p=${m.p}`)),
         textposition: 'middle left', textfont: { size: 10, color: PLOT_COLORS.muted }, hoverinfo: 'skip',
         marker: { color: PLOT_COLORS.muted, size: 5, symbol: 'circle-open' },

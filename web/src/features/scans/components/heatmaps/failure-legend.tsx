@@ -1,5 +1,7 @@
 import { Box, HStack, List, Text } from '@chakra-ui/react';
 import { failureColor } from '../../utils/failure-colors';
+import { NOT_STORED_COLOR } from '../../utils/heatmap-figure';
+import { failureLabel } from '../../utils/point-columns';
 import type { FailureGroup } from '../../utils/grid-cells';
 
 /** The reasons failed cells are coloured by, with how many cells each; failures carry no numbers. */
@@ -19,11 +21,16 @@ export function FailureLegend({ groups, missing = 0 }: { groups: FailureGroup[];
             <Text as="span" fontFamily="mono">
               {group.reason} ({group.count.toLocaleString('en-US')})
             </Text>
+            {failureLabel(group.reason) !== group.reason && (
+              <Text as="span" color="fg.muted">
+                {failureLabel(group.reason)}
+              </Text>
+            )}
           </List.Item>
         ))}
         {missing > 0 && (
           <List.Item display="flex" alignItems="center" gap="1.5">
-            <Box w="3" h="3" borderRadius="sm" borderWidth="1px" borderColor="border.emphasized" aria-hidden="true" />
+            <Box w="3" h="3" borderRadius="sm" bg={NOT_STORED_COLOR} aria-hidden="true" />
             <Text as="span">not stored yet ({missing.toLocaleString('en-US')})</Text>
           </List.Item>
         )}

@@ -11,7 +11,7 @@ interface PointInputsProps {
   phiInitUsed?: number | null;
 }
 
-const mono = { fontFamily: 'mono', fontSize: 'sm' } as const;
+const mono = { fontFamily: 'mono' } as const;
 
 /** Where the point sits in the grid and everything else its evaluation took. */
 export function PointInputs({ spec, grid, pointIndex, phiInitUsed }: PointInputsProps) {

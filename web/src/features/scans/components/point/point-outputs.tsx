@@ -12,23 +12,39 @@ interface PointOutputsProps {
 // Every digit a double holds: "identical" has to be visible, not rounded into being.
 const exact = (value: number | null | undefined) => (value === null || value === undefined ? '—' : String(value));
 
-/** How a recomputed value compares with the stored one; the engine is deterministic, so equality is expected. */
-export function agreement(stored: number | null, recomputed: number | null): 'identical' | 'both empty' | 'differs' {
-  if (stored === null && recomputed === null) return 'both empty';
-  return stored !== null && recomputed !== null && Object.is(stored, recomputed) ? 'identical' : 'differs';
+/**
+ * Below this relative difference two results are the same computation rounded differently. The
+ * engine code is the same here and on the workers, but JavaScript engines do not all round
+ * Math.exp, Math.pow and friends alike in the last bit (Node and Chromium differ), and an
+ * adaptive integration can carry such a bit to ~1e-8 in derived outputs like α_s. The default
+ * integration tolerance, 1e-6, bounds what a rounding difference can do.
+ */
+export const ROUNDING_LIMIT = 1e-6;
+
+export type Agreement = { kind: 'identical' | 'both empty' } | { kind: 'rounding' | 'differs'; relative: number | null };
+
+/** How a recomputed value compares with the stored one. */
+export function agreement(stored: number | null, recomputed: number | null): Agreement {
+  if (stored === null && recomputed === null) return { kind: 'both empty' };
+  if (stored === null || recomputed === null) return { kind: 'differs', relative: null };
+  if (Object.is(stored, recomputed)) return { kind: 'identical' };
+  const relative = Math.abs(stored - recomputed) / Math.max(Math.abs(stored), Math.abs(recomputed));
+  return { kind: relative <= ROUNDING_LIMIT ? 'rounding' : 'differs', relative };
 }
 
-function Verdict({ verdict }: { verdict: ReturnType<typeof agreement> }) {
-  if (verdict === 'both empty') {
+function Verdict({ verdict }: { verdict: Agreement }) {
+  if (verdict.kind === 'both empty') {
     return (
       <Text as="span" color="fg.subtle" fontSize="sm">
         none in either
       </Text>
     );
   }
+  const palette = { identical: 'green', rounding: 'yellow', differs: 'red' }[verdict.kind];
+  const by = 'relative' in verdict && verdict.relative !== null ? ` by ${verdict.relative.toExponential(1)}` : '';
   return (
-    <Badge colorPalette={verdict === 'identical' ? 'green' : 'red'} variant="subtle" size="sm">
-      {verdict}
+    <Badge colorPalette={palette} variant="subtle" size="sm" fontFamily={by ? 'mono' : undefined}>
+      {verdict.kind === 'identical' ? 'identical' : verdict.kind === 'rounding' ? `rounding${by}` : `differs${by}`}
     </Badge>
   );
 }
@@ -58,7 +74,7 @@ export function PointOutputs({ stored, recomputed }: PointOutputsProps) {
               {recomputed ? recomputed.status : <Text as="span" color="fg.subtle">…</Text>}
             </Table.Cell>
             <Table.Cell>
-              {stored && recomputed && <Verdict verdict={stored.status === recomputed.status ? 'identical' : 'differs'} />}
+              {stored && recomputed && <Verdict verdict={stored.status === recomputed.status ? { kind: 'identical' } : { kind: 'differs', relative: null }} />}
             </Table.Cell>
           </Table.Row>
           {POINT_OUTPUTS.map((output: PointOutput) => {

@@ -14,7 +14,7 @@ export function PointSpectrum({ spectrum }: { spectrum: Spectrum }) {
     ];
     const layout: Partial<Layout> = {
       xaxis: { title: { text: 'k (Mpc⁻¹)' }, type: 'log', exponentformat: 'power' },
-      yaxis: { title: { text: 'power spectrum' }, type: 'log', exponentformat: 'power' },
+      yaxis: { title: { text: 'power spectrum' }, type: 'log', exponentformat: 'power', dtick: 1 },
       shapes: [{ type: 'line', xref: 'x', yref: 'paper', x0: PIVOT_K_PER_MPC, x1: PIVOT_K_PER_MPC, y0: 0, y1: 1, line: { color: PLOT_COLORS.muted, width: 1.5, dash: 'dot' } }],
       // On a log axis an annotation takes log₁₀ of its position, a shape the value itself.
       annotations: [{ x: Math.log10(PIVOT_K_PER_MPC), y: 1, xref: 'x', yref: 'paper', text: `pivot k_* = ${PIVOT_K_PER_MPC} Mpc⁻¹`, showarrow: false, yanchor: 'bottom', font: { size: 11, color: PLOT_COLORS.muted } }],

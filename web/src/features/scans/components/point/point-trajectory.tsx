@@ -41,7 +41,8 @@ export function PointTrajectory({ trajectory, nTotal, nStar }: PointTrajectoryPr
           ...base,
           shapes: [...(base.shapes ?? []), { type: 'line', xref: 'paper', yref: 'y', x0: 0, x1: 1, y0: 1, y1: 1, line: { color: PLOT_COLORS.muted, width: 1 } }],
           xaxis: { title: { text: 'N (e-folds from φ_init)' } },
-          yaxis: { title: { text: 'ε_H' }, type: 'log', exponentformat: 'power' },
+          // Decades only: the minor ticks of a log axis crowd a small chart.
+          yaxis: { title: { text: 'ε_H' }, type: 'log', exponentformat: 'power', dtick: 1 },
         } as Partial<Layout>,
       },
     };

@@ -95,7 +95,9 @@ export function ScanPointView({ scan, spec, pointIndex }: ScanPointViewProps) {
           ) : null}
           {point?.failureReason && <EngineProblem status={point.status} message={point.failureReason} />}
           <Text fontSize="sm" color="fg.muted">
-            The engine is deterministic, so the values computed again in your browser agree with the stored ones to the last bit.
+            The same engine code runs in your browser as on the workers. Where this browser rounds elementary functions (exp, pow, …)
+            exactly as the workers’ Node does, every value is identical; otherwise values differ by rounding only, shown with the
+            relative difference.
             {trajectory.isFetching && ' Computing…'}
             {fresh && ` Recomputed in ${ms(fresh.milliseconds)}.`}
           </Text>
