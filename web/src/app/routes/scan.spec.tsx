@@ -64,7 +64,7 @@ describe('scan page', () => {
     expect(progress).toHaveTextContent('Done120');
     expect(progress).toHaveTextContent('Failed3');
     expect(progress).toHaveTextContent('Rate2.05 points/s');
-    expect(progress).toHaveTextContent('Time left1 min 30 s');
+    expect(progress).toHaveTextContent('Time leftabout 2 min');
     expect(progress).toHaveTextContent('Running · queued16 · 261');
   });
 
