@@ -2,16 +2,15 @@ import { Button, Stack } from '@chakra-ui/react';
 import { lazy, Suspense } from 'react';
 import { Link as RouterLink, useNavigate, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
-import { ErrorState } from '@/components/ui/error-state';
 import { LockIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { ModelLoadError } from '@/features/models/components/model-load-error';
 import { useModel } from '@/features/models/api/get-model';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
-import { ApiRequestError } from '@/lib/api-client';
 import { groupNamesOf } from '@/lib/group-names';
 import { NotFoundRoute } from './not-found';
 
@@ -31,19 +30,7 @@ function ModelEditPage({ modelId }: { modelId: number }) {
   useDocumentTitle(model.data ? `Edit ${model.data.name}` : 'Edit model');
 
   if (model.isPending) return <LoadingState label="Loading the model…" />;
-  if (model.isError) {
-    const notFound = model.error instanceof ApiRequestError && model.error.status === 404;
-    return (
-      <Stack gap="0">
-        <PageHeader title="Edit model" />
-        <ErrorState
-          title={notFound ? 'This model does not exist, or it belongs to a group you are not in' : 'Could not load this model'}
-          error={model.error}
-          onRetry={notFound ? undefined : () => model.refetch()}
-        />
-      </Stack>
-    );
-  }
+  if (model.isError) return <ModelLoadError title="Edit model" error={model.error} onRetry={() => model.refetch()} />;
 
   const m = model.data;
   const back = paths.model.getHref(m.id);

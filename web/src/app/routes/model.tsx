@@ -2,17 +2,16 @@ import { Button, HStack, Stack, Text } from '@chakra-ui/react';
 import { lazy, Suspense, useState } from 'react';
 import { Link as RouterLink, useNavigate, useParams } from 'react-router-dom';
 import { DateTime } from '@/components/ui/date-time';
-import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { ModelLoadError } from '@/features/models/components/model-load-error';
 import { useModel } from '@/features/models/api/get-model';
 import { DeleteModelDialog } from '@/features/models/components/delete-model-dialog';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
-import { ApiRequestError } from '@/lib/api-client';
 import { groupNamesOf } from '@/lib/group-names';
 import { NotFoundRoute } from './not-found';
 
@@ -35,19 +34,7 @@ function ModelPage({ modelId }: { modelId: number }) {
   useDocumentTitle(model.data?.name ?? 'Model');
 
   if (model.isPending) return <LoadingState label="Loading the model…" />;
-  if (model.isError) {
-    const notFound = model.error instanceof ApiRequestError && model.error.status === 404;
-    return (
-      <Stack gap="0">
-        <PageHeader title="Model" />
-        <ErrorState
-          title={notFound ? 'This model does not exist, or it belongs to a group you are not in' : 'Could not load this model'}
-          error={model.error}
-          onRetry={notFound ? undefined : () => model.refetch()}
-        />
-      </Stack>
-    );
-  }
+  if (model.isError) return <ModelLoadError title="Model" error={model.error} onRetry={() => model.refetch()} />;
 
   const m = model.data;
   const groupName = groupNamesOf(user).get(m.groupId) ?? `Group ${m.groupId}`;

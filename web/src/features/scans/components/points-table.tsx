@@ -88,7 +88,6 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
     </Button>
   );
 
-  const exportQuery = { ...query };
   const hasFilters = filters.length > 0 || !!query.status;
 
   return (
@@ -123,12 +122,12 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
             Download {hasFilters ? 'the filtered points' : 'every point'}:
           </Text>
           <Button asChild size="sm" variant="outline">
-            <a href={pointsExportHref(scan.id, exportQuery, 'csv')} download>
+            <a href={pointsExportHref(scan.id, query, 'csv')} download>
               CSV
             </a>
           </Button>
           <Button asChild size="sm" variant="outline">
-            <a href={pointsExportHref(scan.id, exportQuery, 'json')} download>
+            <a href={pointsExportHref(scan.id, query, 'json')} download>
               JSON
             </a>
           </Button>

@@ -13,7 +13,7 @@ import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellCounts, cellIndices, failureGroups, insideLimitsMask, pointIndexOf, sameCells } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
+import { axisOptions, formatValue } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
 import { AxisSlider } from './axis-slider';
 import { FailureLegend } from './failure-legend';
