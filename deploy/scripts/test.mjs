@@ -13,11 +13,22 @@ import { ensureDebianPackages, profilePackages, startProfileServices } from './l
 
 // Tests never read .env: a developer's settings must not point the suites at real data.
 const profile = resolveProfile('test');
-// `npm test -- api worker` runs only the named suites (shared, web, api, worker, browser).
+// `npm test -- api worker` runs only the named suites (shared, web, api, worker, browser);
+// `npm test -- api:invitations` runs only the api test files whose path matches "invitations".
 const SUITES = ['shared', 'web', 'api', 'worker', 'browser'];
-const selected = process.argv.slice(2);
-for (const name of selected) if (!SUITES.includes(name)) fail(`unknown suite '${name}'; choose from ${SUITES.join(', ')}`);
-const wanted = (name) => selected.length === 0 || selected.includes(name);
+const filters = new Map();
+for (const arg of process.argv.slice(2)) {
+  const [name, pattern] = arg.split(':');
+  if (!SUITES.includes(name)) fail(`unknown suite '${name}'; choose from ${SUITES.join(', ')}`);
+  filters.set(name, pattern ?? null);
+}
+const wanted = (name) => filters.size === 0 || filters.has(name);
+/** The file filter a suite was given, as extra runner arguments (jest and vitest differ). */
+const filterArgs = (name, runner) => {
+  const pattern = filters.get(name);
+  if (!pattern) return [];
+  return runner === 'jest' ? ['--testPathPatterns', pattern] : [pattern];
+};
 const reports = path.join(profile.dataDir, 'reports');
 rmSync(reports, { recursive: true, force: true });
 mkdirSync(reports, { recursive: true });
@@ -76,11 +87,12 @@ function runSuite(name, args, extraEnv = {}) {
   return { name, ok, passed, failed };
 }
 
-const vitestJson = (ws, script = 'test') => ['run', script, '-w', ws, '--', '--reporter=default', '--reporter=json', '--outputFile.json'];
-const jestJson = (ws) => ['run', 'test', '-w', ws, '--', '--json', '--outputFile'];
+const vitestJson = (ws, suite, script = 'test') =>
+  ['run', script, '-w', ws, '--', ...filterArgs(suite, 'vitest'), '--reporter=default', '--reporter=json', '--outputFile.json'];
+const jestJson = (ws) => ['run', 'test', '-w', ws, '--', ...filterArgs(ws, 'jest'), '--json', '--outputFile'];
 const results = [];
-if (wanted('shared')) results.push(runSuite('shared', vitestJson('shared')));
-if (wanted('web')) results.push(runSuite('web', vitestJson('web')));
+if (wanted('shared')) results.push(runSuite('shared', vitestJson('shared', 'shared')));
+if (wanted('web')) results.push(runSuite('web', vitestJson('web', 'web')));
 if (wanted('api')) results.push(runSuite('api', jestJson('api')));
 if (wanted('worker')) results.push(runSuite('worker', jestJson('worker')));
 
@@ -88,7 +100,7 @@ if (wanted('browser')) {
   log('starting the API and a worker for the browser tests');
   apps = startAppProcesses({ env, workers: 1, quiet: true });
   if (await waitForApi(profile.apiPort, apps.api)) {
-    results.push(runSuite('browser', vitestJson('web', 'test:browser'), {
+    results.push(runSuite('browser', vitestJson('web', 'browser', 'test:browser'), {
       SIXTYFOLD_WEB_URL: `http://127.0.0.1:${profile.apiPort}/`,
     }));
   } else {
