@@ -9,10 +9,12 @@ import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
+import { mailConfig } from './config/mail.config';
 import { redisConfig } from './config/redis.config';
 import { buildDataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
+import { MailModule } from './mail/mail.module';
 import { ModelsModule } from './models/models.module';
 import { RedisModule } from './redis/redis.module';
 import { ScansModule } from './scans/scans.module';
@@ -23,13 +25,14 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
     }),
     RedisModule,
     AuditModule,
+    MailModule,
     UsersModule,
     AuthModule,
     GroupsModule,

@@ -75,6 +75,9 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/workers/pool', url: () => '/api/workers/pool', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
     { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
+    { method: 'get', route: '/api/admin/outbox', url: () => '/api/admin/outbox', expect: adminOnly },
+    // No message has this id: the admin gets 404 for it, everyone else is stopped first.
+    { method: 'get', route: '/api/admin/outbox/:messageId', url: () => '/api/admin/outbox/1796000000000-000000', expect: { ...adminOnly, admin: 404 } },
     // Everyone manages their own tokens; DELETE revokes the caller's own (the member's for anonymous).
     { method: 'get', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(200) },
     { method: 'post', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(201) },

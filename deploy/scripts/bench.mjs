@@ -20,7 +20,7 @@ if (engineBench.status !== 0) fail('the engine benchmark failed');
 
 const services = await startProfileServices(profile, { fresh: true });
 const env = {
-  ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl,
+  ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl, ...profile.smtp,
   API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
   SESSION_SECRET: 'sixtyfold-benchmark-session-secret', FORCE_COLOR: '0',
 };

@@ -55,6 +55,8 @@ const env = {
   NODE_ENV: 'test',
   DATABASE_URL: profile.databaseUrl,
   REDIS_URL: profile.redisUrl,
+  ...profile.smtp,
+  APP_URL: process.env.APP_URL ?? `http://127.0.0.1:${profile.apiPort}/`,
   API_PORT: String(profile.apiPort),
   API_HOST: '127.0.0.1',
   WEB_DIST_DIR: path.join(ROOT, 'web/dist'),

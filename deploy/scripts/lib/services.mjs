@@ -3,10 +3,11 @@
 // before `npm ci` has installed anything.
 import { spawn, spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, openSync, readFileSync, rmSync } from 'node:fs';
+import { existsSync, mkdirSync, openSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { log, fail } from './output.mjs';
 
 // Debian puts the server binaries in sbin, which a non-login shell may not have on PATH.
@@ -145,6 +146,32 @@ export async function startRedis({ dir: givenDir, port, flush = false }) {
   return { child, stop: () => stopByPidFile(path.join(dir, 'redis.pid'), 'Redis') };
 }
 
+/**
+ * Starts the local SMTP mail catcher (deploy/scripts/mail-catcher.mjs) on 127.0.0.1:`port`,
+ * storing messages in `dir`. Needs the npm packages, so it starts after `npm ci`.
+ */
+export async function startMailCatcher({ dir: givenDir, port, empty = false }) {
+  const dir = path.resolve(givenDir);
+  if (empty) rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const pidFile = path.join(dir, '..', 'mail-catcher.pid');
+  const logFile = path.join(dir, '..', 'mail-catcher.log');
+  await stopByPidFile(pidFile, 'the mail catcher'); // one left over from an earlier run
+  if (!(await portIsFree(port))) fail(`port ${port} is taken by another program; stop it or choose another SIXTYFOLD_SMTP_PORT`);
+  const out = openSync(logFile, 'a');
+  const script = fileURLToPath(new URL('../mail-catcher.mjs', import.meta.url));
+  const child = spawn(process.execPath, [script, '--port', String(port), '--dir', dir], { stdio: ['ignore', out, out], detached: true });
+  writeFileSync(pidFile, String(child.pid));
+  let listening = false;
+  const probe = () => {
+    const socket = net.connect(port, '127.0.0.1', () => { listening = true; socket.destroy(); });
+    socket.once('error', () => socket.destroy());
+  };
+  await waitUntil(() => { if (!listening) probe(); return listening || child.exitCode !== null; }, 'the mail catcher', 30_000, logFile);
+  if (child.exitCode !== null) fail(`the mail catcher exited with ${child.exitCode}; see ${logFile}`);
+  return { child, stop: () => stopByPidFile(pidFile, 'the mail catcher') };
+}
+
 /** SIGTERM, then SIGKILL after a grace period; resolves when the process has gone. */
 export function stopChild(child, name, graceMs = 15_000) {
   if (!child || child.exitCode !== null || child.signalCode !== null) return Promise.resolve();
@@ -205,8 +232,8 @@ export function profilePackages(profile) {
 }
 
 /**
- * Starts the MariaDB and Redis a profile runs itself (none where it points at existing servers).
- * `fresh` recreates the database and empties Redis, for tests and benchmarks.
+ * Starts the MariaDB, Redis and mail catcher a profile runs itself (none where it points at
+ * existing servers). `fresh` recreates the database and empties Redis and the caught mail.
  * Returns the started services, to stop in reverse order.
  */
 export async function startProfileServices(profile, { fresh = false } = {}) {
@@ -221,6 +248,10 @@ export async function startProfileServices(profile, { fresh = false } = {}) {
   if (profile.manageRedis) {
     log(`starting Redis on 127.0.0.1:${profile.redisPort}${fresh ? ' (emptied)' : ''}`);
     services.push(await startRedis({ dir: path.join(profile.dataDir, 'redis'), port: profile.redisPort, flush: fresh }));
+  }
+  if (profile.manageMail) {
+    log(`starting the mail catcher (SMTP) on 127.0.0.1:${profile.smtpPort}${fresh ? ' (emptied)' : ''}`);
+    services.push(await startMailCatcher({ dir: profile.mailDir, port: profile.smtpPort, empty: fresh }));
   }
   return services;
 }
