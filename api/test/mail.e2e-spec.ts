@@ -28,7 +28,7 @@ describe('mail through the local SMTP catcher', () => {
     expect(list.body.total).toBe(1);
     expect(list.body.items[0]).toMatchObject({ to: [to], subject: `Outbox check ${stamp}` });
     const message = await admin.get(`/api/admin/outbox/${list.body.items[0].id}`);
-    expect(message.body).toMatchObject({ text: 'plain body\n', html: '<p>html <b>body</b></p>' });
+    expect(message.body).toMatchObject({ text: 'plain body', html: '<p>html <b>body</b></p>' });
 
     const member = await t.signIn(DEMO.plateauMember);
     expect((await member.get('/api/admin/outbox')).status).toBe(403);
