@@ -10,11 +10,13 @@ import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
+import { invitationConfig } from './config/invitation.config';
 import { mailConfig } from './config/mail.config';
 import { redisConfig } from './config/redis.config';
 import { buildDataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
+import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { ModelsModule } from './models/models.module';
 import { RedisModule } from './redis/redis.module';
@@ -26,7 +28,7 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
@@ -39,6 +41,7 @@ import { WorkersModule } from './workers/workers.module';
     UsersModule,
     AuthModule,
     GroupsModule,
+    InvitationsModule,
     ModelsModule,
     ScansModule,
     TokensModule,

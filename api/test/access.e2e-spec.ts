@@ -1,7 +1,12 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import type request from 'supertest';
 import { Like } from 'typeorm';
+import { readAppConfig } from '../src/config/app.config';
+import { readInvitationConfig } from '../src/config/invitation.config';
 import { Group } from '../src/groups/entities/group.entity';
+import { Membership } from '../src/groups/entities/membership.entity';
+import { Invitation } from '../src/invitations/entities/invitation.entity';
+import { signInvitationToken } from '../src/invitations/invitation-token';
 import { PotentialModel } from '../src/models/entities/potential-model.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
@@ -35,6 +40,7 @@ const accessModel = (name: string) => ({
 const everyoneSignedIn = (status: number) => ({ anonymous: 401, admin: status, lead: status, member: status, viewer: status, outsider: status });
 const plateauOnly = { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 200, outsider: 404 };
 const adminOnly = { anonymous: 401, admin: 200, lead: 403, member: 403, viewer: 403, outsider: 403 };
+const leadsOnly = (status: number) => ({ anonymous: 401, admin: status, lead: status, member: 403, viewer: 403, outsider: 404 });
 
 describe('every route against every role', () => {
   let t: TestApp;
@@ -46,12 +52,30 @@ describe('every route against every role', () => {
   const ownScan = new Map<Role, number>();
   const ownModel = new Map<Role, number>();
   const ownToken = new Map<Role, number>();
+  const ownInvitation = new Map<Role, number>();
+  const removableMember = new Map<Role, number>();
+  let accessGroupId: number;
+  let viewerInvitationToken: string;
+  let plateauViewerId: number;
 
   const table: RouteCase[] = [
     { method: 'get', route: '/api/health', url: () => '/api/health', expect: { ...everyoneSignedIn(200), anonymous: 200 } },
     { method: 'get', route: '/api/auth/me', url: () => '/api/auth/me', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/groups', url: () => '/api/groups', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/groups/:id', url: () => `/api/groups/${plateauId}`, expect: plateauOnly },
+    { method: 'post', route: '/api/groups', url: () => '/api/groups', expect: { ...adminOnly, admin: 201 } },
+    { method: 'patch', route: '/api/groups/:id', url: () => `/api/groups/${accessGroupId}`, expect: adminOnly },
+    { method: 'get', route: '/api/groups/:id/invitations', url: () => `/api/groups/${plateauId}/invitations`, expect: leadsOnly(200) },
+    { method: 'post', route: '/api/groups/:id/invitations', url: () => `/api/groups/${plateauId}/invitations`, expect: leadsOnly(201) },
+    { method: 'delete', route: '/api/groups/:id/invitations/:invitationId', url: (role) => `/api/groups/${plateauId}/invitations/${ownInvitation.get(role)}`, expect: leadsOnly(204) },
+    // Setting the viewer's role to what it is changes nothing, so every row sees the same state.
+    { method: 'patch', route: '/api/groups/:id/members/:userId', url: () => `/api/groups/${plateauId}/members/${plateauViewerId}`, expect: leadsOnly(200) },
+    // A throwaway member per role; removing someone else needs the lead role.
+    { method: 'delete', route: '/api/groups/:id/members/:userId', url: (role) => `/api/groups/${plateauId}/members/${removableMember.get(role)}`, expect: leadsOnly(204) },
+    // The link is public; it shows the invitation to anyone who holds it.
+    { method: 'get', route: '/api/invitations/:token', url: () => `/api/invitations/${viewerInvitationToken}`, expect: { ...everyoneSignedIn(200), anonymous: 200 } },
+    // The invitation is for the viewer's existing account: only they may accept it; after them (the outsider) the link is used.
+    { method: 'post', route: '/api/invitations/:token/accept', url: () => `/api/invitations/${viewerInvitationToken}/accept`, expect: { anonymous: 401, admin: 403, lead: 403, member: 403, viewer: 201, outsider: 410 } },
     { method: 'get', route: '/api/models', url: () => '/api/models', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/models/:id', url: () => `/api/models/${plateauModelId}`, expect: plateauOnly },
     { method: 'post', route: '/api/models', url: () => '/api/models', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
@@ -91,6 +115,10 @@ describe('every route against every role', () => {
   const bodyFor = (route: string, role: Role) => {
     if (route === '/api/tokens') return { name: `access table (${role})` };
     if (route === '/api/auth/login') return { email: `${role}@nowhere.example`, password: 'wrong password' };
+    if (route === '/api/groups') return { name: `access table group (${role})` };
+    if (route === '/api/groups/:id') return { description: `edited by the access table (${role})` };
+    if (route === '/api/groups/:id/invitations') return { email: `access-table-${role}@halvorsen.example`, role: 'viewer' };
+    if (route === '/api/groups/:id/members/:userId') return { role: 'viewer' };
     if (route === '/api/models') return { ...accessModel(`access table (${role})`), groupId: plateauId };
     if (route === '/api/models/:id') return { description: `edited by the access table (${role})` };
     if (route === '/api/scans') {
@@ -132,6 +160,19 @@ describe('every route against every role', () => {
       ownToken.set(role, token.body.id);
     }
     ownToken.set('anonymous', ownToken.get('member')!);
+    plateauViewerId = (await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauViewer })).id;
+    accessGroupId = (await t.db.getRepository(Group).save({ slug: 'access-table-group', name: 'access table group', description: '' })).id;
+    const invitations = t.db.getRepository(Invitation);
+    const inAWeek = new Date(Date.now() + 7 * 86_400_000);
+    const viewerInvitation = await invitations.save({ groupId: accessGroupId, email: DEMO.plateauViewer, role: 'member', invitedById: null, expiresAt: inAWeek });
+    viewerInvitationToken = signInvitationToken(readInvitationConfig().secret ?? readAppConfig().sessionSecret, viewerInvitation.id, viewerInvitation.expiresAt);
+    for (const role of ROLES) {
+      const invitation = await invitations.save({ groupId: plateauId, email: `access-table-revoke-${role}@halvorsen.example`, role: 'viewer', invitedById: null, expiresAt: inAWeek });
+      ownInvitation.set(role, invitation.id);
+      const throwaway = await t.db.getRepository(User).save({ email: `access-table-remove-${role}@halvorsen.example`, displayName: `Removable (${role})`, passwordHash: 'never signs in' });
+      await t.db.getRepository(Membership).insert({ groupId: plateauId, userId: throwaway.id, role: 'viewer' });
+      removableMember.set(role, throwaway.id);
+    }
     const models = t.db.getRepository(PotentialModel);
     editedModelId = (await models.save({ ...accessModel('access table, edited'), groupId: plateauId })).id;
     for (const role of ROLES) ownModel.set(role, (await models.save({ ...accessModel(`access table, to delete (${role})`), groupId: plateauId })).id);
@@ -140,6 +181,9 @@ describe('every route against every role', () => {
     await t.db.getRepository(Scan).delete({ id: plateauScanId });
     for (const id of ownScan.values()) await t.db.getRepository(Scan).delete({ id });
     await t.db.getRepository(PotentialModel).delete({ name: Like('access table%') });
+    await t.db.getRepository(Group).delete({ name: Like('access table group%') });
+    await t.db.getRepository(Invitation).delete({ email: Like('access-table-%') });
+    await t.db.getRepository(User).delete({ email: Like('access-table-%') });
     await t.close();
   });
 

@@ -38,6 +38,8 @@ const errorDescriptions: Record<number, string> = {
   403: 'Signed in, but the role (or the way of signing in) does not allow this',
   404: 'No such object, or it belongs to a group you are not in',
   409: 'The object is not in a state that allows this',
+  410: 'The link has expired, was revoked or was already used',
+  502: 'The mail server refused the message; nothing was saved',
 };
 
 /** Documents the error answers a route can give; all share the ApiError body. */
