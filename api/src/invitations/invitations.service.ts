@@ -112,6 +112,7 @@ export class InvitationsService {
     const invitation = await this.findUsable(token);
     const account = await this.users.exists({ where: { email: invitation.email } });
     return {
+      groupId: invitation.groupId,
       groupName: invitation.group.name,
       role: invitation.role,
       email: invitation.email,

@@ -31,6 +31,7 @@ export const invitationListSchema = z.array(invitationSchema);
 
 /** What the public `GET /api/invitations/:token` shows the person who follows the link. */
 export const invitationPreviewSchema = z.object({
+  groupId: z.number().int(),
   groupName: z.string(),
   role: groupRoleSchema,
   email: z.string(),

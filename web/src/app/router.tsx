@@ -2,11 +2,15 @@ import { useState } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { AdminRoute } from './routes/admin';
+import { AdminGroupsRoute } from './routes/admin-groups';
+import { AdminOutboxRoute } from './routes/admin-outbox';
+import { AdminOutboxMessageRoute } from './routes/admin-outbox-message';
 import { AppRoot } from './routes/app-root';
 import { CompareRoute } from './routes/compare';
 import { FamilyRoute } from './routes/family';
 import { GroupRoute } from './routes/group';
 import { HomeRoute } from './routes/home';
+import { InvitationRoute } from './routes/invitation';
 import { ModelRoute } from './routes/model';
 import { ModelEditRoute } from './routes/model-edit';
 import { ModelNewRoute } from './routes/model-new';
@@ -22,6 +26,8 @@ import { TokensRoute } from './routes/tokens';
 
 export const routes: RouteObject[] = [
   { path: paths.signIn.path, element: <SignInRoute />, errorElement: <RouteError /> },
+  // Invitation links reach people who may have no account yet.
+  { path: paths.invitation.path, element: <InvitationRoute />, errorElement: <RouteError /> },
   {
     // Everything below needs a signed-in user; AppRoot checks and draws the header.
     element: <AppRoot />,
@@ -43,6 +49,9 @@ export const routes: RouteObject[] = [
           { path: paths.modelEdit.path, element: <ModelEditRoute /> },
           { path: paths.compare.path, element: <CompareRoute /> },
           { path: paths.admin.path, element: <AdminRoute /> },
+          { path: paths.adminGroups.path, element: <AdminGroupsRoute /> },
+          { path: paths.adminOutbox.path, element: <AdminOutboxRoute /> },
+          { path: paths.adminOutboxMessage.path, element: <AdminOutboxMessageRoute /> },
           { path: paths.tokens.path, element: <TokensRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },

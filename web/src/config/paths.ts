@@ -34,4 +34,8 @@ export const paths = {
   admin: { path: '/admin', getHref: () => '/admin' },
   tokens: { path: '/tokens', getHref: () => '/tokens' },
   group: { path: '/groups/:groupId', getHref: (groupId: number) => `/groups/${groupId}` },
+  invitation: { path: '/invitations/:token', getHref: (token: string) => `/invitations/${encodeURIComponent(token)}` },
+  adminGroups: { path: '/admin/groups', getHref: () => '/admin/groups' },
+  adminOutbox: { path: '/admin/outbox', getHref: () => '/admin/outbox' },
+  adminOutboxMessage: { path: '/admin/outbox/:messageId', getHref: (messageId: string) => `/admin/outbox/${encodeURIComponent(messageId)}` },
 } as const;

@@ -1,10 +1,15 @@
-import { Stack } from '@chakra-ui/react';
-import { useParams } from 'react-router-dom';
+import { Heading, Stack } from '@chakra-ui/react';
+import { useNavigate, useParams } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { Panel } from '@/components/ui/panel';
+import { paths } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
 import { useGroup } from '@/features/groups/api/get-group';
 import { GroupDetail } from '@/features/groups/components/group-detail';
+import { InviteForm } from '@/features/groups/components/invite-form';
+import { PendingInvitations } from '@/features/groups/components/pending-invitations';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { ApiRequestError } from '@/lib/api-client';
 import { NotFoundRoute } from './not-found';
@@ -17,6 +22,8 @@ export function GroupRoute() {
 
 function GroupPage({ groupId }: { groupId: number }) {
   const group = useGroup(groupId);
+  const { data: me } = useMe();
+  const navigate = useNavigate();
   useDocumentTitle(group.data?.name ?? 'Group');
 
   if (group.isPending) return <LoadingState label="Loading group…" />;
@@ -33,10 +40,37 @@ function GroupPage({ groupId }: { groupId: number }) {
       </Stack>
     );
   }
+  // Site admins act as leads in every group; the API checks again.
+  const canManage = group.data.myRole === 'lead' || me?.siteRole === 'admin';
   return (
     <Stack gap="0">
       <PageHeader title={group.data.name} description={group.data.description || undefined} />
-      <GroupDetail group={group.data} />
+      <Stack gap="6">
+        <GroupDetail
+          group={group.data}
+          canManage={canManage}
+          myUserId={me?.id ?? 0}
+          onLeft={() => navigate(paths.home.getHref(), { replace: true })}
+        />
+        {canManage && (
+          <>
+            <Panel>
+              <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">
+                Invite someone
+              </Heading>
+              <Stack px="4" pb="4">
+                <InviteForm groupId={groupId} />
+              </Stack>
+            </Panel>
+            <Panel>
+              <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">
+                Pending invitations
+              </Heading>
+              <PendingInvitations groupId={groupId} />
+            </Panel>
+          </>
+        )}
+      </Stack>
     </Stack>
   );
 }

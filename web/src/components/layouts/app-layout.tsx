@@ -50,7 +50,7 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
                       asChild
                       _currentPage={{ fontWeight: '600', color: 'ember.fg', bg: 'ember.subtle' }}
                     >
-                      <NavLink to={item.href} end={item.href === paths.home.getHref()}>{item.label}</NavLink>
+                      <NavLink to={item.href} end={item.href === paths.home.getHref() || item.href === paths.admin.getHref()}>{item.label}</NavLink>
                     </Menu.Item>
                   ))}
                 </Menu.Content>
@@ -80,7 +80,7 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
                 _currentPage={{ color: 'chrome.fg', borderColor: 'ember.400' }}
                 _focusVisible={chromeFocus}
               >
-                <NavLink to={item.href} end={item.href === paths.home.getHref()}>{item.label}</NavLink>
+                <NavLink to={item.href} end={item.href === paths.home.getHref() || item.href === paths.admin.getHref()}>{item.label}</NavLink>
               </Link>
             ))}
           </HStack>

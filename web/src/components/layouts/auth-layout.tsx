@@ -17,10 +17,12 @@ const skyBackground = [
 
 interface AuthLayoutProps {
   title: string;
+  /** The line under the title. */
+  intro?: ReactNode;
   children: ReactNode;
 }
 
-export function AuthLayout({ title, children }: AuthLayoutProps) {
+export function AuthLayout({ title, intro = 'Use the e-mail address of your Sixtyfold account.', children }: AuthLayoutProps) {
   return (
     <Flex minH="100dvh" direction={{ base: 'column', lg: 'row' }}>
       <Flex
@@ -52,7 +54,7 @@ export function AuthLayout({ title, children }: AuthLayoutProps) {
             {title}
           </Heading>
           <Text color="fg.muted" mb="8">
-            Use the e-mail address of your Sixtyfold account.
+            {intro}
           </Text>
           {children}
         </Box>

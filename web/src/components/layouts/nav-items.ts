@@ -14,6 +14,12 @@ export function navItemsFor(user: CurrentUser): NavItem[] {
     { label: 'Models', href: paths.models.getHref() },
     { label: 'Compare', href: paths.compare.getHref() },
   ];
-  if (user.siteRole === 'admin') items.push({ label: 'Admin', href: paths.admin.getHref() });
+  if (user.siteRole === 'admin') {
+    items.push(
+      { label: 'Groups', href: paths.adminGroups.getHref() },
+      { label: 'Mail outbox', href: paths.adminOutbox.getHref() },
+      { label: 'Admin', href: paths.admin.getHref() },
+    );
+  }
   return items;
 }

@@ -1,0 +1,77 @@
+import { Alert, Button, Field, Input, Stack, Textarea } from '@chakra-ui/react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { createGroupSchema, type CreateGroup, type GroupDetail } from '@sixtyfold/shared';
+import { useForm } from 'react-hook-form';
+import type { z } from 'zod';
+import { ApiRequestError } from '@/lib/api-client';
+import { useCreateGroup } from '../api/create-group';
+
+type CreateGroupInput = z.input<typeof createGroupSchema>;
+
+export function CreateGroupForm({ onCreated }: { onCreated: (group: GroupDetail) => void }) {
+  const {
+    register,
+    handleSubmit,
+    reset,
+    setError,
+    formState: { errors },
+  } = useForm<CreateGroupInput, unknown, CreateGroup>({
+    resolver: zodResolver(createGroupSchema),
+    defaultValues: { name: '', description: '', pointLimit: 1_000_000 },
+  });
+  const create = useCreateGroup({
+    onSuccess: (group) => {
+      reset();
+      onCreated(group);
+    },
+  });
+
+  const onSubmit = handleSubmit((values) =>
+    create.mutate(values, {
+      onError: (error) => {
+        if (!(error instanceof ApiRequestError)) return;
+        for (const field of ['name', 'description', 'pointLimit'] as const) {
+          const message = error.fieldErrors[field]?.[0];
+          if (message) setError(field, { message });
+        }
+      },
+    }),
+  );
+
+  return (
+    <form onSubmit={onSubmit} noValidate aria-label="Create a group">
+      <Stack gap="4">
+        {create.isError && !(create.error instanceof ApiRequestError && create.error.status === 400) && (
+          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
+            <Alert.Indicator />
+            <Alert.Content>
+              <Alert.Title>Could not create the group</Alert.Title>
+              <Alert.Description>{create.error.message}</Alert.Description>
+            </Alert.Content>
+          </Alert.Root>
+        )}
+        <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ base: 'stretch', md: 'start' }}>
+          <Field.Root invalid={!!errors.name} flex="2">
+            <Field.Label>Name</Field.Label>
+            <Input placeholder="e.g. Reheating Studies" bg="bg.panel" autoComplete="off" {...register('name')} />
+            <Field.ErrorText>{errors.name?.message}</Field.ErrorText>
+          </Field.Root>
+          <Field.Root invalid={!!errors.pointLimit} flex="1">
+            <Field.Label>Point limit</Field.Label>
+            <Input type="number" bg="bg.panel" {...register('pointLimit', { valueAsNumber: true })} />
+            <Field.HelperText>Largest scan the group may submit, in points.</Field.HelperText>
+            <Field.ErrorText>{errors.pointLimit?.message}</Field.ErrorText>
+          </Field.Root>
+        </Stack>
+        <Field.Root invalid={!!errors.description}>
+          <Field.Label>Description</Field.Label>
+          <Textarea rows={2} bg="bg.panel" {...register('description')} />
+          <Field.ErrorText>{errors.description?.message}</Field.ErrorText>
+        </Field.Root>
+        <Button type="submit" colorPalette="ember" alignSelf="start" loading={create.isPending} loadingText="Creating…">
+          Create group
+        </Button>
+      </Stack>
+    </form>
+  );
+}
