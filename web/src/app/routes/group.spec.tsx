@@ -1,0 +1,148 @@
+import type { GroupDetail, Invitation } from '@sixtyfold/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { adminUser, memberUser } from '@/testing/fixtures';
+import { apiError, json, mockApi } from '@/testing/mock-api';
+import { renderApp } from '@/testing/render';
+
+const leadUser = { ...memberUser, memberships: [{ ...memberUser.memberships[0], role: 'lead' as const }] };
+
+const plateauLab = (): GroupDetail => ({
+  id: 10,
+  slug: 'plateau-lab',
+  name: 'Plateau Lab',
+  description: 'Plateau potentials and their tensor ratios',
+  myRole: 'lead',
+  memberCount: 2,
+  pointLimit: 1_000_000,
+  members: [
+    { userId: 2, displayName: 'Tomas Lindqvist', email: 'tomas.lindqvist@halvorsen.example', role: 'lead' },
+    { userId: 7, displayName: 'Lucía Marín', email: 'lucia.marin@halvorsen.example', role: 'member' },
+  ],
+});
+
+const pending: Invitation = {
+  id: 31,
+  groupId: 10,
+  email: 'new.student@halvorsen.example',
+  role: 'viewer',
+  invitedByName: 'Tomas Lindqvist',
+  createdAt: '2026-12-01T09:00:00.000Z',
+  expiresAt: '2026-12-08T09:00:00.000Z',
+  inviteeUserId: null,
+};
+
+describe('group page', () => {
+  it('shows a viewer the members without management controls', async () => {
+    mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'viewer' }),
+    });
+    renderApp('/groups/10');
+    expect(await screen.findByRole('heading', { name: 'Plateau Lab' })).toBeInTheDocument();
+    expect(screen.getByRole('row', { name: /Lucía Marín/ })).toBeInTheDocument();
+    expect(screen.queryByLabelText('Role of Lucía Marín')).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Remove Lucía Marín' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Invite someone' })).not.toBeInTheDocument();
+    expect(screen.getByRole('button', { name: 'Leave group' })).toBeInTheDocument();
+  });
+
+  it('lets a lead change a role and shows why the API refused one', async () => {
+    let group = plateauLab();
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, leadUser),
+      'GET /api/groups/10': () => json(200, group),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'PATCH /api/groups/10/members/7': (request) => {
+        const role = (request.body as { role: 'lead' }).role;
+        group = { ...group, members: group.members.map((m) => (m.userId === 7 ? { ...m, role } : m)) };
+        return json(200, group.members[1]);
+      },
+      'PATCH /api/groups/10/members/2': () =>
+        apiError(409, 'Tomas Lindqvist is the last lead of Plateau Lab and cannot be demoted; make someone else lead first'),
+    });
+    const { user } = renderApp('/groups/10');
+
+    await user.selectOptions(await screen.findByLabelText('Role of Lucía Marín'), 'lead');
+    await waitFor(() => expect(screen.getByLabelText('Role of Lucía Marín')).toHaveValue('lead'));
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ role: 'lead' });
+
+    await user.selectOptions(screen.getByLabelText('Role of Tomas Lindqvist'), 'member');
+    expect(await screen.findByRole('alert')).toHaveTextContent('is the last lead of Plateau Lab');
+    // The list is re-read, so the select shows the role that was kept.
+    await waitFor(() => expect(screen.getByLabelText('Role of Tomas Lindqvist')).toHaveValue('lead'));
+  });
+
+  it('removes a member only after confirmation', async () => {
+    let group = plateauLab();
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, leadUser),
+      'GET /api/groups/10': () => json(200, group),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'DELETE /api/groups/10/members/7': () => {
+        group = { ...group, memberCount: 1, members: group.members.slice(0, 1) };
+        return new Response(null, { status: 204 });
+      },
+    });
+    const { user } = renderApp('/groups/10');
+
+    await user.click(await screen.findByRole('button', { name: 'Remove Lucía Marín' }));
+    const dialog = await screen.findByRole('alertdialog');
+    expect(dialog).toHaveTextContent('Remove Lucía Marín from Plateau Lab?');
+    await user.click(within(dialog).getByRole('button', { name: 'Remove member' }));
+    await waitFor(() => expect(screen.queryByRole('row', { name: /Lucía Marín/ })).not.toBeInTheDocument());
+    expect(requests.filter((r) => r.method === 'DELETE').map((r) => r.url.pathname)).toEqual(['/api/groups/10/members/7']);
+  });
+
+  it('invites with the shared schema, lists the pending invitation and revokes it', async () => {
+    let invitations: Invitation[] = [];
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, adminUser),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: null }),
+      'GET /api/groups/10/invitations': () => json(200, invitations),
+      'POST /api/groups/10/invitations': (request) => {
+        const body = request.body as { email: string; role: 'viewer' };
+        invitations = [{ ...pending, ...body }];
+        return json(201, invitations[0]);
+      },
+      'DELETE /api/groups/10/invitations/31': () => {
+        invitations = [];
+        return new Response(null, { status: 204 });
+      },
+    });
+    const { user } = renderApp('/groups/10');
+
+    const form = await screen.findByRole('form', { name: 'Invite someone' });
+    await user.type(within(form).getByLabelText('E-mail address'), 'not an address');
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
+    expect(await within(form).findByText('Enter an e-mail address like name@institute.example')).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'POST')).toBe(false);
+
+    await user.clear(within(form).getByLabelText('E-mail address'));
+    await user.type(within(form).getByLabelText('E-mail address'), 'New.Student@halvorsen.example');
+    await user.selectOptions(within(form).getByLabelText('Role'), 'viewer');
+    expect(within(form).getByText('A viewer may read the models, scans and results.')).toBeInTheDocument();
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
+    expect(await screen.findByText('Invitation sent to new.student@halvorsen.example.')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ email: 'new.student@halvorsen.example', role: 'viewer' });
+
+    const table = await screen.findByRole('table', { name: 'Pending invitations' });
+    expect(table).toHaveTextContent('new.student@halvorsen.example');
+    await user.click(within(table).getByRole('button', { name: 'Revoke the invitation to new.student@halvorsen.example' }));
+    await user.click(within(await screen.findByRole('alertdialog')).getByRole('button', { name: 'Revoke invitation' }));
+    expect(await screen.findByText('No invitations are waiting for an answer.')).toBeInTheDocument();
+  });
+
+  it('shows the mail server problem when an invitation could not be sent', async () => {
+    mockApi({
+      'GET /api/auth/me': () => json(200, leadUser),
+      'GET /api/groups/10': () => json(200, plateauLab()),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'POST /api/groups/10/invitations': () => apiError(502, 'The mail server refused the invitation to x@halvorsen.example, so it was not saved'),
+    });
+    const { user } = renderApp('/groups/10');
+    const form = await screen.findByRole('form', { name: 'Invite someone' });
+    await user.type(within(form).getByLabelText('E-mail address'), 'x@halvorsen.example');
+    await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
+    expect(await within(form).findByRole('alert')).toHaveTextContent('The mail server refused the invitation');
+  });
+});
