@@ -145,4 +145,39 @@ describe('group page', () => {
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
     expect(await within(form).findByRole('alert')).toHaveTextContent('The mail server refused the invitation');
   });
+
+  it('lets a site admin edit the name and point limit', async () => {
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, adminUser),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: null }),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'PATCH /api/groups/10': (request) => json(200, { ...plateauLab(), myRole: null, ...(request.body as object) }),
+    });
+    const { user } = renderApp('/groups/10');
+    const form = await screen.findByRole('form', { name: 'Group settings' });
+    await user.clear(within(form).getByLabelText('Point limit'));
+    await user.type(within(form).getByLabelText('Point limit'), '0');
+    await user.click(within(form).getByRole('button', { name: 'Save group' }));
+    expect(await within(form).findByText('The point limit is at least 1')).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'PATCH')).toBe(false);
+
+    await user.clear(within(form).getByLabelText('Point limit'));
+    await user.type(within(form).getByLabelText('Point limit'), '25000');
+    await user.clear(within(form).getByLabelText('Name'));
+    await user.type(within(form).getByLabelText('Name'), 'Plateau Laboratory');
+    await user.click(within(form).getByRole('button', { name: 'Save group' }));
+    expect(await screen.findByRole('heading', { name: 'Plateau Laboratory' })).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ name: 'Plateau Laboratory', description: 'Plateau potentials and their tensor ratios', pointLimit: 25000 });
+  });
+
+  it('offers no group settings to a lead who is not a site admin', async () => {
+    mockApi({
+      'GET /api/auth/me': () => json(200, leadUser),
+      'GET /api/groups/10': () => json(200, plateauLab()),
+      'GET /api/groups/10/invitations': () => json(200, []),
+    });
+    renderApp('/groups/10');
+    expect(await screen.findByRole('form', { name: 'Invite someone' })).toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Group settings' })).not.toBeInTheDocument();
+  });
 });

@@ -8,6 +8,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useGroup } from '@/features/groups/api/get-group';
 import { GroupDetail } from '@/features/groups/components/group-detail';
+import { GroupSettingsForm } from '@/features/groups/components/group-settings-form';
 import { InviteForm } from '@/features/groups/components/invite-form';
 import { PendingInvitations } from '@/features/groups/components/pending-invitations';
 import { useDocumentTitle } from '@/hooks/use-document-title';
@@ -69,6 +70,16 @@ function GroupPage({ groupId }: { groupId: number }) {
               <PendingInvitations groupId={groupId} />
             </Panel>
           </>
+        )}
+        {me?.siteRole === 'admin' && (
+          <Panel>
+            <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">
+              Group settings
+            </Heading>
+            <Stack px="4" pb="4">
+              <GroupSettingsForm key={group.data.id} group={group.data} />
+            </Stack>
+          </Panel>
         )}
       </Stack>
     </Stack>
