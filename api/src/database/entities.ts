@@ -1,7 +1,9 @@
 import { AuditEvent } from '../audit/entities/audit-event.entity';
 import { Comment } from '../comments/entities/comment.entity';
+import { CommentMention } from '../comments/entities/comment-mention.entity';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
+import { Notification } from '../notifications/entities/notification.entity';
 import { PotentialModel } from '../models/entities/potential-model.entity';
 import { Scan } from '../scans/entities/scan.entity';
 import { ScanPoint } from '../scans/entities/scan-point.entity';
@@ -10,6 +12,6 @@ import { ApiToken } from '../tokens/entities/api-token.entity';
 import { User } from '../users/entities/user.entity';
 
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
-export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent, ApiToken];
+export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, CommentMention, Notification, AuditEvent, ApiToken];
 
-export { ApiToken, AuditEvent, Comment, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };
+export { ApiToken, AuditEvent, Comment, CommentMention, Notification, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };
