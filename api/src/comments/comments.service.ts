@@ -1,6 +1,6 @@
 import { BadRequestException, ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { In, type DataSource, type EntityManager } from 'typeorm';
+import { In, IsNull, type DataSource, type EntityManager } from 'typeorm';
 import {
   handleOf, mentionedHandles, type CommentBody, type CommentCounts, type CommentDto, type CommentListQuery, type CommentPerson, type CreateComment,
 } from '@sixtyfold/shared';
@@ -31,7 +31,7 @@ export class CommentsService {
   async list(user: SessionUser, scanId: number, query: CommentListQuery): Promise<CommentDto[]> {
     await this.readableScan(user, scanId);
     const rows = await this.db.getRepository(Comment).find({
-      where: { scanId, pointIndex: query.pointIndex === undefined ? (null as unknown as number) : query.pointIndex },
+      where: { scanId, pointIndex: query.pointIndex === undefined ? IsNull() : query.pointIndex },
       relations: { author: true },
       order: { createdAt: 'ASC', id: 'ASC' },
     });
