@@ -6,12 +6,14 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { CommentsModule } from './comments/comments.module';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
 import { invitationConfig } from './config/invitation.config';
 import { mailConfig } from './config/mail.config';
+import { notificationsConfig } from './config/notifications.config';
 import { redisConfig } from './config/redis.config';
 import { buildDataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
@@ -19,6 +21,7 @@ import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
 import { ModelsModule } from './models/models.module';
+import { NotificationsModule } from './notifications/notifications.module';
 import { RedisModule } from './redis/redis.module';
 import { ScansModule } from './scans/scans.module';
 import { TokensModule } from './tokens/tokens.module';
@@ -28,7 +31,7 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
@@ -45,6 +48,8 @@ import { WorkersModule } from './workers/workers.module';
     ModelsModule,
     ScansModule,
     TokensModule,
+    NotificationsModule,
+    CommentsModule,
     AdminModule,
     HealthModule,
     WorkersModule,

@@ -1,12 +1,14 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import type request from 'supertest';
 import { Like } from 'typeorm';
+import { Comment } from '../src/comments/entities/comment.entity';
 import { readAppConfig } from '../src/config/app.config';
 import { readInvitationConfig } from '../src/config/invitation.config';
 import { Group } from '../src/groups/entities/group.entity';
 import { Membership } from '../src/groups/entities/membership.entity';
 import { Invitation } from '../src/invitations/entities/invitation.entity';
 import { signInvitationToken } from '../src/invitations/invitation-token';
+import { Notification } from '../src/notifications/entities/notification.entity';
 import { PotentialModel } from '../src/models/entities/potential-model.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
@@ -57,6 +59,8 @@ describe('every route against every role', () => {
   let accessGroupId: number;
   let viewerInvitationToken: string;
   let plateauViewerId: number;
+  const ownComment = new Map<Role, number>();
+  let memberNotificationId: number;
 
   const table: RouteCase[] = [
     { method: 'get', route: '/api/health', url: () => '/api/health', expect: { ...everyoneSignedIn(200), anonymous: 200 } },
@@ -102,6 +106,21 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/admin/outbox', url: () => '/api/admin/outbox', expect: adminOnly },
     // No message has this id: the admin gets 404 for it, everyone else is stopped first.
     { method: 'get', route: '/api/admin/outbox/:messageId', url: () => '/api/admin/outbox/1796000000000-000000', expect: { ...adminOnly, admin: 404 } },
+    // Any role that reads the scan may comment, viewers included; each role edits and deletes a comment of its own.
+    { method: 'get', route: '/api/scans/:scanId/comments', url: () => `/api/scans/${plateauScanId}/comments`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:scanId/comments/counts', url: () => `/api/scans/${plateauScanId}/comments/counts`, expect: plateauOnly },
+    { method: 'post', route: '/api/scans/:scanId/comments', url: () => `/api/scans/${plateauScanId}/comments`, expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 201, outsider: 404 } },
+    { method: 'patch', route: '/api/comments/:id', url: (role) => `/api/comments/${ownComment.get(role)}`, expect: plateauOnly },
+    { method: 'delete', route: '/api/comments/:id', url: (role) => `/api/comments/${ownComment.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 204, viewer: 204, outsider: 404 } },
+    // Notifications and preferences are each user's own.
+    { method: 'get', route: '/api/notifications', url: () => '/api/notifications', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/notifications/unread-count', url: () => '/api/notifications/unread-count', expect: everyoneSignedIn(200) },
+    { method: 'post', route: '/api/notifications/read-all', url: () => '/api/notifications/read-all', expect: everyoneSignedIn(200) },
+    // The member's notification: only the member may mark it read, the rest get 404.
+    { method: 'post', route: '/api/notifications/:id/read', url: () => `/api/notifications/${memberNotificationId}/read`, expect: { anonymous: 401, admin: 404, lead: 404, member: 200, viewer: 404, outsider: 404 } },
+    { method: 'get', route: '/api/auth/me/preferences', url: () => '/api/auth/me/preferences', expect: everyoneSignedIn(200) },
+    { method: 'patch', route: '/api/auth/me/preferences', url: () => '/api/auth/me/preferences', expect: everyoneSignedIn(200) },
+    { method: 'post', route: '/api/admin/notifications/digest', url: () => '/api/admin/notifications/digest', expect: adminOnly },
     // Everyone manages their own tokens; DELETE revokes the caller's own (the member's for anonymous).
     { method: 'get', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(200) },
     { method: 'post', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(201) },
@@ -120,6 +139,9 @@ describe('every route against every role', () => {
     if (route === '/api/groups/:id/invitations') return { email: `access-table-${role}@halvorsen.example`, role: 'viewer' };
     if (route === '/api/groups/:id/members/:userId') return { role: 'viewer' };
     if (route === '/api/models') return { ...accessModel(`access table (${role})`), groupId: plateauId };
+    if (route === '/api/scans/:scanId/comments') return { body: `access table (${role})` };
+    if (route === '/api/comments/:id') return { body: `edited by the access table (${role})` };
+    if (route === '/api/auth/me/preferences') return { notificationEmail: 'immediate' };
     if (route === '/api/models/:id') return { description: `edited by the access table (${role})` };
     if (route === '/api/scans') {
       return {
@@ -173,11 +195,20 @@ describe('every route against every role', () => {
       await t.db.getRepository(Membership).insert({ groupId: plateauId, userId: throwaway.id, role: 'viewer' });
       removableMember.set(role, throwaway.id);
     }
+    for (const role of ROLES) {
+      const author = await t.db.getRepository(User).findOneByOrFail({ email: role === 'anonymous' ? DEMO.plateauMember : EMAIL[role] });
+      // The outsider's comment sits on the Plateau scan too (as if written before they left), so they get 404.
+      ownComment.set(role, (await t.db.getRepository(Comment).save({ scanId: plateauScanId, pointIndex: null, authorId: author.id, body: `access table (${role})` })).id);
+    }
+    memberNotificationId = (await t.db.getRepository(Notification).save({
+      userId: owner.id, kind: 'mentioned', payload: { title: 'access table', link: null }, eventKey: `access-table-${Date.now()}`, emailedAt: new Date(),
+    })).id;
     const models = t.db.getRepository(PotentialModel);
     editedModelId = (await models.save({ ...accessModel('access table, edited'), groupId: plateauId })).id;
     for (const role of ROLES) ownModel.set(role, (await models.save({ ...accessModel(`access table, to delete (${role})`), groupId: plateauId })).id);
   });
   afterAll(async () => {
+    await t.db.getRepository(Notification).delete({ id: memberNotificationId });
     await t.db.getRepository(Scan).delete({ id: plateauScanId });
     for (const id of ownScan.values()) await t.db.getRepository(Scan).delete({ id });
     await t.db.getRepository(PotentialModel).delete({ name: Like('access table%') });

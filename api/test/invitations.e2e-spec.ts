@@ -7,6 +7,7 @@ import { Group } from '../src/groups/entities/group.entity';
 import { Membership } from '../src/groups/entities/membership.entity';
 import { Invitation } from '../src/invitations/entities/invitation.entity';
 import { signInvitationToken } from '../src/invitations/invitation-token';
+import { Notification } from '../src/notifications/entities/notification.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 
@@ -73,6 +74,10 @@ describe('groups, invitations by e-mail and member roles', () => {
     expect(invited.body).toMatchObject({ email: DEMO.plateauLead, role: 'lead', invitedByName: 'Amara Okafor', inviteeUserId: henrik.id });
 
     const mail = await invitationMail(DEMO.plateauLead);
+    // An existing account is also told in the app, and the invitation mail stays its only e-mail.
+    const notices = await t.db.getRepository(Notification).findBy({ userId: henrik.id, eventKey: `invitation-${invited.body.id}` });
+    expect(notices).toEqual([expect.objectContaining({ kind: 'invited', emailedAt: expect.any(Date) })]);
+    expect(notices[0].payload).toMatchObject({ link: `/invitations/${mail.token}`, groupId });
     const preview = await t.http().get(`/api/invitations/${mail.token}`);
     expect(preview.status).toBe(200);
     expect(preview.body).toMatchObject({ groupName: `Reheating Studies ${stamp}`, role: 'lead', email: DEMO.plateauLead, accountExists: true });

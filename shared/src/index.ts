@@ -19,3 +19,5 @@ export * from './schemas/api-token.schema.js';
 export * from './observations/observational-limits.js';
 export * from './schemas/mail.schema.js';
 export * from './schemas/invitation.schema.js';
+export * from './schemas/comment.schema.js';
+export * from './schemas/notification.schema.js';

@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { GroupsModule } from '../groups/groups.module';
 import { MailModule } from '../mail/mail.module';
+import { NotificationsModule } from '../notifications/notifications.module';
 import { User } from '../users/entities/user.entity';
 import { UsersModule } from '../users/users.module';
 import { Invitation } from './entities/invitation.entity';
@@ -10,10 +11,9 @@ import { GroupInvitationsController, InvitationLinksController } from './invitat
 import { InvitationsService } from './invitations.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Invitation, User]), GroupsModule, MailModule, AuditModule, UsersModule],
+  imports: [TypeOrmModule.forFeature([Invitation, User]), GroupsModule, MailModule, AuditModule, UsersModule, NotificationsModule],
   controllers: [GroupInvitationsController, InvitationLinksController],
   providers: [InvitationsService],
-  // Exported so in-app notices can react to new invitations (Invitation.inviteeUserId names the account).
   exports: [InvitationsService],
 })
 export class InvitationsModule {}

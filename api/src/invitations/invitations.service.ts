@@ -18,6 +18,8 @@ import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { GroupAccessService } from '../groups/group-access.service';
 import { MailService } from '../mail/mail.service';
+import { Notification } from '../notifications/entities/notification.entity';
+import { NotificationsService } from '../notifications/notifications.service';
 import { User } from '../users/entities/user.entity';
 import { Invitation } from './entities/invitation.entity';
 import { signInvitationToken, verifyInvitationToken } from './invitation-token';
@@ -45,6 +47,7 @@ export class InvitationsService {
     private readonly access: GroupAccessService,
     private readonly mail: MailService,
     private readonly audit: AuditService,
+    private readonly notifications: NotificationsService,
   ) {
     const invitation = config.getOrThrow<InvitationConfig>('invitation');
     this.secret = invitation.secret ?? config.getOrThrow<AppConfig>('app').sessionSecret;
@@ -85,7 +88,17 @@ export class InvitationsService {
         action: 'membership.invite', actorId: user.id, groupId, targetType: 'invitation', targetId: invitation.id,
         details: { email: body.email, role: body.role, replaced: replaced.map((r) => r.id) },
       }, manager);
-      await this.sendInvitationMail(invitation, group, user);
+      const link = await this.sendInvitationMail(invitation, group, user);
+      if (existing) {
+        // Someone with an account also sees the invitation in the app. The invitation mail just
+        // sent is its e-mail, so the notice is marked as mailed and never mailed a second time.
+        const eventKey = `invitation-${invitation.id}`;
+        await this.notifications.notify(existing.id, 'invited', {
+          title: `${user.displayName} invites you to ${group.name} as ${body.role}`,
+          link: new URL(link).pathname, groupId, groupName: group.name, actorName: user.displayName,
+        }, eventKey, manager);
+        await manager.getRepository(Notification).update({ userId: existing.id, eventKey }, { emailedAt: new Date() });
+      }
       return invitation;
     });
     return this.toDto({ ...saved, invitedBy: { displayName: user.displayName } as User });
@@ -177,7 +190,8 @@ export class InvitationsService {
     return invitation;
   }
 
-  private async sendInvitationMail(invitation: Invitation, group: Group, inviter: SessionUser): Promise<void> {
+  /** Sends the invitation e-mail and answers the link it carries. */
+  private async sendInvitationMail(invitation: Invitation, group: Group, inviter: SessionUser): Promise<string> {
     const link = this.mail.link(`invitations/${signInvitationToken(this.secret, invitation.id, invitation.expiresAt)}`);
     const expires = invitation.expiresAt.toUTCString();
     try {
@@ -196,6 +210,7 @@ export class InvitationsService {
       this.logger.warn(`invitation mail to ${invitation.email} failed: ${(err as Error).message}`);
       throw new BadGatewayException(`The mail server refused the invitation to ${invitation.email}, so it was not saved; try again later or tell the site administrator`);
     }
+    return link;
   }
 
   private async toDto(row: Invitation): Promise<InvitationDto> {

@@ -159,7 +159,7 @@ export class ScansService {
       );
       if (rows.length === 0) return [];
       const removed: { affectedRows: number } = await tx.query("DELETE FROM scan_points WHERE scan_id = ? AND status <> 'ok'", [id]);
-      await tx.query("UPDATE scans SET status = 'running', finished_at = NULL, failed_points = failed_points - ? WHERE id = ?", [removed.affectedRows, id]);
+      await tx.query("UPDATE scans SET status = 'running', finished_at = NULL, finish_notified_at = NULL, failed_points = failed_points - ? WHERE id = ?", [removed.affectedRows, id]);
       return rows.map((r) => Number(r.chunk));
     });
     if (chunks.length === 0) throw new ConflictException('The scan has no failed points');

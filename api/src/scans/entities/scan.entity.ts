@@ -73,6 +73,10 @@ export class Scan {
   @Column({ name: 'finished_at', type: 'datetime', precision: 3, nullable: true })
   finishedAt: Date | null;
 
+  /** Set once the owner has been told the scan finished; cleared when a retry runs it again. */
+  @Column({ name: 'finish_notified_at', type: 'datetime', precision: 3, nullable: true })
+  finishNotifiedAt: Date | null;
+
   @ManyToOne(() => Group, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'group_id' })
   group: Group;

@@ -1,5 +1,5 @@
 import { Column, CreateDateColumn, Entity, Index, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
-import { SITE_ROLES, type SiteRole } from '@sixtyfold/shared';
+import { NOTIFICATION_EMAIL_MODES, SITE_ROLES, type NotificationEmailMode, type SiteRole } from '@sixtyfold/shared';
 import type { Membership } from '../../groups/entities/membership.entity';
 
 @Entity('users')
@@ -20,6 +20,10 @@ export class User {
 
   @Column({ name: 'site_role', type: 'enum', enum: SITE_ROLES, default: 'user' })
   siteRole: SiteRole;
+
+  /** How notifications reach this user by e-mail: each at once, a daily digest, or not at all. */
+  @Column({ name: 'notification_email', type: 'enum', enum: NOTIFICATION_EMAIL_MODES, default: 'immediate' })
+  notificationEmail: NotificationEmailMode;
 
   @Column({ name: 'last_login_at', type: 'datetime', precision: 3, nullable: true })
   lastLoginAt: Date | null;
