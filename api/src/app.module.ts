@@ -9,10 +9,12 @@ import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
+import { maintenanceConfig } from './config/maintenance.config';
 import { redisConfig } from './config/redis.config';
 import { buildDataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
+import { MaintenanceModule } from './maintenance/maintenance.module';
 import { ModelsModule } from './models/models.module';
 import { RedisModule } from './redis/redis.module';
 import { ScansModule } from './scans/scans.module';
@@ -23,7 +25,7 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, maintenanceConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
@@ -37,6 +39,7 @@ import { WorkersModule } from './workers/workers.module';
     ScansModule,
     TokensModule,
     AdminModule,
+    MaintenanceModule,
     HealthModule,
     WorkersModule,
   ],

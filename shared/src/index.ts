@@ -17,3 +17,4 @@ export * from './schemas/scan-point.schema.js';
 export * from './schemas/scan-plane.schema.js';
 export * from './schemas/api-token.schema.js';
 export * from './observations/observational-limits.js';
+export * from './schemas/maintenance.schema.js';
