@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { ConfigModule, ConfigService } from '@nestjs/config';
 import { APP_FILTER, APP_GUARD } from '@nestjs/core';
+import { ScheduleModule } from '@nestjs/schedule';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
@@ -30,6 +31,8 @@ import { WorkersModule } from './workers/workers.module';
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
     }),
+    // Timed jobs (nightly retention, mail digests, finished-scan notices) run inside the API.
+    ScheduleModule.forRoot(),
     RedisModule,
     AuditModule,
     UsersModule,

@@ -1,5 +1,4 @@
 import { Module } from '@nestjs/common';
-import { ScheduleModule } from '@nestjs/schedule';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { Group } from '../groups/entities/group.entity';
@@ -15,7 +14,7 @@ import { ScanDeletionService } from './scan-deletion.service';
 import { StorageService } from './storage.service';
 
 @Module({
-  imports: [ScheduleModule.forRoot(), TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
+  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
   controllers: [MaintenanceController],
   providers: [MaintenanceAccessService, ScanArchivesService, ScanDeletionService, StorageService, PruneService, RetentionService],
   exports: [ScanDeletionService],
