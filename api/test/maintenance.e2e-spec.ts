@@ -156,7 +156,7 @@ describe('storage, pruning, archives and retention', () => {
     expect(events.map((e) => Number(e.targetId))).toEqual(old);
     for (const [i, e] of events.entries()) {
       expect(e).toMatchObject({ actorId: leadId, groupId: plateauId });
-      expect(e.details).toMatchObject({ reason: 'prune', archiveId: pruned.body.deleted[i].archiveId, points: pruned.body.deleted[i].points });
+      expect(e.details).toMatchObject({ reason: 'prune', archiveId: pruned.body.deleted[i].archiveId, points: pruned.body.deleted[i].points, archivedPoints: pruned.body.deleted[i].points });
     }
 
     // The same filter now selects nothing.

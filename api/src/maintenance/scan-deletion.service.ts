@@ -29,8 +29,8 @@ export class ScanDeletionService {
   async delete(scanId: number, actorId: number | null, reason: DeletionReason, onlyFinished: boolean): Promise<DeletedScan> {
     const archive = await this.archives.write(scanId, actorId);
     await this.db.transaction(async (tx) => {
-      const [locked]: { status: string; group_id: number; name: string; owner_id: number }[] = await tx.query(
-        'SELECT status, group_id, name, owner_id FROM scans WHERE id = ? FOR UPDATE', [scanId],
+      const [locked]: { status: string; group_id: number; name: string; owner_id: number; total_points: number }[] = await tx.query(
+        'SELECT status, group_id, name, owner_id, total_points FROM scans WHERE id = ? FOR UPDATE', [scanId],
       );
       if (!locked) throw new ConflictException(`Scan ${scanId} was already deleted`);
       if (onlyFinished && (locked.status === 'queued' || locked.status === 'running')) {
@@ -40,7 +40,8 @@ export class ScanDeletionService {
       await tx.getRepository(Scan).update({ id: scanId }, { status: 'cancelled' });
       await this.audit.record({
         action: 'scan.delete', actorId, groupId: locked.group_id, targetType: 'scan', targetId: scanId,
-        details: { reason, archiveId: archive.id, points: archive.points, name: locked.name, owner: locked.owner_id },
+        // points: the scan's grid size, as before; archivedPoints: the rows the archive holds.
+        details: { reason, archiveId: archive.id, points: Number(locked.total_points), archivedPoints: archive.points, name: locked.name, owner: locked.owner_id },
       }, tx);
       await tx.getRepository(Scan).delete({ id: scanId });
     });
