@@ -13,6 +13,7 @@ import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
 import { invitationConfig } from './config/invitation.config';
 import { mailConfig } from './config/mail.config';
+import { maintenanceConfig } from './config/maintenance.config';
 import { notificationsConfig } from './config/notifications.config';
 import { redisConfig } from './config/redis.config';
 import { buildDataSourceOptions } from './database/typeorm-options';
@@ -20,6 +21,7 @@ import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
 import { InvitationsModule } from './invitations/invitations.module';
 import { MailModule } from './mail/mail.module';
+import { MaintenanceModule } from './maintenance/maintenance.module';
 import { ModelsModule } from './models/models.module';
 import { NotificationsModule } from './notifications/notifications.module';
 import { RedisModule } from './redis/redis.module';
@@ -31,7 +33,7 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig, maintenanceConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
@@ -51,6 +53,7 @@ import { WorkersModule } from './workers/workers.module';
     NotificationsModule,
     CommentsModule,
     AdminModule,
+    MaintenanceModule,
     HealthModule,
     WorkersModule,
   ],

@@ -51,6 +51,7 @@ describe('every route against every role', () => {
   let plateauModelId: number;
   let plateauScanId: number;
   let editedModelId: number;
+  let plateauArchiveId: number;
   const ownScan = new Map<Role, number>();
   const ownModel = new Map<Role, number>();
   const ownToken = new Map<Role, number>();
@@ -121,6 +122,16 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/auth/me/preferences', url: () => '/api/auth/me/preferences', expect: everyoneSignedIn(200) },
     { method: 'patch', route: '/api/auth/me/preferences', url: () => '/api/auth/me/preferences', expect: everyoneSignedIn(200) },
     { method: 'post', route: '/api/admin/notifications/digest', url: () => '/api/admin/notifications/digest', expect: adminOnly },
+    // Maintenance: admins everywhere, leads within their group (the outsider leads Tensor Modes).
+    { method: 'get', route: '/api/maintenance/storage', url: () => '/api/maintenance/storage', expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 200 } },
+    { method: 'post', route: '/api/maintenance/prune/dry-run', url: () => '/api/maintenance/prune/dry-run', expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 404 } },
+    // A tag no scan has: whoever may prune deletes nothing and gets 200.
+    { method: 'post', route: '/api/maintenance/prune', url: () => '/api/maintenance/prune', expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/maintenance/archives', url: () => '/api/maintenance/archives', expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 200 } },
+    { method: 'get', route: '/api/maintenance/archives/:id/download', url: () => `/api/maintenance/archives/${plateauArchiveId}/download`, expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/maintenance/groups/:id/retention', url: () => `/api/maintenance/groups/${plateauId}/retention`, expect: plateauOnly },
+    { method: 'patch', route: '/api/maintenance/groups/:id/retention', url: () => `/api/maintenance/groups/${plateauId}/retention`, expect: { anonymous: 401, admin: 200, lead: 200, member: 403, viewer: 403, outsider: 404 } },
+    { method: 'post', route: '/api/maintenance/retention/run', url: () => '/api/maintenance/retention/run', expect: adminOnly },
     // Everyone manages their own tokens; DELETE revokes the caller's own (the member's for anonymous).
     { method: 'get', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(200) },
     { method: 'post', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(201) },
@@ -143,6 +154,9 @@ describe('every route against every role', () => {
     if (route === '/api/comments/:id') return { body: `edited by the access table (${role})` };
     if (route === '/api/auth/me/preferences') return { notificationEmail: 'immediate' };
     if (route === '/api/models/:id') return { description: `edited by the access table (${role})` };
+    if (route === '/api/maintenance/prune/dry-run') return { groupId: plateauId, tag: 'no-such-tag' };
+    if (route === '/api/maintenance/prune') return { groupId: plateauId, tag: 'no-such-tag', scanIds: [] };
+    if (route === '/api/maintenance/groups/:id/retention') return { keepDays: null, statuses: ['completed'] };
     if (route === '/api/scans') {
       return {
         groupId: plateauId, name: `access table (${role})`, model: { kind: 'family', family: 'starobinsky' },
@@ -203,6 +217,10 @@ describe('every route against every role', () => {
     memberNotificationId = (await t.db.getRepository(Notification).save({
       userId: owner.id, kind: 'mentioned', payload: { title: 'access table', link: null }, eventKey: `access-table-${Date.now()}`, emailedAt: new Date(),
     })).id;
+    // A deleted scan's archive, for the download row.
+    const archived = await t.db.getRepository(Scan).save({ groupId: plateauId, ownerId: owner.id, name: 'access-table archived', method: 'slowroll', status: 'completed', spec: {}, note: '', totalPoints: 0 });
+    await agents.get('admin')!.delete(`/api/scans/${archived.id}`).set('content-type', 'application/json').send('{}');
+    plateauArchiveId = (await agents.get('admin')!.get(`/api/maintenance/archives?groupId=${plateauId}`)).body[0].id;
     const models = t.db.getRepository(PotentialModel);
     editedModelId = (await models.save({ ...accessModel('access table, edited'), groupId: plateauId })).id;
     for (const role of ROLES) ownModel.set(role, (await models.save({ ...accessModel(`access table, to delete (${role})`), groupId: plateauId })).id);

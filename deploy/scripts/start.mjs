@@ -44,6 +44,7 @@ const env = {
   API_HOST: process.env.API_HOST ?? '127.0.0.1',
   WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
   SESSION_SECRET: process.env.SESSION_SECRET ?? persistentSecret(profile.dataDir),
+  ARCHIVE_DIR: process.env.ARCHIVE_DIR ?? path.join(profile.dataDir, 'archives'),
 };
 
 log('building shared, api, worker and web');

@@ -49,6 +49,7 @@ async function cleanUp() {
 process.on('SIGINT', () => cleanUp().then(() => process.exit(130)));
 
 services = await startProfileServices(profile, { fresh: true });
+rmSync(path.join(profile.dataDir, 'archives'), { recursive: true, force: true });
 
 const env = {
   ...process.env,
@@ -62,6 +63,8 @@ const env = {
   WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
   SESSION_SECRET: 'sixtyfold-test-session-secret',
   LOGIN_THROTTLE_LIMIT: '5',
+  // Emptied with the database below, so every archive row has its file.
+  ARCHIVE_DIR: path.join(profile.dataDir, 'archives'),
   FORCE_COLOR: '0',
 };
 

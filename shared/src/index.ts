@@ -21,3 +21,4 @@ export * from './schemas/mail.schema.js';
 export * from './schemas/invitation.schema.js';
 export * from './schemas/comment.schema.js';
 export * from './schemas/notification.schema.js';
+export * from './schemas/maintenance.schema.js';

@@ -19,7 +19,14 @@ export interface AuditQuery {
   action?: string;
   actorId?: number;
   groupId?: number;
+  targetType?: string;
+  /** ISO date or date-time, inclusive. */
+  from?: string;
+  /** ISO date or date-time, exclusive; a plain date includes that whole day. */
+  to?: string;
 }
+
+const PLAIN_DATE = /^\d{4}-\d{2}-\d{2}$/;
 
 @Injectable()
 export class AuditService {
@@ -49,6 +56,13 @@ export class AuditService {
     if (query.action) qb.andWhere('e.action = :action', { action: query.action });
     if (query.actorId) qb.andWhere('e.actorId = :actorId', { actorId: query.actorId });
     if (query.groupId) qb.andWhere('e.groupId = :groupId', { groupId: query.groupId });
+    if (query.targetType) qb.andWhere('e.targetType = :targetType', { targetType: query.targetType });
+    // Plain dates are UTC days, as the page shows them.
+    if (query.from) qb.andWhere('e.createdAt >= :from', { from: new Date(PLAIN_DATE.test(query.from) ? `${query.from}T00:00:00Z` : query.from) });
+    if (query.to) {
+      const end = PLAIN_DATE.test(query.to) ? new Date(Date.parse(`${query.to}T00:00:00Z`) + 86_400_000) : new Date(query.to);
+      qb.andWhere('e.createdAt < :to', { to: end });
+    }
     const [rows, total] = await qb.getManyAndCount();
     return {
       items: rows.map((e) => ({

@@ -4,6 +4,7 @@ import { CommentMention } from '../comments/entities/comment-mention.entity';
 import { Group } from '../groups/entities/group.entity';
 import { Invitation } from '../invitations/entities/invitation.entity';
 import { Membership } from '../groups/entities/membership.entity';
+import { ScanArchive } from '../maintenance/entities/scan-archive.entity';
 import { Notification } from '../notifications/entities/notification.entity';
 import { PotentialModel } from '../models/entities/potential-model.entity';
 import { Scan } from '../scans/entities/scan.entity';
@@ -13,6 +14,12 @@ import { ApiToken } from '../tokens/entities/api-token.entity';
 import { User } from '../users/entities/user.entity';
 
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
-export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, CommentMention, Notification, AuditEvent, ApiToken, Invitation];
+export const ENTITIES = [
+  User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, CommentMention, Notification, AuditEvent, ApiToken,
+  Invitation, ScanArchive,
+];
 
-export { ApiToken, AuditEvent, Comment, CommentMention, Group, Invitation, Membership, Notification, PotentialModel, Scan, ScanPoint, ScanTag, User };
+export {
+  ApiToken, AuditEvent, Comment, CommentMention, Group, Invitation, Membership, Notification, PotentialModel, Scan, ScanArchive, ScanPoint,
+  ScanTag, User,
+};

@@ -2,6 +2,7 @@ import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { GroupsModule } from '../groups/groups.module';
+import { MaintenanceModule } from '../maintenance/maintenance.module';
 import { QueueModule } from '../queue/queue.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
@@ -13,7 +14,7 @@ import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })

@@ -8,6 +8,7 @@ import type { SessionUser } from '../common/session-user';
 import type { AppConfig } from '../config/app.config';
 import { Group } from '../groups/entities/group.entity';
 import { GroupAccessService } from '../groups/group-access.service';
+import { ScanDeletionService } from '../maintenance/scan-deletion.service';
 import { PotentialModel } from '../models/entities/potential-model.entity';
 import { Scan } from './entities/scan.entity';
 import { ScanTag } from './entities/scan-tag.entity';
@@ -23,6 +24,7 @@ export class ScansService {
     private readonly queue: ScanQueueService,
     private readonly audit: AuditService,
     private readonly config: ConfigService,
+    private readonly deletion: ScanDeletionService,
   ) {}
 
   /** Validates against the model and the limits, stores the scan, then queues its chunks. */
@@ -185,18 +187,11 @@ export class ScansService {
     return this.get(user, copy.id);
   }
 
-  /** Leads and admins only; the points go with the scan, and the deletion is on record. */
+  /** Leads and admins only; the scan is archived first, the points go with it, and the deletion is on record. */
   async remove(user: SessionUser, id: number): Promise<void> {
     const scan = await this.load(user, id);
     await this.access.require(user, scan.groupId, 'lead', 'scan');
-    await this.db.transaction(async (tx) => {
-      await tx.getRepository(Scan).update({ id }, { status: 'cancelled' });
-      await this.audit.record({
-        action: 'scan.delete', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id,
-        details: { name: scan.name, points: scan.totalPoints, owner: scan.ownerId },
-      }, tx);
-      await tx.getRepository(Scan).delete({ id });
-    });
+    await this.deletion.delete(id, user.id, 'manual', false);
     await this.queue.remove(id, scan.totalPoints, scan.method);
   }
 

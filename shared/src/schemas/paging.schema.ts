@@ -11,5 +11,9 @@ export const auditQuerySchema = pageQuerySchema.extend({
   action: z.string().max(64).optional(),
   actorId: z.coerce.number().int().positive().optional(),
   groupId: z.coerce.number().int().positive().optional(),
+  targetType: z.string().max(32).optional(),
+  /** ISO date or date-time; `from` inclusive, `to` exclusive (a plain date `to` means up to the end of that day). */
+  from: z.iso.date().or(z.iso.datetime({ offset: true })).optional(),
+  to: z.iso.date().or(z.iso.datetime({ offset: true })).optional(),
 });
 export type AuditQuery = z.infer<typeof auditQuerySchema>;

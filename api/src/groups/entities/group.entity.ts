@@ -20,6 +20,13 @@ export class Group {
   @Column({ name: 'point_limit', type: 'int', unsigned: true, default: 1_000_000 })
   pointLimit: number;
 
+  /** Retention: finished scans with `retentionStatuses` are pruned after this many days; null keeps them. */
+  @Column({ name: 'retention_days', type: 'int', unsigned: true, nullable: true })
+  retentionDays: number | null;
+
+  @Column({ name: 'retention_statuses', type: 'varchar', length: 100, default: 'completed,failed,cancelled' })
+  retentionStatuses: string;
+
   @CreateDateColumn({ name: 'created_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' })
   createdAt: Date;
 

@@ -1,0 +1,22 @@
+import { Module } from '@nestjs/common';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AuditModule } from '../audit/audit.module';
+import { Group } from '../groups/entities/group.entity';
+import { Membership } from '../groups/entities/membership.entity';
+import { GroupsModule } from '../groups/groups.module';
+import { ScanArchive } from './entities/scan-archive.entity';
+import { MaintenanceAccessService } from './maintenance-access.service';
+import { MaintenanceController } from './maintenance.controller';
+import { PruneService } from './prune.service';
+import { RetentionService } from './retention.service';
+import { ScanArchivesService } from './scan-archives.service';
+import { ScanDeletionService } from './scan-deletion.service';
+import { StorageService } from './storage.service';
+
+@Module({
+  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
+  controllers: [MaintenanceController],
+  providers: [MaintenanceAccessService, ScanArchivesService, ScanDeletionService, StorageService, PruneService, RetentionService],
+  exports: [ScanDeletionService],
+})
+export class MaintenanceModule {}
