@@ -17,3 +17,6 @@ export * from './schemas/scan-point.schema.js';
 export * from './schemas/scan-plane.schema.js';
 export * from './schemas/api-token.schema.js';
 export * from './observations/observational-limits.js';
+export * from './uploads/upload-problem.js';
+export * from './uploads/constraint-region.schema.js';
+export * from './uploads/model-file.schema.js';
