@@ -5,6 +5,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
+import { ConstraintRegionsModule } from './constraint-regions/constraint-regions.module';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
@@ -34,6 +35,7 @@ import { WorkersModule } from './workers/workers.module';
     AuthModule,
     GroupsModule,
     ModelsModule,
+    ConstraintRegionsModule,
     ScansModule,
     TokensModule,
     AdminModule,

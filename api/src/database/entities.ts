@@ -1,5 +1,6 @@
 import { AuditEvent } from '../audit/entities/audit-event.entity';
 import { Comment } from '../comments/entities/comment.entity';
+import { ConstraintRegion } from '../constraint-regions/entities/constraint-region.entity';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { PotentialModel } from '../models/entities/potential-model.entity';
@@ -10,6 +11,6 @@ import { ApiToken } from '../tokens/entities/api-token.entity';
 import { User } from '../users/entities/user.entity';
 
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
-export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent, ApiToken];
+export const ENTITIES = [User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, AuditEvent, ApiToken, ConstraintRegion];
 
-export { ApiToken, AuditEvent, Comment, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };
+export { ApiToken, AuditEvent, Comment, ConstraintRegion, Group, Membership, PotentialModel, Scan, ScanPoint, ScanTag, User };

@@ -1,6 +1,7 @@
 import { InitialSchema1796163989801 } from './1796163989801-InitialSchema';
 import { ApiTokens1796182651904 } from './1796182651904-ApiTokens';
 import { ScanModelSetNull1796193248504 } from './1796193248504-ScanModelSetNull';
+import { Uploads1796300000001 } from './1796300000001-Uploads';
 
 // Migrations in the order they run; a new migration file is listed here too.
-export const MIGRATIONS: Function[] = [InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504];
+export const MIGRATIONS: Function[] = [InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Uploads1796300000001];
