@@ -7,6 +7,7 @@ import { AdminModule } from './admin/admin.module';
 import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { CommentsModule } from './comments/comments.module';
+import { ConstraintRegionsModule } from './constraint-regions/constraint-regions.module';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
@@ -48,6 +49,7 @@ import { WorkersModule } from './workers/workers.module';
     GroupsModule,
     InvitationsModule,
     ModelsModule,
+    ConstraintRegionsModule,
     ScansModule,
     TokensModule,
     NotificationsModule,

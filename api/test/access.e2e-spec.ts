@@ -4,6 +4,7 @@ import { Like } from 'typeorm';
 import { Comment } from '../src/comments/entities/comment.entity';
 import { readAppConfig } from '../src/config/app.config';
 import { readInvitationConfig } from '../src/config/invitation.config';
+import { ConstraintRegion } from '../src/constraint-regions/entities/constraint-region.entity';
 import { Group } from '../src/groups/entities/group.entity';
 import { Membership } from '../src/groups/entities/membership.entity';
 import { Invitation } from '../src/invitations/entities/invitation.entity';
@@ -62,6 +63,7 @@ describe('every route against every role', () => {
   let plateauViewerId: number;
   const ownComment = new Map<Role, number>();
   let memberNotificationId: number;
+  const ownRegion = new Map<Role, number>();
 
   const table: RouteCase[] = [
     { method: 'get', route: '/api/health', url: () => '/api/health', expect: { ...everyoneSignedIn(200), anonymous: 200 } },
@@ -87,6 +89,13 @@ describe('every route against every role', () => {
     { method: 'patch', route: '/api/models/:id', url: () => `/api/models/${editedModelId}`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
     // A model of its own per role, so each allowed deletion has something to delete.
     { method: 'delete', route: '/api/models/:id', url: (role) => `/api/models/${ownModel.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 403, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/models/:id/export', url: () => `/api/models/${plateauModelId}/export`, expect: plateauOnly },
+    // Sent without a file: whoever passes the session check learns the upload is incomplete (uploads.e2e-spec covers roles).
+    { method: 'post', route: '/api/models/import', url: () => '/api/models/import', expect: everyoneSignedIn(400) },
+    { method: 'get', route: '/api/constraint-regions', url: () => '/api/constraint-regions', expect: everyoneSignedIn(200) },
+    { method: 'post', route: '/api/constraint-regions', url: () => '/api/constraint-regions', expect: everyoneSignedIn(400) },
+    // A region of its own per role, uploaded by the member: leads and admins delete any, members their own.
+    { method: 'delete', route: '/api/constraint-regions/:id', url: (role) => `/api/constraint-regions/${ownRegion.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 204, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/points', url: () => `/api/scans/${plateauScanId}/points`, expect: plateauOnly },
@@ -224,6 +233,13 @@ describe('every route against every role', () => {
     const models = t.db.getRepository(PotentialModel);
     editedModelId = (await models.save({ ...accessModel('access table, edited'), groupId: plateauId })).id;
     for (const role of ROLES) ownModel.set(role, (await models.save({ ...accessModel(`access table, to delete (${role})`), groupId: plateauId })).id);
+    for (const role of ROLES) {
+      const region = await t.db.getRepository(ConstraintRegion).save({
+        groupId: plateauId, name: `access table (${role})`, source: 'access table', confidenceLevel: 0.95,
+        vertices: [{ ns: 0.95, r: 0 }, { ns: 0.97, r: 0 }, { ns: 0.96, r: 0.05 }], createdById: owner.id,
+      });
+      ownRegion.set(role, region.id);
+    }
   });
   afterAll(async () => {
     await t.db.getRepository(Notification).delete({ id: memberNotificationId });
@@ -233,6 +249,7 @@ describe('every route against every role', () => {
     await t.db.getRepository(Group).delete({ name: Like('access table group%') });
     await t.db.getRepository(Invitation).delete({ email: Like('access-table-%') });
     await t.db.getRepository(User).delete({ email: Like('access-table-%') });
+    await t.db.getRepository(ConstraintRegion).delete({ name: Like('access table%') });
     await t.close();
   });
 

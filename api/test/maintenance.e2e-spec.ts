@@ -4,7 +4,9 @@ import { createHash } from 'node:crypto';
 import { Readable } from 'node:stream';
 import { gunzipSync } from 'node:zlib';
 import { extract } from 'tar-stream';
+import type request from 'supertest';
 import { In } from 'typeorm';
+import type { QueryDeepPartialEntity } from 'typeorm/query-builder/QueryPartialEntity';
 import { AuditEvent } from '../src/audit/entities/audit-event.entity';
 import { Group } from '../src/groups/entities/group.entity';
 import { ScanArchive } from '../src/maintenance/entities/scan-archive.entity';
@@ -29,10 +31,12 @@ interface SeedOptions {
 }
 
 /** Collects a binary response body as one Buffer. */
-function binary(res: NodeJS.ReadableStream, done: (err: Error | null, body: Buffer) => void): void {
+// supertest's parser type names its Response; at run time it is the response stream.
+function binary(res: request.Response, done: (err: Error | null, body: Buffer) => void): void {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => done(null, Buffer.concat(chunks)));
 }
 
 /** Every entry of a .tar.gz, by name. */
@@ -42,7 +46,7 @@ async function untar(gz: Buffer): Promise<Map<string, Buffer>> {
   const finished = new Promise<void>((resolve, reject) => {
     ex.on('entry', (header, stream, next) => {
       const chunks: Buffer[] = [];
-      stream.on('data', (c: Buffer) => chunks.push(c));
+      stream.on('data', (c) => chunks.push(c as Buffer));
       stream.on('end', () => { files.set(header.name, Buffer.concat(chunks)); next(); });
       stream.resume();
     });
@@ -86,7 +90,7 @@ describe('storage, pruning, archives and retention', () => {
       totalPoints: points, donePoints: points, failedPoints: points > 0 ? 1 : 0,
     });
     await t.db.getRepository(ScanTag).save({ scanId: scan.id, tag: o.tag });
-    const rows: Partial<ScanPoint>[] = [];
+    const rows: QueryDeepPartialEntity<ScanPoint>[] = [];
     for (let i = 0; i < points; i++) {
       const failed = i === points - 1;
       rows.push({

@@ -22,3 +22,6 @@ export * from './schemas/invitation.schema.js';
 export * from './schemas/comment.schema.js';
 export * from './schemas/notification.schema.js';
 export * from './schemas/maintenance.schema.js';
+export * from './uploads/upload-problem.js';
+export * from './uploads/constraint-region.schema.js';
+export * from './uploads/model-file.schema.js';

@@ -1,6 +1,7 @@
 import { AuditEvent } from '../audit/entities/audit-event.entity';
 import { Comment } from '../comments/entities/comment.entity';
 import { CommentMention } from '../comments/entities/comment-mention.entity';
+import { ConstraintRegion } from '../constraint-regions/entities/constraint-region.entity';
 import { Group } from '../groups/entities/group.entity';
 import { Invitation } from '../invitations/entities/invitation.entity';
 import { Membership } from '../groups/entities/membership.entity';
@@ -16,10 +17,10 @@ import { User } from '../users/entities/user.entity';
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
 export const ENTITIES = [
   User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, CommentMention, Notification, AuditEvent, ApiToken,
-  Invitation, ScanArchive,
+  Invitation, ScanArchive, ConstraintRegion,
 ];
 
 export {
-  ApiToken, AuditEvent, Comment, CommentMention, Group, Invitation, Membership, Notification, PotentialModel, Scan, ScanArchive, ScanPoint,
-  ScanTag, User,
+  ApiToken, AuditEvent, Comment, CommentMention, ConstraintRegion, Group, Invitation, Membership, Notification, PotentialModel, Scan,
+  ScanArchive, ScanPoint, ScanTag, User,
 };

@@ -1,9 +1,12 @@
-import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, QueryFailedError, type DataSource, type Repository } from 'typeorm';
-import { modelInputSchema, type ModelInput, type ModelUpdate, type PotentialModel as PotentialModelDto } from '@sixtyfold/shared';
+import {
+  modelInputSchema, readModelFile, toModelFile, type ModelFile, type ModelInput, type ModelUpdate, type PotentialModel as PotentialModelDto,
+} from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import { zodBadRequest } from '../common/pipes/zod-validation.pipe';
+import { uploadBadRequest } from '../common/uploads/read-csv-upload';
 import type { SessionUser } from '../common/session-user';
 import { Group } from '../groups/entities/group.entity';
 import { GroupAccessService } from '../groups/group-access.service';
@@ -57,6 +60,30 @@ export class ModelsService {
       }),
     );
     return toDto(await this.models.findOneByOrFail({ id }));
+  }
+
+  /**
+   * A model file becomes a model of the group by the same rules (and the same one transaction) as
+   * one typed in; the whole file is read and checked first, and a refusal names its line.
+   */
+  async importFile(user: SessionUser, groupId: number, file: Express.Multer.File | undefined): Promise<PotentialModelDto> {
+    if (!file) throw new BadRequestException('Attach the model file as the multipart field "file"');
+    await this.access.require(user, groupId, 'member');
+    let text: string;
+    try {
+      text = new TextDecoder('utf-8', { fatal: true }).decode(file.buffer);
+    } catch {
+      throw uploadBadRequest({ message: 'the file is not UTF-8 text' });
+    }
+    const read = readModelFile(text.replace(/^\uFEFF/, ''), groupId);
+    if (!read.ok) throw uploadBadRequest(read);
+    return this.create(user, read.model);
+  }
+
+  async exportFile(user: SessionUser, id: number): Promise<{ file: ModelFile; fileName: string }> {
+    const model = await this.load(user, id, 'viewer');
+    const slug = model.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '') || `model-${id}`;
+    return { file: toModelFile(model), fileName: `${slug}.potential.json` };
   }
 
   /**

@@ -1,5 +1,5 @@
 import { applyDecorators } from '@nestjs/common';
-import { ApiBody, ApiQuery, ApiResponse, type SchemaObject } from '@nestjs/swagger';
+import { ApiBody, ApiConsumes, ApiQuery, ApiResponse, type SchemaObject } from '@nestjs/swagger';
 import { apiErrorSchema } from '@sixtyfold/shared';
 import { z } from 'zod';
 
@@ -40,8 +40,27 @@ const errorDescriptions: Record<number, string> = {
   409: 'The object is not in a state that allows this',
   410: 'The link has expired, was revoked or was already used',
   502: 'The mail server refused the message; nothing was saved',
+  413: 'The uploaded file is larger than the limit the message names',
+  415: 'The uploaded file is not of the type the route reads',
 };
 
 /** Documents the error answers a route can give; all share the ApiError body. */
 export const ApiErrorResponses = (...statuses: (keyof typeof errorDescriptions)[]) =>
   applyDecorators(...statuses.map((status) => ApiZodResponse(status, apiErrorSchema, errorDescriptions[status])));
+
+/** Documents a multipart upload: the text fields of a shared schema plus the file in `fileField`. */
+export function ApiZodMultipart(fields: z.ZodType | undefined, fileField: string, description: string) {
+  const object = fields ? openApiSchemaOf(fields, 'input') : { type: 'object' as const, properties: {}, required: [] as string[] };
+  return applyDecorators(
+    ApiConsumes('multipart/form-data'),
+    ApiBody({
+      description,
+      required: true,
+      schema: {
+        ...object,
+        properties: { ...(object.properties ?? {}), [fileField]: { type: 'string', format: 'binary' } },
+        required: [...(object.required ?? []), fileField],
+      },
+    }),
+  );
+}

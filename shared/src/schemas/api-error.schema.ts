@@ -6,5 +6,7 @@ export const apiErrorSchema = z.object({
   error: z.string(),
   message: z.string(),
   fieldErrors: z.record(z.string(), z.array(z.string())).optional(),
+  /** For a refused upload: the 1-based line of the file the message is about. */
+  line: z.number().int().optional(),
 });
 export type ApiError = z.infer<typeof apiErrorSchema>;

@@ -20,6 +20,8 @@ type Query = Record<string, string | number | undefined>;
 
 interface RequestOptions<S extends z.ZodType | undefined> {
   body?: unknown;
+  /** A multipart body (file uploads) instead of JSON. */
+  form?: FormData;
   query?: Query;
   schema?: S;
   signal?: AbortSignal;
@@ -63,11 +65,15 @@ async function readError(response: Response): Promise<ApiRequestError> {
 async function request<S extends z.ZodType | undefined = undefined>(
   method: Method,
   path: string,
-  { body, query, schema, signal }: RequestOptions<S> = {},
+  { body, form, query, schema, signal }: RequestOptions<S> = {},
 ): Promise<Result<S>> {
   const headers: Record<string, string> = { Accept: 'application/json' };
   const init: RequestInit = { method, headers, credentials: 'same-origin', signal };
-  if (method !== 'GET') {
+  if (form) {
+    // Not JSON, so the API's CSRF defence wants our own header; the browser sets the multipart boundary.
+    headers['X-Sixtyfold-Request'] = 'upload';
+    init.body = form;
+  } else if (method !== 'GET') {
     // The API's CSRF defence only accepts JSON bodies on state-changing requests, so always send one.
     headers['Content-Type'] = 'application/json';
     init.body = JSON.stringify(body ?? {});
@@ -97,6 +103,9 @@ export const api = {
     request('GET', path, options),
   post: <S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}) =>
     request('POST', path, options),
+  /** POSTs a multipart form (a file and its fields). */
+  upload: <S extends z.ZodType | undefined = undefined>(path: string, form: FormData, options: Omit<RequestOptions<S>, 'body' | 'form'> = {}) =>
+    request('POST', path, { ...options, form }),
   put: <S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}) =>
     request('PUT', path, options),
   patch: <S extends z.ZodType | undefined = undefined>(path: string, options: RequestOptions<S> = {}) =>

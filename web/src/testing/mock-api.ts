@@ -4,6 +4,7 @@ export interface MockRequest {
   method: string;
   url: URL;
   headers: Headers;
+  /** The parsed JSON body, or the FormData of an upload. */
   body: unknown;
   credentials: RequestCredentials | undefined;
 }
@@ -25,7 +26,7 @@ export function mockApi(handlers: Record<string, Handler>) {
   const fetchMock = vi.fn(async (input: RequestInfo | URL, init: RequestInit = {}) => {
     const url = new URL(String(input), 'http://sixtyfold.test');
     const method = (init.method ?? 'GET').toUpperCase();
-    const body = typeof init.body === 'string' ? (JSON.parse(init.body) as unknown) : undefined;
+    const body = typeof init.body === 'string' ? (JSON.parse(init.body) as unknown) : init.body instanceof FormData ? init.body : undefined;
     const request: MockRequest = { method, url, headers: new Headers(init.headers), body, credentials: init.credentials };
     requests.push(request);
     const handler = handlers[`${method} ${url.pathname}`];

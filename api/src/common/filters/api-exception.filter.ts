@@ -28,6 +28,7 @@ export class ApiExceptionFilter implements ExceptionFilter {
       const message = Array.isArray(raw.message) ? raw.message.join('; ') : String(raw.message ?? exception.message);
       const body: ApiError = { statusCode, error: STATUS_CODES[statusCode] ?? 'Error', message };
       if (raw.fieldErrors) body.fieldErrors = raw.fieldErrors as Record<string, string[]>;
+      if (typeof raw.line === 'number') body.line = raw.line;
       return body;
     }
     // body-parser errors (malformed JSON, too large) carry their own 4xx status.

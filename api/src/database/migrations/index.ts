@@ -1,12 +1,13 @@
 import { InitialSchema1796163989801 } from './1796163989801-InitialSchema';
 import { ApiTokens1796182651904 } from './1796182651904-ApiTokens';
 import { ScanModelSetNull1796193248504 } from './1796193248504-ScanModelSetNull';
+import { Uploads1796300000001 } from './1796300000001-Uploads';
 import { Maintenance1796300000002 } from './1796300000002-Maintenance';
 import { Invitations1796300000003 } from './1796300000003-Invitations';
 import { CommentsAndNotifications1796300000004 } from './1796300000004-CommentsAndNotifications';
 
 // Migrations in the order they run; a new migration file is listed here too.
 export const MIGRATIONS: Function[] = [
-  InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Maintenance1796300000002,
-  Invitations1796300000003, CommentsAndNotifications1796300000004,
+  InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Uploads1796300000001,
+  Maintenance1796300000002, Invitations1796300000003, CommentsAndNotifications1796300000004,
 ];

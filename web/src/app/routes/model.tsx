@@ -8,6 +8,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { ModelLoadError } from '@/features/models/components/model-load-error';
 import { useModel } from '@/features/models/api/get-model';
+import { modelExportHref } from '@/features/models/api/model-files';
 import { DeleteModelDialog } from '@/features/models/components/delete-model-dialog';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
@@ -50,6 +51,11 @@ function ModelPage({ modelId }: { modelId: number }) {
           <HStack gap="2" flexShrink="0" wrap="wrap">
             <Button asChild variant="outline" size="sm">
               <RouterLink to={paths.models.getHref()}>All models</RouterLink>
+            </Button>
+            <Button asChild variant="outline" size="sm">
+              <a href={modelExportHref(m.id)} download>
+                Export file
+              </a>
             </Button>
             {canEdit && (
               <Button asChild colorPalette="ink" size="sm">

@@ -1,6 +1,6 @@
-import { Box, Button, Heading, Stack, Text } from '@chakra-ui/react';
-import { useDeferredValue } from 'react';
-import { Link as RouterLink } from 'react-router-dom';
+import { Box, Button, HStack, Heading, Stack, Text } from '@chakra-ui/react';
+import { useDeferredValue, useState } from 'react';
+import { Link as RouterLink, useNavigate } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { CurveIcon } from '@/components/ui/icons';
@@ -10,6 +10,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useModels } from '@/features/models/api/get-models';
 import { FamilyList } from '@/features/models/components/family-list';
+import { ImportModelDialog } from '@/features/models/components/import-model-dialog';
 import { ModelList } from '@/features/models/components/model-list';
 import { groupsWithRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
@@ -19,7 +20,10 @@ export function ModelsRoute() {
   useDocumentTitle('Models');
   const { data: user } = useMe();
   const models = useModels();
-  const canCreate = groupsWithRole(user, 'member').length > 0;
+  const writableGroups = groupsWithRole(user, 'member');
+  const canCreate = writableGroups.length > 0;
+  const [importing, setImporting] = useState(false);
+  const navigate = useNavigate();
   const showFamilies = useDeferredValue(true, false);
 
   return (
@@ -29,9 +33,14 @@ export function ModelsRoute() {
         description="Inflationary potentials V(φ): the families built into the engine and the models your groups have written. Open one to plot it and try a point in your browser."
         actions={
           canCreate && (
-            <Button asChild colorPalette="ember" flexShrink="0">
-              <RouterLink to={paths.modelNew.getHref()}>New model</RouterLink>
-            </Button>
+            <HStack gap="2" flexShrink="0">
+              <Button variant="outline" onClick={() => setImporting(true)}>
+                Import file
+              </Button>
+              <Button asChild colorPalette="ember">
+                <RouterLink to={paths.modelNew.getHref()}>New model</RouterLink>
+              </Button>
+            </HStack>
           )
         }
       />
@@ -72,6 +81,14 @@ export function ModelsRoute() {
           )}
         </Box>
       </Stack>
+      {canCreate && (
+        <ImportModelDialog
+          open={importing}
+          groups={writableGroups}
+          onClose={() => setImporting(false)}
+          onImported={(model) => navigate(paths.model.getHref(model.id))}
+        />
+      )}
     </Stack>
   );
 }

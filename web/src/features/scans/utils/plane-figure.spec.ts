@@ -1,5 +1,5 @@
 import { attractorPrediction, findLimits, monomialPrediction, nsInterval, type ScanPlane } from '@sixtyfold/shared';
-import { planeFigure, referenceTraces, rFloorOf, SERIES_COLORS } from './plane-figure';
+import { planeFigure, referenceTraces, regionLabel, rFloorOf, SERIES_COLORS } from './plane-figure';
 
 type Trace = { name: string; x: number[]; y: number[]; customdata?: unknown[]; marker?: { color?: unknown; colorbar?: { title?: { text?: string } } } };
 
@@ -68,5 +68,18 @@ describe('the n_s–r plane', () => {
     expect([first.name, second.name]).toEqual(['first', 'second']);
     expect([first.marker?.color, second.marker?.color]).toEqual([SERIES_COLORS[0], SERIES_COLORS[1]]);
     expect(second.customdata?.[0]).toEqual([1, 1]);
+  });
+
+  it('outlines each uploaded region closed, named with its confidence level and source, under the points', () => {
+    const region = {
+      id: 1, groupId: 10, name: 'Survey A', source: 'Invented survey DR2', confidenceLevel: 0.68,
+      vertices: [{ ns: 0.95, r: 0 }, { ns: 0.97, r: 0 }, { ns: 0.96, r: 0.04 }], createdById: 2, createdAt: '2026-12-01T10:00:00.000Z',
+    };
+    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], limits, rScale: 'linear', references: false, regions: [region] }).data as Trace[];
+    const outline = data.find((t) => t.name === 'Survey A (68% CL, Invented survey DR2)')!;
+    expect(regionLabel(region)).toBe('Survey A (68% CL, Invented survey DR2)');
+    expect(outline.x).toEqual([0.95, 0.97, 0.96, 0.95]);
+    expect(outline.y).toEqual([0, 0, 0.04, 0]);
+    expect(data.at(-1)!.name).toBe('scan');
   });
 });

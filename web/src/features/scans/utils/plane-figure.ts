@@ -1,5 +1,5 @@
 import {
-  attractorPrediction, monomialPrediction, nsInterval, type ObservationalLimits, type ScanPlane,
+  attractorPrediction, monomialPrediction, nsInterval, type ConstraintRegion, type ObservationalLimits, type ScanPlane,
 } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
@@ -18,7 +18,12 @@ export interface PlaneFigureInput {
   limits: ObservationalLimits;
   rScale: 'linear' | 'log';
   references: boolean;
+  /** The group's uploaded constraint regions to outline beside the built-in limits. */
+  regions?: ConstraintRegion[];
 }
+
+/** Colours of uploaded region outlines, in order. */
+export const REGION_COLORS = ['#2a8c7a', '#b3261e', '#8c5aa8', '#686153'];
 
 /** Colours of overlaid scans, in order. */
 export const SERIES_COLORS = [PLOT_COLORS.ember, PLOT_COLORS.accent, '#2a8c7a', '#8c5aa8'];
@@ -91,6 +96,24 @@ export function limitTraces(limits: ObservationalLimits, rFloor: number): Data[]
   });
 }
 
+/** "Name (95% CL, source)": how a region is named in the legend and the toggles. */
+export function regionLabel(region: Pick<ConstraintRegion, 'name' | 'confidenceLevel' | 'source'>): string {
+  return `${region.name} (${+(region.confidenceLevel * 100).toFixed(2)}% CL, ${region.source})`;
+}
+
+/** Each uploaded region as a closed outline (its first vertex repeated at the end), not filled. */
+export function regionTraces(regions: ConstraintRegion[]): Data[] {
+  return regions.map((region, i) => {
+    const closed = [...region.vertices, region.vertices[0]];
+    return {
+      type: 'scatter', mode: 'lines', name: regionLabel(region),
+      x: closed.map((v) => v.ns), y: closed.map((v) => v.r),
+      line: { color: REGION_COLORS[i % REGION_COLORS.length], width: 2 },
+      hovertemplate: `${regionLabel(region)}<br>n_s = %{x}<br>r = %{y}<extra></extra>`,
+    } as Data;
+  });
+}
+
 /** Where the r axis starts: zero when linear; on a log axis a decade below the smallest r shown. */
 export function rFloorOf(series: PlaneSeries[], rScale: 'linear' | 'log'): number {
   if (rScale === 'linear') return 0;
@@ -113,8 +136,8 @@ function hoverText(plane: ScanPlane, i: number, label: string | null): string {
 }
 
 /** The n_s–r plane: limit regions underneath, then reference curves, then the scans' points on top. */
-export function planeFigure({ series, colorBy, limits, rScale, references }: PlaneFigureInput): { data: Data[]; layout: Partial<Layout> } {
-  const data: Data[] = [...limitTraces(limits, rFloorOf(series, rScale)), ...(references ? referenceTraces() : [])];
+export function planeFigure({ series, colorBy, limits, rScale, references, regions = [] }: PlaneFigureInput): { data: Data[]; layout: Partial<Layout> } {
+  const data: Data[] = [...limitTraces(limits, rFloorOf(series, rScale)), ...regionTraces(regions), ...(references ? referenceTraces() : [])];
 
   const single = series.length === 1;
   series.forEach(({ label, plane }, s) => {

@@ -1,5 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
-import type { ObservationalLimits } from '@sixtyfold/shared';
+import type { ConstraintRegion, ObservationalLimits } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { Plot } from '@/components/plots/plot';
 import { planeFigure, type PlaneSeries } from '../../utils/plane-figure';
@@ -13,14 +13,19 @@ export interface NsRPlaneProps {
   rScale?: 'linear' | 'log';
   /** Draw the φ^p and α-attractor lines at N_* = 50 and 60. */
   references?: boolean;
+  /** Uploaded constraint regions to outline. */
+  regions?: ConstraintRegion[];
   /** A click on a scan's point: which series, and the point's index in that scan. */
   onPointClick?: (point: { series: number; pointIndex: number }) => void;
   height?: number;
 }
 
 /** OK points of one or more scans on the n_s–r plane, over the observational regions, with their source. */
-export function NsRPlane({ series, colorBy, limits, rScale = 'linear', references = true, onPointClick, height = 480 }: NsRPlaneProps) {
-  const figure = useMemo(() => planeFigure({ series, colorBy, limits, rScale, references }), [series, colorBy, limits, rScale, references]);
+export function NsRPlane({ series, colorBy, limits, rScale = 'linear', references = true, regions, onPointClick, height = 480 }: NsRPlaneProps) {
+  const figure = useMemo(
+    () => planeFigure({ series, colorBy, limits, rScale, references, regions }),
+    [series, colorBy, limits, rScale, references, regions],
+  );
   const sampled = series.filter((s) => s.plane.stride > 1);
   const n = (value: number) => value.toLocaleString('en-US');
 
@@ -50,6 +55,9 @@ export function NsRPlane({ series, colorBy, limits, rScale = 'linear', reference
           Shaded: n_s interval × r bound, the product of the one-dimensional 68% and 95% n_s intervals with the 95% upper limit on r
           (quoted at k = {limits.r.pivotPerMpc} Mpc⁻¹), not the joint contour. Source: {limits.source}.
         </Text>
+        {regions && regions.length > 0 && (
+          <Text>Outlines: constraint regions your group uploaded, as given in their files (name, confidence level, source in the legend).</Text>
+        )}
         {references && (
           <Text>
             Lines: first-order slow-roll predictions of V ∝ φ^p (Liddle &amp; Lyth 2000) and of α-attractors, n_s = 1 − 2/N_*, r = 12α/N_*²

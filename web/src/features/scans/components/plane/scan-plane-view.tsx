@@ -1,6 +1,6 @@
 import { Stack, Text } from '@chakra-ui/react';
 import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -8,11 +8,13 @@ import { CurveIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
+import { useConstraintRegions } from '../../api/get-constraint-regions';
 import { isLive } from '../../api/get-scan';
 import { useScanPlane } from '../../api/get-scan-plane';
 import { useViewParams } from '../../hooks/use-view-params';
 import { NsRPlane } from './ns-r-plane';
 import { PlaneControls, type PlaneSettings } from './plane-controls';
+import { RegionToggles } from './region-toggles';
 
 /** The scan's ok points on the n_s–r plane, with the settings kept in the address. */
 export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
@@ -20,6 +22,9 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   const live = isLive(scan);
   const plane = useScanPlane(scan.id, { live });
   const [params, update] = useViewParams();
+  const regions = useConstraintRegions(scan.groupId);
+  const [hiddenRegions, setHiddenRegions] = useState<ReadonlySet<number>>(new Set());
+  const shownRegions = useMemo(() => (regions.data ?? []).filter((r) => !hiddenRegions.has(r.id)), [regions.data, hiddenRegions]);
 
   const axes = spec.axes.map((axis) => axis.parameter);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
@@ -44,6 +49,11 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
     <Stack gap="4">
       <Panel p={{ base: '3', md: '4' }}>
         <PlaneControls settings={settings} onChange={onChange} colorOptions={colorOptions} />
+        {regions.data && regions.data.length > 0 && (
+          <Stack mt="3">
+            <RegionToggles regions={regions.data} hidden={hiddenRegions} onChange={setHiddenRegions} />
+          </Stack>
+        )}
       </Panel>
       {plane.isPending ? (
         <LoadingState label="Loading the n_s–r plane…" />
@@ -72,6 +82,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
             limits={limits}
             rScale={settings.rScale}
             references={settings.references}
+            regions={shownRegions}
             onPointClick={({ pointIndex }) => navigate(paths.point.getHref(scan.id, pointIndex))}
           />
           <Text fontSize="xs" color="fg.muted" mt="1">

@@ -1,0 +1,41 @@
+import { Checkbox, Fieldset, Stack } from '@chakra-ui/react';
+import type { ConstraintRegion } from '@sixtyfold/shared';
+import { regionLabel } from '../../utils/plane-figure';
+
+interface RegionTogglesProps {
+  regions: ConstraintRegion[];
+  /** Ids of the regions not drawn. */
+  hidden: ReadonlySet<number>;
+  onChange: (hidden: Set<number>) => void;
+}
+
+/** One switch per uploaded constraint region of the group, to draw its outline on the plane or not. */
+export function RegionToggles({ regions, hidden, onChange }: RegionTogglesProps) {
+  if (regions.length === 0) return null;
+  const toggle = (id: number, shown: boolean) => {
+    const next = new Set(hidden);
+    if (shown) next.delete(id);
+    else next.add(id);
+    onChange(next);
+  };
+  return (
+    <Fieldset.Root size="sm">
+      <Fieldset.Legend fontSize="sm">Your group’s constraint regions</Fieldset.Legend>
+      <Stack gap="1">
+        {regions.map((region) => (
+          <Checkbox.Root
+            key={region.id}
+            checked={!hidden.has(region.id)}
+            onCheckedChange={(details) => toggle(region.id, details.checked === true)}
+            colorPalette="ember"
+            size="sm"
+          >
+            <Checkbox.HiddenInput />
+            <Checkbox.Control />
+            <Checkbox.Label>{regionLabel(region)}</Checkbox.Label>
+          </Checkbox.Root>
+        ))}
+      </Stack>
+    </Fieldset.Root>
+  );
+}
