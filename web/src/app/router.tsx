@@ -7,6 +7,7 @@ import { CompareRoute } from './routes/compare';
 import { FamilyRoute } from './routes/family';
 import { GroupRoute } from './routes/group';
 import { HomeRoute } from './routes/home';
+import { MaintenanceRoute } from './routes/maintenance';
 import { ModelRoute } from './routes/model';
 import { ModelEditRoute } from './routes/model-edit';
 import { ModelNewRoute } from './routes/model-new';
@@ -43,6 +44,7 @@ export const routes: RouteObject[] = [
           { path: paths.modelEdit.path, element: <ModelEditRoute /> },
           { path: paths.compare.path, element: <CompareRoute /> },
           { path: paths.admin.path, element: <AdminRoute /> },
+          { path: paths.maintenance.path, element: <MaintenanceRoute /> },
           { path: paths.tokens.path, element: <TokensRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },

@@ -14,6 +14,8 @@ export function navItemsFor(user: CurrentUser): NavItem[] {
     { label: 'Models', href: paths.models.getHref() },
     { label: 'Compare', href: paths.compare.getHref() },
   ];
-  if (user.siteRole === 'admin') items.push({ label: 'Admin', href: paths.admin.getHref() });
+  if (user.siteRole === 'admin') {
+    items.push({ label: 'Admin', href: paths.admin.getHref() }, { label: 'Maintenance', href: paths.maintenance.getHref() });
+  }
   return items;
 }
