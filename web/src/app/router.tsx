@@ -11,6 +11,7 @@ import { FamilyRoute } from './routes/family';
 import { GroupRoute } from './routes/group';
 import { HomeRoute } from './routes/home';
 import { InvitationRoute } from './routes/invitation';
+import { MaintenanceRoute } from './routes/maintenance';
 import { ModelRoute } from './routes/model';
 import { ModelEditRoute } from './routes/model-edit';
 import { ModelNewRoute } from './routes/model-new';
@@ -52,6 +53,7 @@ export const routes: RouteObject[] = [
           { path: paths.adminGroups.path, element: <AdminGroupsRoute /> },
           { path: paths.adminOutbox.path, element: <AdminOutboxRoute /> },
           { path: paths.adminOutboxMessage.path, element: <AdminOutboxMessageRoute /> },
+          { path: paths.maintenance.path, element: <MaintenanceRoute /> },
           { path: paths.tokens.path, element: <TokensRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },

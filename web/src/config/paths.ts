@@ -32,6 +32,7 @@ export const paths = {
     getHref: (scanIds: number[] = []) => (scanIds.length ? `/compare?scans=${scanIds.join(',')}` : '/compare'),
   },
   admin: { path: '/admin', getHref: () => '/admin' },
+  maintenance: { path: '/admin/maintenance', getHref: () => '/admin/maintenance' },
   tokens: { path: '/tokens', getHref: () => '/tokens' },
   group: { path: '/groups/:groupId', getHref: (groupId: number) => `/groups/${groupId}` },
   invitation: { path: '/invitations/:token', getHref: (token: string) => `/invitations/${encodeURIComponent(token)}` },

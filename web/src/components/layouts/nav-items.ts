@@ -18,6 +18,7 @@ export function navItemsFor(user: CurrentUser): NavItem[] {
     items.push(
       { label: 'Groups', href: paths.adminGroups.getHref() },
       { label: 'Mail outbox', href: paths.adminOutbox.getHref() },
+      { label: 'Maintenance', href: paths.maintenance.getHref() },
       { label: 'Admin', href: paths.admin.getHref() },
     );
   }
