@@ -1,9 +1,10 @@
-import { Alert, Button, Field, Input, Stack, Textarea } from '@chakra-ui/react';
+import { Alert, Button, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { updateGroupSchema, type GroupDetail, type UpdateGroup } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { GroupFields } from './group-fields';
 import { useUpdateGroup } from '../api/update-group';
 
 type UpdateGroupInput = z.input<typeof updateGroupSchema>;
@@ -51,24 +52,7 @@ export function GroupSettingsForm({ group }: { group: GroupDetail }) {
             <Alert.Title fontWeight="400">Saved.</Alert.Title>
           </Alert.Root>
         )}
-        <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ base: 'stretch', md: 'start' }}>
-          <Field.Root invalid={!!errors.name} flex="2">
-            <Field.Label>Name</Field.Label>
-            <Input bg="bg.panel" autoComplete="off" {...register('name')} />
-            <Field.ErrorText>{errors.name?.message}</Field.ErrorText>
-          </Field.Root>
-          <Field.Root invalid={!!errors.pointLimit} flex="1">
-            <Field.Label>Point limit</Field.Label>
-            <Input type="number" bg="bg.panel" {...register('pointLimit', { valueAsNumber: true })} />
-            <Field.HelperText>Largest scan the group may submit, in points.</Field.HelperText>
-            <Field.ErrorText>{errors.pointLimit?.message}</Field.ErrorText>
-          </Field.Root>
-        </Stack>
-        <Field.Root invalid={!!errors.description}>
-          <Field.Label>Description</Field.Label>
-          <Textarea rows={2} bg="bg.panel" {...register('description')} />
-          <Field.ErrorText>{errors.description?.message}</Field.ErrorText>
-        </Field.Root>
+        <GroupFields register={register} errors={errors} />
         <Button type="submit" variant="outline" alignSelf="start" loading={update.isPending} loadingText="Saving…">
           Save group
         </Button>
