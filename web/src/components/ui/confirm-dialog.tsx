@@ -1,5 +1,7 @@
-import { Alert, Button, CloseButton, Dialog, Portal } from '@chakra-ui/react';
+import { Button, Dialog } from '@chakra-ui/react';
 import type { ReactNode } from 'react';
+import { DialogFrame } from './dialog-frame';
+import { FailureAlert } from './failure-alert';
 
 interface ConfirmDialogProps {
   open: boolean;
@@ -18,40 +20,28 @@ interface ConfirmDialogProps {
 /** Asks before something that cannot be undone; the safe choice is the first button. */
 export function ConfirmDialog({ open, title, children, confirmLabel, busyLabel, busy, error, onConfirm, onClose }: ConfirmDialogProps) {
   return (
-    <Dialog.Root role="alertdialog" open={open} onOpenChange={(details) => !details.open && onClose()} placement="center">
-      <Portal>
-        <Dialog.Backdrop />
-        <Dialog.Positioner>
-          <Dialog.Content>
-            <Dialog.Header>
-              <Dialog.Title>{title}</Dialog.Title>
-            </Dialog.Header>
-            <Dialog.Body>
-              {children}
-              {error && (
-                <Alert.Root status="error" variant="subtle" borderRadius="md" mt="4" role="alert">
-                  <Alert.Indicator />
-                  <Alert.Content>
-                    <Alert.Title>{error.title}</Alert.Title>
-                    <Alert.Description>{error.message}</Alert.Description>
-                  </Alert.Content>
-                </Alert.Root>
-              )}
-            </Dialog.Body>
-            <Dialog.Footer>
-              <Dialog.ActionTrigger asChild>
-                <Button variant="outline">Keep it</Button>
-              </Dialog.ActionTrigger>
-              <Button colorPalette="red" loading={busy} loadingText={busyLabel} onClick={onConfirm}>
-                {confirmLabel}
-              </Button>
-            </Dialog.Footer>
-            <Dialog.CloseTrigger asChild>
-              <CloseButton size="sm" />
-            </Dialog.CloseTrigger>
-          </Dialog.Content>
-        </Dialog.Positioner>
-      </Portal>
-    </Dialog.Root>
+    <DialogFrame
+      role="alertdialog"
+      open={open}
+      title={title}
+      onClose={onClose}
+      footer={
+        <>
+          <Dialog.ActionTrigger asChild>
+            <Button variant="outline">Keep it</Button>
+          </Dialog.ActionTrigger>
+          <Button colorPalette="red" loading={busy} loadingText={busyLabel} onClick={onConfirm}>
+            {confirmLabel}
+          </Button>
+        </>
+      }
+    >
+      {children}
+      {error && (
+        <FailureAlert title={error.title} mt="4">
+          {error.message}
+        </FailureAlert>
+      )}
+    </DialogFrame>
   );
 }

@@ -1,9 +1,11 @@
-import { Alert, Button, Field, Input, Stack } from '@chakra-ui/react';
+import { Button, Field, Input, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { loginSchema, type CurrentUser, type Login } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { ApiRequestError } from '@/lib/api-client';
+import { applyFieldErrors } from '@/lib/form-errors';
 import { useLogin } from '../api/login';
 
 type LoginInput = z.input<typeof loginSchema>;
@@ -46,15 +48,7 @@ export function SignInForm({ onSuccess }: { onSuccess: (user: CurrentUser) => vo
 
   const onSubmit = handleSubmit((values) =>
     login.mutate(values, {
-      onError: (error) => {
-        // The API validates with the same schema; show its per-field messages next to the fields.
-        if (error instanceof ApiRequestError) {
-          for (const field of ['email', 'password'] as const) {
-            const message = error.fieldErrors[field]?.[0];
-            if (message) setError(field, { message });
-          }
-        }
-      },
+      onError: (error) => applyFieldErrors(error, setError),
     }),
   );
 
@@ -64,13 +58,7 @@ export function SignInForm({ onSuccess }: { onSuccess: (user: CurrentUser) => vo
     <form onSubmit={onSubmit} noValidate aria-label="Sign in">
       <Stack gap="5">
         {failure && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>{failure.title}</Alert.Title>
-              <Alert.Description>{failure.description}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
+          <FailureAlert title={failure.title}>{failure.description}</FailureAlert>
         )}
         <Field.Root invalid={!!errors.email}>
           <Field.Label>E-mail</Field.Label>

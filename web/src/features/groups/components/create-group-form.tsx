@@ -1,9 +1,10 @@
-import { Alert, Button, Stack } from '@chakra-ui/react';
+import { Button, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createGroupSchema, type CreateGroup, type GroupDetail } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { GroupFields } from './group-fields';
 import { useCreateGroup } from '../api/create-group';
 
@@ -28,29 +29,13 @@ export function CreateGroupForm({ onCreated }: { onCreated: (group: GroupDetail)
   });
 
   const onSubmit = handleSubmit((values) =>
-    create.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'description', 'pointLimit'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
-    }),
+    create.mutate(values, { onError: (error) => applyFieldErrors(error, setError) }),
   );
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Create a group">
       <Stack gap="4">
-        {create.isError && !(create.error instanceof ApiRequestError && create.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not create the group</Alert.Title>
-              <Alert.Description>{create.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {create.isError && !isFieldRefusal(create.error) && <FailureAlert title="Could not create the group">{create.error.message}</FailureAlert>}
         <GroupFields register={register} errors={errors} />
         <Button type="submit" colorPalette="ember" alignSelf="start" loading={create.isPending} loadingText="Creating…">
           Create group

@@ -3,7 +3,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { updateGroupSchema, type GroupDetail, type UpdateGroup } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { GroupFields } from './group-fields';
 import { useUpdateGroup } from '../api/update-group';
 
@@ -23,29 +24,13 @@ export function GroupSettingsForm({ group }: { group: GroupDetail }) {
   const update = useUpdateGroup(group.id);
 
   const onSubmit = handleSubmit((values) =>
-    update.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'description', 'pointLimit'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
-    }),
+    update.mutate(values, { onError: (error) => applyFieldErrors(error, setError) }),
   );
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Group settings">
       <Stack gap="4">
-        {update.isError && !(update.error instanceof ApiRequestError && update.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not save the group</Alert.Title>
-              <Alert.Description>{update.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {update.isError && !isFieldRefusal(update.error) && <FailureAlert title="Could not save the group">{update.error.message}</FailureAlert>}
         {update.isSuccess && (
           <Alert.Root status="success" variant="subtle" borderRadius="md">
             <Alert.Indicator />

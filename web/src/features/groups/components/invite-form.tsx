@@ -3,7 +3,8 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { createInvitationSchema, GROUP_ROLE_DESCRIPTIONS, GROUP_ROLES, type CreateInvitation, type Invitation } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateInvitation } from '../api/create-invitation';
 
 type CreateInvitationInput = z.input<typeof createInvitationSchema>;
@@ -29,29 +30,13 @@ export function InviteForm({ groupId, onInvited }: { groupId: number; onInvited?
   const role = watch('role');
 
   const onSubmit = handleSubmit((values) =>
-    invite.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['email', 'role'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
-    }),
+    invite.mutate(values, { onError: (error) => applyFieldErrors(error, setError) }),
   );
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Invite someone">
       <Stack gap="4">
-        {invite.isError && !(invite.error instanceof ApiRequestError && invite.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not send the invitation</Alert.Title>
-              <Alert.Description>{invite.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {invite.isError && !isFieldRefusal(invite.error) && <FailureAlert title="Could not send the invitation">{invite.error.message}</FailureAlert>}
         {invite.isSuccess && (
           <Alert.Root status="success" variant="subtle" borderRadius="md">
             <Alert.Indicator />

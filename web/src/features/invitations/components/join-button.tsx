@@ -1,5 +1,6 @@
-import { Alert, Button, Stack } from '@chakra-ui/react';
+import { Button, Stack } from '@chakra-ui/react';
 import type { CurrentUser } from '@sixtyfold/shared';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 /** Accepting with the account that is signed in. */
@@ -8,13 +9,7 @@ export function JoinButton({ token, groupName, onJoined }: { token: string; grou
   return (
     <Stack gap="4">
       {accept.isError && (
-        <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-          <Alert.Indicator />
-          <Alert.Content>
-            <Alert.Title>Could not join</Alert.Title>
-            <Alert.Description>{accept.error.message}</Alert.Description>
-          </Alert.Content>
-        </Alert.Root>
+        <FailureAlert title="Could not join">{accept.error.message}</FailureAlert>
       )}
       <Button colorPalette="ember" loading={accept.isPending} loadingText="Joining…" onClick={() => accept.mutate({})}>
         Join {groupName}

@@ -1,8 +1,9 @@
-import { Alert, Button, Field, Input, Stack } from '@chakra-ui/react';
+import { Button, Field, Input, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { newAccountSchema, NEW_PASSWORD_MIN, type CurrentUser, type NewAccount } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 /** Accepting as a new address: the person picks their name and password, and is signed in. */
@@ -16,29 +17,13 @@ export function NewAccountForm({ token, email, onJoined }: { token: string; emai
   const accept = useAcceptInvitation(token, { onSuccess: onJoined });
 
   const onSubmit = handleSubmit((values) =>
-    accept.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['displayName', 'password'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
-    }),
+    accept.mutate(values, { onError: (error) => applyFieldErrors(error, setError) }),
   );
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Create your account">
       <Stack gap="4">
-        {accept.isError && !(accept.error instanceof ApiRequestError && accept.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not accept the invitation</Alert.Title>
-              <Alert.Description>{accept.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {accept.isError && !isFieldRefusal(accept.error) && <FailureAlert title="Could not accept the invitation">{accept.error.message}</FailureAlert>}
         <Field.Root>
           <Field.Label>E-mail address</Field.Label>
           <Input value={email} readOnly bg="bg.subtle" autoComplete="username" />

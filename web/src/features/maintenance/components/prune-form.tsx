@@ -6,6 +6,7 @@ import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { DateTime } from '@/components/ui/date-time';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { formatBytes } from '@/lib/format-bytes';
 import { useDryRunPrune, usePruneScans } from '../api/prune-scans';
 
@@ -139,13 +140,7 @@ export function PruneForm({ groups, owners }: PruneFormProps) {
       </form>
 
       {dryRun.isError && (
-        <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-          <Alert.Indicator />
-          <Alert.Content>
-            <Alert.Title>Could not list the scans</Alert.Title>
-            <Alert.Description>{dryRun.error.message}</Alert.Description>
-          </Alert.Content>
-        </Alert.Root>
+        <FailureAlert title="Could not list the scans">{dryRun.error.message}</FailureAlert>
       )}
       {done && (
         <Alert.Root status="success" variant="subtle" borderRadius="md" role="status">

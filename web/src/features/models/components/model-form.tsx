@@ -1,4 +1,4 @@
-import { Alert, Box, Button, Field, Grid, HStack, Heading, Input, NativeSelect, Stack, Text, Textarea, VisuallyHidden } from '@chakra-ui/react';
+import { Box, Button, Field, Grid, HStack, Heading, Input, NativeSelect, Stack, Text, Textarea, VisuallyHidden } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import {
   modelInputSchema,
@@ -14,15 +14,15 @@ import {
   useWatch,
   type FieldError,
   type FieldValues,
-  type Path,
   type Resolver,
   type ResolverOptions,
   type ResolverResult,
 } from 'react-hook-form';
 import { Link as RouterLink } from 'react-router-dom';
 import type { z } from 'zod';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { Panel } from '@/components/ui/panel';
-import { ApiRequestError } from '@/lib/api-client';
+import { applyFieldErrors } from '@/lib/form-errors';
 import { useCreateModel } from '../api/create-model';
 import { useUpdateModel } from '../api/update-model';
 import { ExpressionCheck } from './expression-check';
@@ -137,12 +137,7 @@ export function ModelForm(props: ModelFormProps) {
   const update = useUpdateModel({ onSuccess: props.onSaved });
   const mutation = editing ? update : create;
 
-  const showServerErrors = (error: Error) => {
-    if (!(error instanceof ApiRequestError)) return;
-    for (const [field, messages] of Object.entries(error.fieldErrors)) {
-      if (messages[0] && field !== '_') setError(field as Path<ModelFormValues>, { type: 'server', message: messages[0] });
-    }
-  };
+  const showServerErrors = (error: Error) => applyFieldErrors(error, setError);
 
   const onSubmit = handleSubmit((body) => {
     if (props.mode === 'edit') update.mutate({ modelId: props.model.id, changes: body as ModelUpdate }, { onError: showServerErrors });
@@ -157,13 +152,7 @@ export function ModelForm(props: ModelFormProps) {
     <form onSubmit={onSubmit} noValidate aria-label={editing ? 'Edit the model' : 'New model'}>
       <Stack gap="6">
         {mutation.isError && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>{editing ? 'Could not save the model' : 'Could not create the model'}</Alert.Title>
-              <Alert.Description>{mutation.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
+          <FailureAlert title={editing ? 'Could not save the model' : 'Could not create the model'}>{mutation.error.message}</FailureAlert>
         )}
 
         <Panel p={{ base: '4', md: '6' }}>

@@ -1,7 +1,8 @@
-import { Alert, Box, Button, Field, Flex, Heading, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
+import { Box, Button, Field, Flex, Heading, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
 import type { CompiledPotential, EvaluateRequest, Method, PotentialFamily, PotentialModel } from '@sixtyfold/shared';
 import { useMutation } from '@tanstack/react-query';
 import { useDeferredValue, useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { runEnginePoint } from '@/lib/engine/run-engine';
@@ -174,23 +175,11 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
       </Box>
 
       {parsed && !parsed.ok ? (
-        <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-          <Alert.Indicator />
-          <Alert.Content>
-            <Alert.Title>The engine cannot read this expression</Alert.Title>
-            <Alert.Description>{parsed.problem.message}</Alert.Description>
-          </Alert.Content>
-        </Alert.Root>
+        <FailureAlert title="The engine cannot read this expression">{parsed.problem.message}</FailureAlert>
       ) : (
         bound &&
         !bound.ok && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>These parameter values do not fit the expression</Alert.Title>
-              <Alert.Description>{bound.problem.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
+          <FailureAlert title="These parameter values do not fit the expression">{bound.problem.message}</FailureAlert>
         )
       )}
 
@@ -313,15 +302,9 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
               </Text>
             )}
             {trial.isError && (
-              <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-                <Alert.Indicator />
-                <Alert.Content>
-                  <Alert.Title>The trial did not run</Alert.Title>
-                  <Alert.Description>
+              <FailureAlert title="The trial did not run">
                     {trial.error.message.replace(/[.\s]*$/, '.')} Reload the page to restart the engine, then try again.
-                  </Alert.Description>
-                </Alert.Content>
-              </Alert.Root>
+                  </FailureAlert>
             )}
             {trial.data && (
               <Stack gap="3">

@@ -1,7 +1,8 @@
-import { Alert, Button, HStack, Stack, Text } from '@chakra-ui/react';
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
 import type { CurrentUser, ScanDetail } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { paths } from '@/config/paths';
 import { useCancelScan } from '../api/cancel-scan';
 import { isLive } from '../api/get-scan';
@@ -82,13 +83,7 @@ export function ScanActions({ scan, user, groupName, onDeleted }: ScanActionsPro
         </Text>
       )}
       {failed && (
-        <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert" size="sm">
-          <Alert.Indicator />
-          <Alert.Content>
-            <Alert.Title>{failed.title}</Alert.Title>
-            <Alert.Description>{failed.error.message}</Alert.Description>
-          </Alert.Content>
-        </Alert.Root>
+        <FailureAlert title={failed.title} size="sm">{failed.error.message}</FailureAlert>
       )}
       <DeleteScanDialog scan={confirmingDelete ? scan : null} onClose={() => setConfirmingDelete(false)} onDeleted={onDeleted} />
     </Stack>

@@ -1,9 +1,10 @@
-import { Alert, Button, Field, Input, NativeSelect, Stack } from '@chakra-ui/react';
+import { Button, Field, Input, NativeSelect, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createApiTokenSchema, type CreateApiToken, type CreatedApiToken } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateToken } from '../api/create-token';
 
 type CreateApiTokenInput = z.input<typeof createApiTokenSchema>;
@@ -36,29 +37,13 @@ export function CreateTokenForm({ onCreated }: { onCreated: (token: CreatedApiTo
   });
 
   const onSubmit = handleSubmit((values) =>
-    create.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'expiresInDays'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
-    }),
+    create.mutate(values, { onError: (error) => applyFieldErrors(error, setError) }),
   );
 
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Create an API token">
       <Stack gap="4">
-        {create.isError && !(create.error instanceof ApiRequestError && create.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not create the token</Alert.Title>
-              <Alert.Description>{create.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {create.isError && !isFieldRefusal(create.error) && <FailureAlert title="Could not create the token">{create.error.message}</FailureAlert>}
         <Stack direction={{ base: 'column', md: 'row' }} gap="4" align={{ base: 'stretch', md: 'start' }}>
           <Field.Root invalid={!!errors.name} flex="2">
             <Field.Label>Name</Field.Label>

@@ -1,9 +1,10 @@
-import { Alert, Box, Button, Code, Field, Fieldset, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
+import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
 import { createScanSchema, POTENTIAL_FAMILIES, type CreateScan, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
 import { useRef, type ReactNode } from 'react';
-import { useFieldArray, useForm, useWatch, type FieldPath } from 'react-hook-form';
+import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { methodLabels } from '../../utils/scan-labels';
 import { AxisFields } from './axis-fields';
@@ -90,17 +91,12 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
 
   const onSubmit = handleSubmit((scan) =>
     launch.mutate(scan, {
-      onError: (error) => {
-        // The API checks with the same schema and more (the model, the point limit): show its words where they belong.
-        if (!(error instanceof ApiRequestError) || error.status !== 400) return;
-        for (const [field, messages] of Object.entries(error.fieldErrors)) {
-          if (messages[0]) setError(field as FieldPath<ScanFormValues>, { type: 'server', message: messages[0] });
-        }
-      },
+      // The API checks with the same schema and more (the model, the point limit): show its words where they belong.
+      onError: (error) => applyFieldErrors(error, setError),
     }),
   );
 
-  const refused = launch.error instanceof ApiRequestError && launch.error.status === 400;
+  const refused = isFieldRefusal(launch.error);
   const axesError = errors.axes?.message ?? errors.axes?.root?.message;
 
   return (
@@ -331,16 +327,10 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
         <LaunchSummary points={countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
 
         {launch.isError && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>{refused ? 'The server refused this scan' : 'Could not launch the scan'}</Alert.Title>
-              <Alert.Description>
+          <FailureAlert title={refused ? 'The server refused this scan' : 'Could not launch the scan'}>
                 {/[.!?]$/.test(launch.error.message) ? launch.error.message : `${launch.error.message}.`}{' '}
                 {refused ? 'Correct the marked fields and launch again.' : errorAdvice(launch.error)}
-              </Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
+              </FailureAlert>
         )}
 
         <Button type="submit" colorPalette="ember" alignSelf={{ base: 'stretch', sm: 'start' }} loading={launch.isPending} loadingText="Launching…">
