@@ -146,6 +146,29 @@ describe('a scan through queue and workers', () => {
     expect(await t.db.getRepository(ScanPoint).countBy({ scanId: created.body.id })).toBe(8000);
   });
 
+  it('finishes as failed when not one point gave a spectrum, and a retry runs it again', async () => {
+    const agent = await t.signIn(DEMO.plateauLead);
+    // φ² from φ_init = 16 gives about 63.5 e-folds (common practice: N ≈ φ²/4 − 1/2), so both points lack e-folds.
+    const created = await agent.post('/api/scans').send({ ...spec(plateauId), name: 'no point inflates long enough',
+      model: { kind: 'family', family: 'monomial' }, phiInit: 16, axes: [{ kind: 'list', parameter: 'nStar', values: [90, 95] }] });
+    expect(created.status).toBe(201);
+    const finished = await until(async () => {
+      const res = await agent.get(`/api/scans/${created.body.id}`);
+      return ['completed', 'failed'].includes(res.body.status) ? res.body : undefined;
+    }, 'the scan to finish');
+    expect(finished).toMatchObject({ status: 'failed', donePoints: 0, failedPoints: 2 });
+    expect(finished.finishedAt).not.toBeNull();
+
+    const retried = await agent.post(`/api/scans/${created.body.id}/retry`).send({});
+    expect(retried.status).toBe(200);
+    expect(retried.body).toMatchObject({ status: 'running', failedPoints: 0 });
+    const again = await until(async () => {
+      const res = await agent.get(`/api/scans/${created.body.id}`);
+      return res.body.status === 'failed' ? res.body : undefined;
+    }, 'the retried scan to fail again');
+    expect(again).toMatchObject({ donePoints: 0, failedPoints: 2 });
+  });
+
   it('records point failures as data with their reason', async () => {
     const agent = await t.signIn(DEMO.plateauLead);
     const body = { ...spec(plateauId), name: 'some points lack e-folds', model: { kind: 'family', family: 'monomial' }, phiInit: 16,

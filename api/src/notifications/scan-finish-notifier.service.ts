@@ -74,10 +74,10 @@ export class ScanFinishNotifierService {
   }
 }
 
-/** A finished scan without one usable point counts as failed, as does the 'failed' status. */
+/** The notice follows the status the scan finished with (see scan-completion.ts). */
 function finishKind(scan: FinishedScan): NotificationKind {
   if (scan.status === 'cancelled') return 'scan_cancelled';
-  if (scan.status === 'failed' || (scan.done_points === 0 && scan.failed_points > 0)) return 'scan_failed';
+  if (scan.status === 'failed') return 'scan_failed';
   return 'scan_completed';
 }
 
