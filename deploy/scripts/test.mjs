@@ -14,20 +14,22 @@ import { ensureDebianPackages, profilePackages, startProfileServices } from './l
 // Tests never read .env: a developer's settings must not point the suites at real data.
 const profile = resolveProfile('test');
 // `npm test -- api worker` runs only the named suites (shared, web, api, worker, browser);
-// `npm test -- api:invitations` runs only the api test files whose path matches "invitations".
+// `npm test -- api:invitations api:mail` runs only the api test files whose path matches one of them.
 const SUITES = ['shared', 'web', 'api', 'worker', 'browser'];
 const filters = new Map();
 for (const arg of process.argv.slice(2)) {
   const [name, pattern] = arg.split(':');
   if (!SUITES.includes(name)) fail(`unknown suite '${name}'; choose from ${SUITES.join(', ')}`);
-  filters.set(name, pattern ?? null);
+  // A bare suite name runs the whole suite, whatever patterns were also given for it.
+  const patterns = filters.get(name);
+  filters.set(name, pattern && patterns !== null ? [...(patterns ?? []), pattern] : null);
 }
 const wanted = (name) => filters.size === 0 || filters.has(name);
-/** The file filter a suite was given, as extra runner arguments (jest and vitest differ). */
+/** The file filters a suite was given, as extra runner arguments (jest takes one regex, vitest several). */
 const filterArgs = (name, runner) => {
-  const pattern = filters.get(name);
-  if (!pattern) return [];
-  return runner === 'jest' ? ['--testPathPatterns', pattern] : [pattern];
+  const patterns = filters.get(name);
+  if (!patterns) return [];
+  return runner === 'jest' ? ['--testPathPatterns', patterns.join('|')] : patterns;
 };
 const reports = path.join(profile.dataDir, 'reports');
 rmSync(reports, { recursive: true, force: true });
