@@ -368,5 +368,9 @@ describe('storage, pruning, archives and retention', () => {
     const before = await admin.get('/api/admin/audit-events').query({ action: 'scan.delete', to: yesterday });
     expect(before.body.total).toBe(0);
     expect((await admin.get('/api/admin/audit-events').query({ from: 'yesterday' })).status).toBe(400);
+    // Actions and target types come from one shared list, so a misspelt filter is refused rather than matching nothing.
+    const misspelt = await admin.get('/api/admin/audit-events').query({ action: 'scan.deleted', targetType: 'scans' });
+    expect(misspelt.status).toBe(400);
+    expect(Object.keys(misspelt.body.fieldErrors).sort()).toEqual(['action', 'targetType']);
   });
 });

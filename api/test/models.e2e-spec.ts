@@ -71,7 +71,7 @@ describe('group models: create, edit, delete', () => {
     });
     const row = await t.db.getRepository(PotentialModel).findOneByOrFail({ id: res.body.id });
     expect(row).toMatchObject({ groupId: plateauId, name: `${PREFIX}: quadratic`, phiInit: 16 });
-    const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.created', targetId: String(res.body.id) });
+    const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.create', targetId: String(res.body.id) });
     expect(events).toHaveLength(1);
     expect(events[0]).toMatchObject({ actorId: lucia.id, groupId: plateauId, targetType: 'model', details: { name: `${PREFIX}: quadratic` } });
     // The list and the single read show it to the group.
@@ -130,7 +130,7 @@ describe('group models: create, edit, delete', () => {
     expect(renamed.status).toBe(200);
     expect(renamed.body).toMatchObject({ id: made.id, name: `${PREFIX}: edited`, description: 'now with a note', expression: '0.5 * m^2 * phi^2', phiInit: 16 });
     expect(await t.db.getRepository(PotentialModel).findOneByOrFail({ id: made.id })).toMatchObject({ name: `${PREFIX}: edited`, description: 'now with a note' });
-    const updated = await t.db.getRepository(AuditEvent).findBy({ action: 'model.updated', targetId: String(made.id) });
+    const updated = await t.db.getRepository(AuditEvent).findBy({ action: 'model.update', targetId: String(made.id) });
     expect(updated.map((e) => e.details)).toEqual([{ name: `${PREFIX}: edited`, changed: ['name', 'description'] }]);
 
     // New expression and parameters together.
@@ -184,7 +184,7 @@ describe('group models: create, edit, delete', () => {
     expect((await member.get(`/api/models/${made.id}`)).status).toBe(404);
     expect((await lead.delete(`/api/models/${made.id}`).send({})).status).toBe(404);
     const henrik = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauLead });
-    const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.deleted', targetId: String(made.id) });
+    const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.delete', targetId: String(made.id) });
     expect(events).toHaveLength(1);
     expect(events[0]).toMatchObject({ actorId: henrik.id, groupId: plateauId, details: { name: `${PREFIX}: to delete`, scans: 1 } });
 

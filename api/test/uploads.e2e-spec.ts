@@ -158,7 +158,7 @@ describe('uploads: constraint regions (CSV) and model files (JSON)', () => {
       expect((await lead.delete(`/api/constraint-regions/${made.body.id}`).send({})).status).toBe(204);
       expect(await t.db.getRepository(ConstraintRegion).existsBy({ id: made.body.id })).toBe(false);
       const henrik = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauLead });
-      const events = await t.db.getRepository(AuditEvent).findBy({ action: 'constraint-region.deleted', targetId: String(made.body.id) });
+      const events = await t.db.getRepository(AuditEvent).findBy({ action: 'region.delete', targetId: String(made.body.id) });
       expect(events).toHaveLength(1);
       expect(events[0]).toMatchObject({ actorId: henrik.id, groupId: plateauId, targetType: 'constraint-region', details: { name: `${PREFIX}: to delete` } });
     });
@@ -170,7 +170,7 @@ describe('uploads: constraint regions (CSV) and model files (JSON)', () => {
       const res = await importModel(member, pretty(file));
       expect(res.status).toBe(201);
       expect(res.body).toMatchObject({ groupId: plateauId, name: file.name, expression: file.expression, parameters: file.parameters, phiInit: 5.5 });
-      const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.created', targetId: String(res.body.id) });
+      const events = await t.db.getRepository(AuditEvent).findBy({ action: 'model.create', targetId: String(res.body.id) });
       expect(events).toHaveLength(1);
       const exported = await member.get(`/api/models/${res.body.id}/export`);
       expect(exported.status).toBe(200);

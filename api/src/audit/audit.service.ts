@@ -1,14 +1,14 @@
 import { Injectable } from '@nestjs/common';
 import { InjectRepository } from '@nestjs/typeorm';
 import type { EntityManager, Repository } from 'typeorm';
-import type { AuditEvent as AuditEventDto, Page } from '@sixtyfold/shared';
+import type { AuditAction, AuditEvent as AuditEventDto, AuditTargetType, Page } from '@sixtyfold/shared';
 import { AuditEvent } from './entities/audit-event.entity';
 
 export interface AuditRecord {
-  action: string;
+  action: AuditAction;
   actorId: number | null;
   groupId?: number | null;
-  targetType?: string;
+  targetType?: AuditTargetType;
   targetId?: string | number;
   details?: Record<string, unknown>;
 }
@@ -16,10 +16,10 @@ export interface AuditRecord {
 export interface AuditQuery {
   page: number;
   pageSize: number;
-  action?: string;
+  action?: AuditAction;
   actorId?: number;
   groupId?: number;
-  targetType?: string;
+  targetType?: AuditTargetType;
   /** ISO date or date-time, inclusive. */
   from?: string;
   /** ISO date or date-time, exclusive; a plain date includes that whole day. */

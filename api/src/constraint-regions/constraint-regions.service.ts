@@ -33,7 +33,7 @@ export class ConstraintRegionsService {
     const id = await this.db.transaction(async (tx) => {
       const saved = await tx.getRepository(ConstraintRegion).save({ ...fields, vertices, createdById: user.id });
       await this.audit.record(
-        { action: 'constraint-region.created', actorId: user.id, groupId: fields.groupId, targetType: 'constraint-region', targetId: saved.id, details: { name: fields.name, vertices: vertices.length } },
+        { action: 'region.create', actorId: user.id, groupId: fields.groupId, targetType: 'constraint-region', targetId: saved.id, details: { name: fields.name, vertices: vertices.length } },
         tx,
       );
       return saved.id;
@@ -51,7 +51,7 @@ export class ConstraintRegionsService {
     if (!allowed) throw new ForbiddenException('Only a lead of the group or the member who uploaded the region can delete it');
     await this.db.transaction(async (tx) => {
       await this.audit.record(
-        { action: 'constraint-region.deleted', actorId: user.id, groupId: region.groupId, targetType: 'constraint-region', targetId: id, details: { name: region.name, source: region.source } },
+        { action: 'region.delete', actorId: user.id, groupId: region.groupId, targetType: 'constraint-region', targetId: id, details: { name: region.name, source: region.source } },
         tx,
       );
       await tx.getRepository(ConstraintRegion).delete({ id });

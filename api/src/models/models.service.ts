@@ -53,7 +53,7 @@ export class ModelsService {
           createdById: user.id,
         });
         await this.audit.record(
-          { action: 'model.created', actorId: user.id, groupId: input.groupId, targetType: 'model', targetId: saved.id, details: { name: input.name } },
+          { action: 'model.create', actorId: user.id, groupId: input.groupId, targetType: 'model', targetId: saved.id, details: { name: input.name } },
           tx,
         );
         return saved.id;
@@ -113,7 +113,7 @@ export class ModelsService {
             { name: next.name, expression: next.expression, parameters: next.parameters, phiInit: next.phiInit, description: next.description },
           );
           await this.audit.record(
-            { action: 'model.updated', actorId: user.id, groupId: model.groupId, targetType: 'model', targetId: id, details: { name: next.name, changed } },
+            { action: 'model.update', actorId: user.id, groupId: model.groupId, targetType: 'model', targetId: id, details: { name: next.name, changed } },
             tx,
           );
         }),
@@ -132,7 +132,7 @@ export class ModelsService {
     await this.db.transaction(async (tx) => {
       const scans = await tx.getRepository(Scan).countBy({ modelId: id });
       await this.audit.record(
-        { action: 'model.deleted', actorId: user.id, groupId: model.groupId, targetType: 'model', targetId: id, details: { name: model.name, expression: model.expression, scans } },
+        { action: 'model.delete', actorId: user.id, groupId: model.groupId, targetType: 'model', targetId: id, details: { name: model.name, expression: model.expression, scans } },
         tx,
       );
       await tx.getRepository(PotentialModel).delete({ id });

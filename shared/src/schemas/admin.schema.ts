@@ -12,6 +12,23 @@ export const adminUserSchema = z.object({
 });
 export type AdminUser = z.infer<typeof adminUserSchema>;
 
+/** Every action the audit log records, `<what>.<verb>`; the API refuses to record any other. */
+export const AUDIT_ACTIONS = [
+  'auth.login', 'auth.login_failed', 'auth.logout',
+  'group.create', 'group.update', 'group.retention_change',
+  'membership.invite', 'membership.invite_revoke', 'membership.join', 'membership.remove', 'membership.role_change',
+  'model.create', 'model.update', 'model.delete',
+  'region.create', 'region.delete',
+  'scan.create', 'scan.cancel', 'scan.retry', 'scan.delete',
+  'comment.delete',
+  'token.create', 'token.revoke',
+] as const;
+export type AuditAction = (typeof AUDIT_ACTIONS)[number];
+
+/** What an audit event's `targetId` names. */
+export const AUDIT_TARGET_TYPES = ['user', 'group', 'invitation', 'model', 'constraint-region', 'scan', 'comment', 'api_token'] as const;
+export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
+
 export const auditEventSchema = z.object({
   id: z.number().int(),
   action: z.string(),

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { AUDIT_ACTIONS, AUDIT_TARGET_TYPES } from './admin.schema.js';
 
 /** `?page=&pageSize=` of every paged list; page numbers start at 1. */
 export const pageQuerySchema = z.object({
@@ -8,10 +9,10 @@ export const pageQuerySchema = z.object({
 export type PageQuery = z.infer<typeof pageQuerySchema>;
 
 export const auditQuerySchema = pageQuerySchema.extend({
-  action: z.string().max(64).optional(),
+  action: z.enum(AUDIT_ACTIONS, { error: 'not an action the audit log records' }).optional(),
   actorId: z.coerce.number().int().positive().optional(),
   groupId: z.coerce.number().int().positive().optional(),
-  targetType: z.string().max(32).optional(),
+  targetType: z.enum(AUDIT_TARGET_TYPES, { error: 'not a target type of the audit log' }).optional(),
   /** ISO date or date-time; `from` inclusive, `to` exclusive (a plain date `to` means up to the end of that day). */
   from: z.iso.date().or(z.iso.datetime({ offset: true })).optional(),
   to: z.iso.date().or(z.iso.datetime({ offset: true })).optional(),
