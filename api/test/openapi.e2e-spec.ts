@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import {
-  createApiTokenSchema, createScanSchema, modelInputSchema, modelUpdateSchema, potentialModelSchema, scanDetailSchema,
+  adminUserSchema, AUDIT_ACTIONS, auditEventSchema, pageOf, createApiTokenSchema, createScanSchema, modelInputSchema, modelUpdateSchema, potentialModelSchema, scanDetailSchema,
   scanGridSliceSchema, scanPlaneSchema, workerPoolSchema,
 } from '@sixtyfold/shared';
 import { z } from 'zod';
@@ -11,6 +11,7 @@ const requestSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { target: 'o
 const answerSchema = (schema: z.ZodType) => z.toJSONSchema(schema, { target: 'openapi-3.0', io: 'output', unrepresentable: 'any' });
 
 interface Operation {
+  summary?: string;
   security?: Record<string, string[]>[];
   parameters?: { name: string; in: string; required?: boolean; schema: Record<string, unknown> }[];
   requestBody?: { content: Record<string, { schema: unknown }> };
@@ -77,6 +78,20 @@ describe('the OpenAPI document and its UI', () => {
     const created = doc.paths['/api/tokens'].post.responses['201'].content!['application/json'].schema as { required: string[] };
     expect(created.required).toContain('token');
     expect(doc.paths['/api/auth/login'].post.requestBody).toBeDefined();
+  });
+
+  it('gives every route a summary and its success answer, the audit log and user list with their shared schemas', () => {
+    const undocumented = Object.entries(doc.paths).flatMap(([route, ops]) =>
+      Object.entries(ops)
+        .filter(([, op]) => !op.summary || !Object.keys(op.responses).some((status) => /^2\d\d$/.test(status)))
+        .map(([method]) => `${method.toUpperCase()} ${route}`),
+    );
+    expect(undocumented).toEqual([]);
+    expect(Object.keys(doc.paths).length).toBeGreaterThanOrEqual(50);
+    const audit = doc.paths['/api/admin/audit-events'].get;
+    expect(audit.responses['200'].content!['application/json'].schema).toEqual(answerSchema(pageOf(auditEventSchema)));
+    expect(audit.parameters!.find((p) => p.name === 'action')?.schema).toMatchObject({ enum: [...AUDIT_ACTIONS] });
+    expect(doc.paths['/api/admin/users'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(z.array(adminUserSchema)));
   });
 
   it('serves the docs page as HTML whose scripts all load from this server, as the CSP requires', async () => {
