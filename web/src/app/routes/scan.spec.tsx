@@ -285,6 +285,28 @@ describe('scan heatmaps', () => {
     expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('no_end (1)');
     expect(requests.some((r) => r.url.pathname.endsWith('/grid'))).toBe(false);
   });
+
+  it('opens a clicked line point in the drawer too', async () => {
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const point = (pointIndex: number, nStar: number) => ({
+      pointIndex, inputs: { nStar }, status: 'ok', failureReason: null,
+      ns: 0.96, r: 0.05, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,
+    });
+    api(memberUser, scanDetail({}, spec), {
+      'GET /api/scans/42/points': () => json(200, { items: [point(0, 50), point(1, 55), point(2, 60)], total: 3, page: 1, pageSize: 1000 }),
+      'GET /api/scans/42/points/2': () => json(200, point(2, 60)),
+      'GET /api/scans/42/comments/counts': () => json(200, { scan: 0, points: { '2': 1 } }),
+      'GET /api/scans/42/comments': () => json(200, []),
+    });
+    const { router } = renderApp('/scans/42');
+    const ns = await screen.findByRole('img', { name: 'Line plot of n_s against N_*' }, slow);
+    await waitFor(() => expect(plotIn(ns).onClick).toBeDefined(), slow);
+    act(() => plotIn(ns).onClick!({ points: [{ customdata: 2, curveNumber: 0 }] }));
+    const drawer = await screen.findByRole('dialog', { name: /^Point 2/ }, slow);
+    expect(router.state.location.search).toBe('?point=2');
+    await waitFor(() => expect(within(drawer).getByRole('heading', { name: 'Point 2 · 1 comment' })).toBeInTheDocument(), slow);
+    expect(within(drawer).getByRole('region', { name: 'Discussion of this point' })).toBeInTheDocument();
+  });
 });
 
 describe('scan discussion', () => {

@@ -3,7 +3,8 @@ import type { ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
 import { ScanPointsTable } from '@/features/scans/components/points-table';
 import { useViewParams } from '../hooks/use-view-params';
-import { ScanHeatmaps, type PointDiscussion } from './heatmaps/scan-heatmaps';
+import type { PointDiscussion } from './heatmaps/point-drawer';
+import { ScanHeatmaps } from './heatmaps/scan-heatmaps';
 import { ScanLinePlots } from './heatmaps/scan-line-plots';
 import { ScanPlaneView } from './plane/scan-plane-view';
 
@@ -22,7 +23,7 @@ interface ScanViewsProps {
   spec: StoredScanSpec;
   /** The scan's own discussion as a tab, with its comment count when known; composed in by the page. */
   discussion?: { content: ReactNode; count?: number };
-  /** Each point's discussion, opened from a heatmap cell. */
+  /** Each point's discussion, in the drawer a clicked cell or line point opens. */
   pointDiscussion?: PointDiscussion;
 }
 
@@ -48,7 +49,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViews
           <Tabs.Trigger value="discussion">
             Discussion
             {discussion.count ? (
-              <Badge size="sm" variant="subtle" colorPalette="gray" aria-label={`${discussion.count} comments`}>
+              <Badge size="sm" variant="subtle" colorPalette="gray" aria-label={`${discussion.count} ${discussion.count === 1 ? 'comment' : 'comments'}`}>
                 {discussion.count}
               </Badge>
             ) : null}
@@ -56,7 +57,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViews
         )}
       </Tabs.List>
       <Tabs.Content value="heatmaps">
-        {oneAxis ? <ScanLinePlots scan={scan} spec={spec} /> : <ScanHeatmaps scan={scan} spec={spec} pointDiscussion={pointDiscussion} />}
+        {oneAxis ? <ScanLinePlots scan={scan} spec={spec} pointDiscussion={pointDiscussion} /> : <ScanHeatmaps scan={scan} spec={spec} pointDiscussion={pointDiscussion} />}
       </Tabs.Content>
       <Tabs.Content value="plane">
         <ScanPlaneView scan={scan} spec={spec} />

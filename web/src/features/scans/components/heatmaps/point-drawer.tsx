@@ -6,8 +6,26 @@ import { paths } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
 import { isLive } from '../../api/get-scan';
 import { useScanPoint } from '../../api/get-scan-point';
+import { useViewParams } from '../../hooks/use-view-params';
 import { outputLabel } from '../../utils/output-labels';
 import { failureLabel, formatValue, inputLabel } from '../../utils/point-columns';
+
+/** A point's discussion, composed in by the page: comment counts by point index, and the thread itself. */
+export interface PointDiscussion {
+  counts?: Record<string, number>;
+  render: (pointIndex: number) => ReactNode;
+}
+
+/**
+ * The point open in the drawer, kept in the address as `point`, so a reload or a shared link opens
+ * it again; null when none (or one outside the grid) is open.
+ */
+export function useOpenPoint(size: number): [number | null, (pointIndex: number | null) => void] {
+  const [params, update] = useViewParams();
+  const raw = params.get('point');
+  const open = raw !== null && /^\d+$/.test(raw) && Number(raw) < size ? Number(raw) : null;
+  return [open, (pointIndex) => update({ point: pointIndex === null ? null : String(pointIndex) })];
+}
 
 const KEY_OUTPUTS = ['ns', 'r', 'alphaS', 'nStar'] as const;
 const mono = { fontFamily: 'mono' } as const;
@@ -53,18 +71,16 @@ function PointNumbers({ scan, grid, pointIndex }: { scan: ScanDetail; grid: Scan
 interface PointDrawerProps {
   scan: ScanDetail;
   grid: ScanGrid;
-  /** The open point; null closes the drawer. */
-  pointIndex: number | null;
-  /** How many comments the point has, when known. */
-  commentCount?: number;
-  onClose: () => void;
-  /** Shown under the numbers: the point's discussion. */
-  children?: ReactNode;
+  /** Shown under the numbers, with the point's comment count in the title. */
+  pointDiscussion?: PointDiscussion;
 }
 
-/** A clicked cell's point beside the heatmaps: its key numbers, a link to its page, and its discussion. */
-export function PointDrawer({ scan, grid, pointIndex, commentCount, onClose, children }: PointDrawerProps) {
-  const open = pointIndex !== null && pointIndex < grid.size;
+/** The point open in the address beside the plots: its key numbers, a link to its page, and its discussion. */
+export function PointDrawer({ scan, grid, pointDiscussion }: PointDrawerProps) {
+  const [pointIndex, setPoint] = useOpenPoint(grid.size);
+  const open = pointIndex !== null;
+  const commentCount = open ? pointDiscussion?.counts?.[String(pointIndex)] : undefined;
+  const onClose = () => setPoint(null);
   return (
     <Drawer.Root open={open} onOpenChange={(details) => !details.open && onClose()} size="md" placement="end">
       <Portal>
@@ -89,7 +105,7 @@ export function PointDrawer({ scan, grid, pointIndex, commentCount, onClose, chi
                     <Button asChild size="sm" variant="outline" alignSelf="start">
                       <RouterLink to={paths.point.getHref(scan.id, pointIndex)}>Open point</RouterLink>
                     </Button>
-                    {children}
+                    {pointDiscussion?.render(pointIndex)}
                   </Stack>
                 </Drawer.Body>
                 <Drawer.CloseTrigger asChild>

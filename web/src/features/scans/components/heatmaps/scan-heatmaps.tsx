@@ -1,7 +1,7 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
-import { useCallback, useMemo, type ReactNode } from 'react';
+import { useCallback, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
@@ -16,7 +16,7 @@ import { LimitSetSelect } from '../limit-set-select';
 import { AxisSlider } from './axis-slider';
 import { FailureLegend } from './failure-legend';
 import { OutlineToggle } from './outline-toggle';
-import { PointDrawer } from './point-drawer';
+import { PointDrawer, useOpenPoint, type PointDiscussion } from './point-drawer';
 import { ScanHeatmap } from './scan-heatmap';
 
 /** The outputs the third panel may show beside n_s and r. */
@@ -31,12 +31,6 @@ const TITLES: Record<'ns' | 'r' | ThirdOutput, string> = {
   amplitudeScale: 'A_s normalisation, the factor on V for A_s = 2.1 × 10⁻⁹',
   status: 'Status of each point',
 };
-
-/** A point's discussion, composed in by the page: comment counts by point index, and the thread itself. */
-export interface PointDiscussion {
-  counts?: Record<string, number>;
-  render: (pointIndex: number) => ReactNode;
-}
 
 interface ScanHeatmapsProps {
   scan: ScanDetail;
@@ -104,11 +98,10 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   );
   const insideCount = outline ? outline.reduce((n, row) => n + row.filter(Boolean).length, 0) : 0;
 
-  // The clicked cell's point opens in a drawer; `point` in the address keeps it open over a reload.
-  const rawPoint = params.get('point');
-  const openPoint = rawPoint !== null && /^\d+$/.test(rawPoint) && Number(rawPoint) < grid.size ? Number(rawPoint) : null;
+  // The clicked cell's point opens in the drawer.
+  const [, openPoint] = useOpenPoint(grid.size);
   const openCell = (slice: ScanGridSlice) => (cell: { ix: number; iy: number }) =>
-    update({ point: String(pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy))) });
+    openPoint(pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy)));
   const counts = pointDiscussion?.counts;
   // Marks are worked out once per slice and set of counts, so a panel's figure is rebuilt only when they change.
   const marks = useMemo(() => new WeakMap<ScanGridSlice, boolean[][] | null>(), [counts, grid]);
@@ -197,15 +190,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
         </Text>
       </Stack>
 
-      <PointDrawer
-        scan={scan}
-        grid={grid}
-        pointIndex={openPoint}
-        commentCount={openPoint === null ? undefined : counts?.[String(openPoint)]}
-        onClose={() => update({ point: null })}
-      >
-        {openPoint !== null && pointDiscussion?.render(openPoint)}
-      </PointDrawer>
+      <PointDrawer scan={scan} grid={grid} pointDiscussion={pointDiscussion} />
     </Stack>
   );
 }
