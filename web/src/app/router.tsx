@@ -17,7 +17,9 @@ import { ModelEditRoute } from './routes/model-edit';
 import { ModelNewRoute } from './routes/model-new';
 import { ModelsRoute } from './routes/models';
 import { NotFoundRoute } from './routes/not-found';
+import { NotificationsRoute } from './routes/notifications';
 import { PointRoute } from './routes/point';
+import { PreferencesRoute } from './routes/preferences';
 import { RouteError } from './routes/route-error';
 import { ScanRoute } from './routes/scan';
 import { ScanNewRoute } from './routes/scan-new';
@@ -55,6 +57,8 @@ export const routes: RouteObject[] = [
           { path: paths.adminOutboxMessage.path, element: <AdminOutboxMessageRoute /> },
           { path: paths.maintenance.path, element: <MaintenanceRoute /> },
           { path: paths.tokens.path, element: <TokensRoute /> },
+          { path: paths.notifications.path, element: <NotificationsRoute /> },
+          { path: paths.preferences.path, element: <PreferencesRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],

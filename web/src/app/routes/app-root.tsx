@@ -6,6 +6,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useLogout } from '@/features/auth/api/logout';
 import { ProtectedRoute } from '@/features/auth/components/protected-route';
+import { NotificationBell } from '@/features/notifications/components/notification-bell';
 
 export function AppRoot() {
   return (
@@ -26,7 +27,7 @@ function SignedInShell() {
   if (!user) return null;
 
   return (
-    <AppLayout user={user} onSignOut={() => logout.mutate()} signingOut={logout.isPending}>
+    <AppLayout user={user} onSignOut={() => logout.mutate()} signingOut={logout.isPending} headerActions={<NotificationBell signedIn={!!user} />}>
       {logout.isError && (
         <Box mb="6">
           <ErrorState title="Could not sign out" error={logout.error} onRetry={() => logout.mutate()} />

@@ -139,6 +139,35 @@ describe('point page', () => {
     expect(screen.getByRole('region', { name: 'Inputs' })).toHaveTextContent('the family’s start for these parameters');
   });
 
+  it("carries the point's own thread, with the group's members to mention", async () => {
+    const group = {
+      id: 10, slug: 'plateau-lab', name: 'Plateau Lab', description: '', myRole: 'member', memberCount: 1, pointLimit: 1_000_000,
+      members: [{ userId: 4, displayName: 'Tove Aalto', email: 'tove@halvorsen.example', role: 'viewer' }],
+    };
+    const note = {
+      id: 31, scanId: 42, pointIndex: 3, body: 'Why does N_* = 60 end so late?', createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:05:00.000Z',
+      edited: true, mentions: [], author: { id: 4, displayName: 'Tove Aalto', handle: 'tove' },
+    };
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      'GET /api/scans/42': () => json(200, scanDetail({}, chaotic)),
+      'GET /api/scans/42/points/3': () => json(200, storedPoint(chaotic, 3)),
+      'GET /api/groups/10': () => json(200, group),
+      'GET /api/scans/42/comments': () => json(200, [note]),
+    });
+    const { user } = renderApp('/scans/42/points/3');
+
+    const thread = await screen.findByRole('region', { name: 'Discussion of this point' }, slow);
+    const article = await within(thread).findByRole('article', { name: 'Comment by Tove Aalto' }, slow);
+    expect(article).toHaveTextContent('Why does N_* = 60 end so late?');
+    expect(within(article).getByText('edited')).toBeInTheDocument();
+    expect(within(article).queryByRole('button', { name: 'Edit comment' })).not.toBeInTheDocument();
+    expect(requests.find((r) => r.url.pathname === '/api/scans/42/comments')?.url.searchParams.get('pointIndex')).toBe('3');
+
+    await user.type(within(thread).getByRole('textbox', { name: 'Add a comment' }), '@t');
+    expect(await within(thread).findByRole('option', { name: 'Tove Aalto @tove' }, slow)).toBeInTheDocument();
+  });
+
   it('says when the point is outside the grid', async () => {
     mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/scans/42': () => json(200, scanDetail({}, chaotic)) });
     renderApp('/scans/42/points/4');

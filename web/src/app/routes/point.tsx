@@ -7,7 +7,11 @@ import { ErrorState } from '@/components/ui/error-state';
 import { ScanGridIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
+import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
+import { useMe } from '@/features/auth/api/get-me';
+import { CommentThread } from '@/features/comments/components/comment-thread';
+import { useGroup } from '@/features/groups/api/get-group';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanPointView } from '@/features/scans/components/point/scan-point-view';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
@@ -19,6 +23,9 @@ export function PointRoute() {
   const scanId = readWholeNumber(params.scanId);
   const pointIndex = readWholeNumber(params.pointIndex);
   const scan = useScan(scanId ?? 0);
+  const { data: user } = useMe();
+  // Until the scan says which group it is in, there is no one to mention.
+  const members = useGroup(scan.data?.groupId ?? 0, { enabled: !!scan.data }).data?.members;
   useDocumentTitle(pointIndex === null ? 'Point' : `Point ${pointIndex}${scan.data ? ` · ${scan.data.name}` : ''}`);
 
   if (scanId === null || pointIndex === null) {
@@ -81,6 +88,17 @@ export function PointRoute() {
         }
       />
       <ScanPointView key={`${scanId}-${pointIndex}`} scan={scan.data} spec={spec} pointIndex={pointIndex} />
+      <Panel p={{ base: '4', md: '5' }} mt="5">
+        <CommentThread
+          key={`${scanId}-${pointIndex}`}
+          scanId={scanId}
+          groupId={scan.data.groupId}
+          pointIndex={pointIndex}
+          user={user}
+          members={members}
+          title="Discussion of this point"
+        />
+      </Panel>
     </Stack>
   );
 }

@@ -171,13 +171,55 @@ describe('scan heatmaps', () => {
     expect(requests.some((r) => r.url.searchParams.get('output') === 'status')).toBe(true);
   });
 
-  it('opens the point of a clicked cell, last axis fastest', async () => {
-    api(memberUser);
-    const { router } = renderApp('/scans/42');
+  it("opens a clicked cell's point in a drawer with its numbers, a link to its page and its thread", async () => {
+    const point5 = {
+      pointIndex: 5, inputs: { f: 7, nStar: 60 }, status: 'ok', failureReason: null, ns: 0.967, r: 0.02, alphaS: -4e-4, As: 2.1e-9,
+      amplitudeScale: 1, nTotal: 70, nStar: 60, phiStar: 3, phiEnd: 0.5, energyScaleGeV: 1e16,
+    };
+    const note = {
+      id: 77, scanId: 42, pointIndex: 5, body: 'Check this one against the exact method.', createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z',
+      edited: false, mentions: [], author: { id: 1, displayName: 'Amara Okafor', handle: 'amara.okafor' },
+    };
+    const { requests } = api(memberUser, scanDetail(), {
+      'GET /api/scans/42/comments/counts': () => json(200, { scan: 0, points: { '5': 2, '0': 1 } }),
+      'GET /api/scans/42/comments': (request) => json(200, request.url.searchParams.get('pointIndex') === '5' ? [note, { ...note, id: 78, body: 'Agreed.' }] : []),
+      'GET /api/scans/42/points/5': () => json(200, point5),
+    });
+    const { user, router } = renderApp('/scans/42');
     const ns = await screen.findByRole('img', { name: 'Heatmap of n_s over f and N_*' }, slow);
-    await waitFor(() => expect(plotIn(ns).onClick).toBeDefined(), slow);
+    // Points 5 (ix 1, iy 2) and 0 (ix 0, iy 0) have comments: a dot on each of their cells.
+    await waitFor(() => expect(plotIn(ns).data.find((trace) => trace.name === 'has comments')).toMatchObject({ x: [0, 1], y: [0, 2] }), slow);
+
     // Cell (ix 1, iy 2) is f = 7, N_* = 60: point 1 × 3 + 2.
     act(() => plotIn(ns).onClick!({ points: [{ x: 1, y: 2, curveNumber: 0 }] }));
+    const drawer = await screen.findByRole('dialog', { name: /^Point 5/ }, slow);
+    expect(router.state.location.pathname).toBe('/scans/42');
+    expect(router.state.location.search).toBe('?point=5');
+    expect(within(drawer).getByRole('heading', { name: 'Point 5 · 2 comments' })).toBeInTheDocument();
+    const numbers = within(drawer).getByLabelText('Point 5 in numbers');
+    await waitFor(() => expect(numbers).toHaveTextContent('n_s0.967'), slow);
+    expect(numbers).toHaveTextContent('f7');
+    expect(within(drawer).getByRole('link', { name: 'Open point' })).toHaveAttribute('href', '/scans/42/points/5');
+
+    const thread = within(drawer).getByRole('region', { name: 'Discussion of this point' });
+    expect(await within(thread).findByText('Check this one against the exact method.', undefined, slow)).toBeInTheDocument();
+    expect(within(thread).getByText('Agreed.')).toBeInTheDocument();
+    expect(requests.filter((r) => r.url.pathname === '/api/scans/42/comments').map((r) => r.url.searchParams.get('pointIndex'))).toEqual(['5']);
+
+    await user.click(within(drawer).getByRole('button', { name: 'Close the point' }));
+    await waitFor(() => expect(screen.queryByRole('dialog')).not.toBeInTheDocument(), slow);
+    expect(router.state.location.search).toBe('');
+  });
+
+  it('goes from the drawer to the point page', async () => {
+    api(memberUser, scanDetail(), {
+      'GET /api/scans/42/comments': () => json(200, []),
+      'GET /api/scans/42/points/5': () => apiError(404, 'Point 5 is not stored yet'),
+    });
+    const { user, router } = renderApp('/scans/42?point=5');
+    const drawer = await screen.findByRole('dialog', { name: /^Point 5/ }, slow);
+    await waitFor(() => expect(within(drawer).getByLabelText('Point 5 in numbers')).toHaveTextContent('Statusnot stored yet'), slow);
+    await user.click(within(drawer).getByRole('link', { name: 'Open point' }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/scans/42/points/5'), slow);
   });
 
@@ -242,6 +284,73 @@ describe('scan heatmaps', () => {
     expect(plotIn(ns).layout.shapes).toHaveLength(1);
     expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('no_end (1)');
     expect(requests.some((r) => r.url.pathname.endsWith('/grid'))).toBe(false);
+  });
+
+  it('opens a clicked line point in the drawer too', async () => {
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const point = (pointIndex: number, nStar: number) => ({
+      pointIndex, inputs: { nStar }, status: 'ok', failureReason: null,
+      ns: 0.96, r: 0.05, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,
+    });
+    api(memberUser, scanDetail({}, spec), {
+      'GET /api/scans/42/points': () => json(200, { items: [point(0, 50), point(1, 55), point(2, 60)], total: 3, page: 1, pageSize: 1000 }),
+      'GET /api/scans/42/points/2': () => json(200, point(2, 60)),
+      'GET /api/scans/42/comments/counts': () => json(200, { scan: 0, points: { '2': 1 } }),
+      'GET /api/scans/42/comments': () => json(200, []),
+    });
+    const { router } = renderApp('/scans/42');
+    const ns = await screen.findByRole('img', { name: 'Line plot of n_s against N_*' }, slow);
+    await waitFor(() => expect(plotIn(ns).onClick).toBeDefined(), slow);
+    act(() => plotIn(ns).onClick!({ points: [{ customdata: 2, curveNumber: 0 }] }));
+    const drawer = await screen.findByRole('dialog', { name: /^Point 2/ }, slow);
+    expect(router.state.location.search).toBe('?point=2');
+    await waitFor(() => expect(within(drawer).getByRole('heading', { name: 'Point 2 · 1 comment' })).toBeInTheDocument(), slow);
+    expect(within(drawer).getByRole('region', { name: 'Discussion of this point' })).toBeInTheDocument();
+  });
+});
+
+describe('scan discussion', () => {
+  it("shows the scan's own thread as a tab with its count, and posts to it", async () => {
+    const group = {
+      id: 10, slug: 'plateau-lab', name: 'Plateau Lab', description: '', myRole: 'member', memberCount: 2, pointLimit: 1_000_000,
+      members: [
+        { userId: 1, displayName: 'Amara Okafor', email: 'amara.okafor@halvorsen.example', role: 'lead' },
+        { userId: 2, displayName: 'Tomas Lindqvist', email: 'tomas.lindqvist@halvorsen.example', role: 'member' },
+      ],
+    };
+    const stored: unknown[] = [];
+    const { requests } = api(memberUser, scanDetail(), {
+      'GET /api/groups/10': () => json(200, group),
+      'GET /api/scans/42/comments/counts': () => json(200, { scan: stored.length + 3, points: {} }),
+      'GET /api/scans/42/comments': () => json(200, stored),
+      'POST /api/scans/42/comments': (request) => {
+        const { body } = request.body as { body: string };
+        const created = {
+          id: 5, scanId: 42, pointIndex: null, body, createdAt: '2026-12-01T10:00:00.000Z', updatedAt: '2026-12-01T10:00:00.000Z', edited: false,
+          mentions: [{ id: 1, displayName: 'Amara Okafor', handle: 'amara.okafor' }], author: { id: 2, displayName: 'Tomas Lindqvist', handle: 'tomas.lindqvist' },
+        };
+        stored.push(created);
+        return json(201, created);
+      },
+    });
+    const { user, router } = renderApp('/scans/42');
+
+    const tab = await screen.findByRole('tab', { name: /^Discussion/ }, slow);
+    await waitFor(() => expect(tab).toHaveAccessibleName('Discussion 3 comments'), slow);
+    await user.click(tab);
+    await waitFor(() => expect(router.state.location.search).toBe('?view=discussion'), slow);
+    const thread = await screen.findByRole('region', { name: 'Discussion' }, slow);
+    expect(await within(thread).findByText('No comments yet on this scan. Start the discussion below.', undefined, slow)).toBeInTheDocument();
+
+    const box = within(thread).getByRole('textbox', { name: 'Add a comment' });
+    await user.type(box, 'Over to @am');
+    await user.click(await within(thread).findByRole('option', { name: /Amara Okafor/ }, slow));
+    await user.type(box, 'for the exact run');
+    await user.click(within(thread).getByRole('button', { name: 'Post comment' }));
+
+    expect(await within(thread).findByText('@amara.okafor', undefined, slow)).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ body: 'Over to @amara.okafor for the exact run', pointIndex: null });
+    await waitFor(() => expect(tab).toHaveAccessibleName('Discussion 4 comments'), slow);
   });
 });
 

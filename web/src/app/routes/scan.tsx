@@ -1,11 +1,16 @@
 import { Alert, Stack } from '@chakra-ui/react';
+import type { CurrentUser, ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import { useNavigate, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { ScanGridIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
+import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
+import { useCommentCounts } from '@/features/comments/api/get-comment-counts';
+import { CommentThread } from '@/features/comments/components/comment-thread';
+import { useGroup } from '@/features/groups/api/get-group';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanActions } from '@/features/scans/components/scan-actions';
 import { ScanHeader } from '@/features/scans/components/scan-header';
@@ -43,7 +48,7 @@ export function ScanRoute() {
             groupName={groupName}
             actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
           />
-          <ScanViews scan={scan.data} spec={spec} />
+          <ScanResults scan={scan.data} spec={spec} user={user} />
         </>
       ) : (
         <Alert.Root status="error" variant="subtle" borderRadius="lg" role="alert">
@@ -55,5 +60,29 @@ export function ScanRoute() {
         </Alert.Root>
       )}
     </Stack>
+  );
+}
+
+/** The result views with the discussion composed in: the scan's thread as a tab, each point's in the heatmap drawer. */
+function ScanResults({ scan, spec, user }: { scan: ScanDetail; spec: StoredScanSpec; user: CurrentUser | null | undefined }) {
+  const counts = useCommentCounts(scan.id);
+  const members = useGroup(scan.groupId).data?.members;
+  const thread = (pointIndex: number | null) => (
+    <CommentThread
+      scanId={scan.id}
+      groupId={scan.groupId}
+      pointIndex={pointIndex}
+      user={user}
+      members={members}
+      title={pointIndex === null ? 'Discussion' : 'Discussion of this point'}
+    />
+  );
+  return (
+    <ScanViews
+      scan={scan}
+      spec={spec}
+      discussion={{ content: <Panel p={{ base: '4', md: '6' }}>{thread(null)}</Panel>, count: counts.data?.scan }}
+      pointDiscussion={{ counts: counts.data?.points, render: thread }}
+    />
   );
 }

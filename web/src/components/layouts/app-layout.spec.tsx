@@ -34,6 +34,15 @@ describe('AppLayout', () => {
     expect(adminLinks()).toHaveLength(0);
   });
 
+  it('puts what it is given before the account menu in the header', () => {
+    renderWithProviders(
+      <AppLayout user={memberUser} onSignOut={vi.fn()} headerActions={<a href="/notifications">Bell</a>}>
+        <p>page</p>
+      </AppLayout>,
+    );
+    expect(screen.getByRole('banner')).toContainElement(screen.getByRole('link', { name: 'Bell' }));
+  });
+
   it('marks the current page in the navigation', () => {
     renderWithProviders(
       <AppLayout user={memberUser} onSignOut={vi.fn()}>
@@ -59,6 +68,9 @@ describe('AppLayout', () => {
     expect(lab).toHaveTextContent('lead');
     expect(lab).toHaveAttribute('href', '/groups/10');
     expect(screen.getByRole('menuitem', { name: /Reheating Club/ })).toHaveTextContent('viewer');
+
+    expect(screen.getByRole('menuitem', { name: 'Notifications' })).toHaveAttribute('href', '/notifications');
+    expect(screen.getByRole('menuitem', { name: 'Preferences' })).toHaveAttribute('href', '/preferences');
 
     await user.click(screen.getByRole('menuitem', { name: 'Sign out' }));
     expect(onSignOut).toHaveBeenCalledTimes(1);

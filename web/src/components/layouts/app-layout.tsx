@@ -15,10 +15,12 @@ interface AppLayoutProps {
   user: CurrentUser;
   onSignOut: () => void;
   signingOut?: boolean;
+  /** Shown in the header before the account menu (the notification bell). */
+  headerActions?: ReactNode;
   children: ReactNode;
 }
 
-export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutProps) {
+export function AppLayout({ user, onSignOut, signingOut, headerActions, children }: AppLayoutProps) {
   const items = navItemsFor(user);
   return (
     <Flex direction="column" minH="100dvh">
@@ -85,9 +87,10 @@ export function AppLayout({ user, onSignOut, signingOut, children }: AppLayoutPr
             ))}
           </HStack>
 
-          <Box ms="auto">
+          <HStack ms="auto" gap="1">
+            {headerActions}
             <UserMenu user={user} onSignOut={onSignOut} signingOut={signingOut} />
-          </Box>
+          </HStack>
         </Container>
       </Box>
       <SkipNavContent />

@@ -80,6 +80,12 @@ export function UserMenu({ user, onSignOut, signingOut }: UserMenuProps) {
               )}
             </Menu.ItemGroup>
             <Menu.Separator />
+            <Menu.Item value="notifications" asChild>
+              <RouterLink to={paths.notifications.getHref()}>Notifications</RouterLink>
+            </Menu.Item>
+            <Menu.Item value="preferences" asChild>
+              <RouterLink to={paths.preferences.getHref()}>Preferences</RouterLink>
+            </Menu.Item>
             <Menu.Item value="api-tokens" asChild>
               <RouterLink to={paths.tokens.getHref()}>API tokens</RouterLink>
             </Menu.Item>

@@ -75,3 +75,14 @@ export const UsersIcon = createIcon({
     </g>
   ),
 });
+
+export const BellIcon = createIcon({
+  displayName: 'BellIcon',
+  viewBox: '0 0 24 24',
+  path: (
+    <g {...stroke}>
+      <path d="M6 16.5V11a6 6 0 0 1 12 0v5.5l1.5 2h-15z" />
+      <path d="M10 20.5a2 2 0 0 0 4 0" />
+    </g>
+  ),
+});

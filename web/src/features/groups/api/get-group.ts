@@ -11,4 +11,5 @@ export const getGroupQueryOptions = (groupId: number) =>
     queryFn: ({ signal }) => getGroup(groupId, signal),
   });
 
-export const useGroup = (groupId: number) => useQuery(getGroupQueryOptions(groupId));
+/** `enabled: false` waits, e.g. until a scan says which group it belongs to. */
+export const useGroup = (groupId: number, { enabled = true }: { enabled?: boolean } = {}) => useQuery({ ...getGroupQueryOptions(groupId), enabled });

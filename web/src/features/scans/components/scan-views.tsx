@@ -1,12 +1,14 @@
-import { Tabs } from '@chakra-ui/react';
+import { Badge, Tabs } from '@chakra-ui/react';
 import type { ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
+import type { ReactNode } from 'react';
 import { ScanPointsTable } from '@/features/scans/components/points-table';
 import { useViewParams } from '../hooks/use-view-params';
+import type { PointDiscussion } from './heatmaps/point-drawer';
 import { ScanHeatmaps } from './heatmaps/scan-heatmaps';
 import { ScanLinePlots } from './heatmaps/scan-line-plots';
 import { ScanPlaneView } from './plane/scan-plane-view';
 
-export const SCAN_VIEWS = ['heatmaps', 'plane', 'points'] as const;
+export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'discussion'] as const;
 export type ScanView = (typeof SCAN_VIEWS)[number];
 
 /** The view in the address (`?view=`), heatmaps when there is none or it is unknown. */
@@ -16,9 +18,19 @@ export const readScanView = (value: string | null): ScanView => ((SCAN_VIEWS as 
  * The scan's results as tabs. Only the open tab is mounted, so a live scan polls only for what is
  * on screen; each view keeps its settings in the address, so coming back finds them.
  */
-export function ScanViews({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
+interface ScanViewsProps {
+  scan: ScanDetail;
+  spec: StoredScanSpec;
+  /** The scan's own discussion as a tab, with its comment count when known; composed in by the page. */
+  discussion?: { content: ReactNode; count?: number };
+  /** Each point's discussion, in the drawer a clicked cell or line point opens. */
+  pointDiscussion?: PointDiscussion;
+}
+
+export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViewsProps) {
   const [params, update] = useViewParams();
-  const view = readScanView(params.get('view'));
+  const chosen = readScanView(params.get('view'));
+  const view = chosen === 'discussion' && !discussion ? 'heatmaps' : chosen;
   const oneAxis = spec.axes.length === 1;
   return (
     <Tabs.Root
@@ -33,14 +45,27 @@ export function ScanViews({ scan, spec }: { scan: ScanDetail; spec: StoredScanSp
         <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>
         <Tabs.Trigger value="plane">n_s–r plane</Tabs.Trigger>
         <Tabs.Trigger value="points">Points</Tabs.Trigger>
+        {discussion && (
+          <Tabs.Trigger value="discussion">
+            Discussion
+            {discussion.count ? (
+              <Badge size="sm" variant="subtle" colorPalette="gray" aria-label={`${discussion.count} ${discussion.count === 1 ? 'comment' : 'comments'}`}>
+                {discussion.count}
+              </Badge>
+            ) : null}
+          </Tabs.Trigger>
+        )}
       </Tabs.List>
-      <Tabs.Content value="heatmaps">{oneAxis ? <ScanLinePlots scan={scan} spec={spec} /> : <ScanHeatmaps scan={scan} spec={spec} />}</Tabs.Content>
+      <Tabs.Content value="heatmaps">
+        {oneAxis ? <ScanLinePlots scan={scan} spec={spec} pointDiscussion={pointDiscussion} /> : <ScanHeatmaps scan={scan} spec={spec} pointDiscussion={pointDiscussion} />}
+      </Tabs.Content>
       <Tabs.Content value="plane">
         <ScanPlaneView scan={scan} spec={spec} />
       </Tabs.Content>
       <Tabs.Content value="points">
         <ScanPointsTable scan={scan} />
       </Tabs.Content>
+      {discussion && <Tabs.Content value="discussion">{discussion.content}</Tabs.Content>}
     </Tabs.Root>
   );
 }

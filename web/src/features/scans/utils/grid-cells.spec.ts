@@ -1,6 +1,6 @@
 import { findLimits, nsInterval, ScanGrid } from '@sixtyfold/shared';
 import { naturalSpec, slice } from '@/testing/scan-fixtures';
-import { cellCounts, cellIndices, failureGroups, insideLimitsMask, isLogSpaced, outlineSegments, pointIndexOf, sameCells, zRangeOf } from './grid-cells';
+import { cellCounts, cellIndices, failureGroups, insideLimitsMask, isLogSpaced, markedCells, outlineSegments, pointIndexOf, sameCells, zRangeOf } from './grid-cells';
 
 describe('point index and axis indices', () => {
   it('is the inverse of ScanGrid.indices, last axis fastest', () => {
@@ -20,6 +20,23 @@ describe('point index and axis indices', () => {
     // x = N_* (fast axis), y = f: cell (ix 1, iy 2) is f = 10, N_* = 55.
     const index = pointIndexOf(grid.lengths, cellIndices(['f', 'nStar'], slice('ns', [], []), 1, 2));
     expect(grid.point(index)).toEqual({ f: 10, nStar: 55 });
+  });
+});
+
+describe('marked cells', () => {
+  it('marks the cells whose point is listed, at the slice’s cut of a third axis', () => {
+    const grid = new ScanGrid([
+      { kind: 'list', parameter: 'a', values: [1, 2] },
+      { kind: 'list', parameter: 'b', values: [5, 6, 7] },
+      { kind: 'list', parameter: 'c', values: [8, 9] },
+    ]);
+    const cut = { x: { parameter: 'b', values: [5, 6, 7] }, y: { parameter: 'a', values: [1, 2] }, at: { c: { index: 1, value: 9 } } };
+    // Point 9 is a = 2, b = 6, c = 9 (1·6 + 1·2 + 1); point 4 has c = 8, off this cut.
+    expect(markedCells(grid, cut, { '9': 2, '4': 1 })).toEqual([
+      [false, false, false],
+      [false, true, false],
+    ]);
+    expect(markedCells(grid, cut, {})).toBeNull();
   });
 });
 

@@ -1,4 +1,4 @@
-import { insideLimits, type ConfidenceLevel, type ObservationalLimits, type ScanGridSlice } from '@sixtyfold/shared';
+import { insideLimits, type ConfidenceLevel, type ObservationalLimits, type ScanGrid, type ScanGridSlice } from '@sixtyfold/shared';
 
 /**
  * The point index of a cell from every axis index: the mixed radix of the axis lengths with the
@@ -11,6 +11,13 @@ export function pointIndexOf(lengths: number[], indices: number[]): number {
 /** Axis indices of the cell (ix, iy) of a slice, in the scan's axis order. */
 export function cellIndices(axes: string[], slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, ix: number, iy: number): number[] {
   return axes.map((name) => (name === slice.x.parameter ? ix : name === slice.y.parameter ? iy : (slice.at[name]?.index ?? 0)));
+}
+
+/** Which cells of a slice stand for a point listed in `byPoint` (comment counts by point index, say). */
+export function markedCells(grid: Pick<ScanGrid, 'axes' | 'lengths'>, slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, byPoint: Record<string, number>): boolean[][] | null {
+  if (Object.keys(byPoint).length === 0) return null;
+  const axes = grid.axes.map((axis) => axis.parameter);
+  return slice.y.values.map((_, iy) => slice.x.values.map((_, ix) => (byPoint[String(pointIndexOf(grid.lengths, cellIndices(axes, slice, ix, iy)))] ?? 0) > 0));
 }
 
 export interface FailureGroup {

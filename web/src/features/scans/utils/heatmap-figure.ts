@@ -15,6 +15,8 @@ export interface HeatmapFigureInput {
   hoverSlices?: ScanGridSlice[];
   /** Cells to outline, e.g. those inside the observational limits. */
   outline?: boolean[][] | null;
+  /** Cells to mark with a dot, e.g. those whose point has comments. */
+  marked?: boolean[][] | null;
 }
 
 // Past this many cells a text label per cell costs more memory than a hover is worth.
@@ -70,7 +72,7 @@ function hoverTexts(slice: ScanGridSlice, others: ScanGridSlice[]): string[][] {
  * axis values as tick labels, so list and log-spaced axes get equal cells. Failed cells are
  * never drawn as numbers: their z is null in the data and a second trace colours them by reason.
  */
-export function heatmapFigure({ slice, zRange, hoverSlices = [], outline }: HeatmapFigureInput): { data: Data[]; layout: Partial<Layout> } {
+export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked }: HeatmapFigureInput): { data: Data[]; layout: Partial<Layout> } {
   const xs = slice.x.values.map((_, i) => i);
   const ys = slice.y.values.map((_, i) => i);
   const cells = xs.length * ys.length;
@@ -113,6 +115,16 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline }: Heat
     for (const line of [{ color: PLOT_COLORS.ink, width: 4 }, { color: '#ffffff', width: 1.6 }]) {
       data.push({ type: 'scatter', mode: 'lines', name: 'inside the limits', ...segments, line, hoverinfo: 'skip', showlegend: false } as Data);
     }
+  }
+
+  const dots = { x: [] as number[], y: [] as number[] };
+  marked?.forEach((row, iy) => row.forEach((on, ix) => on && (dots.x.push(ix), dots.y.push(iy))));
+  if (dots.x.length) {
+    // A light dot in a dark ring, like the outline, reads on every colour; clicks on it reach the cell.
+    data.push({
+      type: 'scatter', mode: 'markers', name: 'has comments', ...dots, hoverinfo: 'skip', showlegend: false,
+      marker: { size: 7, color: '#ffffff', line: { color: PLOT_COLORS.ink, width: 1.5 } },
+    } as Data);
   }
 
   return {

@@ -17,14 +17,16 @@ export interface ScanHeatmapProps {
   hoverSlices?: ScanGridSlice[];
   /** Cells to outline, e.g. insideLimitsMask(ns, r, limits). */
   outline?: boolean[][] | null;
+  /** Cells marked with a dot (points with comments). */
+  marked?: boolean[][] | null;
   /** A click on a stored cell, by its x and y index; combine with the slice's `at` for the point. */
   onCellClick?: (cell: { ix: number; iy: number }) => void;
   height?: number;
 }
 
 /** One heatmap panel: the output over two axes, failed cells coloured by reason, blanks not yet stored. */
-export function ScanHeatmap({ slice, title, zRange, hoverSlices, outline, onCellClick, height = 340 }: ScanHeatmapProps) {
-  const figure = useMemo(() => heatmapFigure({ slice, zRange, hoverSlices, outline }), [slice, zRange, hoverSlices, outline]);
+export function ScanHeatmap({ slice, title, zRange, hoverSlices, outline, marked, onCellClick, height = 340 }: ScanHeatmapProps) {
+  const figure = useMemo(() => heatmapFigure({ slice, zRange, hoverSlices, outline, marked }), [slice, zRange, hoverSlices, outline, marked]);
   const counts = cellCounts(slice.status);
   const range = slice.output === 'status' ? undefined : zRangeOf([slice]);
   const axes = `${inputLabel(slice.x.parameter)} and ${inputLabel(slice.y.parameter)}`;

@@ -2,22 +2,21 @@ import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
-import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
-import { paths } from '@/config/paths';
 import { isLive } from '../../api/get-scan';
 import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellCounts, cellIndices, failureGroups, insideLimitsMask, pointIndexOf, sameCells } from '../../utils/grid-cells';
+import { cellCounts, cellIndices, failureGroups, insideLimitsMask, markedCells, pointIndexOf, sameCells } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
 import { axisOptions, formatValue } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
 import { AxisSlider } from './axis-slider';
 import { FailureLegend } from './failure-legend';
 import { OutlineToggle } from './outline-toggle';
+import { PointDrawer, useOpenPoint, type PointDiscussion } from './point-drawer';
 import { ScanHeatmap } from './scan-heatmap';
 
 /** The outputs the third panel may show beside n_s and r. */
@@ -36,6 +35,7 @@ const TITLES: Record<'ns' | 'r' | ThirdOutput, string> = {
 interface ScanHeatmapsProps {
   scan: ScanDetail;
   spec: StoredScanSpec;
+  pointDiscussion?: PointDiscussion;
 }
 
 /** A panel of one slice query: the heatmap once there is data, else loading or what went wrong. */
@@ -57,8 +57,7 @@ function SlicePanel({ query, what, children }: { query: UseQueryResult<ScanGridS
 }
 
 /** n_s and r side by side and one output of choice, over two axes, with the others held by sliders. */
-export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
-  const navigate = useNavigate();
+export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps) {
   const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
   const names = spec.axes.map((axis) => axis.parameter);
   const [params, update] = useViewParams();
@@ -99,12 +98,23 @@ export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
   );
   const insideCount = outline ? outline.reduce((n, row) => n + row.filter(Boolean).length, 0) : 0;
 
+  // The clicked cell's point opens in the drawer.
+  const [, openPoint] = useOpenPoint(grid.size);
   const openCell = (slice: ScanGridSlice) => (cell: { ix: number; iy: number }) =>
-    navigate(paths.point.getHref(scan.id, pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy))));
+    openPoint(pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy)));
+  const counts = pointDiscussion?.counts;
+  // Marks are worked out once per slice and set of counts, so a panel's figure is rebuilt only when they change.
+  const marks = useMemo(() => new WeakMap<ScanGridSlice, boolean[][] | null>(), [counts, grid]);
+  const marksOf = (slice: ScanGridSlice) => {
+    if (!counts) return null;
+    if (!marks.has(slice)) marks.set(slice, markedCells(grid, slice, counts));
+    return marks.get(slice) ?? null;
+  };
   const panelProps = (slice: ScanGridSlice) => ({
     slice,
     hoverSlices: matched && sameCells(slice, matched.ns) ? hoverSlices : undefined,
     outline: outline && matched && sameCells(slice, matched.ns) ? outline : null,
+    marked: marksOf(slice),
     onCellClick: openCell(slice),
   });
 
@@ -174,8 +184,13 @@ export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
             one-dimensional limits, not the joint contour). Source: {limits.source}.
           </Text>
         )}
-        <Text>Click a cell to open its point.{live ? ' The maps fill in as workers store points.' : ''}</Text>
+        <Text>
+          Click a cell for its point{pointDiscussion ? ' and its discussion; cells with a dot have comments' : ''}.
+          {live ? ' The maps fill in as workers store points.' : ''}
+        </Text>
       </Stack>
+
+      <PointDrawer scan={scan} grid={grid} pointDiscussion={pointDiscussion} />
     </Stack>
   );
 }

@@ -1,13 +1,11 @@
 import { Heading, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { axisValues, type PointOutput, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { axisValues, ScanGrid, type PointOutput, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo } from 'react';
-import { useNavigate } from 'react-router-dom';
 import { Plot } from '@/components/plots/plot';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
-import { paths } from '@/config/paths';
 import { isLive } from '../../api/get-scan';
 import { LINE_POINT_LIMIT, useScanLine } from '../../api/get-scan-line';
 import { useViewParams } from '../../hooks/use-view-params';
@@ -16,12 +14,14 @@ import { lineFigure } from '../../utils/line-figure';
 import { outputLabel } from '../../utils/output-labels';
 import { inputLabel } from '../../utils/point-columns';
 import { FailureLegend } from './failure-legend';
+import { PointDrawer, useOpenPoint, type PointDiscussion } from './point-drawer';
 
 const THIRD_LINE_OUTPUTS = ['alphaS', 'nTotal', 'amplitudeScale'] as const satisfies PointOutput[];
 
 /** A one-axis scan has no heatmap: n_s, r and one more output are drawn against its axis. */
-export function ScanLinePlots({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
-  const navigate = useNavigate();
+export function ScanLinePlots({ scan, spec, pointDiscussion }: { scan: ScanDetail; spec: StoredScanSpec; pointDiscussion?: PointDiscussion }) {
+  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
+  const [, openPoint] = useOpenPoint(grid.size);
   const axis = spec.axes[0];
   const values = useMemo(() => axisValues(axis), [axis]);
   const log = isLogSpaced(values);
@@ -64,7 +64,7 @@ export function ScanLinePlots({ scan, spec }: { scan: ScanDetail; spec: StoredSc
                   height={320}
                   label={`Line plot of ${outputLabel(output)} against ${inputLabel(axis.parameter)}`}
                   onPointClick={(point) => {
-                    if (typeof point.customdata === 'number') navigate(paths.point.getHref(scan.id, point.customdata));
+                    if (typeof point.customdata === 'number') openPoint(point.customdata);
                   }}
                 />
               </Stack>
@@ -80,8 +80,9 @@ export function ScanLinePlots({ scan, spec }: { scan: ScanDetail; spec: StoredSc
             has them all.
           </Text>
         )}
-        <Text>Failed points are shaded by reason. Click a point to open it.</Text>
+        <Text>Failed points are shaded by reason. Click a point for its numbers{pointDiscussion ? ' and its discussion' : ''}.</Text>
       </Stack>
+      <PointDrawer scan={scan} grid={grid} pointDiscussion={pointDiscussion} />
     </Stack>
   );
 }
