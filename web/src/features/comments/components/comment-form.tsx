@@ -1,9 +1,10 @@
-import { Alert, Box, Button, Field, HStack, Stack, Text, Textarea } from '@chakra-ui/react';
+import { Box, Button, Field, HStack, Stack, Text, Textarea } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { commentBodySchema, COMMENT_BODY_MAX, type CommentBody, type CommentPerson } from '@sixtyfold/shared';
 import { useId, useRef, useState, type KeyboardEvent } from 'react';
 import { useForm } from 'react-hook-form';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { insertMention, matchingPeople, mentionQueryAt, type MentionQuery } from '../utils/mentions';
 
 interface CommentFormProps {
@@ -85,8 +86,7 @@ export function CommentForm({ label, submitLabel, busyLabel, defaultBody = '', p
       await onSubmit(values);
       if (resetOnSuccess) reset({ body: '' });
     } catch (error) {
-      const message = error instanceof ApiRequestError ? error.fieldErrors.body?.[0] : undefined;
-      if (message) setError('body', { message });
+      if (isFieldRefusal(error) && error.fieldErrors.body) applyFieldErrors(error, setError);
       else setFailure(error instanceof Error ? error.message : 'Something went wrong.');
     }
   });
@@ -95,13 +95,7 @@ export function CommentForm({ label, submitLabel, busyLabel, defaultBody = '', p
     <form onSubmit={submit} noValidate aria-label={label}>
       <Stack gap="3">
         {failure && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not save the comment</Alert.Title>
-              <Alert.Description>{failure}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
+          <FailureAlert title="Could not save the comment">{failure}</FailureAlert>
         )}
         <Field.Root invalid={!!errors.body}>
           <Field.Label>{label}</Field.Label>

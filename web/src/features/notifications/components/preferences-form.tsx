@@ -2,7 +2,8 @@ import { Alert, Button, Fieldset, RadioGroup, Stack, Text } from '@chakra-ui/rea
 import { zodResolver } from '@hookform/resolvers/zod';
 import { userPreferencesSchema, type NotificationEmailMode, type UserPreferences } from '@sixtyfold/shared';
 import { Controller, useForm } from 'react-hook-form';
-import { ApiRequestError } from '@/lib/api-client';
+import { FailureAlert } from '@/components/ui/failure-alert';
+import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useUpdatePreferences } from '../api/update-preferences';
 
 const EMAIL_CHOICES: { value: NotificationEmailMode; label: string; help: string }[] = [
@@ -25,10 +26,7 @@ export function PreferencesForm({ preferences }: { preferences: UserPreferences 
   const onSubmit = handleSubmit((values) =>
     save.mutate(values, {
       onSuccess: (saved) => reset(saved),
-      onError: (error) => {
-        const message = error instanceof ApiRequestError ? error.fieldErrors.notificationEmail?.[0] : undefined;
-        if (message) setError('notificationEmail', { message });
-      },
+      onError: (error) => applyFieldErrors(error, setError),
     }),
   );
 
@@ -44,15 +42,7 @@ export function PreferencesForm({ preferences }: { preferences: UserPreferences 
             </Alert.Content>
           </Alert.Root>
         )}
-        {save.isError && !errors.notificationEmail && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not save your preferences</Alert.Title>
-              <Alert.Description>{save.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
+        {save.isError && !isFieldRefusal(save.error) && <FailureAlert title="Could not save your preferences">{save.error.message}</FailureAlert>}
         <Fieldset.Root invalid={!!errors.notificationEmail}>
           <Fieldset.Legend fontWeight="600" color="ink.900">
             E-mail me about notifications
