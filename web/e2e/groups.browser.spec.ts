@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { heading, mainNav, openBrowser, settled, shot, signIn, webUrl, type BrowserSession } from './support/browser';
+import { heading, mainNav, openBrowser, settled, shot, signIn, signOut, webUrl, type BrowserSession } from './support/browser';
 
 // A site admin acts as a lead in every group, so one account sends the invitation and reads the outbox.
 const ADMIN = 'amara.okafor@halvorsen.example';
@@ -19,12 +19,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await session?.close();
 });
-
-async function signOut() {
-  await page.getByRole('button', { name: /^Account menu for / }).click();
-  await page.getByRole('menuitem', { name: 'Sign out', exact: true }).click();
-  await page.waitForURL(/\/sign-in$/);
-}
 
 describe('bringing a newcomer into a group by e-mail', () => {
   it('invites an address, finds the e-mail in the outbox, and the link creates the account in the group', async () => {
@@ -54,7 +48,7 @@ describe('bringing a newcomer into a group by e-mail', () => {
     const html = page.frameLocator('iframe[title="HTML version of the message"]');
     expect(await html.getByRole('link', { name: 'Accept the invitation' }).getAttribute('href')).toBe(href);
     await shot(page, 'outbox-invitation');
-    await signOut();
+    await signOut(page);
 
     // The newcomer has no account yet: the link's page creates it and joins the group.
     await page.goto(href!);
@@ -76,7 +70,7 @@ describe('bringing a newcomer into a group by e-mail', () => {
 
     // And the new account signs in with the password it chose.
     await page.goto(`${webUrl}/`);
-    await signOut();
+    await signOut(page);
     await signIn(page, NEWCOMER.email, NEWCOMER.password);
     await heading(page, 'Overview').waitFor();
   });

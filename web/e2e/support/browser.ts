@@ -75,3 +75,9 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
 }
+
+export async function signOut(page: Page) {
+  await page.getByRole('button', { name: /^Account menu for / }).click();
+  await page.getByRole('menuitem', { name: 'Sign out', exact: true }).click();
+  await page.waitForURL(/\/sign-in$/);
+}

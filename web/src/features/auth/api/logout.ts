@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import { logoutMutationKey } from '@/lib/query-client';
 import { getMeQueryOptions } from './get-me';
 
 export const logout = (): Promise<undefined> => api.post('/auth/logout');
@@ -7,6 +8,7 @@ export const logout = (): Promise<undefined> => api.post('/auth/logout');
 export function useLogout({ onSuccess }: { onSuccess?: () => void } = {}) {
   const queryClient = useQueryClient();
   return useMutation({
+    mutationKey: logoutMutationKey,
     mutationFn: logout,
     onSuccess: () => {
       // Leave the page first (the caller navigates) so nothing protected re-renders without a user.
