@@ -85,6 +85,7 @@ describe('app routes', () => {
   it('shows users and audit events to a site administrator', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, adminUser),
+      'GET /api/groups': () => json(200, []),
       'GET /api/admin/users': () =>
         json(200, [
           {
