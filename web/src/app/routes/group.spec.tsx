@@ -1,4 +1,4 @@
-import type { GroupDetail, Invitation } from '@sixtyfold/shared';
+import type { ConstraintRegion, GroupDetail, Invitation, RetentionPolicy } from '@sixtyfold/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { adminUser, memberUser } from '@/testing/fixtures';
 import { apiError, json, mockApi } from '@/testing/mock-api';
@@ -31,10 +31,19 @@ const pending: Invitation = {
   inviteeUserId: null,
 };
 
+const keptForEver: RetentionPolicy = { keepDays: null, statuses: ['cancelled', 'completed', 'failed'] };
+
+/** The page's other sections, answered so that each test sees only the section it is about. */
+const otherSections = ({ retention = keptForEver, regions = [] as ConstraintRegion[] } = {}) => ({
+  'GET /api/maintenance/groups/10/retention': () => json(200, retention),
+  'GET /api/constraint-regions': () => json(200, regions),
+});
+
 describe('group page', () => {
   it('shows a viewer the members without management controls', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'viewer' }),
     });
     renderApp('/groups/10');
@@ -50,6 +59,7 @@ describe('group page', () => {
     let group = plateauLab();
     const { requests } = mockApi({
       'GET /api/auth/me': () => json(200, leadUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, group),
       'GET /api/groups/10/invitations': () => json(200, []),
       'PATCH /api/groups/10/members/7': (request) => {
@@ -76,6 +86,7 @@ describe('group page', () => {
     let group = plateauLab();
     const { requests } = mockApi({
       'GET /api/auth/me': () => json(200, leadUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, group),
       'GET /api/groups/10/invitations': () => json(200, []),
       'DELETE /api/groups/10/members/7': () => {
@@ -97,6 +108,7 @@ describe('group page', () => {
     let invitations: Invitation[] = [];
     const { requests } = mockApi({
       'GET /api/auth/me': () => json(200, adminUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: null }),
       'GET /api/groups/10/invitations': () => json(200, invitations),
       'POST /api/groups/10/invitations': (request) => {
@@ -135,6 +147,7 @@ describe('group page', () => {
   it('shows the mail server problem when an invitation could not be sent', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, leadUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, plateauLab()),
       'GET /api/groups/10/invitations': () => json(200, []),
       'POST /api/groups/10/invitations': () => apiError(502, 'The mail server refused the invitation to x@halvorsen.example, so it was not saved'),
@@ -149,6 +162,7 @@ describe('group page', () => {
   it('lets a site admin edit the name and point limit', async () => {
     const { requests } = mockApi({
       'GET /api/auth/me': () => json(200, adminUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: null }),
       'GET /api/groups/10/invitations': () => json(200, []),
       'PATCH /api/groups/10': (request) => json(200, { ...plateauLab(), myRole: null, ...(request.body as object) }),
@@ -173,11 +187,85 @@ describe('group page', () => {
   it('offers no group settings to a lead who is not a site admin', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, leadUser),
+      ...otherSections(),
       'GET /api/groups/10': () => json(200, plateauLab()),
       'GET /api/groups/10/invitations': () => json(200, []),
     });
     renderApp('/groups/10');
     expect(await screen.findByRole('form', { name: 'Invite someone' })).toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Group settings' })).not.toBeInTheDocument();
+  });
+});
+
+describe('group retention', () => {
+  it('lets a lead switch retention on with the shared schema, and says it saved', async () => {
+    let stored: RetentionPolicy = keptForEver;
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, leadUser),
+      ...otherSections(),
+      'GET /api/groups/10': () => json(200, plateauLab()),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'GET /api/maintenance/groups/10/retention': () => json(200, stored),
+      'PATCH /api/maintenance/groups/10/retention': (request) => {
+        stored = request.body as RetentionPolicy;
+        return json(200, stored);
+      },
+    });
+    const { user } = renderApp('/groups/10');
+    const form = await screen.findByRole('form', { name: 'Retention' });
+    expect(screen.getByText('Scans are kept until someone deletes them.')).toBeInTheDocument();
+    expect(within(form).queryByLabelText('Keep for (days)')).not.toBeInTheDocument();
+
+    await user.click(within(form).getByRole('checkbox', { name: 'Delete old scans automatically' }));
+    const days = within(form).getByLabelText('Keep for (days)');
+    expect(days).toHaveValue(90);
+    await user.clear(days);
+    await user.type(days, '0');
+    await user.click(within(form).getByRole('checkbox', { name: 'cancelled' }));
+    await user.click(within(form).getByRole('button', { name: 'Save retention' }));
+    expect(await within(form).findByText('keep scans for at least 1 day')).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'PATCH')).toBe(false);
+
+    await user.clear(days);
+    await user.type(days, '30');
+    await user.click(within(form).getByRole('button', { name: 'Save retention' }));
+    expect(await within(form).findByText('Saved.')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ keepDays: 30, statuses: ['completed', 'failed'] });
+    expect(screen.getByText('Every night, scans with status completed, failed are archived and deleted 30 days after they finished.')).toBeInTheDocument();
+  });
+
+  it('switches retention off, keeping the statuses the API requires', async () => {
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, adminUser),
+      ...otherSections({ retention: { keepDays: 14, statuses: ['failed'] } }),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: null }),
+      'GET /api/groups/10/invitations': () => json(200, []),
+      'PATCH /api/maintenance/groups/10/retention': (request) => json(200, request.body),
+    });
+    const { user } = renderApp('/groups/10');
+    const form = await screen.findByRole('form', { name: 'Retention' });
+    expect(within(form).getByLabelText('Keep for (days)')).toHaveValue(14);
+    expect(within(form).getByRole('checkbox', { name: 'failed' })).toBeChecked();
+    expect(within(form).getByRole('checkbox', { name: 'completed' })).not.toBeChecked();
+
+    await user.click(within(form).getByRole('checkbox', { name: 'Delete old scans automatically' }));
+    await user.click(within(form).getByRole('button', { name: 'Save retention' }));
+    expect(await within(form).findByText('Saved.')).toBeInTheDocument();
+    expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ keepDays: null, statuses: ['failed'] });
+    expect(screen.getByText('Scans are kept until someone deletes them.')).toBeInTheDocument();
+  });
+
+  it('shows a member the policy without a form', async () => {
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      ...otherSections({ retention: { keepDays: 180, statuses: ['cancelled', 'failed'] } }),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
+    });
+    renderApp('/groups/10');
+    expect(await screen.findByText('Every night, scans with status cancelled, failed are archived and deleted 180 days after they finished.')).toBeInTheDocument();
+    expect(screen.getByText('Only the group’s leads and site administrators can change this.')).toBeInTheDocument();
+    expect(screen.queryByRole('form', { name: 'Retention' })).not.toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Save retention' })).not.toBeInTheDocument();
+    expect(requests.some((r) => r.method !== 'GET')).toBe(false);
   });
 });
