@@ -1,6 +1,6 @@
 import { Stack, Text } from '@chakra-ui/react';
 import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
-import { useMemo, useState } from 'react';
+import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -11,6 +11,7 @@ import { paths } from '@/config/paths';
 import { useConstraintRegions } from '../../api/get-constraint-regions';
 import { isLive } from '../../api/get-scan';
 import { useScanPlane } from '../../api/get-scan-plane';
+import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { NsRPlane } from './ns-r-plane';
 import { PlaneControls, type PlaneSettings } from './plane-controls';
@@ -23,8 +24,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   const plane = useScanPlane(scan.id, { live });
   const [params, update] = useViewParams();
   const regions = useConstraintRegions(scan.groupId);
-  const [hiddenRegions, setHiddenRegions] = useState<ReadonlySet<number>>(new Set());
-  const shownRegions = useMemo(() => (regions.data ?? []).filter((r) => !hiddenRegions.has(r.id)), [regions.data, hiddenRegions]);
+  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions.data);
 
   const axes = spec.axes.map((axis) => axis.parameter);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
