@@ -4,6 +4,7 @@ import { loginSchema, type CurrentUser, type Login } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useLogin } from '../api/login';
 
 type LoginInput = z.input<typeof loginSchema>;
@@ -46,15 +47,8 @@ export function SignInForm({ onSuccess }: { onSuccess: (user: CurrentUser) => vo
 
   const onSubmit = handleSubmit((values) =>
     login.mutate(values, {
-      onError: (error) => {
-        // The API validates with the same schema; show its per-field messages next to the fields.
-        if (error instanceof ApiRequestError) {
-          for (const field of ['email', 'password'] as const) {
-            const message = error.fieldErrors[field]?.[0];
-            if (message) setError(field, { message });
-          }
-        }
-      },
+      // The API validates with the same schema; show its per-field messages next to the fields.
+      onError: (error) => showApiFieldErrors(error, ['email', 'password'], setError),
     }),
   );
 

@@ -4,6 +4,7 @@ import { createGroupSchema, type CreateGroup, type GroupDetail } from '@sixtyfol
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { GroupFields } from './group-fields';
 import { useCreateGroup } from '../api/create-group';
 
@@ -29,13 +30,7 @@ export function CreateGroupForm({ onCreated }: { onCreated: (group: GroupDetail)
 
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'description', 'pointLimit'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['name', 'description', 'pointLimit'], setError),
     }),
   );
 

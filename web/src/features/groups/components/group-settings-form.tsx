@@ -4,6 +4,7 @@ import { updateGroupSchema, type GroupDetail, type UpdateGroup } from '@sixtyfol
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { GroupFields } from './group-fields';
 import { useUpdateGroup } from '../api/update-group';
 
@@ -24,13 +25,7 @@ export function GroupSettingsForm({ group }: { group: GroupDetail }) {
 
   const onSubmit = handleSubmit((values) =>
     update.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'description', 'pointLimit'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['name', 'description', 'pointLimit'], setError),
     }),
   );
 

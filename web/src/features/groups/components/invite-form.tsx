@@ -4,6 +4,7 @@ import { createInvitationSchema, GROUP_ROLE_DESCRIPTIONS, GROUP_ROLES, type Crea
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useCreateInvitation } from '../api/create-invitation';
 
 type CreateInvitationInput = z.input<typeof createInvitationSchema>;
@@ -30,13 +31,7 @@ export function InviteForm({ groupId, onInvited }: { groupId: number; onInvited?
 
   const onSubmit = handleSubmit((values) =>
     invite.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['email', 'role'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['email', 'role'], setError),
     }),
   );
 

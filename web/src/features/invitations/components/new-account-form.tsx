@@ -3,6 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { newAccountSchema, NEW_PASSWORD_MIN, type CurrentUser, type NewAccount } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useAcceptInvitation } from '../api/accept-invitation';
 
 /** Accepting as a new address: the person picks their name and password, and is signed in. */
@@ -17,13 +18,7 @@ export function NewAccountForm({ token, email, onJoined }: { token: string; emai
 
   const onSubmit = handleSubmit((values) =>
     accept.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['displayName', 'password'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['displayName', 'password'], setError),
     }),
   );
 

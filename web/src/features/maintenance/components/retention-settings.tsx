@@ -6,6 +6,7 @@ import { useForm } from 'react-hook-form';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useRetention } from '../api/get-retention';
 import { useUpdateRetention } from '../api/update-retention';
 import { PrunableStatusesField } from './prunable-statuses-field';
@@ -73,13 +74,7 @@ function RetentionForm({ groupId, policy }: { groupId: number; policy: Retention
 
   const onSubmit = handleSubmit((values) =>
     update.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['keepDays', 'statuses'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['keepDays', 'statuses'], setError),
     }),
   );
 

@@ -4,6 +4,7 @@ import { createApiTokenSchema, type CreateApiToken, type CreatedApiToken } from 
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useCreateToken } from '../api/create-token';
 
 type CreateApiTokenInput = z.input<typeof createApiTokenSchema>;
@@ -37,13 +38,7 @@ export function CreateTokenForm({ onCreated }: { onCreated: (token: CreatedApiTo
 
   const onSubmit = handleSubmit((values) =>
     create.mutate(values, {
-      onError: (error) => {
-        if (!(error instanceof ApiRequestError)) return;
-        for (const field of ['name', 'expiresInDays'] as const) {
-          const message = error.fieldErrors[field]?.[0];
-          if (message) setError(field, { message });
-        }
-      },
+      onError: (error) => showApiFieldErrors(error, ['name', 'expiresInDays'], setError),
     }),
   );
 

@@ -5,6 +5,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
 import { ApiRequestError } from '@/lib/api-client';
+import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useUploadConstraintRegion } from '../../api/upload-constraint-region';
 
 type UploadInput = z.input<typeof constraintRegionUploadSchema>;
@@ -52,13 +53,7 @@ export function RegionUploadForm({ groupId }: { groupId: number }) {
             setFile(null);
             setFileInputKey((k) => k + 1);
           },
-          onError: (error) => {
-            if (!(error instanceof ApiRequestError)) return;
-            for (const field of FIELDS) {
-              const message = error.fieldErrors[field]?.[0];
-              if (message) setError(field, { message });
-            }
-          },
+          onError: (error) => showApiFieldErrors(error, FIELDS, setError),
         },
       );
     },
