@@ -1,9 +1,9 @@
-import { Alert, Button, Stack } from '@chakra-ui/react';
+import { Button, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { updateGroupSchema, type GroupDetail, type UpdateGroup } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { ApiRequestError } from '@/lib/api-client';
+import { SaveStatus } from '@/components/ui/save-status';
 import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { GroupFields } from './group-fields';
 import { useUpdateGroup } from '../api/update-group';
@@ -32,21 +32,7 @@ export function GroupSettingsForm({ group }: { group: GroupDetail }) {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Group settings">
       <Stack gap="4">
-        {update.isError && !(update.error instanceof ApiRequestError && update.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not save the group</Alert.Title>
-              <Alert.Description>{update.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
-        {update.isSuccess && (
-          <Alert.Root status="success" variant="subtle" borderRadius="md">
-            <Alert.Indicator />
-            <Alert.Title fontWeight="400">Saved.</Alert.Title>
-          </Alert.Root>
-        )}
+        <SaveStatus mutation={update} errorTitle="Could not save the group" />
         <GroupFields register={register} errors={errors} />
         <Button type="submit" variant="outline" alignSelf="start" loading={update.isPending} loadingText="Saving…">
           Save group

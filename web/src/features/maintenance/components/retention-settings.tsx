@@ -1,11 +1,11 @@
-import { Alert, Button, chakra, Field, Input, Stack, Text } from '@chakra-ui/react';
+import { Button, chakra, Field, Input, Stack, Text } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { retentionPolicySchema, type RetentionPolicy } from '@sixtyfold/shared';
 import { useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
-import { ApiRequestError } from '@/lib/api-client';
+import { SaveStatus } from '@/components/ui/save-status';
 import { showApiFieldErrors } from '@/lib/api-field-errors';
 import { useRetention } from '../api/get-retention';
 import { useUpdateRetention } from '../api/update-retention';
@@ -81,21 +81,7 @@ function RetentionForm({ groupId, policy }: { groupId: number; policy: Retention
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Retention">
       <Stack gap="4">
-        {update.isError && !(update.error instanceof ApiRequestError && update.error.status === 400) && (
-          <Alert.Root status="error" variant="subtle" borderRadius="md" role="alert">
-            <Alert.Indicator />
-            <Alert.Content>
-              <Alert.Title>Could not save the retention policy</Alert.Title>
-              <Alert.Description>{update.error.message}</Alert.Description>
-            </Alert.Content>
-          </Alert.Root>
-        )}
-        {update.isSuccess && (
-          <Alert.Root status="success" variant="subtle" borderRadius="md">
-            <Alert.Indicator />
-            <Alert.Title fontWeight="400">Saved.</Alert.Title>
-          </Alert.Root>
-        )}
+        <SaveStatus mutation={update} errorTitle="Could not save the retention policy" />
         <chakra.label display="inline-flex" alignItems="center" gap="2" fontSize="sm" fontWeight="500">
           <input type="checkbox" checked={on} onChange={(event) => toggle(event.target.checked)} />
           Delete old scans automatically
