@@ -51,7 +51,7 @@ describe('admin audit filters', () => {
     const form = screen.getByRole('search', { name: 'Filter audit events' });
     expect(within(form).getByLabelText('Action')).toHaveValue('scan.delete');
     await waitFor(() => expect(within(form).getByLabelText('Actor')).toHaveValue('2'));
-    expect(within(form).getByRole('option', { name: 'Tomas Lindqvist (tomas.lindqvist@halvorsen.example)' })).toBeInTheDocument();
+    expect(within(form).getByRole('option', { name: 'tomas.lindqvist@halvorsen.example' })).toBeInTheDocument();
     await waitFor(() => expect(within(form).getByLabelText('Group')).toHaveValue('10'));
     expect(within(form).getByLabelText('Target type')).toHaveValue('scan');
     expect(within(form).getByLabelText('From')).toHaveValue('2026-11-01');
@@ -70,7 +70,7 @@ describe('admin audit filters', () => {
     const { user, router } = renderApp('/admin?auditPage=3');
     const form = await screen.findByRole('search', { name: 'Filter audit events' });
     await screen.findByRole('option', { name: 'Plateau Lab' });
-    await screen.findByRole('option', { name: 'Tomas Lindqvist (tomas.lindqvist@halvorsen.example)' });
+    await screen.findByRole('option', { name: 'tomas.lindqvist@halvorsen.example' });
 
     await user.selectOptions(within(form).getByLabelText('Actor'), '2');
     await user.selectOptions(within(form).getByLabelText('Group'), '10');

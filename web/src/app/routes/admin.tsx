@@ -63,10 +63,10 @@ function AuditSection() {
   const filters = readAuditFilters(params);
   const filtered = hasAuditFilters(filters);
   const events = useAuditEvents({ page, pageSize: AUDIT_PAGE_SIZE, ...filters });
-  // Options for the actor and group selects (the users section reads the same query); without them an id still shows.
+  // Options for the actor and group selects, e-mails as the table shows actors (the users section reads the same query).
   const users = useAdminUsers();
   const groups = useGroups();
-  const actors = (users.data ?? []).map((u) => ({ id: u.id, label: `${u.displayName} (${u.email})` }));
+  const actors = (users.data ?? []).map((u) => ({ id: u.id, label: u.email }));
   const groupOptions = (groups.data ?? []).map((g) => ({ id: g.id, label: g.name }));
 
   const update = (changes: Record<string, string | null>) =>

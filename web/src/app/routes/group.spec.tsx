@@ -231,7 +231,7 @@ describe('group retention', () => {
     await user.click(within(form).getByRole('button', { name: 'Save retention' }));
     expect(await within(form).findByText('Saved.')).toBeInTheDocument();
     expect(requests.find((r) => r.method === 'PATCH')?.body).toEqual({ keepDays: 30, statuses: ['completed', 'failed'] });
-    expect(screen.getByText('Every night, scans with status completed, failed are archived and deleted 30 days after they finished.')).toBeInTheDocument();
+    expect(screen.getByText('Every night, completed and failed scans older than 30 days (counted from when they finished) are archived and deleted.')).toBeInTheDocument();
   });
 
   it('switches retention off, keeping the statuses the API requires', async () => {
@@ -262,7 +262,7 @@ describe('group retention', () => {
       'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
     });
     renderApp('/groups/10');
-    expect(await screen.findByText('Every night, scans with status cancelled, failed are archived and deleted 180 days after they finished.')).toBeInTheDocument();
+    expect(await screen.findByText('Every night, cancelled and failed scans older than 180 days (counted from when they finished) are archived and deleted.')).toBeInTheDocument();
     expect(screen.getByText('Only the group’s leads and site administrators can change this.')).toBeInTheDocument();
     expect(screen.queryByRole('form', { name: 'Retention' })).not.toBeInTheDocument();
     expect(screen.queryByRole('button', { name: 'Save retention' })).not.toBeInTheDocument();

@@ -17,7 +17,8 @@ const DEFAULT_KEEP_DAYS = 90;
 export function retentionSummary({ keepDays, statuses }: RetentionPolicy): string {
   if (keepDays === null) return 'Scans are kept until someone deletes them.';
   const days = keepDays === 1 ? '1 day' : `${keepDays.toLocaleString('en-US')} days`;
-  return `Every night, scans with status ${statuses.join(', ')} are archived and deleted ${days} after they finished.`;
+  const which = new Intl.ListFormat('en-US', { type: 'conjunction' }).format(statuses);
+  return `Every night, ${which} scans older than ${days} (counted from when they finished) are archived and deleted.`;
 }
 
 interface RetentionSettingsProps {
@@ -92,7 +93,7 @@ function RetentionForm({ groupId, policy }: { groupId: number; policy: Retention
             <Field.Root invalid={!!errors.keepDays} maxW={{ md: '48' }}>
               <Field.Label>Keep for (days)</Field.Label>
               <Input type="number" min={1} bg="bg.panel" {...register('keepDays', { setValueAs: daysValue })} />
-              <Field.HelperText>Counted from when a scan finished.</Field.HelperText>
+              <Field.HelperText>Counted from when a scan finished (a draft: when it was created).</Field.HelperText>
               <Field.ErrorText>{errors.keepDays?.message}</Field.ErrorText>
             </Field.Root>
             <PrunableStatusesField registration={register('statuses')} error={errors.statuses?.message} flex="1" />
