@@ -2,6 +2,7 @@ import { Stack, Text } from '@chakra-ui/react';
 import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { AppLink } from '@/components/ui/app-link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { CurveIcon } from '@/components/ui/icons';
@@ -54,6 +55,9 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
             <RegionToggles regions={regions.data} hidden={hiddenRegions} onChange={setHiddenRegions} />
           </Stack>
         )}
+        <Text fontSize="xs" color="fg.muted" mt="3">
+          Members upload the group’s constraint regions on the <AppLink to={paths.group.getHref(scan.groupId)}>group page</AppLink>.
+        </Text>
       </Panel>
       {plane.isPending ? (
         <LoadingState label="Loading the n_s–r plane…" />
