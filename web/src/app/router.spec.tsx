@@ -120,7 +120,7 @@ describe('app routes', () => {
     });
     const { user, router } = renderApp('/admin');
 
-    expect(await screen.findByText('tomas.lindqvist@halvorsen.example')).toBeInTheDocument();
+    expect(await screen.findByRole('cell', { name: 'tomas.lindqvist@halvorsen.example' })).toBeInTheDocument();
     expect(await screen.findByText('auth.login')).toBeInTheDocument();
     expect(screen.getByRole('navigation', { name: 'events pages' })).toHaveTextContent('Page 1 of 3 · 41 events');
 
