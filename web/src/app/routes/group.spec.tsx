@@ -337,6 +337,23 @@ describe('group constraint regions', () => {
     expect(requests.some((r) => r.method === 'POST')).toBe(false);
   });
 
+  it('refuses a file over 1 MB before sending it', async () => {
+    const { requests } = mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      ...otherSections(),
+      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
+    });
+    const { user } = renderApp('/groups/10');
+    const form = await screen.findByRole('form', { name: 'Upload a constraint region' });
+    await user.type(within(form).getByLabelText('Name'), 'Survey B');
+    await user.type(within(form).getByLabelText('Confidence level'), '0.95');
+    await user.type(within(form).getByLabelText('Source'), 'Invented survey DR3');
+    await user.upload(within(form).getByLabelText('Region file (.csv, at most 1 MB)'), csv(`n_s,r\n${'#'.repeat(1024 * 1024)}\n`));
+    await user.click(within(form).getByRole('button', { name: 'Upload region' }));
+    expect(await within(form).findByText('The file is 1.0 MB; a region file has at most 1 MB.')).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'POST')).toBe(false);
+  });
+
   it('shows the line of a refused file', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
