@@ -116,7 +116,12 @@ export type ArchiveListQuery = z.infer<typeof archiveListQuerySchema>;
 
 /** A group's retention: finished scans with these statuses go after `keepDays` days; null days: keep for ever. */
 export const retentionPolicySchema = z.object({
-  keepDays: z.number().int().min(1).max(36500).nullable(),
+  keepDays: z
+    .number({ error: 'give the number of days to keep scans' })
+    .int('keep scans for whole days')
+    .min(1, 'keep scans for at least 1 day')
+    .max(36500, 'keep scans for at most 36,500 days')
+    .nullable(),
   statuses: z.array(prunableStatusSchema).min(1, 'pick at least one status'),
 });
 export type RetentionPolicy = z.infer<typeof retentionPolicySchema>;

@@ -85,6 +85,7 @@ describe('app routes', () => {
   it('shows users and audit events to a site administrator', async () => {
     mockApi({
       'GET /api/auth/me': () => json(200, adminUser),
+      'GET /api/groups': () => json(200, []),
       'GET /api/admin/users': () =>
         json(200, [
           {
@@ -119,8 +120,8 @@ describe('app routes', () => {
     });
     const { user, router } = renderApp('/admin');
 
-    expect(await screen.findByText('tomas.lindqvist@halvorsen.example')).toBeInTheDocument();
-    expect(await screen.findByText('auth.login')).toBeInTheDocument();
+    expect(await screen.findByRole('cell', { name: 'tomas.lindqvist@halvorsen.example' })).toBeInTheDocument();
+    expect(await screen.findByText('auth.login', { selector: 'span' })).toBeInTheDocument();
     expect(screen.getByRole('navigation', { name: 'events pages' })).toHaveTextContent('Page 1 of 3 · 41 events');
 
     await user.click(screen.getByRole('button', { name: 'Next' }));

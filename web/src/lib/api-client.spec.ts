@@ -32,6 +32,18 @@ describe('api client', () => {
     expect(error).toMatchObject({ status: 400, message: 'Check the form', fieldErrors: { email: ['Enter an e-mail'] } });
   });
 
+  it('keeps the line of a refused upload and sends the upload header', async () => {
+    const { requests } = mockApi({ 'POST /api/constraint-regions': () => apiError(400, 'line 4: n_s must lie between 0 and 2 (found 3)', undefined, 4) });
+    const form = new FormData();
+    form.set('name', 'Survey A');
+
+    const error = await api.upload('/constraint-regions', form).catch((e: unknown) => e);
+
+    expect(error).toMatchObject({ status: 400, line: 4, message: 'line 4: n_s must lie between 0 and 2 (found 3)' });
+    expect(requests[0].headers.get('x-sixtyfold-request')).toBe('upload');
+    expect(requests[0].body).toBe(form);
+  });
+
   it('reports an unreachable server as status 0', async () => {
     vi.stubGlobal('fetch', vi.fn().mockRejectedValue(new TypeError('fetch failed')));
 

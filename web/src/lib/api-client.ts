@@ -6,12 +6,15 @@ import { env } from '@/config/env';
 export class ApiRequestError extends Error {
   readonly status: number;
   readonly fieldErrors: Record<string, string[]>;
+  /** For a refused upload: the 1-based line of the file the message is about. */
+  readonly line: number | undefined;
 
-  constructor(status: number, message: string, fieldErrors: ApiError['fieldErrors'] = {}) {
+  constructor(status: number, message: string, fieldErrors: ApiError['fieldErrors'] = {}, line?: number) {
     super(message);
     this.name = 'ApiRequestError';
     this.status = status;
     this.fieldErrors = fieldErrors ?? {};
+    this.line = line;
   }
 }
 
@@ -55,7 +58,7 @@ async function readError(response: Response): Promise<ApiRequestError> {
     body = undefined;
   }
   const parsed = apiErrorSchema.safeParse(body);
-  if (parsed.success) return new ApiRequestError(response.status, parsed.data.message, parsed.data.fieldErrors);
+  if (parsed.success) return new ApiRequestError(response.status, parsed.data.message, parsed.data.fieldErrors, parsed.data.line);
   const message =
     fallbackMessages[response.status] ??
     (response.status >= 500 ? 'The Sixtyfold server had a problem.' : `The request failed (HTTP ${response.status}).`);

@@ -14,8 +14,8 @@ type Handler = (request: MockRequest) => Response | Promise<Response>;
 export const json = (status: number, body: unknown) =>
   new Response(JSON.stringify(body), { status, headers: { 'Content-Type': 'application/json' } });
 
-export const apiError = (statusCode: number, message: string, fieldErrors?: Record<string, string[]>) =>
-  json(statusCode, { statusCode, error: 'Error', message, ...(fieldErrors ? { fieldErrors } : {}) });
+export const apiError = (statusCode: number, message: string, fieldErrors?: Record<string, string[]>, line?: number) =>
+  json(statusCode, { statusCode, error: 'Error', message, ...(fieldErrors ? { fieldErrors } : {}), ...(line !== undefined ? { line } : {}) });
 
 /**
  * Replaces global fetch with a table of `"METHOD /api/path"` handlers. Unknown requests answer 500

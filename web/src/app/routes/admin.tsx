@@ -1,4 +1,4 @@
-import { Box, Flex, Heading, Stack, Text } from '@chakra-ui/react';
+import { Box, Heading, Stack, Text } from '@chakra-ui/react';
 import { useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -9,10 +9,12 @@ import { Pager } from '@/components/ui/pager';
 import { Panel } from '@/components/ui/panel';
 import { useAdminUsers } from '@/features/admin/api/get-admin-users';
 import { useAuditEvents } from '@/features/admin/api/get-audit-events';
-import { AuditActionFilter } from '@/features/admin/components/audit-action-filter';
 import { AuditEventsTable } from '@/features/admin/components/audit-events-table';
+import { AuditFiltersForm } from '@/features/admin/components/audit-filters-form';
 import { UsersTable } from '@/features/admin/components/users-table';
+import { auditFilterChanges, hasAuditFilters, readAuditFilters } from '@/features/admin/utils/audit-filters';
 import { RequireSiteAdmin } from '@/features/auth/components/require-site-admin';
+import { useGroups } from '@/features/groups/api/get-groups';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { readPage } from '@/lib/search-params';
 
@@ -58,8 +60,14 @@ function UsersSection() {
 function AuditSection() {
   const [params, setParams] = useSearchParams();
   const page = readPage(params.get('auditPage'));
-  const action = params.get('action') ?? '';
-  const events = useAuditEvents({ page, pageSize: AUDIT_PAGE_SIZE, action });
+  const filters = readAuditFilters(params);
+  const filtered = hasAuditFilters(filters);
+  const events = useAuditEvents({ page, pageSize: AUDIT_PAGE_SIZE, ...filters });
+  // Options for the actor and group selects, e-mails as the table shows actors (the users section reads the same query).
+  const users = useAdminUsers();
+  const groups = useGroups();
+  const actors = (users.data ?? []).map((u) => ({ id: u.id, label: u.email }));
+  const groupOptions = (groups.data ?? []).map((g) => ({ id: g.id, label: g.name }));
 
   const update = (changes: Record<string, string | null>) =>
     setParams((current) => {
@@ -73,25 +81,31 @@ function AuditSection() {
 
   return (
     <Box as="section" aria-labelledby="admin-audit">
-      <Flex justify="space-between" align={{ base: 'start', md: 'end' }} direction={{ base: 'column', md: 'row' }} gap="3" mb="3">
-        <Stack gap="1">
-          <Heading as="h2" id="admin-audit" size="lg" color="ink.900">
-            Audit events
-          </Heading>
-          <Text color="fg.muted" fontSize="sm">
-            Sign-ins, membership changes and other recorded actions.
-          </Text>
-        </Stack>
-        <AuditActionFilter value={action} onChange={(next) => update({ action: next, auditPage: null })} />
-      </Flex>
+      <Stack gap="1" mb="3">
+        <Heading as="h2" id="admin-audit" size="lg" color="ink.900">
+          Audit events
+        </Heading>
+        <Text color="fg.muted" fontSize="sm">
+          Sign-ins, membership changes and other recorded actions.
+        </Text>
+      </Stack>
+      <Panel p="4" mb="4">
+        <AuditFiltersForm
+          key={JSON.stringify(filters)}
+          value={filters}
+          onChange={(next) => update({ ...auditFilterChanges(next), auditPage: null })}
+          actors={actors}
+          groups={groupOptions}
+        />
+      </Panel>
       {events.isPending ? (
         <LoadingState label="Loading audit events…" />
       ) : events.isError && !events.data ? (
         <ErrorState title="Could not load audit events" error={events.error} onRetry={() => events.refetch()} />
       ) : events.data.total === 0 ? (
         <EmptyState
-          title={action ? `No “${action}” events` : 'No audit events yet'}
-          description={action ? 'Nothing with that action name was recorded. Check the spelling or show all events.' : 'Recorded actions appear here as people use Sixtyfold.'}
+          title={filtered ? 'No events match these filters' : 'No audit events yet'}
+          description={filtered ? 'Nothing recorded matches all of them. Check the action name and the days, or clear the filters.' : 'Recorded actions appear here as people use Sixtyfold.'}
         />
       ) : (
         <>

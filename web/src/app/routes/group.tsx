@@ -11,6 +11,8 @@ import { GroupDetail } from '@/features/groups/components/group-detail';
 import { GroupSettingsForm } from '@/features/groups/components/group-settings-form';
 import { InviteForm } from '@/features/groups/components/invite-form';
 import { PendingInvitations } from '@/features/groups/components/pending-invitations';
+import { RetentionSettings } from '@/features/maintenance/components/retention-settings';
+import { GroupConstraintRegions } from '@/features/scans/components/regions/group-constraint-regions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { ApiRequestError } from '@/lib/api-client';
 import { NotFoundRoute } from './not-found';
@@ -71,6 +73,20 @@ function GroupPage({ groupId }: { groupId: number }) {
             </Panel>
           </>
         )}
+        <Panel>
+          <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">
+            Constraint regions
+          </Heading>
+          <GroupConstraintRegions groupId={groupId} groupName={group.data.name} user={me} />
+        </Panel>
+        <Panel>
+          <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">
+            Retention
+          </Heading>
+          <Stack px="4" pb="4">
+            <RetentionSettings groupId={groupId} canChange={canManage} />
+          </Stack>
+        </Panel>
         {me?.siteRole === 'admin' && (
           <Panel>
             <Heading as="h2" size="sm" px="4" pt="4" pb="3" color="ink.900">

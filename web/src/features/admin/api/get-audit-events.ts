@@ -1,22 +1,22 @@
 import { auditEventSchema, pageOf } from '@sixtyfold/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
+import type { AuditFilters } from '../utils/audit-filters';
 
 const auditEventPageSchema = pageOf(auditEventSchema);
 
-export interface GetAuditEventsParams {
+export interface GetAuditEventsParams extends AuditFilters {
   page?: number;
   pageSize?: number;
-  action?: string;
 }
 
-export const getAuditEvents = ({ page = 1, pageSize = 20, action }: GetAuditEventsParams, signal?: AbortSignal) =>
-  api.get('/admin/audit-events', { query: { page, pageSize, action: action || undefined }, schema: auditEventPageSchema, signal });
+export const getAuditEvents = ({ page = 1, pageSize = 20, ...filters }: GetAuditEventsParams, signal?: AbortSignal) =>
+  api.get('/admin/audit-events', { query: { page, pageSize, ...filters }, schema: auditEventPageSchema, signal });
 
-export const getAuditEventsQueryOptions = ({ page = 1, pageSize = 20, action = '' }: GetAuditEventsParams = {}) =>
+export const getAuditEventsQueryOptions = ({ page = 1, pageSize = 20, ...filters }: GetAuditEventsParams = {}) =>
   queryOptions({
-    queryKey: ['admin', 'audit-events', { page, pageSize, action }],
-    queryFn: ({ signal }) => getAuditEvents({ page, pageSize, action }, signal),
+    queryKey: ['admin', 'audit-events', { page, pageSize, ...filters }],
+    queryFn: ({ signal }) => getAuditEvents({ page, pageSize, ...filters }, signal),
     placeholderData: keepPreviousData,
   });
 

@@ -1,10 +1,10 @@
-import { Alert, Button, Stack } from '@chakra-ui/react';
+import { Button, Stack } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { updateGroupSchema, type GroupDetail, type UpdateGroup } from '@sixtyfold/shared';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { FailureAlert } from '@/components/ui/failure-alert';
-import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
+import { SaveStatus } from '@/components/ui/save-status';
+import { applyFieldErrors } from '@/lib/form-errors';
 import { GroupFields } from './group-fields';
 import { useUpdateGroup } from '../api/update-group';
 
@@ -30,13 +30,7 @@ export function GroupSettingsForm({ group }: { group: GroupDetail }) {
   return (
     <form onSubmit={onSubmit} noValidate aria-label="Group settings">
       <Stack gap="4">
-        {update.isError && !isFieldRefusal(update.error) && <FailureAlert title="Could not save the group">{update.error.message}</FailureAlert>}
-        {update.isSuccess && (
-          <Alert.Root status="success" variant="subtle" borderRadius="md">
-            <Alert.Indicator />
-            <Alert.Title fontWeight="400">Saved.</Alert.Title>
-          </Alert.Root>
-        )}
+        <SaveStatus mutation={update} errorTitle="Could not save the group" />
         <GroupFields register={register} errors={errors} />
         <Button type="submit" variant="outline" alignSelf="start" loading={update.isPending} loadingText="Saving…">
           Save group

@@ -1,6 +1,6 @@
 import { Alert, Box, Button, chakra, Field, Input, NativeSelect, Stack, Table, Text } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { PRUNABLE_STATUSES, pruneFilterSchema, type PruneFilter, type PrunePlan, type PruneResult } from '@sixtyfold/shared';
+import { pruneFilterSchema, type PruneFilter, type PrunePlan, type PruneResult } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
@@ -9,6 +9,7 @@ import { DateTime } from '@/components/ui/date-time';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { formatBytes } from '@/lib/format-bytes';
 import { useDryRunPrune, usePruneScans } from '../api/prune-scans';
+import { PrunableStatusesField } from './prunable-statuses-field';
 
 type PruneFilterInput = z.input<typeof pruneFilterSchema>;
 
@@ -119,19 +120,7 @@ export function PruneForm({ groups, owners }: PruneFormProps) {
                 <NativeSelect.Indicator />
               </NativeSelect.Root>
             </Field.Root>
-            <Field.Root invalid={!!errors.statuses} flex="1">
-              <Field.Label as="span">Statuses</Field.Label>
-              <Stack direction="row" gap="3" wrap="wrap" role="group" aria-label="Statuses">
-                {PRUNABLE_STATUSES.map((status) => (
-                  <chakra.label key={status} display="inline-flex" alignItems="center" gap="1.5" fontSize="sm">
-                    <input type="checkbox" value={status} {...register('statuses')} />
-                    {status}
-                  </chakra.label>
-                ))}
-              </Stack>
-              <Field.HelperText>Queued and running scans are never pruned.</Field.HelperText>
-              <Field.ErrorText>{errors.statuses?.message}</Field.ErrorText>
-            </Field.Root>
+            <PrunableStatusesField registration={register('statuses')} error={errors.statuses?.message} flex="1" />
           </Stack>
           <Button type="submit" variant="outline" alignSelf="start" loading={dryRun.isPending} loadingText="Listing…">
             List what would go

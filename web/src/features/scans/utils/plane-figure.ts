@@ -96,9 +96,12 @@ export function limitTraces(limits: ObservationalLimits, rFloor: number): Data[]
   });
 }
 
+/** 0.95 → "95% CL". */
+export const confidenceLabel = (level: number) => `${+(level * 100).toFixed(2)}% CL`;
+
 /** "Name (95% CL, source)": how a region is named in the legend and the toggles. */
 export function regionLabel(region: Pick<ConstraintRegion, 'name' | 'confidenceLevel' | 'source'>): string {
-  return `${region.name} (${+(region.confidenceLevel * 100).toFixed(2)}% CL, ${region.source})`;
+  return `${region.name} (${confidenceLabel(region.confidenceLevel)}, ${region.source})`;
 }
 
 /** Each uploaded region as a closed outline (its first vertex repeated at the end), not filled. */

@@ -1,15 +1,17 @@
 import { Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
-import { useQueries } from '@tanstack/react-query';
+import { findLimits, ScanGrid, type ConstraintRegion, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { useQueries, type UseQueryResult } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
+import { getConstraintRegionsQueryOptions } from '../../api/get-constraint-regions';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
+import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellIndices, insideLimitsMask, pointIndexOf, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
@@ -19,6 +21,7 @@ import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LimitSetSelect } from '../limit-set-select';
 import { NsRPlane } from '../plane/ns-r-plane';
 import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
+import { RegionToggles } from '../plane/region-toggles';
 
 /** What the side-by-side maps can show; one colour scale spans all of them. */
 export const COMPARED_OUTPUTS = ['ns', 'r', 'alphaS', 'nTotal', 'amplitudeScale'] as const satisfies readonly PointOutput[];
@@ -38,6 +41,9 @@ function middleOfOtherAxes(spec: StoredScanSpec, x: string, y: string): Record<s
     spec.axes.flatMap((axis, a) => (axis.parameter === x || axis.parameter === y ? [] : [[axis.parameter, Math.floor((grid.lengths[a] - 1) / 2)]])),
   );
 }
+
+// Module-level, so useQueries keeps the combined list while no query changes (the plane redraws less).
+const allRegions = (results: UseQueryResult<ConstraintRegion[]>[]) => results.flatMap((result) => result.data ?? []);
 
 /**
  * Two to four scans side by side: the same output over the same two axes on one colour scale,
@@ -88,6 +94,10 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
     const plane = planeQueries[s]?.data;
     return plane ? [{ label: scan.name, plane }] : [];
   });
+  // The regions of every group the compared scans belong to, each group once.
+  const groupIds = [...new Set(scans.map((scan) => scan.groupId))];
+  const regions = useQueries({ queries: groupIds.map((groupId) => getConstraintRegionsQueryOptions(groupId)), combine: allRegions });
+  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions);
   const planeSettings: PlaneSettings = {
     colorBy: null,
     limitsKey: limits.key,
@@ -166,6 +176,11 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
         </Heading>
         <Panel p={{ base: '3', md: '4' }}>
           <PlaneControls settings={planeSettings} onChange={onPlaneChange} />
+          {regions.length > 0 && (
+            <Stack mt="3">
+              <RegionToggles regions={regions} hidden={hiddenRegions} onChange={setHiddenRegions} />
+            </Stack>
+          )}
         </Panel>
         <Panel p={{ base: '3', md: '4' }}>
           {series.length < scans.length ? (
@@ -176,6 +191,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
               limits={limits}
               rScale={planeSettings.rScale}
               references={planeSettings.references}
+              regions={shownRegions}
               onPointClick={({ series: s, pointIndex }) => navigate(paths.point.getHref(scans[s].id, pointIndex))}
             />
           )}

@@ -9,7 +9,7 @@ interface RegionTogglesProps {
   onChange: (hidden: Set<number>) => void;
 }
 
-/** One switch per uploaded constraint region of the group, to draw its outline on the plane or not. */
+/** One switch per uploaded constraint region of the group (or groups, when comparing), to draw its outline on the plane or not. */
 export function RegionToggles({ regions, hidden, onChange }: RegionTogglesProps) {
   if (regions.length === 0) return null;
   const toggle = (id: number, shown: boolean) => {
@@ -20,7 +20,7 @@ export function RegionToggles({ regions, hidden, onChange }: RegionTogglesProps)
   };
   return (
     <Fieldset.Root size="sm">
-      <Fieldset.Legend fontSize="sm">Your group’s constraint regions</Fieldset.Legend>
+      <Fieldset.Legend fontSize="sm">{new Set(regions.map((r) => r.groupId)).size > 1 ? 'Your groups’' : 'Your group’s'} constraint regions</Fieldset.Legend>
       <Stack gap="1">
         {regions.map((region) => (
           <Checkbox.Root

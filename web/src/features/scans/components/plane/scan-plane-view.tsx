@@ -1,7 +1,8 @@
 import { Stack, Text } from '@chakra-ui/react';
 import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
-import { useMemo, useState } from 'react';
+import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
+import { AppLink } from '@/components/ui/app-link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { CurveIcon } from '@/components/ui/icons';
@@ -11,6 +12,7 @@ import { paths } from '@/config/paths';
 import { useConstraintRegions } from '../../api/get-constraint-regions';
 import { isLive } from '../../api/get-scan';
 import { useScanPlane } from '../../api/get-scan-plane';
+import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { NsRPlane } from './ns-r-plane';
 import { PlaneControls, type PlaneSettings } from './plane-controls';
@@ -23,8 +25,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   const plane = useScanPlane(scan.id, { live });
   const [params, update] = useViewParams();
   const regions = useConstraintRegions(scan.groupId);
-  const [hiddenRegions, setHiddenRegions] = useState<ReadonlySet<number>>(new Set());
-  const shownRegions = useMemo(() => (regions.data ?? []).filter((r) => !hiddenRegions.has(r.id)), [regions.data, hiddenRegions]);
+  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions.data);
 
   const axes = spec.axes.map((axis) => axis.parameter);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
@@ -54,6 +55,9 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
             <RegionToggles regions={regions.data} hidden={hiddenRegions} onChange={setHiddenRegions} />
           </Stack>
         )}
+        <Text fontSize="xs" color="fg.muted" mt="3">
+          Members upload the group’s constraint regions on the <AppLink to={paths.group.getHref(scan.groupId)}>group page</AppLink>.
+        </Text>
       </Panel>
       {plane.isPending ? (
         <LoadingState label="Loading the n_s–r plane…" />

@@ -1,0 +1,83 @@
+import type { ConstraintRegion, ScanGridSlice } from '@sixtyfold/shared';
+import { screen, waitFor, within } from '@testing-library/react';
+import { adminUser, scan } from '@/testing/fixtures';
+import { json, mockApi } from '@/testing/mock-api';
+import { plotIn } from '@/testing/plotly-chart-mock';
+import { renderApp } from '@/testing/render';
+import { naturalSpec, scanDetail, slice } from '@/testing/scan-fixtures';
+
+vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
+// A whole page with a dozen queries: give a busy machine time.
+vi.setConfig({ testTimeout: 20_000 });
+const slow = { timeout: 5_000 };
+
+const secondSpec = { ...naturalSpec, groupId: 11, name: 'Natural inflation, second look' };
+const details = { 42: scanDetail({ id: 42 }), 43: scanDetail({ id: 43, groupId: 11, name: secondSpec.name }, secondSpec) };
+
+const status = [['ok', 'ok', 'ok'], ['ok', 'ok', 'ok'], ['ok', 'ok', 'ok']];
+const axes = { x: { parameter: 'f', values: [5, 7, 10] }, y: { parameter: 'nStar', values: [50, 55, 60] } };
+const slices: Record<string, ScanGridSlice> = {
+  ns: slice('ns', [[0.955, 0.958, 0.96], [0.961, 0.9649, 0.966], [0.966, 0.967, 0.968]], status, axes),
+  r: slice('r', [[0.09, 0.05, 0.04], [0.08, 0.03, 0.02], [0.07, 0.02, 0.01]], status, axes),
+};
+const plane = {
+  okPoints: 2, stride: 1, parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
+  inputs: { f: [5, 7], nStar: [50, 55] },
+};
+
+const region = (id: number, groupId: number, name: string): ConstraintRegion => ({
+  id, groupId, name, source: 'Invented survey DR2', confidenceLevel: 0.95,
+  vertices: [{ ns: 0.955, r: 0 }, { ns: 0.975, r: 0 }, { ns: 0.965, r: 0.04 }], createdById: 2, createdAt: '2026-12-01T10:00:00.000Z',
+});
+const regionsOf: Readonly<Record<string, ConstraintRegion[]>> = { 10: [region(1, 10, 'Survey A')], 11: [region(2, 11, 'Survey D')] };
+
+function mockCompare() {
+  return mockApi({
+    'GET /api/auth/me': () => json(200, adminUser),
+    'GET /api/scans': () =>
+      json(200, {
+        items: [
+          scan({ id: 42, name: details[42].name, status: 'completed', groupId: 10 }),
+          scan({ id: 43, name: details[43].name, status: 'completed', groupId: 11 }),
+        ],
+        total: 2, page: 1, pageSize: 100,
+      }),
+    'GET /api/scans/42': () => json(200, details[42]),
+    'GET /api/scans/43': () => json(200, details[43]),
+    'GET /api/scans/42/grid': (request) => json(200, slices[request.url.searchParams.get('output') ?? 'ns']),
+    'GET /api/scans/43/grid': (request) => json(200, slices[request.url.searchParams.get('output') ?? 'ns']),
+    'GET /api/scans/42/plane': () => json(200, plane),
+    'GET /api/scans/43/plane': () => json(200, plane),
+    'GET /api/constraint-regions': (request) => json(200, regionsOf[request.url.searchParams.get('groupId') ?? ''] ?? []),
+  });
+}
+
+const regionTraceNames = (chart: HTMLElement) =>
+  plotIn(chart).data.filter((trace) => trace.name?.includes('Invented survey DR2')).map((trace) => trace.name);
+
+describe('compare page plane', () => {
+  it('outlines the regions of every compared scan’s group, each with its own switch', async () => {
+    const { requests } = mockCompare();
+    const { user } = renderApp('/compare?scans=42,43');
+
+    const chart = await screen.findByRole('img', { name: /^n_s–r plane of Natural inflation, f against N_\*, Natural inflation, second look/ }, slow);
+    const toggles = (await screen.findByText('Your groups’ constraint regions', undefined, slow)).closest('fieldset')!;
+    const a = within(toggles).getByRole('checkbox', { name: 'Survey A (95% CL, Invented survey DR2)' });
+    const d = within(toggles).getByRole('checkbox', { name: 'Survey D (95% CL, Invented survey DR2)' });
+    expect(a).toBeChecked();
+    expect(d).toBeChecked();
+    await waitFor(() => expect(regionTraceNames(chart)).toEqual(['Survey A (95% CL, Invented survey DR2)', 'Survey D (95% CL, Invented survey DR2)']));
+
+    await user.click(d);
+    await waitFor(() => expect(regionTraceNames(chart)).toEqual(['Survey A (95% CL, Invented survey DR2)']));
+    expect(d).not.toBeChecked();
+    await user.click(a);
+    await waitFor(() => expect(regionTraceNames(chart)).toEqual([]));
+    expect(screen.queryByText(/^Outlines: constraint regions/)).not.toBeInTheDocument();
+    await user.click(d);
+    await waitFor(() => expect(regionTraceNames(chart)).toEqual(['Survey D (95% CL, Invented survey DR2)']));
+
+    const asked = requests.filter((r) => r.url.pathname === '/api/constraint-regions').map((r) => r.url.searchParams.get('groupId'));
+    expect([...new Set(asked)].sort()).toEqual(['10', '11']);
+  });
+});
