@@ -63,7 +63,7 @@ describe('a scan through queue and workers', () => {
     expect(rows.map((r) => r.pointIndex)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
     const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
     expect(stored.params).toEqual({ Lambda: 5e-3 }); // the family default filled in
-    const grid = new ScanGrid(stored.axes);
+    const grid = new ScanGrid(stored.axes!);
     const engine = new RequestEvaluator();
     for (const row of rows) {
       const direct = engine.evaluate(pointRequest(stored, 'natural', grid.point(row.pointIndex)));

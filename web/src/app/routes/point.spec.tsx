@@ -30,7 +30,7 @@ const chaotic: StoredScanSpec = {
 
 /** A point as the workers store it: the shared engine's result for that grid point. */
 function storedPoint(spec: StoredScanSpec, index: number): ScanPointDto {
-  const inputs = new ScanGrid(spec.axes).point(index);
+  const inputs = new ScanGrid(spec.axes!).point(index);
   const result = new RequestEvaluator().evaluate(pointRequest(spec, spec.potentialSource, inputs));
   const { status, message, ns, r, alphaS, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, energyScaleGeV } = result;
   return { pointIndex: index, inputs, status, failureReason: status === 'ok' ? null : message, ns, r, alphaS, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, energyScaleGeV };
@@ -95,7 +95,7 @@ describe('point page', () => {
 
   it('shows a failed point with its reason, and a point not stored yet still recomputed', async () => {
     // φ² from φ_init = 16 has about 63.5 e-folds: enough for N_* = 60, not for a spec asking 90.
-    const short = { ...chaotic, axes: [chaotic.axes[0], { kind: 'list' as const, parameter: 'nStar', values: [50, 90] }] };
+    const short = { ...chaotic, axes: [chaotic.axes![0], { kind: 'list' as const, parameter: 'nStar', values: [50, 90] }] };
     const failed = storedPoint(short, 3);
     expect(failed.status).toBe('insufficient_efolds');
     mockApi({

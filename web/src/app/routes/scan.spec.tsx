@@ -182,7 +182,7 @@ describe('scan heatmaps', () => {
   });
 
   it('swaps the axes and holds a third axis with a slider that keyboards can move', async () => {
-    const spec = { ...naturalSpec, axes: [...naturalSpec.axes, { kind: 'list' as const, parameter: 'Lambda', values: [1e-3, 5e-3, 1e-2] }], params: {} };
+    const spec = { ...naturalSpec, axes: [...naturalSpec.axes!, { kind: 'list' as const, parameter: 'Lambda', values: [1e-3, 5e-3, 1e-2] }], params: {} };
     const { requests } = api(memberUser, scanDetail({}, spec), {
       'GET /api/scans/42/grid': (request) => {
         const at = Number(request.url.searchParams.get('at.Lambda') ?? 0);
@@ -226,7 +226,7 @@ describe('scan heatmaps', () => {
   });
 
   it('draws a one-axis scan as lines against its axis', async () => {
-    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes![1]], params: { Lambda: 5e-3, f: 7 } };
     const point = (pointIndex: number, nStar: number, ok = true) => ({
       pointIndex, inputs: { nStar }, status: ok ? 'ok' : 'no_end', failureReason: ok ? null : 'inflation never ends',
       ns: ok ? 0.96 : null, r: ok ? 0.05 : null, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,

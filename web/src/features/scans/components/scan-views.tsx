@@ -14,27 +14,30 @@ export const readScanView = (value: string | null): ScanView => ((SCAN_VIEWS as 
 
 /**
  * The scan's results as tabs. Only the open tab is mounted, so a live scan polls only for what is
- * on screen; each view keeps its settings in the address, so coming back finds them.
+ * on screen; each view keeps its settings in the address, so coming back finds them. A scan over
+ * a list of points has no grid to draw heatmaps of: it opens on the plane.
  */
 export function ScanViews({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
   const [params, update] = useViewParams();
-  const view = readScanView(params.get('view'));
-  const oneAxis = spec.axes.length === 1;
+  const first: ScanView = spec.axes ? 'heatmaps' : 'plane';
+  const asked = params.get('view') === null ? first : readScanView(params.get('view'));
+  const view = !spec.axes && asked === 'heatmaps' ? first : asked;
+  const oneAxis = spec.axes?.length === 1;
   return (
     <Tabs.Root
       value={view}
-      onValueChange={(details) => update({ view: details.value === 'heatmaps' ? null : details.value })}
+      onValueChange={(details) => update({ view: details.value === first ? null : details.value })}
       lazyMount
       unmountOnExit
       colorPalette="ember"
       variant="line"
     >
       <Tabs.List aria-label="Scan results">
-        <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>
+        {spec.axes && <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>}
         <Tabs.Trigger value="plane">n_s–r plane</Tabs.Trigger>
         <Tabs.Trigger value="points">Points</Tabs.Trigger>
       </Tabs.List>
-      <Tabs.Content value="heatmaps">{oneAxis ? <ScanLinePlots scan={scan} spec={spec} /> : <ScanHeatmaps scan={scan} spec={spec} />}</Tabs.Content>
+      {spec.axes && <Tabs.Content value="heatmaps">{oneAxis ? <ScanLinePlots scan={scan} spec={spec} /> : <ScanHeatmaps scan={scan} spec={spec} />}</Tabs.Content>}
       <Tabs.Content value="plane">
         <ScanPlaneView scan={scan} spec={spec} />
       </Tabs.Content>

@@ -59,8 +59,8 @@ function SlicePanel({ query, what, children }: { query: UseQueryResult<ScanGridS
 /** n_s and r side by side and one output of choice, over two axes, with the others held by sliders. */
 export function ScanHeatmaps({ scan, spec }: ScanHeatmapsProps) {
   const navigate = useNavigate();
-  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
-  const names = spec.axes.map((axis) => axis.parameter);
+  const grid = useMemo(() => new ScanGrid(spec.axes ?? []), [spec]);
+  const names = grid.axes.map((axis) => axis.parameter);
   const [params, update] = useViewParams();
 
   const xParam = params.get('x');

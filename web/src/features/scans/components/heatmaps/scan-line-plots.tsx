@@ -22,7 +22,8 @@ const THIRD_LINE_OUTPUTS = ['alphaS', 'nTotal', 'amplitudeScale'] as const satis
 /** A one-axis scan has no heatmap: n_s, r and one more output are drawn against its axis. */
 export function ScanLinePlots({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
   const navigate = useNavigate();
-  const axis = spec.axes[0];
+  // Mounted for one-axis grids only (scan-views.tsx).
+  const axis = (spec.axes ?? [])[0];
   const values = useMemo(() => axisValues(axis), [axis]);
   const log = isLogSpaced(values);
   const line = useScanLine(scan.id, { live: isLive(scan) });

@@ -1,5 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
-import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { findLimits, variedInputs, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -26,7 +26,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   const [hiddenRegions, setHiddenRegions] = useState<ReadonlySet<number>>(new Set());
   const shownRegions = useMemo(() => (regions.data ?? []).filter((r) => !hiddenRegions.has(r.id)), [regions.data, hiddenRegions]);
 
-  const axes = spec.axes.map((axis) => axis.parameter);
+  const axes = variedInputs(spec);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
   const colorParam = params.get('color');
   const settings: PlaneSettings = {

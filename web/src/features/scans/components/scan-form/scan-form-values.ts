@@ -222,7 +222,7 @@ export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | nu
     model: s.model.kind === 'family' ? familyModelKey(s.model.family) : groupModelKey(s.model.modelId),
     params: { ...s.params },
     phiInit: s.phiInit,
-    axes: s.axes.map((axis) =>
+    axes: (s.axes ?? []).map((axis) =>
       axis.kind === 'range'
         ? { parameter: axis.parameter, kind: 'range', min: axis.min, max: axis.max, count: axis.count, spacing: axis.spacing, values: '' }
         : { parameter: axis.parameter, kind: 'list', min: undefined, max: undefined, count: undefined, spacing: 'linear', values: axis.values.join(', ') },
