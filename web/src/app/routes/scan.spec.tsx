@@ -245,6 +245,41 @@ describe('scan heatmaps', () => {
   });
 });
 
+describe('scan over a list of points', () => {
+  const { axes: _, ...settings } = naturalSpec;
+  const listSpec = { ...settings, name: 'Natural inflation, picked points', pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] } };
+  const plane = {
+    okPoints: 3, stride: 1, parameters: ['f', 'nStar'], pointIndex: [0, 1, 2], ns: [0.955, 0.961, 0.966], r: [0.09, 0.05, 0.02], alphaS: [-7e-4, -6e-4, -5e-4],
+    nStar: [50, 55, 60], inputs: { f: [5, 7.5, 10], nStar: [50, 55, 60] },
+  };
+  const stored = (pointIndex: number, f: number, nStar: number) => ({
+    pointIndex, inputs: { f, nStar }, status: 'ok', failureReason: null, ns: 0.96, r: 0.05, alphaS: -6e-4, As: 2.1e-9, amplitudeScale: 1,
+    nTotal: 70, nStar, phiStar: 1, phiEnd: 2, energyScaleGeV: 1e16,
+  });
+
+  it('opens on the plane, offers the points table instead of heatmaps, and never asks for a grid slice', async () => {
+    const { requests } = api(memberUser, scanDetail({}, listSpec), {
+      'GET /api/scans/42/plane': () => json(200, plane),
+      'GET /api/scans/42/points': () => json(200, { items: [stored(0, 5, 50), stored(1, 7.5, 55), stored(2, 10, 60)], total: 3, page: 1, pageSize: 50 }),
+    });
+    const { user } = renderApp('/scans/42');
+
+    expect(await screen.findByRole('tab', { name: 'n_s–r plane' }, slow)).toHaveAttribute('aria-selected', 'true');
+    expect(screen.queryByRole('tab', { name: /Heatmaps|Line plots/ })).not.toBeInTheDocument();
+    expect(await screen.findByRole('img', { name: /^n_s–r plane of Natural inflation, picked points/ }, slow)).toBeInTheDocument();
+    const settingsRegion = screen.getByRole('region', { name: 'Settings' });
+    expect(within(settingsRegion).getByText('3 from a file, columns f, N_*')).toBeInTheDocument();
+    expect(within(settingsRegion).queryByRole('table', { name: 'Scan axes' })).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Points' }));
+    const table = await screen.findByRole('table', { name: 'Points of the scan' }, slow);
+    expect(within(table).getByRole('button', { name: 'Sort by f' })).toBeInTheDocument();
+    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(4), slow);
+    expect(within(table).getAllByRole('row')[2]).toHaveTextContent('7.5');
+    expect(requests.some((r) => r.url.pathname.endsWith('/grid'))).toBe(false);
+  });
+});
+
 describe('scan n_s–r plane', () => {
   const plane = {
     okPoints: 12_000, stride: 3, parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
