@@ -1,6 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
-import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
+import type { ChildProcess } from 'node:child_process';
 import { Like } from 'typeorm';
 import { pointRequest, RequestEvaluator, ScanPointList, type StoredScanSpec } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
@@ -8,11 +7,11 @@ import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
+import { startWorkers, stopWorkers } from './support/workers';
 
 type Agent = Awaited<ReturnType<TestApp['signIn']>>;
 // Every scan this file makes is named so, and removed at the end.
 const PREFIX = 'e2e points upload';
-const WORKER_MAIN = path.resolve('../worker/dist/main.js');
 // Multipart bodies are not JSON, so the CSRF check wants the app's own request header.
 const UPLOAD_HEADER = ['X-Sixtyfold-Request', 'upload'] as const;
 
@@ -22,7 +21,7 @@ describe('scans from an uploaded points file', () => {
   let t: TestApp;
   let plateauId: number;
   let member: Agent;
-  const workers: ChildProcess[] = [];
+  let workers: ChildProcess[] = [];
 
   const settings = (name: string) => ({
     groupId: plateauId,
@@ -46,14 +45,10 @@ describe('scans from an uploaded points file', () => {
     t = await createTestApp();
     plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
     member = await t.signIn(DEMO.plateauMember);
-    for (let i = 0; i < 2; i++) workers.push(spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' }));
+    workers = startWorkers(2);
   });
   afterAll(async () => {
-    await Promise.all(workers.map((w) => new Promise<void>((resolve) => {
-      if (w.exitCode !== null) return resolve();
-      w.once('exit', () => resolve());
-      w.kill('SIGTERM');
-    })));
+    await stopWorkers(workers);
     await t.db.getRepository(Scan).delete({ name: Like(`${PREFIX}%`) });
     await t.close();
   });

@@ -1,7 +1,7 @@
 import { scanDetailSchema, type CreateScan, type ScanDetail } from '@sixtyfold/shared';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import { getScanQueryOptions } from './get-scan';
+import { scanLaunched } from './create-scan';
 
 /**
  * Submits a scan over the points of a file: the settings as JSON in `spec`, the file itself as
@@ -17,12 +17,5 @@ export function uploadScan({ spec, file }: { spec: CreateScan; file: File }): Pr
 
 export function useUploadScan({ onSuccess }: { onSuccess?: (scan: ScanDetail) => void } = {}) {
   const queryClient = useQueryClient();
-  return useMutation({
-    mutationFn: uploadScan,
-    onSuccess: async (scan) => {
-      queryClient.setQueryData(getScanQueryOptions(scan.id).queryKey, scan);
-      onSuccess?.(scan);
-      await queryClient.invalidateQueries({ queryKey: ['scans'] });
-    },
-  });
+  return useMutation({ mutationFn: uploadScan, onSuccess: (scan) => scanLaunched(queryClient, scan, onSuccess) });
 }
