@@ -103,6 +103,8 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/plane', url: () => `/api/scans/${plateauScanId}/plane`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
+    // Sent without the file: the role is checked first (viewer 403 as for any submission); the others learn the file is missing.
+    { method: 'post', route: '/api/scans/upload', url: () => '/api/scans/upload', expect: { anonymous: 401, admin: 400, lead: 400, member: 400, viewer: 403, outsider: 404 } },
     // The member owns these scans: members cancel their own, only leads and admins delete.
     { method: 'post', route: '/api/scans/:id/cancel', url: (role) => `/api/scans/${ownScan.get(role)}/cancel`, expect: { anonymous: 401, admin: 200, lead: 200, member: 200, viewer: 403, outsider: 404 } },
     // The access-table draft has no failed points: whoever may retry gets 409, the rest as usual.
@@ -151,7 +153,7 @@ describe('every route against every role', () => {
     { method: 'post', route: '/api/auth/logout', url: () => '/api/auth/logout', expect: everyoneSignedIn(204) },
   ];
 
-  const bodyFor = (route: string, role: Role) => {
+  const bodyFor = (route: string, role: Role): object => {
     if (route === '/api/tokens') return { name: `access table (${role})` };
     if (route === '/api/auth/login') return { email: `${role}@nowhere.example`, password: 'wrong password' };
     if (route === '/api/groups') return { name: `access table group (${role})` };
@@ -166,6 +168,10 @@ describe('every route against every role', () => {
     if (route === '/api/maintenance/prune/dry-run') return { groupId: plateauId, tag: 'no-such-tag' };
     if (route === '/api/maintenance/prune') return { groupId: plateauId, tag: 'no-such-tag', scanIds: [] };
     if (route === '/api/maintenance/groups/:id/retention') return { keepDays: null, statuses: ['completed'] };
+    if (route === '/api/scans/upload') {
+      const { axes: _, ...settings } = bodyFor('/api/scans', role) as Record<string, unknown>;
+      return { spec: JSON.stringify(settings) };
+    }
     if (route === '/api/scans') {
       return {
         groupId: plateauId, name: `access table (${role})`, model: { kind: 'family', family: 'starobinsky' },

@@ -86,7 +86,7 @@ describe('scans under faults', () => {
     const scan = await t.db.getRepository(Scan).findOneByOrFail({ id });
     expect({ done: scan.donePoints, failed: scan.failedPoints }).toEqual({ done: total, failed: 0 });
     const spec = scan.spec as unknown as StoredScanSpec;
-    const grid = new ScanGrid(spec.axes);
+    const grid = new ScanGrid(spec.axes!);
     const engine = new RequestEvaluator();
     for (const index of [0, 1999, 2000, 7777, 13_001, total - 1]) {
       const row = await t.db.getRepository(ScanPoint).findOneByOrFail({ scanId: id, pointIndex: index });

@@ -1,33 +1,28 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, type ChildProcess } from 'node:child_process';
-import path from 'node:path';
 import { chunkSize, pointRequest, RequestEvaluator, ScanGrid, scanChunks, type StoredScanSpec } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
+import { startWorkers, stopWorkers, WORKER_MAIN } from './support/workers';
 
 // The whole path: POST /api/scans → MariaDB row → bull jobs in Redis → two real worker
 // processes (the built worker) → scan_points → GET /api/scans/:id.
-const WORKER_MAIN = path.resolve('../worker/dist/main.js');
 
 describe('a scan through queue and workers', () => {
   let t: TestApp;
   let plateauId: number;
-  const workers: ChildProcess[] = [];
+  let workers: ChildProcess[] = [];
 
   beforeAll(async () => {
     t = await createTestApp();
     plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
-    for (let i = 0; i < 2; i++) workers.push(spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' }));
+    workers = startWorkers(2);
   });
   afterAll(async () => {
-    await Promise.all(workers.map((w) => new Promise<void>((resolve) => {
-      if (w.exitCode !== null) return resolve();
-      w.once('exit', () => resolve());
-      w.kill('SIGTERM');
-    })));
+    await stopWorkers(workers);
     await t.close();
   });
 
@@ -63,7 +58,7 @@ describe('a scan through queue and workers', () => {
     expect(rows.map((r) => r.pointIndex)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
     const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
     expect(stored.params).toEqual({ Lambda: 5e-3 }); // the family default filled in
-    const grid = new ScanGrid(stored.axes);
+    const grid = new ScanGrid(stored.axes!);
     const engine = new RequestEvaluator();
     for (const row of rows) {
       const direct = engine.evaluate(pointRequest(stored, 'natural', grid.point(row.pointIndex)));

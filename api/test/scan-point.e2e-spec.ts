@@ -54,7 +54,7 @@ describe('one scan point by index', () => {
     expect(res.status).toBe(200);
     const row = await t.db.getRepository(ScanPoint).findOneByOrFail({ scanId: id, pointIndex: 4 });
     const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
-    const direct = new RequestEvaluator().evaluate(pointRequest(stored, stored.potentialSource, new ScanGrid(stored.axes).point(4)));
+    const direct = new RequestEvaluator().evaluate(pointRequest(stored, stored.potentialSource, new ScanGrid(stored.axes!).point(4)));
     expect(res.body).toMatchObject({ pointIndex: 4, inputs: { p: 2, nStar: 60 }, status: 'ok', failureReason: null });
     expect(res.body.ns).toBe(row.ns);
     expect(res.body.ns).toBe(direct.ns);

@@ -25,3 +25,4 @@ export * from './schemas/maintenance.schema.js';
 export * from './uploads/upload-problem.js';
 export * from './uploads/constraint-region.schema.js';
 export * from './uploads/model-file.schema.js';
+export * from './uploads/points-file.schema.js';

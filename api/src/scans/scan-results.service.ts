@@ -1,10 +1,10 @@
-import { BadRequestException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { stringify } from 'csv-stringify';
 import { Transform, type Readable } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, sortedInput, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
+  POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -65,7 +65,7 @@ export class ScanResultsService {
 
   /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
   private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
-    const axes = (scan.spec as unknown as StoredScanSpec).axes.map((a) => a.parameter);
+    const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
     const unknown = [...q.inputRanges.map((r) => r.name), sortedInput(q.sort)].filter((n): n is string => n !== null && !axes.includes(n));
     if (unknown.length) {
       throw new BadRequestException(`the scan has no axis ${unknown.join(', ')}; its axes are ${axes.join(', ')}`);
@@ -120,7 +120,7 @@ export class ScanResultsService {
    */
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json'): Promise<Readable> {
     const scan = await this.readable(user, id);
-    const axes = (scan.spec as unknown as StoredScanSpec).axes.map((a) => a.parameter);
+    const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
     const source = await this.filtered(scan, q).stream();
     const toPoint = new Transform({
       objectMode: true,
@@ -164,7 +164,7 @@ export class ScanResultsService {
    */
   async plane(user: SessionUser, id: number, q: ScanPlaneQuery): Promise<ScanPlane> {
     const scan = await this.readable(user, id);
-    const parameters = ((scan.spec as unknown as Partial<StoredScanSpec>).axes ?? []).map((a) => a.parameter);
+    const parameters = variedInputs(scan.spec as unknown as Partial<StoredScanSpec>);
     const columns = 'p.point_index, p.ns, p.r, p.alpha_s, p.n_star, p.inputs';
     const { okPoints, stride, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
       const [{ n }]: { n: string | number }[] = await tx.query("SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? AND status = 'ok'", [id]);
@@ -215,6 +215,8 @@ export class ScanResultsService {
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
     const spec = scan.spec as unknown as StoredScanSpec;
+    // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
+    if (!spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
     const grid = new ScanGrid(spec.axes);
     const names = spec.axes.map((a) => a.parameter);
     const xi = names.indexOf(q.x);

@@ -1,9 +1,9 @@
 import { BadRequestException } from '@nestjs/common';
-import { findFamily, PIVOT_AXES, type CreateScan, type ModelParameter, type StoredScanSpec } from '@sixtyfold/shared';
+import { findFamily, PIVOT_AXES, variedInputs, type CreateScan, type ModelParameter, type StoredScanSpec } from '@sixtyfold/shared';
 
 /**
  * Checks the specification against its model's parameters and completes it: every parameter
- * is fixed or on an axis (defaults fill the rest), no unknown names, and a start φ exists.
+ * is fixed or varied (on an axis or a point list's column) (defaults fill the rest), no unknown names, and a start φ exists.
  * The result freezes the model: its expression (`potentialSource`), the parameter values and
  * φ_init are copied in, and workers read only this spec, so editing or deleting the model later
  * leaves a submitted scan as it was.
@@ -18,13 +18,13 @@ export function completeSpec(
   for (const name of Object.keys(spec.params)) {
     if (!names.has(name)) complain(`params.${name}`, `the model has no parameter ${name}; it has ${[...names].join(', ') || 'none'}`);
   }
-  spec.axes.forEach((axis, i) => {
-    if (!names.has(axis.parameter) && !(PIVOT_AXES as readonly string[]).includes(axis.parameter)) {
-      complain(`axes.${i}.parameter`, `the model has no parameter ${axis.parameter}; it has ${[...names].join(', ')}`);
+  variedInputs(spec).forEach((name, i) => {
+    if (!names.has(name) && !(PIVOT_AXES as readonly string[]).includes(name)) {
+      complain(spec.pointList ? `pointList.columns.${i}` : `axes.${i}.parameter`, `the model has no parameter ${name}; it has ${[...names].join(', ')}`);
     }
   });
   const params = { ...spec.params };
-  const onAxis = new Set(spec.axes.map((a) => a.parameter));
+  const onAxis = new Set(variedInputs(spec));
   for (const p of model.parameters) if (!(p.name in params) && !onAxis.has(p.name)) params[p.name] = p.defaultValue;
   const phiInit = spec.phiInit ?? model.phiInit ?? undefined;
   if (phiInit === undefined && !model.isFamily) complain('phiInit', 'give φ_init: this model does not say where it inflates');

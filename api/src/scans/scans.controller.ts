@@ -1,9 +1,9 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res } from '@nestjs/common';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import { pipeline } from 'node:stream/promises';
 import {
-  createScanSchema, pageOf, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
+  createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
   type ScanPointsQuery, type ScanSummary,
@@ -11,7 +11,8 @@ import {
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
-import { ApiErrorResponses, ApiZodBody, ApiZodQuery, ApiZodResponse, openApiSchemaOf } from '../openapi/zod-openapi.decorators';
+import { FileUpload } from '../common/uploads/file-upload.interceptor';
+import { ApiErrorResponses, ApiZodBody, ApiZodMultipart, ApiZodQuery, ApiZodResponse, openApiSchemaOf } from '../openapi/zod-openapi.decorators';
 import { ScanResultsService } from './scan-results.service';
 import { ScansService } from './scans.service';
 
@@ -42,6 +43,23 @@ export class ScansController {
   @ApiErrorResponses(400, 401, 403, 404)
   create(@CurrentUser() user: SessionUser, @Body(new ZodValidationPipe(createScanSchema)) spec: CreateScan): Promise<ScanDetail> {
     return this.scans.create(user, spec);
+  }
+
+  @Post('upload')
+  @UseInterceptors(FileUpload('points', 'csv', POINTS_CSV_MAX_BYTES))
+  @ApiOperation({
+    summary: 'Submit a scan over the points of a CSV file (needs the member role in the group)',
+    description: 'The header names the varied inputs (model parameters, nStar, reheatingW, reheatingEnergyGeV), each row is one point. A refused file is a 400 with the line.',
+  })
+  @ApiZodMultipart(scanUploadFieldsSchema, 'points', 'The scan settings (`spec`, JSON of the create-scan body without axes) and the points file (CSV, at most 32 MB)')
+  @ApiZodResponse(201, scanDetailSchema, 'The stored scan, status `queued`')
+  @ApiErrorResponses(400, 401, 403, 404, 413, 415)
+  upload(
+    @CurrentUser() user: SessionUser,
+    @Body(new ZodValidationPipe(scanUploadFieldsSchema)) fields: ScanUploadFields,
+    @UploadedFile() file: Express.Multer.File | undefined,
+  ): Promise<ScanDetail> {
+    return this.scans.createFromUpload(user, fields.spec, file);
   }
 
   @Get(':id')
@@ -95,9 +113,12 @@ export class ScansController {
   }
 
   @Get(':id/grid')
-  @ApiOperation({ summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)' })
+  @ApiOperation({
+    summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)',
+    description: 'A scan over a list of points has no grid: 409 (use `/points` or `/plane`).',
+  })
   @ApiZodResponse(200, scanGridSliceSchema, 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)')
-  @ApiErrorResponses(400, 401, 404)
+  @ApiErrorResponses(400, 401, 404, 409)
   grid(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,

@@ -2,9 +2,15 @@ import { BadRequestException, ConflictException, ForbiddenException, Injectable,
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
-import { chunkSize, groupRoleAtLeast, pointCount, pointLimitProblem, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanSummary } from '@sixtyfold/shared';
+import {
+  chunkSize, createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery,
+  type ScanSummary,
+} from '@sixtyfold/shared';
+import { z } from 'zod';
 import { AuditService } from '../audit/audit.service';
+import { zodBadRequest } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
+import { readCsvUpload, uploadBadRequest } from '../common/uploads/read-csv-upload';
 import type { AppConfig } from '../config/app.config';
 import { Group } from '../groups/entities/group.entity';
 import { GroupAccessService } from '../groups/group-access.service';
@@ -44,7 +50,7 @@ export class ScansService {
     const total = pointCount(spec);
     const site = this.config.getOrThrow<AppConfig>('app').sitePointLimit;
     const tooLarge = pointLimitProblem(total, group.pointLimit, `${group.name}'s`) ?? pointLimitProblem(total, site, "the site's");
-    if (tooLarge) throw new BadRequestException({ message: tooLarge, fieldErrors: { axes: [tooLarge] } });
+    if (tooLarge) throw new BadRequestException({ message: tooLarge, fieldErrors: { [spec.pointList ? 'pointList' : 'axes']: [tooLarge] } });
 
     const scanId = await this.db.transaction(async (tx) => {
       const saved = await tx.getRepository(Scan).save({
@@ -69,6 +75,38 @@ export class ScansService {
     // queued in MariaDB and start-up reconciliation enqueues it.
     await this.queue.enqueue(scanId, total, spec.method);
     return this.get(user, scanId);
+  }
+
+  /**
+   * A scan whose points come from a CSV file (`points`): the settings arrive as JSON text, the
+   * file is read and checked whole, then the scan is submitted as any other. Problems with the
+   * columns, found by the schema or against the model, are reported on the file's header line.
+   */
+  async createFromUpload(user: SessionUser, specText: string, file: Express.Multer.File | undefined): Promise<ScanDetail> {
+    let fields: unknown;
+    try {
+      fields = JSON.parse(specText);
+    } catch {
+      throw new BadRequestException({ message: 'spec: the scan settings are not valid JSON', fieldErrors: { spec: ['the scan settings are not valid JSON'] } });
+    }
+    if (typeof fields !== 'object' || fields === null || Array.isArray(fields) || 'axes' in fields || 'pointList' in fields) {
+      const why = 'the scan settings must be one JSON object without axes or pointList: the file gives the points';
+      throw new BadRequestException({ message: `spec: ${why}`, fieldErrors: { spec: [why] } });
+    }
+    // The role first, so that someone who may not submit here learns nothing from the file.
+    const group = z.object({ groupId: z.number().int().positive() }).safeParse(fields);
+    if (group.success) await this.access.require(user, group.data.groupId, 'member');
+    const { pointList, headerLine } = await readCsvUpload(file, 'points', pointsCsvReader());
+    const spec = createScanSchema.safeParse({ ...fields, pointList });
+    try {
+      if (!spec.success) throw zodBadRequest(spec.error);
+      return await this.create(user, spec.data);
+    } catch (error) {
+      const fieldErrors = error instanceof BadRequestException ? (error.getResponse() as { fieldErrors?: Record<string, string[]> }).fieldErrors : undefined;
+      const columns = Object.entries(fieldErrors ?? {}).filter(([field]) => field.startsWith('pointList.columns'));
+      if (columns.length === 0) throw error;
+      throw uploadBadRequest({ message: `line ${headerLine}: ${columns.flatMap(([, messages]) => messages).join('; ')}`, line: headerLine });
+    }
   }
 
   async list(user: SessionUser, query: ScanListQuery): Promise<Page<ScanSummary>> {

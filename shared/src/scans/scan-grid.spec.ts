@@ -1,21 +1,22 @@
 import { describe, expect, it } from 'vitest';
 import { RequestEvaluator } from '../engine/evaluate-request.js';
 import { createScanSchema, type CreateScanInput } from '../schemas/scan.schema.js';
-import { axisValues, pointCount, pointLimitProblem, ScanGrid } from './scan-grid.js';
+import { axisValues, pointCount, pointLimitProblem, ScanGrid, ScanPointList, scanPoints, variedInputs } from './scan-grid.js';
 import { pointRequest } from './scan-point.js';
 
-const base: CreateScanInput = {
+const axes: NonNullable<CreateScanInput['axes']> = [
+  { kind: 'range', parameter: 'f', min: 1, max: 100, count: 3, spacing: 'log' },
+  { kind: 'list', parameter: 'nStar', values: [50, 55, 60] },
+];
+const base = {
   groupId: 1,
   name: 'Starobinsky over N_*',
   model: { kind: 'family', family: 'natural' },
   params: { Lambda: 5e-3 },
-  axes: [
-    { kind: 'range', parameter: 'f', min: 1, max: 100, count: 3, spacing: 'log' },
-    { kind: 'list', parameter: 'nStar', values: [50, 55, 60] },
-  ],
+  axes,
   pivot: { kind: 'fixed' },
   method: 'slowroll',
-};
+} satisfies CreateScanInput;
 
 const errors = (input: unknown) => {
   const result = createScanSchema.safeParse(input);
@@ -61,7 +62,7 @@ describe('scan specification', () => {
   });
 
   it('expands point i with the last axis fastest, covering the grid once', () => {
-    const grid = new ScanGrid(createScanSchema.parse(base).axes);
+    const grid = new ScanGrid(createScanSchema.parse(base).axes!);
     expect(grid.size).toBe(9);
     expect(grid.point(0)).toEqual({ f: 1, nStar: 50 });
     expect(grid.point(1)).toEqual({ f: 1, nStar: 55 });
@@ -73,7 +74,7 @@ describe('scan specification', () => {
 
   it('turns a point into an engine request that the engine accepts', () => {
     const spec = createScanSchema.parse(base);
-    const grid = new ScanGrid(spec.axes);
+    const grid = new ScanGrid(spec.axes!);
     const request = pointRequest(spec, 'natural', grid.point(5));
     expect(request).toMatchObject({ potential: 'natural', params: { Lambda: 5e-3, f: 10 }, nStar: 60, method: 'slowroll' });
     const result = new RequestEvaluator().evaluate(request);
@@ -85,7 +86,69 @@ describe('scan specification', () => {
       axes: [base.axes[0], { kind: 'list', parameter: 'reheatingW', values: [0, 1 / 3] }],
       pivot: { kind: 'reheating', energyGeV: 1e12 },
     });
-    const r = pointRequest(reheating, 'natural', new ScanGrid(reheating.axes).point(1));
+    const r = pointRequest(reheating, 'natural', new ScanGrid(reheating.axes!).point(1));
+    expect(r.reheating).toEqual({ w: 1 / 3, energyGeV: 1e12 });
+    expect(r.params).toEqual({ Lambda: 5e-3, f: 1 });
+  });
+});
+
+describe('scans over a list of points', () => {
+  const { axes: _, ...noAxes } = base;
+  const listed = {
+    ...noAxes,
+    pointList: { columns: ['f', 'nStar'], rows: [[10, 60], [1, 50], [100, 55]] },
+  } satisfies CreateScanInput;
+
+  it('takes a point list instead of axes, exactly one of the two', () => {
+    const spec = createScanSchema.parse(listed);
+    expect(pointCount(spec)).toBe(3);
+    expect(variedInputs(spec)).toEqual(['f', 'nStar']);
+    expect(variedInputs(createScanSchema.parse(base))).toEqual(['f', 'nStar']);
+    expect(errors({ ...listed, axes: base.axes })).toContain('axes: give axes or a point list, not both');
+    expect(errors(noAxes)).toContain('axes: add at least one axis');
+  });
+
+  it('checks the columns as it checks axes', () => {
+    const list = (columns: string[], rows: number[][]) => ({ ...listed, pointList: { columns, rows } });
+    expect(errors(list(['f', 'f'], [[1, 2]]))).toContain('pointList.columns.1: f is a column twice');
+    expect(errors({ ...listed, params: { Lambda: 5e-3, f: 3 } })).toContain('pointList.columns.0: f is both fixed and a column');
+    expect(errors(list(['f'], [[1]]))).toContain('pivot.nStar: give N_* or add a column nStar');
+    expect(errors({ ...list(['f'], [[1]]), pivot: { kind: 'fixed', nStar: 55 } })).toEqual([]);
+    expect(errors({ ...listed, pivot: { kind: 'fixed', nStar: 55 } })).toContain('pivot.nStar: N_* is both fixed and in a column');
+    expect(errors({ ...listed, pivot: { kind: 'reheating', w: 0, energyGeV: 1e12 } })).toContain('pointList.columns.1: an N_* column needs a fixed pivot, not reheating');
+    expect(errors({ ...list(['f', 'reheatingW'], [[1, 0]]) })).toContain('pointList.columns.1: reheatingW needs N_* from reheating');
+    expect(errors(list(['f', 'nStar'], [[1, 50], [2]]))).toContain('pointList.rows.1: point 1 has 1 values for 2 columns');
+    expect(errors(list(['f', 'nStar'], [[1, Number.NaN]]))).toContain('pointList.rows.0.1: every value must be a finite number');
+    expect(errors(list(['f', 'nStar'], []))).toContain('pointList.rows: the point list has no points');
+  });
+
+  it('gives point i as row i, by column name', () => {
+    const points = new ScanPointList(createScanSchema.parse(listed).pointList!);
+    expect(points.size).toBe(3);
+    expect(points.point(0)).toEqual({ f: 10, nStar: 60 });
+    expect(points.point(2)).toEqual({ f: 100, nStar: 55 });
+    expect(() => points.point(3)).toThrow(RangeError);
+    expect(() => points.point(-1)).toThrow(RangeError);
+  });
+
+  it('makes the same engine request as the equal grid point', () => {
+    const grid = createScanSchema.parse(base);
+    const list = createScanSchema.parse(listed);
+    expect(scanPoints(grid)).toBeInstanceOf(ScanGrid);
+    expect(scanPoints(list)).toBeInstanceOf(ScanPointList);
+    // Grid point 5 is f = 10, N_* = 60, the list's first row.
+    const fromGrid = pointRequest(grid, 'natural', scanPoints(grid).point(5));
+    const fromList = pointRequest(list, 'natural', scanPoints(list).point(0));
+    expect(fromList).toEqual(fromGrid);
+    const engine = new RequestEvaluator();
+    expect(engine.evaluate(fromList)).toEqual(engine.evaluate(fromGrid));
+
+    const reheating = createScanSchema.parse({
+      ...noAxes,
+      pointList: { columns: ['reheatingW', 'f'], rows: [[1 / 3, 1]] },
+      pivot: { kind: 'reheating', energyGeV: 1e12 },
+    });
+    const r = pointRequest(reheating, 'natural', scanPoints(reheating).point(0));
     expect(r.reheating).toEqual({ w: 1 / 3, energyGeV: 1e12 });
     expect(r.params).toEqual({ Lambda: 5e-3, f: 1 });
   });

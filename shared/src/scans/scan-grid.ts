@@ -1,4 +1,4 @@
-import type { CreateScan, ScanAxis } from '../schemas/scan.schema.js';
+import type { CreateScan, PointList, ScanAxis } from '../schemas/scan.schema.js';
 
 /** The values along one axis, in order. */
 export function axisValues(axis: ScanAxis): number[] {
@@ -19,9 +19,14 @@ export function axisLength(axis: ScanAxis): number {
   return axis.kind === 'list' ? axis.values.length : axis.count;
 }
 
-/** Number of points of a scan: the product of its axis lengths. */
-export function pointCount(spec: Pick<CreateScan, 'axes'>): number {
-  return spec.axes.reduce((n, axis) => n * axisLength(axis), 1);
+/** Number of points of a scan: the product of its axis lengths, or the rows of its point list. */
+export function pointCount(spec: Pick<CreateScan, 'axes' | 'pointList'>): number {
+  return scanPoints(spec).size;
+}
+
+/** The inputs a scan varies, in order: its axes' parameters or its point list's columns. */
+export function variedInputs(spec: Pick<CreateScan, 'axes' | 'pointList'>): string[] {
+  return spec.pointList ? [...spec.pointList.columns] : (spec.axes ?? []).map((axis) => axis.parameter);
 }
 
 /** The message for a scan over its limit, saying by how much; null when it fits. */
@@ -68,4 +73,32 @@ export class ScanGrid {
     });
     return point;
   }
+}
+
+/** A scan's points given one by one: point i is row i of the list, by column name. */
+export class ScanPointList {
+  readonly size: number;
+
+  constructor(readonly list: PointList) {
+    this.size = list.rows.length;
+  }
+
+  /** The values of point `index`, by column name. */
+  point(index: number): Record<string, number> {
+    if (!(index >= 0 && index < this.size && Number.isInteger(index))) throw new RangeError(`point ${index} is outside the list of ${this.size}`);
+    const row = this.list.rows[index];
+    const point: Record<string, number> = {};
+    this.list.columns.forEach((name, c) => {
+      point[name] = row[c];
+    });
+    return point;
+  }
+}
+
+/** What a scan's points are, grid or list: the varied values of point i, and how many there are. */
+export type ScanPoints = ScanGrid | ScanPointList;
+
+/** The points of a scan, from its axes or its point list; callers need not know which. */
+export function scanPoints(spec: Pick<CreateScan, 'axes' | 'pointList'>): ScanPoints {
+  return spec.pointList ? new ScanPointList(spec.pointList) : new ScanGrid(spec.axes ?? []);
 }

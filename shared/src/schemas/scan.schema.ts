@@ -5,6 +5,9 @@ import { scanMethodSchema } from './scan-summary.schema.js';
 export const PIVOT_AXES = ['nStar', 'reheatingW', 'reheatingEnergyGeV'] as const;
 export type PivotAxis = (typeof PIVOT_AXES)[number];
 
+/** Largest scan any group may submit unless the site sets a lower limit. */
+export const DEFAULT_POINT_LIMIT = 1_000_000;
+
 const finite = (what: string) => z.number({ error: `${what} must be a finite number` });
 
 const axisName = z.string().min(1, 'choose what the axis varies').max(64);
@@ -27,6 +30,19 @@ export const listAxisSchema = z.object({
 export const scanAxisSchema = z.discriminatedUnion('kind', [rangeAxisSchema, listAxisSchema]);
 export type ScanAxis = z.infer<typeof scanAxisSchema>;
 
+/**
+ * Points given one by one instead of a grid: `columns` names what each row sets (model
+ * parameters, nStar, reheatingW, reheatingEnergyGeV, as an axis would), row i is point i.
+ */
+export const pointListSchema = z.object({
+  columns: z.array(axisName).min(1, 'a point list needs at least one column').max(64, 'a point list has at most 64 columns'),
+  rows: z
+    .array(z.array(finite('every value')))
+    .min(1, 'the point list has no points')
+    .max(DEFAULT_POINT_LIMIT, `a point list has at most ${DEFAULT_POINT_LIMIT.toLocaleString('en-US')} points`),
+});
+export type PointList = z.infer<typeof pointListSchema>;
+
 export const scanModelSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('family'), family: z.string().min(1) }),
   z.object({ kind: z.literal('group'), modelId: z.number().int().positive() }),
@@ -47,7 +63,9 @@ export type ScanPivot = z.infer<typeof scanPivotSchema>;
 
 /**
  * A scan as submitted: the web form and `POST /api/scans` validate with this one schema.
- * Axes run in the order given, the last one fastest, so point i is a fixed set of values.
+ * Its points are either a grid of `axes` (run in the order given, the last one fastest, so
+ * point i is a fixed set of values) or a `pointList`, exactly one of the two. Stored specs
+ * from before point lists all have axes, so `axes` keeps its shape and only became optional.
  */
 export const createScanSchema = z
   .object({
@@ -59,21 +77,34 @@ export const createScanSchema = z
     /** Values of the model's parameters that no axis varies. */
     params: z.record(z.string(), finite('each parameter value')).default({}),
     phiInit: finite('φ_init').optional(),
-    axes: z.array(scanAxisSchema).min(1, 'add at least one axis').max(4, 'a scan has at most 4 axes'),
+    axes: z.array(scanAxisSchema).min(1, 'add at least one axis').max(4, 'a scan has at most 4 axes').optional(),
+    pointList: pointListSchema.optional(),
     pivot: scanPivotSchema,
     method: scanMethodSchema,
     tolerance: z.number().min(1e-14).max(1e-4).optional(),
   })
   .superRefine((spec, ctx) => {
+    if ((spec.axes === undefined) === (spec.pointList === undefined)) {
+      ctx.addIssue({ code: 'custom', path: ['axes'], message: spec.axes ? 'give axes or a point list, not both' : 'add at least one axis' });
+    }
+    // What the points vary, each with where a problem with it is reported.
+    const varied = spec.axes
+      ? spec.axes.map((axis, i) => ({ name: axis.parameter, path: ['axes', i, 'parameter'], on: 'on an axis', twice: 'is on two axes' }))
+      : (spec.pointList?.columns ?? []).map((name, i) => ({ name, path: ['pointList', 'columns', i], on: 'a column', twice: 'is a column twice' }));
     const seen = new Set<string>();
-    spec.axes.forEach((axis, i) => {
-      if (seen.has(axis.parameter)) {
-        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} is on two axes` });
+    for (const { name, path, on, twice } of varied) {
+      if (seen.has(name)) ctx.addIssue({ code: 'custom', path, message: `${name} ${twice}` });
+      seen.add(name);
+      if (name in spec.params) ctx.addIssue({ code: 'custom', path, message: `${name} is both fixed and ${on}` });
+      const pivotAxis = (PIVOT_AXES as readonly string[]).includes(name);
+      if (name === 'nStar' && spec.pivot.kind !== 'fixed') {
+        ctx.addIssue({ code: 'custom', path, message: `an N_* ${on === 'a column' ? 'column' : 'axis'} needs a fixed pivot, not reheating` });
       }
-      seen.add(axis.parameter);
-      if (axis.parameter in spec.params) {
-        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} is both fixed and on an axis` });
+      if (pivotAxis && name !== 'nStar' && spec.pivot.kind !== 'reheating') {
+        ctx.addIssue({ code: 'custom', path, message: `${name} needs N_* from reheating` });
       }
+    }
+    spec.axes?.forEach((axis, i) => {
       if (axis.kind === 'range') {
         if (axis.count > 1 && !(axis.max > axis.min)) {
           ctx.addIssue({ code: 'custom', path: ['axes', i, 'max'], message: 'max must be above min' });
@@ -82,34 +113,32 @@ export const createScanSchema = z
           ctx.addIssue({ code: 'custom', path: ['axes', i, 'min'], message: 'a logarithmic axis needs min > 0' });
         }
       }
-      const pivotAxis = (PIVOT_AXES as readonly string[]).includes(axis.parameter);
-      if (axis.parameter === 'nStar' && spec.pivot.kind !== 'fixed') {
-        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: 'an N_* axis needs a fixed pivot, not reheating' });
-      }
-      if (pivotAxis && axis.parameter !== 'nStar' && spec.pivot.kind !== 'reheating') {
-        ctx.addIssue({ code: 'custom', path: ['axes', i, 'parameter'], message: `${axis.parameter} needs N_* from reheating` });
-      }
     });
+    const list = spec.pointList;
+    if (list) {
+      const wrong = list.rows.findIndex((row) => row.length !== list.columns.length);
+      if (wrong >= 0) {
+        ctx.addIssue({ code: 'custom', path: ['pointList', 'rows', wrong], message: `point ${wrong} has ${list.rows[wrong].length} values for ${list.columns.length} columns` });
+      }
+    }
+    const where = spec.axes ? 'on an axis' : 'in a column';
     const p = spec.pivot;
     if (p.kind === 'fixed' && p.nStar === undefined && !seen.has('nStar')) {
-      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: 'give N_* or put it on an axis' });
+      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: spec.axes ? 'give N_* or put it on an axis' : 'give N_* or add a column nStar' });
     }
     if (p.kind === 'fixed' && p.nStar !== undefined && seen.has('nStar')) {
-      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: 'N_* is both fixed and on an axis' });
+      ctx.addIssue({ code: 'custom', path: ['pivot', 'nStar'], message: `N_* is both fixed and ${where}` });
     }
     if (p.kind === 'reheating') {
       for (const [field, axis] of [['w', 'reheatingW'], ['energyGeV', 'reheatingEnergyGeV']] as const) {
         if ((p[field] === undefined) === !seen.has(axis)) {
-          ctx.addIssue({ code: 'custom', path: ['pivot', field], message: `give ${axis === 'reheatingW' ? 'w_reh' : 'the reheating energy'} either here or on an axis, once` });
+          ctx.addIssue({ code: 'custom', path: ['pivot', field], message: `give ${axis === 'reheatingW' ? 'w_reh' : 'the reheating energy'} either here or ${where}, once` });
         }
       }
     }
   });
 export type CreateScan = z.infer<typeof createScanSchema>;
 export type CreateScanInput = z.input<typeof createScanSchema>;
-
-/** Largest scan any group may submit unless the site sets a lower limit. */
-export const DEFAULT_POINT_LIMIT = 1_000_000;
 
 /** A scan specification as stored: completed with defaults, and its potential frozen. */
 export type StoredScanSpec = CreateScan & {

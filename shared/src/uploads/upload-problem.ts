@@ -19,6 +19,22 @@ export class UploadRejected extends Error {
 }
 
 /**
+ * A refusal from reading a CSV as an UploadProblem: a reader's UploadRejected, or csv-parse's own
+ * (an unclosed quote, …; it carries `lines`); null for anything else, which is not about the file.
+ */
+export function csvReadProblem(error: unknown): UploadProblem | null {
+  if (error instanceof UploadRejected) return { message: error.message, ...(error.line !== undefined ? { line: error.line } : {}) };
+  // csv-parse's errors carry a code CSV_… (their class is not exported to every bundle alike).
+  const code = (error as { code?: unknown } | null)?.code;
+  if (error instanceof Error && typeof code === 'string' && code.startsWith('CSV_')) {
+    const line = (error as Error & { lines?: number }).lines;
+    const reason = error.message.replace(/^Invalid [^:]*: /, '');
+    return line ? { message: `line ${line}: the file is not valid CSV: ${reason}`, line } : { message: `the file is not valid CSV: ${reason}` };
+  }
+  return null;
+}
+
+/**
  * A CSV file read row by row: the parser (streaming, in the API) hands each record with its line,
  * the reader checks it at once and keeps what it needs, and `finish` returns the whole result only
  * when every row passed. Nothing is written anywhere before `finish`.
@@ -28,6 +44,20 @@ export interface CsvRowReader<T> {
   row(values: string[], line: number): void;
   finish(): T;
 }
+
+/**
+ * How every uploaded CSV is split into records (csv-parse options), in the API and in the browser
+ * alike: blank lines and lines starting with # are skipped (for notes), cells are trimmed, and
+ * rows of the wrong length reach the reader, which names their line.
+ */
+export const CSV_PARSE_OPTIONS = {
+  bom: true,
+  trim: true,
+  skip_empty_lines: true,
+  comment: '#',
+  comment_no_infix: true,
+  relax_column_count: true,
+} as const;
 
 /** A CSV cell as a finite number, or an UploadRejected naming the column and the value. */
 export function csvNumber(value: string, column: string, line: number): number {

@@ -11,10 +11,15 @@ export const isFieldRefusal = (error: unknown): error is ApiRequestError =>
 /**
  * Puts the API's per-field messages onto the form's fields. The API names fields by their
  * path in the body (`axes.0.min`), which is react-hook-form's naming too; `_` is the body as a whole.
+ * `fieldFor` maps a body path to the form field that shows it, where the two differ.
  */
-export function applyFieldErrors<T extends FieldValues>(error: unknown, setError: UseFormSetError<T>): void {
+export function applyFieldErrors<T extends FieldValues>(
+  error: unknown,
+  setError: UseFormSetError<T>,
+  fieldFor: (bodyPath: string) => string = (bodyPath) => bodyPath,
+): void {
   if (!isFieldRefusal(error)) return;
   for (const [field, messages] of Object.entries(error.fieldErrors)) {
-    if (messages[0] && field !== '_') setError(field as FieldPath<T>, { type: 'server', message: messages[0] });
+    if (messages[0] && field !== '_') setError(fieldFor(field) as FieldPath<T>, { type: 'server', message: messages[0] });
   }
 }

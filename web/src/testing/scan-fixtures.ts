@@ -1,4 +1,4 @@
-import type { ScanDetail, ScanGridSlice, StoredScanSpec } from '@sixtyfold/shared';
+import { pointCount, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 
 // Scans of the invented Halvorsen Institute groups (see fixtures.ts), with their full detail.
 
@@ -20,7 +20,7 @@ export const naturalSpec: StoredScanSpec = {
 };
 
 export function scanDetail(overrides: Partial<ScanDetail> = {}, spec: StoredScanSpec = naturalSpec): ScanDetail {
-  const total = spec.axes.reduce((n, axis) => n * (axis.kind === 'list' ? axis.values.length : axis.count), 1);
+  const total = pointCount(spec);
   return {
     id: 42,
     groupId: 10,

@@ -2,7 +2,7 @@ import { Injectable, Logger } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import { completeIfAllStored, Scan, ScanPoint } from '@sixtyfold/api/database';
-import { pointRequest, RequestEvaluator, ScanGrid, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 
 export interface ChunkOutcome {
   scanId: number;
@@ -48,11 +48,11 @@ export class ComputeChunkService {
       .execute();
 
     const spec = scan.spec as unknown as StoredScanSpec;
-    const grid = new ScanGrid(spec.axes);
+    const points = scanPoints(spec);
     const rows: PointRow[] = [];
     const now = new Date();
     for (let i = job.start; i < job.end; i++) {
-      const inputs = grid.point(i);
+      const inputs = points.point(i);
       const result = this.engine.evaluate(pointRequest(spec, spec.potentialSource, inputs));
       const ok = result.status === 'ok';
       rows.push({

@@ -1,4 +1,4 @@
-import { pointRequest, RequestEvaluator, ScanGrid, type ScanPointDto, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointRequest, RequestEvaluator, scanPoints, type ScanPointDto, type StoredScanSpec } from '@sixtyfold/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { memberUser } from '@/testing/fixtures';
 import { plotIn } from '@/testing/plotly-chart-mock';
@@ -28,9 +28,9 @@ const chaotic: StoredScanSpec = {
   potentialSource: 'monomial',
 };
 
-/** A point as the workers store it: the shared engine's result for that grid point. */
+/** A point as the workers store it: the shared engine's result for that point of the grid or list. */
 function storedPoint(spec: StoredScanSpec, index: number): ScanPointDto {
-  const inputs = new ScanGrid(spec.axes).point(index);
+  const inputs = scanPoints(spec).point(index);
   const result = new RequestEvaluator().evaluate(pointRequest(spec, spec.potentialSource, inputs));
   const { status, message, ns, r, alphaS, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, energyScaleGeV } = result;
   return { pointIndex: index, inputs, status, failureReason: status === 'ok' ? null : message, ns, r, alphaS, As, amplitudeScale, nTotal, nStar, phiStar, phiEnd, energyScaleGeV };
@@ -77,6 +77,26 @@ describe('point page', () => {
     expect(screen.queryByRole('button', { name: 'Compute the spectrum' })).not.toBeInTheDocument();
   });
 
+  it('shows the inputs of a point from a list, and recomputes it bit for bit', async () => {
+    const { axes: _, ...settings } = chaotic;
+    const listed: StoredScanSpec = { ...settings, pointList: { columns: ['nStar', 'p'], rows: [[55, 2], [60, 1], [52, 2]] } };
+    const stored = storedPoint(listed, 1);
+    expect(stored.inputs).toEqual({ nStar: 60, p: 1 });
+    mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      'GET /api/scans/42': () => json(200, scanDetail({}, listed)),
+      'GET /api/scans/42/points/1': () => json(200, stored),
+    });
+    renderApp('/scans/42/points/1');
+
+    expect(await screen.findByRole('heading', { level: 1, name: 'Point 1' }, slow)).toBeInTheDocument();
+    const inputs = screen.getByRole('region', { name: 'Inputs' });
+    expect(inputs).toHaveTextContent('N_*60point 2 of 3 in the list');
+    expect(inputs).toHaveTextContent('p1point 2 of 3 in the list');
+    await waitFor(() => expect(screen.getAllByText('identical')).toHaveLength(11), slow);
+    expect(screen.getByRole('link', { name: 'Next point' })).toHaveAttribute('href', '/scans/42/points/2');
+  });
+
   it('tells rounding apart from a stored value that does not match what the engine gives now', async () => {
     const stored = storedPoint(chaotic, 0);
     mockApi({
@@ -95,7 +115,7 @@ describe('point page', () => {
 
   it('shows a failed point with its reason, and a point not stored yet still recomputed', async () => {
     // φ² from φ_init = 16 has about 63.5 e-folds: enough for N_* = 60, not for a spec asking 90.
-    const short = { ...chaotic, axes: [chaotic.axes[0], { kind: 'list' as const, parameter: 'nStar', values: [50, 90] }] };
+    const short = { ...chaotic, axes: [chaotic.axes![0], { kind: 'list' as const, parameter: 'nStar', values: [50, 90] }] };
     const failed = storedPoint(short, 3);
     expect(failed.status).toBe('insufficient_efolds');
     mockApi({

@@ -158,6 +158,52 @@ describe('New scan page', { timeout: 30_000 }, () => {
     expect(createScanSchema.parse(post.body)).toEqual(expected);
   });
 
+  it('takes the points from a file instead: read here with its line on a refusal, then sent as multipart', async () => {
+    const { requests } = mockForm({
+      'POST /api/scans/upload': (request) => json(201, created(JSON.parse(String((request.body as FormData).get('spec'))))),
+    });
+    const { user, router } = renderApp('/scans/new');
+    await formReady();
+
+    await user.type(await screen.findByLabelText('Name'), 'Natural inflation, picked points');
+    await user.selectOptions(screen.getByLabelText('Model'), 'family:natural');
+    await user.click(screen.getByRole('radio', { name: 'Points from a file' }));
+    expect(screen.queryByLabelText('Axis 1 parameter')).not.toBeInTheDocument();
+    const fileInput = screen.getByLabelText(/^Points file/);
+
+    // Refused before anything is sent, with the line of the file.
+    await user.upload(fileInput, new File(['f,nStar\n5,50\n7,fifty\n'], 'points.csv', { type: 'text/csv' }));
+    expect(await screen.findByText("line 3: column nStar is not a finite number ('fifty')")).toBeInTheDocument();
+    await user.upload(fileInput, new File(['# picked\nf,lambda\n5,1\n'], 'points.csv', { type: 'text/csv' }));
+    expect(await screen.findByText(/^line 2: unknown column lambda; the columns can be Lambda, f, nStar/)).toBeInTheDocument();
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+    expect(requests.filter((r) => r.method === 'POST')).toEqual([]);
+
+    const good = new File(['f,nStar\n5,50\n7.5,55\n10,60\n'], 'picked.csv', { type: 'text/csv' });
+    await user.upload(fileInput, good);
+    expect(await screen.findByText('3 points from picked.csv, columns f, nStar')).toBeInTheDocument();
+    expect(screen.getByText('3 points')).toBeInTheDocument();
+    // f and N_* come from the file, so neither is asked for as a fixed value.
+    expect(screen.queryByLabelText('f')).not.toBeInTheDocument();
+    expect(screen.getByText('N_* varies from the points file.')).toBeInTheDocument();
+    expect(await screen.findByText(/^Estimated run time: /, {}, { timeout: 5_000 })).toBeInTheDocument();
+
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans/321'));
+    expect(posts(requests)).toEqual([]);
+    const [sent] = requests.filter((r) => r.url.pathname === '/api/scans/upload');
+    const form = sent.body as FormData;
+    expect(sent.headers.get('X-Sixtyfold-Request')).toBe('upload');
+    expect((form.get('points') as File).name).toBe('picked.csv');
+    const settings = JSON.parse(String(form.get('spec')));
+    expect(settings).toEqual({
+      groupId: 10, name: 'Natural inflation, picked points', tags: [], note: '', model: { kind: 'family', family: 'natural' },
+      params: { Lambda: 5e-3 }, pivot: { kind: 'fixed' }, method: 'slowroll',
+    });
+    // With the file's points it is exactly what the API validates.
+    expect(createScanSchema.safeParse({ ...settings, pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] } }).success).toBe(true);
+  });
+
   it('maps the server’s field errors back onto the form, with its message in an alert', async () => {
     const limit = 'This scan has 2,000,000 points, 1,000,000 more than Plateau Lab’s limit of 1,000,000';
     mockForm({

@@ -224,7 +224,7 @@ describe('scan heatmaps', () => {
   });
 
   it('swaps the axes and holds a third axis with a slider that keyboards can move', async () => {
-    const spec = { ...naturalSpec, axes: [...naturalSpec.axes, { kind: 'list' as const, parameter: 'Lambda', values: [1e-3, 5e-3, 1e-2] }], params: {} };
+    const spec = { ...naturalSpec, axes: [...naturalSpec.axes!, { kind: 'list' as const, parameter: 'Lambda', values: [1e-3, 5e-3, 1e-2] }], params: {} };
     const { requests } = api(memberUser, scanDetail({}, spec), {
       'GET /api/scans/42/grid': (request) => {
         const at = Number(request.url.searchParams.get('at.Lambda') ?? 0);
@@ -268,7 +268,7 @@ describe('scan heatmaps', () => {
   });
 
   it('draws a one-axis scan as lines against its axis', async () => {
-    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes![1]], params: { Lambda: 5e-3, f: 7 } };
     const point = (pointIndex: number, nStar: number, ok = true) => ({
       pointIndex, inputs: { nStar }, status: ok ? 'ok' : 'no_end', failureReason: ok ? null : 'inflation never ends',
       ns: ok ? 0.96 : null, r: ok ? 0.05 : null, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,
@@ -287,7 +287,7 @@ describe('scan heatmaps', () => {
   });
 
   it('opens a clicked line point in the drawer too', async () => {
-    const spec = { ...naturalSpec, axes: [naturalSpec.axes[1]], params: { Lambda: 5e-3, f: 7 } };
+    const spec = { ...naturalSpec, axes: [naturalSpec.axes![1]], params: { Lambda: 5e-3, f: 7 } };
     const point = (pointIndex: number, nStar: number) => ({
       pointIndex, inputs: { nStar }, status: 'ok', failureReason: null,
       ns: 0.96, r: 0.05, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar, phiStar: null, phiEnd: null, energyScaleGeV: null,
@@ -351,6 +351,41 @@ describe('scan discussion', () => {
     expect(await within(thread).findByText('@amara.okafor', undefined, slow)).toBeInTheDocument();
     expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ body: 'Over to @amara.okafor for the exact run', pointIndex: null });
     await waitFor(() => expect(tab).toHaveAccessibleName('Discussion 4 comments'), slow);
+  });
+});
+
+describe('scan over a list of points', () => {
+  const { axes: _, ...settings } = naturalSpec;
+  const listSpec = { ...settings, name: 'Natural inflation, picked points', pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] } };
+  const plane = {
+    okPoints: 3, stride: 1, parameters: ['f', 'nStar'], pointIndex: [0, 1, 2], ns: [0.955, 0.961, 0.966], r: [0.09, 0.05, 0.02], alphaS: [-7e-4, -6e-4, -5e-4],
+    nStar: [50, 55, 60], inputs: { f: [5, 7.5, 10], nStar: [50, 55, 60] },
+  };
+  const stored = (pointIndex: number, f: number, nStar: number) => ({
+    pointIndex, inputs: { f, nStar }, status: 'ok', failureReason: null, ns: 0.96, r: 0.05, alphaS: -6e-4, As: 2.1e-9, amplitudeScale: 1,
+    nTotal: 70, nStar, phiStar: 1, phiEnd: 2, energyScaleGeV: 1e16,
+  });
+
+  it('opens on the plane, offers the points table instead of heatmaps, and never asks for a grid slice', async () => {
+    const { requests } = api(memberUser, scanDetail({}, listSpec), {
+      'GET /api/scans/42/plane': () => json(200, plane),
+      'GET /api/scans/42/points': () => json(200, { items: [stored(0, 5, 50), stored(1, 7.5, 55), stored(2, 10, 60)], total: 3, page: 1, pageSize: 50 }),
+    });
+    const { user } = renderApp('/scans/42');
+
+    expect(await screen.findByRole('tab', { name: 'n_s–r plane' }, slow)).toHaveAttribute('aria-selected', 'true');
+    expect(screen.queryByRole('tab', { name: /Heatmaps|Line plots/ })).not.toBeInTheDocument();
+    expect(await screen.findByRole('img', { name: /^n_s–r plane of Natural inflation, picked points/ }, slow)).toBeInTheDocument();
+    const settingsRegion = screen.getByRole('region', { name: 'Settings' });
+    expect(within(settingsRegion).getByText('3 from a file, columns f, N_*')).toBeInTheDocument();
+    expect(within(settingsRegion).queryByRole('table', { name: 'Scan axes' })).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('tab', { name: 'Points' }));
+    const table = await screen.findByRole('table', { name: 'Points of the scan' }, slow);
+    expect(within(table).getByRole('button', { name: 'Sort by f' })).toBeInTheDocument();
+    await waitFor(() => expect(within(table).getAllByRole('row')).toHaveLength(4), slow);
+    expect(within(table).getAllByRole('row')[2]).toHaveTextContent('7.5');
+    expect(requests.some((r) => r.url.pathname.endsWith('/grid'))).toBe(false);
   });
 });
 

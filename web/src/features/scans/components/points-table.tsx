@@ -1,5 +1,5 @@
 import { Badge, Box, Button, Field, HStack, Input, Link, NativeSelect, Stack, Table, Text } from '@chakra-ui/react';
-import { FAILURE_CODES, POINT_OUTPUTS, type ScanDetail, type ScanPointDto, type StoredScanSpec } from '@sixtyfold/shared';
+import { FAILURE_CODES, POINT_OUTPUTS, variedInputs, type ScanDetail, type ScanPointDto, type StoredScanSpec } from '@sixtyfold/shared';
 import { useState, type FormEvent } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { AppLink } from '@/components/ui/app-link';
@@ -32,7 +32,7 @@ interface Column {
 }
 
 function columnsOf(spec: StoredScanSpec): Column[] {
-  const axes = spec.axes.map((axis) => axis.parameter);
+  const axes = variedInputs(spec);
   return [
     ...axes.map((parameter) => ({ key: `input.${parameter}`, label: inputLabel(parameter), value: (p: ScanPointDto) => p.inputs[parameter] ?? null })),
     // An output that is also an axis (N_* on an axis) would repeat the same number.

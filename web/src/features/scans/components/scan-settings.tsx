@@ -50,6 +50,15 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
           {fixed.length === 0 ? 'nothing' : fixed.map(([name, value]) => `${inputLabel(name)} = ${formatValue(value)}`).join(', ')}
         </DataList.ItemValue>
       </DataList.Item>
+      {spec.pointList && (
+        <DataList.Item>
+          <DataList.ItemLabel>Points</DataList.ItemLabel>
+          <DataList.ItemValue {...mono}>
+            {`${spec.pointList.rows.length.toLocaleString('en-US')} from a file, columns ${spec.pointList.columns.map(inputLabel).join(', ')}`}
+          </DataList.ItemValue>
+        </DataList.Item>
+      )}
+      {spec.axes && (
       <DataList.Item alignItems="start">
         <DataList.ItemLabel>Axes</DataList.ItemLabel>
         <DataList.ItemValue minW="0">
@@ -62,7 +71,7 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
                   </Table.Cell>
                   <Table.Cell {...mono}>
                     {axisText(axis)}
-                    {index === spec.axes.length - 1 && spec.axes.length > 1 && (
+                    {index === spec.axes!.length - 1 && spec.axes!.length > 1 && (
                       <Text as="span" color="fg.muted" fontFamily="body">
                         {' '}
                         (varies fastest)
@@ -75,6 +84,7 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
           </Table.Root>
         </DataList.ItemValue>
       </DataList.Item>
+      )}
     </DataList.Root>
   );
 }

@@ -16,7 +16,8 @@ export const readScanView = (value: string | null): ScanView => ((SCAN_VIEWS as 
 
 /**
  * The scan's results as tabs. Only the open tab is mounted, so a live scan polls only for what is
- * on screen; each view keeps its settings in the address, so coming back finds them.
+ * on screen; each view keeps its settings in the address, so coming back finds them. A scan over
+ * a list of points has no grid to draw heatmaps of: it opens on the plane.
  */
 interface ScanViewsProps {
   scan: ScanDetail;
@@ -29,20 +30,22 @@ interface ScanViewsProps {
 
 export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViewsProps) {
   const [params, update] = useViewParams();
-  const chosen = readScanView(params.get('view'));
-  const view = chosen === 'discussion' && !discussion ? 'heatmaps' : chosen;
-  const oneAxis = spec.axes.length === 1;
+  const first: ScanView = spec.axes ? 'heatmaps' : 'plane';
+  const asked = params.get('view') === null ? first : readScanView(params.get('view'));
+  // A list scan has no heatmaps, and the discussion tab needs its thread.
+  const view = (!spec.axes && asked === 'heatmaps') || (asked === 'discussion' && !discussion) ? first : asked;
+  const oneAxis = spec.axes?.length === 1;
   return (
     <Tabs.Root
       value={view}
-      onValueChange={(details) => update({ view: details.value === 'heatmaps' ? null : details.value })}
+      onValueChange={(details) => update({ view: details.value === first ? null : details.value })}
       lazyMount
       unmountOnExit
       colorPalette="ember"
       variant="line"
     >
       <Tabs.List aria-label="Scan results">
-        <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>
+        {spec.axes && <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>}
         <Tabs.Trigger value="plane">n_s–r plane</Tabs.Trigger>
         <Tabs.Trigger value="points">Points</Tabs.Trigger>
         {discussion && (
@@ -56,9 +59,11 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViews
           </Tabs.Trigger>
         )}
       </Tabs.List>
-      <Tabs.Content value="heatmaps">
-        {oneAxis ? <ScanLinePlots scan={scan} spec={spec} pointDiscussion={pointDiscussion} /> : <ScanHeatmaps scan={scan} spec={spec} pointDiscussion={pointDiscussion} />}
-      </Tabs.Content>
+      {spec.axes && (
+        <Tabs.Content value="heatmaps">
+          {oneAxis ? <ScanLinePlots scan={scan} spec={spec} pointDiscussion={pointDiscussion} /> : <ScanHeatmaps scan={scan} spec={spec} pointDiscussion={pointDiscussion} />}
+        </Tabs.Content>
+      )}
       <Tabs.Content value="plane">
         <ScanPlaneView scan={scan} spec={spec} />
       </Tabs.Content>

@@ -16,7 +16,7 @@ describe('point index and axis indices', () => {
   it('places a heatmap cell on every axis, the others at the slice’s cut', () => {
     const cut = { x: { parameter: 'c', values: [7, 8] }, y: { parameter: 'a', values: [1, 2, 3] }, at: { b: { index: 3, value: 1 } } };
     expect(cellIndices(['a', 'b', 'c'], cut, 1, 2)).toEqual([2, 3, 1]);
-    const grid = new ScanGrid(naturalSpec.axes);
+    const grid = new ScanGrid(naturalSpec.axes!);
     // x = N_* (fast axis), y = f: cell (ix 1, iy 2) is f = 10, N_* = 55.
     const index = pointIndexOf(grid.lengths, cellIndices(['f', 'nStar'], slice('ns', [], []), 1, 2));
     expect(grid.point(index)).toEqual({ f: 10, nStar: 55 });

@@ -31,14 +31,16 @@ type ComparedOutput = (typeof COMPARED_OUTPUTS)[number];
 export function commonAxes(specs: Pick<StoredScanSpec, 'axes'>[]): string[] {
   if (specs.length === 0) return [];
   const [first, ...rest] = specs;
-  return first.axes.map((axis) => axis.parameter).filter((name) => rest.every((spec) => spec.axes.some((axis) => axis.parameter === name)));
+  // A scan over a list of points has no axes, so nothing to compare cell by cell.
+  return (first.axes ?? []).map((axis) => axis.parameter).filter((name) => rest.every((spec) => (spec.axes ?? []).some((axis) => axis.parameter === name)));
 }
 
 /** Each axis that is neither x nor y sits at its middle value, in each scan's own grid. */
 function middleOfOtherAxes(spec: StoredScanSpec, x: string, y: string): Record<string, number> {
-  const grid = new ScanGrid(spec.axes);
+  const axes = spec.axes ?? [];
+  const grid = new ScanGrid(axes);
   return Object.fromEntries(
-    spec.axes.flatMap((axis, a) => (axis.parameter === x || axis.parameter === y ? [] : [[axis.parameter, Math.floor((grid.lengths[a] - 1) / 2)]])),
+    axes.flatMap((axis, a) => (axis.parameter === x || axis.parameter === y ? [] : [[axis.parameter, Math.floor((grid.lengths[a] - 1) / 2)]])),
   );
 }
 
@@ -146,8 +148,8 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
                 const ns = sliceOf(s, 'ns');
                 const r = sliceOf(s, 'r');
                 const matched = slice && ns && r && sameCells(ns, r) && sameCells(slice, ns);
-                const grid = new ScanGrid(specs[s].axes);
-                const names = specs[s].axes.map((axis) => axis.parameter);
+                const grid = new ScanGrid(specs[s].axes ?? []);
+                const names = (specs[s].axes ?? []).map((axis) => axis.parameter);
                 return (
                   <Panel key={scan.id} p={{ base: '3', md: '4' }} minW="0">
                     {slice ? (

@@ -58,8 +58,9 @@ function SlicePanel({ query, what, children }: { query: UseQueryResult<ScanGridS
 
 /** n_s and r side by side and one output of choice, over two axes, with the others held by sliders. */
 export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps) {
-  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
-  const names = spec.axes.map((axis) => axis.parameter);
+  // Mounted for grids only (scan-views.tsx).
+  const grid = useMemo(() => new ScanGrid(spec.axes ?? []), [spec]);
+  const names = grid.axes.map((axis) => axis.parameter);
   const [params, update] = useViewParams();
 
   const xParam = params.get('x');

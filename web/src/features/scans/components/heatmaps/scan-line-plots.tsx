@@ -20,9 +20,10 @@ const THIRD_LINE_OUTPUTS = ['alphaS', 'nTotal', 'amplitudeScale'] as const satis
 
 /** A one-axis scan has no heatmap: n_s, r and one more output are drawn against its axis. */
 export function ScanLinePlots({ scan, spec, pointDiscussion }: { scan: ScanDetail; spec: StoredScanSpec; pointDiscussion?: PointDiscussion }) {
-  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
+  // Mounted for one-axis grids only (scan-views.tsx).
+  const grid = useMemo(() => new ScanGrid(spec.axes ?? []), [spec]);
   const [, openPoint] = useOpenPoint(grid.size);
-  const axis = spec.axes[0];
+  const axis = grid.axes[0];
   const values = useMemo(() => axisValues(axis), [axis]);
   const log = isLogSpaced(values);
   const line = useScanLine(scan.id, { live: isLive(scan) });

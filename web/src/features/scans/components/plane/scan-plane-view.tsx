@@ -1,5 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
-import { findLimits, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { findLimits, variedInputs, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { AppLink } from '@/components/ui/app-link';
@@ -27,7 +27,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
   const regions = useConstraintRegions(scan.groupId);
   const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions.data);
 
-  const axes = spec.axes.map((axis) => axis.parameter);
+  const axes = variedInputs(spec);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
   const colorParam = params.get('color');
   const settings: PlaneSettings = {

@@ -1,11 +1,11 @@
 import { DataList, Text } from '@chakra-ui/react';
-import type { ScanGrid, StoredScanSpec } from '@sixtyfold/shared';
+import { ScanGrid, variedInputs, type ScanPoints, type StoredScanSpec } from '@sixtyfold/shared';
 import { formatValue, inputLabel } from '../../utils/point-columns';
 import { isPivotAxis } from '../../utils/scan-spec';
 
 interface PointInputsProps {
   spec: StoredScanSpec;
-  grid: ScanGrid;
+  points: ScanPoints;
   pointIndex: number;
   /** The start the engine used, once known (families compute their own). */
   phiInitUsed?: number | null;
@@ -13,20 +13,23 @@ interface PointInputsProps {
 
 const mono = { fontFamily: 'mono' } as const;
 
-/** Where the point sits in the grid and everything else its evaluation took. */
-export function PointInputs({ spec, grid, pointIndex, phiInitUsed }: PointInputsProps) {
-  const indices = grid.indices(pointIndex);
+/** Where the point sits in the grid (or the list) and everything else its evaluation took. */
+export function PointInputs({ spec, points, pointIndex, phiInitUsed }: PointInputsProps) {
+  const grid = points instanceof ScanGrid ? points : null;
+  const indices = grid?.indices(pointIndex);
+  const values = points.point(pointIndex);
   const pivot = spec.pivot;
-  const onAxes = new Set(spec.axes.map((axis) => axis.parameter));
+  const varied = variedInputs(spec);
+  const onAxes = new Set(varied);
   return (
     <DataList.Root orientation="horizontal" size="sm" gap="2.5">
-      {spec.axes.map((axis, a) => (
-        <DataList.Item key={axis.parameter}>
-          <DataList.ItemLabel>{inputLabel(axis.parameter)}</DataList.ItemLabel>
+      {varied.map((name, a) => (
+        <DataList.Item key={name}>
+          <DataList.ItemLabel>{inputLabel(name)}</DataList.ItemLabel>
           <DataList.ItemValue {...mono}>
-            {formatValue(grid.values[a][indices[a]])}
+            {formatValue(values[name])}
             <Text as="span" color="fg.muted" fontFamily="body" ms="2">
-              axis value {indices[a] + 1} of {grid.lengths[a]}
+              {grid && indices ? `axis value ${indices[a] + 1} of ${grid.lengths[a]}` : `point ${pointIndex + 1} of ${points.size} in the list`}
             </Text>
           </DataList.ItemValue>
         </DataList.Item>

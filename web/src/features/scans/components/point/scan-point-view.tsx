@@ -1,5 +1,5 @@
 import { Alert, Badge, Button, Heading, HStack, Stack, Text } from '@chakra-ui/react';
-import { pointRequest, ScanGrid, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointRequest, scanPoints, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo, useState, type ReactNode } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
@@ -52,8 +52,8 @@ interface ScanPointViewProps {
  * browser with its trajectory (and, for the exact method, its spectrum on request).
  */
 export function ScanPointView({ scan, spec, pointIndex }: ScanPointViewProps) {
-  const grid = useMemo(() => new ScanGrid(spec.axes), [spec]);
-  const request = useMemo(() => pointRequest(spec, spec.potentialSource, grid.point(pointIndex)), [spec, grid, pointIndex]);
+  const points = useMemo(() => scanPoints(spec), [spec]);
+  const request = useMemo(() => pointRequest(spec, spec.potentialSource, points.point(pointIndex)), [spec, points, pointIndex]);
   const stored = useScanPoint(scan.id, pointIndex, { live: isLive(scan) });
   const trajectory = usePointEngine(scan.id, pointIndex, request, 'trajectory');
   const [spectrumWanted, setSpectrumWanted] = useState(false);
@@ -67,7 +67,7 @@ export function ScanPointView({ scan, spec, pointIndex }: ScanPointViewProps) {
   return (
     <Stack gap="5">
       <Section id="point-inputs" title="Inputs">
-        <PointInputs spec={spec} grid={grid} pointIndex={pointIndex} phiInitUsed={fresh?.phiInit} />
+        <PointInputs spec={spec} points={points} pointIndex={pointIndex} phiInitUsed={fresh?.phiInit} />
       </Section>
 
       <Section

@@ -4,6 +4,7 @@ import {
   type PotentialModel, type ScanModel,
 } from '@sixtyfold/shared';
 import { set, type FieldErrors, type Resolver } from 'react-hook-form';
+import type { PointsFileRead } from '../../utils/read-points-file';
 
 /**
  * The form edits a scan in the shape of `createScanSchema`, with the same field names, so the
@@ -19,6 +20,10 @@ export interface ScanFormValues {
   model: string;
   params: Record<string, number | undefined>;
   phiInit: number | undefined;
+  /** Where the points come from: the grid of `axes`, or a points file (read outside the form, see ScanFormContext). */
+  points: 'grid' | 'file';
+  /** The chosen file's name; its problems are reported on this field. */
+  pointsFile: string;
   axes: AxisDraft[];
   /** Every pivot value at once, so switching between fixed and reheating loses nothing. */
   pivot: { kind: 'fixed' | 'reheating'; nStar: number | undefined; w: number | undefined; energyGeV: number | undefined };
@@ -125,6 +130,8 @@ export function blankValues(groupId: number | undefined): ScanFormValues {
     model: familyModelKey(family.key),
     params: fixedParams(family.parameters, axes),
     phiInit: undefined,
+    points: 'grid',
+    pointsFile: '',
     axes,
     pivot: { kind: 'fixed', ...PIVOT_DEFAULTS },
     method: 'slowroll',
@@ -144,7 +151,7 @@ export function fixedParams(parameters: ModelParameter[], axes: Pick<AxisDraft, 
  * keeps what the user typed.
  */
 export function syncFixedValues(
-  values: Pick<ScanFormValues, 'params' | 'pivot' | 'axes'>,
+  values: Pick<ScanFormValues, 'params' | 'pivot'> & { axes: Pick<AxisDraft, 'parameter'>[] },
   before: string[],
   parameters: ModelParameter[],
 ): Pick<ScanFormValues, 'params' | 'pivot'> {
@@ -222,7 +229,10 @@ export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | nu
     model: s.model.kind === 'family' ? familyModelKey(s.model.family) : groupModelKey(s.model.modelId),
     params: { ...s.params },
     phiInit: s.phiInit,
-    axes: s.axes.map((axis) =>
+    // A copied list's file is not kept with the scan: the form asks for it again.
+    points: s.pointList ? 'file' : 'grid',
+    pointsFile: '',
+    axes: (s.axes ?? []).map((axis) =>
       axis.kind === 'range'
         ? { parameter: axis.parameter, kind: 'range', min: axis.min, max: axis.max, count: axis.count, spacing: axis.spacing, values: '' }
         : { parameter: axis.parameter, kind: 'list', min: undefined, max: undefined, count: undefined, spacing: 'linear', values: axis.values.join(', ') },
@@ -263,13 +273,25 @@ function badTokensMessage(bad: string[]): string {
   return `${quoted.join(', ')}${more} are not numbers`;
 }
 
+/** What the form holds besides its values: the points file as read (large, and not edited here). */
+export interface ScanFormContext {
+  pointsFile: PointsFileRead | null;
+}
+
+/** The columns of a points file that was read, else none. */
+export const fileColumns = (file: PointsFileRead | null): string[] => (file?.ok ? file.pointList.columns : []);
+
 /**
  * The body `POST /api/scans` would receive, before the schema checks it, and the problems only
- * the form can see (words in a pasted list), by field path.
+ * the form can see (words in a pasted list, a points file that does not read), by field path.
  */
-export function toScanInput(values: ScanFormValues): { input: unknown; problems: Record<string, string> } {
+export function toScanInput(values: ScanFormValues, pointsFile: PointsFileRead | null = null): { input: unknown; problems: Record<string, string> } {
   const problems: Record<string, string> = {};
-  const axes = values.axes.map((axis, i) => {
+  const fromFile = values.points === 'file';
+  if (fromFile && !pointsFile) problems.pointsFile = 'choose a points file';
+  if (fromFile && pointsFile && !pointsFile.ok) problems.pointsFile = pointsFile.message;
+  const pointList = fromFile && pointsFile?.ok ? pointsFile.pointList : undefined;
+  const axes = fromFile ? undefined : values.axes.map((axis, i) => {
     if (axis.kind === 'range') {
       const { parameter, kind, min, max, count, spacing } = axis;
       return { parameter, kind, min, max, count, spacing };
@@ -280,7 +302,7 @@ export function toScanInput(values: ScanFormValues): { input: unknown; problems:
   });
   // A quantity on an axis is not fixed as well: its fixed field is hidden meanwhile, and a value it
   // kept from before (the form library keeps the values of unmounted inputs) must not be sent.
-  const onAxis = new Set(values.axes.map((axis) => axis.parameter));
+  const onAxis = new Set(fromFile ? fileColumns(pointsFile) : values.axes.map((axis) => axis.parameter));
   const unlessOnAxis = <T,>(name: string, value: T) => (onAxis.has(name) ? undefined : value);
   const { kind } = values.pivot;
   const nStar = unlessOnAxis('nStar', values.pivot.nStar);
@@ -296,6 +318,7 @@ export function toScanInput(values: ScanFormValues): { input: unknown; problems:
     params,
     phiInit: values.phiInit,
     axes,
+    pointList,
     pivot: kind === 'fixed' ? { kind, nStar } : { kind, w, energyGeV },
     method: values.method,
     tolerance: values.tolerance,
@@ -306,10 +329,14 @@ export function toScanInput(values: ScanFormValues): { input: unknown; problems:
 const schemaResolver = zodResolver(createScanSchema);
 
 /** Validates with `createScanSchema`, the schema the API uses, after `toScanInput`. */
-export const scanFormResolver: Resolver<ScanFormValues, unknown, CreateScan> = async (values, context, options) => {
-  const { input, problems } = toScanInput(values);
+export const scanFormResolver: Resolver<ScanFormValues, ScanFormContext, CreateScan> = async (values, context, options) => {
+  const { input, problems } = toScanInput(values, context?.pointsFile ?? null);
   const result = await schemaResolver(input as never, context, options as never);
-  const errors = { ...result.errors } as FieldErrors<ScanFormValues>;
+  const { pointList, ...rest } = result.errors as FieldErrors<ScanFormValues> & { pointList?: unknown };
+  const errors = rest as FieldErrors<ScanFormValues>;
+  // The list's problems (a column also fixed, N_* twice) concern the file: shown beside it.
+  const listProblem = firstMessage(pointList);
+  if (listProblem && !problems.pointsFile) problems.pointsFile = listProblem;
   for (const [path, message] of Object.entries(problems)) set(errors, path, { type: 'custom', message });
   if (Object.keys(errors).length > 0) return { values: {}, errors };
   return { values: result.values as CreateScan, errors: {} };

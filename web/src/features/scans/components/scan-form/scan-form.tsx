@@ -1,17 +1,19 @@
-import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POTENTIAL_FAMILIES, type CreateScan, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
-import { useRef, type ReactNode } from 'react';
+import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
+import { useUploadScan } from '../../api/upload-scan';
+import { readPointsFile } from '../../utils/read-points-file';
 import { methodLabels } from '../../utils/scan-labels';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
 import {
-  chosenModel, countPoints, familyModelKey, firstMessage, groupModelKey, MAX_AXES, nextAxis, scanFormResolver, syncFixedValues, toNumber,
-  toScanInput, withAxisParameter, withGroup, withModel, type ScanFormValues,
+  chosenModel, countPoints, familyModelKey, fileColumns, firstMessage, groupModelKey, MAX_AXES, nextAxis, scanFormResolver, syncFixedValues,
+  toNumber, toScanInput, withAxisParameter, withGroup, withModel, type ScanFormContext, type ScanFormValues,
 } from './scan-form-values';
 import { useRunEstimate } from './use-run-estimate';
 
@@ -34,6 +36,8 @@ interface ScanFormProps {
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
 export function ScanForm({ groups, models, initialValues, workerSlots, onLaunched }: ScanFormProps) {
+  // One object for the form's lifetime, so the resolver always sees the file read last.
+  const context = useRef<ScanFormContext>({ pointsFile: null });
   const {
     register,
     control,
@@ -43,20 +47,48 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
     setError,
     trigger,
     formState: { errors, isSubmitted },
-  } = useForm<ScanFormValues, unknown, CreateScan>({ resolver: scanFormResolver, defaultValues: initialValues });
+  } = useForm<ScanFormValues, ScanFormContext, CreateScan>({ resolver: scanFormResolver, defaultValues: initialValues, context: context.current });
   const axisArray = useFieldArray({ control, name: 'axes' });
   const values = useWatch({ control }) as ScanFormValues;
   const addAxisButton = useRef<HTMLButtonElement>(null);
   const launch = useCreateScan({ onSuccess: onLaunched });
+  const upload = useUploadScan({ onSuccess: onLaunched });
+  const fromFile = values.points === 'file';
+  const submission = fromFile ? upload : launch;
 
   const groupModels = models.filter((m) => m.groupId === values.groupId);
   const model = chosenModel(values.model, models);
   const parameters = model?.parameters ?? [];
-  const onAxis = new Set(values.axes.map((a) => a.parameter));
+  // The file is read here with the API's own reader, again when the model (its allowed columns) changes.
+  const [chosenFile, setChosenFile] = useState<{ file: File; text: string } | null>(null);
+  const parameterNames = parameters.map((p) => p.name).join(',');
+  const pointsFile = useMemo(() => (chosenFile ? readPointsFile(chosenFile.text, parameterNames.split(',')) : null), [chosenFile, parameterNames]);
+  context.current.pointsFile = pointsFile;
+  const onAxis = new Set(fromFile ? fileColumns(pointsFile) : values.axes.map((a) => a.parameter));
   const fixedParameters = parameters.filter((p) => !onAxis.has(p.name));
+  const variedNote = (what: string) => (onAxis.has(what) ? (fromFile ? 'from the points file.' : 'on an axis.') : null);
+  // A newly read file re-validates after a failed launch, as any edit does (not on the launch itself:
+  // that would clear the server's errors).
+  const lastRead = useRef(pointsFile);
+  useEffect(() => {
+    if (lastRead.current === pointsFile) return;
+    lastRead.current = pointsFile;
+    if (isSubmitted) void trigger();
+  }, [pointsFile, isSubmitted, trigger]);
+  // Switching between grid and file, or reading another file, changes what is varied: what a
+  // column now sets is no longer fixed, and what left the columns gets its default back.
+  const varied = [...onAxis].join(',');
+  const previousVaried = useRef(varied);
+  useEffect(() => {
+    const before = previousVaried.current.split(',').filter(Boolean);
+    previousVaried.current = varied;
+    if (before.join(',') === varied) return;
+    const now = varied.split(',').filter(Boolean).map((parameter) => ({ parameter }));
+    apply({ ...getValues(), ...syncFixedValues({ ...getValues(), axes: now }, before, parameters) });
+  }, [varied]);
 
   // The same check as the submit button, on every edit, so the summary only times a valid scan.
-  const { input, problems } = toScanInput(values);
+  const { input, problems } = toScanInput(values, pointsFile);
   const parsed = createScanSchema.safeParse(input);
   const spec = parsed.success && model && Object.keys(problems).length === 0 ? { ...parsed.data, phiInit: parsed.data.phiInit ?? model.phiInit ?? undefined } : null;
   const estimate = useRunEstimate(spec, model?.source ?? null);
@@ -89,14 +121,26 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
     addAxisButton.current?.focus();
   };
 
+  const onError = (error: Error) => {
+    // A refused file (a line, a column) comes without fields.
+    if (fromFile && isFieldRefusal(error) && Object.keys(error.fieldErrors).length === 0) {
+      setError('pointsFile', { type: 'server', message: error.message });
+    }
+    // The API checks with the same schema and more (the model, the point limit): show its words where
+    // they belong, the point list's beside the file.
+    applyFieldErrors(error, setError, (field) => (field.startsWith('pointList') ? 'pointsFile' : field));
+  };
   const onSubmit = handleSubmit((scan) =>
-    launch.mutate(scan, {
-      // The API checks with the same schema and more (the model, the point limit): show its words where they belong.
-      onError: (error) => applyFieldErrors(error, setError),
-    }),
+    fromFile && chosenFile ? upload.mutate({ spec: scan, file: chosenFile.file }, { onError }) : launch.mutate(scan, { onError }),
   );
 
-  const refused = isFieldRefusal(launch.error);
+  const chooseFile = async (file: File | undefined) => {
+    setChosenFile(file ? { file, text: await file.text() } : null);
+    setValue('pointsFile', file?.name ?? '');
+  };
+
+  const refused = isFieldRefusal(submission.error);
+  const fileProblem = pointsFile && !pointsFile.ok ? pointsFile.message : errors.pointsFile?.message;
   const axesError = errors.axes?.message ?? errors.axes?.root?.message;
 
   return (
@@ -227,39 +271,64 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
           </Stack>
         </Fieldset.Root>
 
-        <Fieldset.Root invalid={!!axesError}>
+        <Fieldset.Root invalid={fromFile ? !!fileProblem : !!axesError}>
           <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900">
-            Axes
+            Points
           </Fieldset.Legend>
-          <Fieldset.HelperText mb="3">
-            Up to {MAX_AXES}. The grid is every combination of their values; the last axis runs fastest.
-          </Fieldset.HelperText>
-          <Stack gap="4">
-            {axisArray.fields.map((field, index) => (
-              <AxisFields
-                key={field.id}
-                index={index}
-                kind={values.axes[index]?.kind ?? 'range'}
-                parameter={values.axes[index]?.parameter ?? ''}
-                parameters={parameters}
-                register={register}
-                errors={errors.axes?.[index]}
-                onParameterChange={(parameter) => apply(withAxisParameter(getValues(), index, parameter, parameters))}
-                onRemove={axisArray.fields.length > 1 ? () => removeAxis(index) : undefined}
-              />
-            ))}
-            {axesError && <Fieldset.ErrorText>{axesError}</Fieldset.ErrorText>}
-            <Button
-              ref={addAxisButton}
-              alignSelf="start"
-              variant="outline"
-              size="sm"
-              onClick={addAxis}
-              disabled={axisArray.fields.length >= MAX_AXES}
-            >
-              Add axis
-            </Button>
-          </Stack>
+          <SegmentGroup.Root
+            size="sm"
+            my="3"
+            value={values.points}
+            onValueChange={(details) => setValue('points', details.value === 'file' ? 'file' : 'grid')}
+            aria-label="Where the points come from"
+          >
+            <SegmentGroup.Indicator />
+            <SegmentGroup.Items items={[{ value: 'grid', label: 'Grid' }, { value: 'file', label: 'Points from a file' }]} />
+          </SegmentGroup.Root>
+          {fromFile ? (
+            <Field.Root invalid={!!fileProblem}>
+              <Field.Label>Points file (.csv, at most {POINTS_CSV_MAX_BYTES / 1024 / 1024} MB)</Field.Label>
+              <Input type="file" accept=".csv,text/csv" p="1" onChange={(event) => void chooseFile(event.target.files?.[0])} />
+              <Field.HelperText>
+                {pointsFile?.ok
+                  ? `${pointsFile.pointList.rows.length.toLocaleString('en-US')} points from ${values.pointsFile}, columns ${pointsFile.pointList.columns.join(', ')}`
+                  : 'A header naming the varied parameters (and nStar, reheatingW or reheatingEnergyGeV), then one point per line.'}
+              </Field.HelperText>
+              <Field.ErrorText>{fileProblem}</Field.ErrorText>
+            </Field.Root>
+          ) : (
+            <>
+              <Fieldset.HelperText mb="3">
+                Up to {MAX_AXES} axes. The grid is every combination of their values; the last axis runs fastest.
+              </Fieldset.HelperText>
+              <Stack gap="4">
+                {axisArray.fields.map((field, index) => (
+                  <AxisFields
+                    key={field.id}
+                    index={index}
+                    kind={values.axes[index]?.kind ?? 'range'}
+                    parameter={values.axes[index]?.parameter ?? ''}
+                    parameters={parameters}
+                    register={register}
+                    errors={errors.axes?.[index]}
+                    onParameterChange={(parameter) => apply(withAxisParameter(getValues(), index, parameter, parameters))}
+                    onRemove={axisArray.fields.length > 1 ? () => removeAxis(index) : undefined}
+                  />
+                ))}
+                {axesError && <Fieldset.ErrorText>{axesError}</Fieldset.ErrorText>}
+                <Button
+                  ref={addAxisButton}
+                  alignSelf="start"
+                  variant="outline"
+                  size="sm"
+                  onClick={addAxis}
+                  disabled={axisArray.fields.length >= MAX_AXES}
+                >
+                  Add axis
+                </Button>
+              </Stack>
+            </>
+          )}
         </Fieldset.Root>
 
         <Fieldset.Root>
@@ -283,17 +352,17 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
               </Field.HelperText>
             </Field.Root>
             {values.pivot.kind === 'fixed' ? (
-              <PivotValue label="N_*" onAxisNote={onAxis.has('nStar') ? 'N_* varies on an axis.' : null} error={errors.pivot?.nStar?.message}>
+              <PivotValue label="N_*" onAxisNote={variedNote('nStar') && `N_* varies ${variedNote('nStar')}`} error={errors.pivot?.nStar?.message}>
                 <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.nStar', { setValueAs: toNumber })} />
               </PivotValue>
             ) : (
               <>
-                <PivotValue label="w_reh" onAxisNote={onAxis.has('reheatingW') ? 'w_reh varies on an axis.' : null} error={errors.pivot?.w?.message}>
+                <PivotValue label="w_reh" onAxisNote={variedNote('reheatingW') && `w_reh varies ${variedNote('reheatingW')}`} error={errors.pivot?.w?.message}>
                   <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.w', { setValueAs: toNumber })} />
                 </PivotValue>
                 <PivotValue
                   label="ρ_reh^1/4 (GeV)"
-                  onAxisNote={onAxis.has('reheatingEnergyGeV') ? 'The reheating energy varies on an axis.' : null}
+                  onAxisNote={variedNote('reheatingEnergyGeV') && `The reheating energy varies ${variedNote('reheatingEnergyGeV')}`}
                   error={errors.pivot?.energyGeV?.message}
                 >
                   <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.energyGeV', { setValueAs: toNumber })} />
@@ -324,16 +393,16 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
           </SimpleGrid>
         </Fieldset.Root>
 
-        <LaunchSummary points={countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
+        <LaunchSummary points={fromFile ? (pointsFile?.ok ? pointsFile.pointList.rows.length : null) : countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
 
-        {launch.isError && (
+        {submission.isError && (
           <FailureAlert title={refused ? 'The server refused this scan' : 'Could not launch the scan'}>
-                {/[.!?]$/.test(launch.error.message) ? launch.error.message : `${launch.error.message}.`}{' '}
-                {refused ? 'Correct the marked fields and launch again.' : errorAdvice(launch.error)}
-              </FailureAlert>
+            {/[.!?]$/.test(submission.error.message) ? submission.error.message : `${submission.error.message}.`}{' '}
+            {refused ? 'Correct the marked fields and launch again.' : errorAdvice(submission.error)}
+          </FailureAlert>
         )}
 
-        <Button type="submit" colorPalette="ember" alignSelf={{ base: 'stretch', sm: 'start' }} loading={launch.isPending} loadingText="Launching…">
+        <Button type="submit" colorPalette="ember" alignSelf={{ base: 'stretch', sm: 'start' }} loading={submission.isPending} loadingText="Launching…">
           Launch scan
         </Button>
       </Stack>

@@ -1,4 +1,4 @@
-import { pointRequest, ScanGrid, type CreateScan } from '@sixtyfold/shared';
+import { pointRequest, scanPoints, type CreateScan } from '@sixtyfold/shared';
 import { useEffect, useState } from 'react';
 
 /** Points timed per estimate: enough to average out one slow point, few enough to feel instant. */
@@ -40,8 +40,8 @@ export function useRunEstimate(spec: CreateScan | null, potentialSource: string 
     let current = true;
     const timer = setTimeout(async () => {
       const { spec: s, potentialSource: source } = JSON.parse(key) as { spec: CreateScan; potentialSource: string };
-      const grid = new ScanGrid(s.axes);
-      const requests = sampleIndices(grid.size).map((i) => pointRequest(s, source, grid.point(i)));
+      const points = scanPoints(s);
+      const requests = sampleIndices(points.size).map((i) => pointRequest(s, source, points.point(i)));
       let estimate: RunEstimate;
       try {
         // The first point of a potential parses and compiles it (and warms the JIT): evaluate it
