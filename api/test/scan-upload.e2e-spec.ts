@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import type { ChildProcess } from 'node:child_process';
 import { Like } from 'typeorm';
-import { pointRequest, RequestEvaluator, ScanPointList, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointRequest, POINTS_CSV_MAX_BYTES, RequestEvaluator, ScanPointList, type StoredScanSpec } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
@@ -126,10 +126,10 @@ describe('scans from an uploaded points file', () => {
   it('refuses a file over the limit (413) and a file of another type (415), storing nothing', async () => {
     const before = await scanCount();
     const row = '1.000000000000,55.000000000000\n';
-    const huge = `f,nStar\n${row.repeat(Math.ceil((32 * 1024 * 1024) / row.length) + 1)}`;
+    const huge = `f,nStar\n${row.repeat(Math.ceil(POINTS_CSV_MAX_BYTES / row.length) + 1)}`;
     const tooLarge = await upload(member, settings('too large'), huge);
     expect(tooLarge.status).toBe(413);
-    expect(tooLarge.body.message).toBe('The file is larger than the limit of 32 MB');
+    expect(tooLarge.body.message).toBe('The file is larger than the limit of 8 MB');
     const wrongType = await upload(member, settings('wrong type'), pointsCsv, 'points.xlsx', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet');
     expect(wrongType.status).toBe(415);
     expect(await scanCount()).toBe(before);

@@ -31,6 +31,13 @@ export const scanAxisSchema = z.discriminatedUnion('kind', [rangeAxisSchema, lis
 export type ScanAxis = z.infer<typeof scanAxisSchema>;
 
 /**
+ * At most this many points in a list. The list is part of the stored spec, which every chunk job
+ * and every read of the scan carries (about 1.5 MB of JSON at the limit); a grid of a million
+ * points is a few numbers, a list of a million would be tens of megabytes in each.
+ */
+export const POINT_LIST_MAX_POINTS = 50_000;
+
+/**
  * Points given one by one instead of a grid: `columns` names what each row sets (model
  * parameters, nStar, reheatingW, reheatingEnergyGeV, as an axis would), row i is point i.
  */
@@ -39,7 +46,7 @@ export const pointListSchema = z.object({
   rows: z
     .array(z.array(finite('every value')))
     .min(1, 'the point list has no points')
-    .max(DEFAULT_POINT_LIMIT, `a point list has at most ${DEFAULT_POINT_LIMIT.toLocaleString('en-US')} points`),
+    .max(POINT_LIST_MAX_POINTS, `a point list has at most ${POINT_LIST_MAX_POINTS.toLocaleString('en-US')} points`),
 });
 export type PointList = z.infer<typeof pointListSchema>;
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { POINT_LIST_MAX_POINTS } from '../schemas/scan.schema.js';
 import { pointsCsvReader } from './points-file.schema.js';
 
 /** Feeds CSV text line by line, as the API's parser does after splitting cells. */
@@ -34,5 +35,9 @@ describe('pointsCsvReader', () => {
     expect(() => reader.finish()).toThrow('the file is empty; it needs a header naming the columns, then one point per line');
     expect(() => read('f,nStar')).toThrow('line 1: the file has a header but no points');
     expect(() => read('f\n1\n2\n3', { maxRows: 2 })).toThrow('line 4: a points file has at most 2 points');
+    // By default the limit of a stored point list: 50,000 rows read, the next one refused on its own line.
+    const rows = Array.from({ length: POINT_LIST_MAX_POINTS }, (_, i) => String(i + 1)).join('\n');
+    expect(read(`f\n${rows}`).pointList.rows).toHaveLength(POINT_LIST_MAX_POINTS);
+    expect(() => read(`f\n${rows}\n7`)).toThrow(`line ${POINT_LIST_MAX_POINTS + 2}: a points file has at most 50,000 points`);
   });
 });

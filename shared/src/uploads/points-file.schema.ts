@@ -1,8 +1,9 @@
 import { z } from 'zod';
-import { DEFAULT_POINT_LIMIT, PIVOT_AXES, type PointList } from '../schemas/scan.schema.js';
+import { PIVOT_AXES, POINT_LIST_MAX_POINTS, type PointList } from '../schemas/scan.schema.js';
 import { csvNumber, UploadRejected, type CsvRowReader } from './upload-problem.js';
 
-export const POINTS_CSV_MAX_BYTES = 32 * 1024 * 1024;
+/** Room for the largest list (POINT_LIST_MAX_POINTS rows) with several long-decimal columns. */
+export const POINTS_CSV_MAX_BYTES = 8 * 1024 * 1024;
 
 /**
  * The text field sent beside the points file in `POST /api/scans/upload`: the create-scan body
@@ -26,7 +27,7 @@ export interface PointsFile {
  * (the model's), any other column is refused at once; without it the API checks them against
  * the model after reading, and reports them on the header line too.
  */
-export function pointsCsvReader({ parameters, maxRows = DEFAULT_POINT_LIMIT }: { parameters?: string[]; maxRows?: number } = {}): CsvRowReader<PointsFile> {
+export function pointsCsvReader({ parameters, maxRows = POINT_LIST_MAX_POINTS }: { parameters?: string[]; maxRows?: number } = {}): CsvRowReader<PointsFile> {
   const rows: number[][] = [];
   let columns: string[] | undefined;
   let headerLine = 1;
