@@ -51,7 +51,7 @@ export class ScansController {
     summary: 'Submit a scan over the points of a CSV file (needs the member role in the group)',
     description: 'The header names the varied inputs (model parameters, nStar, reheatingW, reheatingEnergyGeV), each row is one point. A refused file is a 400 with the line.',
   })
-  @ApiZodMultipart(scanUploadFieldsSchema, 'points', 'The scan settings (`spec`, JSON of the create-scan body without axes) and the points file (CSV, at most 32 MB)')
+  @ApiZodMultipart(scanUploadFieldsSchema, 'points', 'The scan settings (`spec`, JSON of the create-scan body without axes) and the points file (CSV, at most 8 MB)')
   @ApiZodResponse(201, scanDetailSchema, 'The stored scan, status `queued`')
   @ApiErrorResponses(400, 401, 403, 404, 413, 415)
   upload(
