@@ -1,5 +1,5 @@
 import { InjectQueue } from '@nestjs/bull';
-import { Injectable } from '@nestjs/common';
+import { ConflictException, Injectable } from '@nestjs/common';
 import type { Queue } from 'bull';
 import { chunkJobId, chunkPriority, COMPUTE_CHUNK_JOB, SCAN_QUEUE, scanChunks, type ComputeChunkJob, type ScanMethod } from '@sixtyfold/shared';
 
@@ -10,13 +10,8 @@ export class ScanQueueService {
 
   async enqueue(scanId: number, total: number, method: ScanMethod, only?: ReadonlySet<number>): Promise<number> {
     const chunks = scanChunks(scanId, total, method).filter((c) => !only || only.has(c.chunk));
-    if (only) {
-      // A finished job keeps its id in Redis for a while; clear it so the chunk can run again.
-      for (const c of chunks) {
-        const job = await this.queue.getJob(chunkJobId(scanId, c.chunk));
-        if (job && ((await job.isFailed()) || (await job.isCompleted()))) await job.remove();
-      }
-    }
+    // A chunk queued again (a retry) must not meet its earlier job: bull adds nothing under an id it still holds.
+    if (only) for (const c of chunks) await this.clearFinishedJob(chunkJobId(scanId, c.chunk));
     await this.queue.addBulk(
       chunks.map((data) => ({
         name: COMPUTE_CHUNK_JOB,
@@ -32,6 +27,26 @@ export class ScanQueueService {
       })),
     );
     return chunks.length;
+  }
+
+  /**
+   * Removes a chunk's finished job. Its points are stored before bull hears the job is done, so
+   * right after a scan finishes the last job can still be active for a moment: wait that out.
+   */
+  private async clearFinishedJob(jobId: string): Promise<void> {
+    for (let attempt = 0; attempt < 50; attempt++) {
+      const job = await this.queue.getJob(jobId);
+      if (!job) return;
+      const state = await job.getState();
+      if (state === 'waiting' || state === 'delayed' || state === 'paused') return;
+      if (state === 'completed' || state === 'failed') {
+        // Removed by bull itself meanwhile (removeOnComplete) is as good; look again.
+        const removed = await job.remove().then(() => true, () => false);
+        if (removed) return;
+      }
+      await new Promise((resolve) => setTimeout(resolve, 100));
+    }
+    throw new ConflictException('A worker is still finishing this scan; try again in a moment');
   }
 
   /** Takes a scan's waiting chunks off the queue; chunks already running stop on their own. */
