@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { heading, openBrowser, settled, shot, signIn, signOut, webUrl, type BrowserSession } from './support/browser';
+import { heading, settled, shot, signIn, signOut, webUrl, useBrowserSession } from './support/browser';
 
 // The lead of "Plateau Models" comments on a heatmap cell and mentions a member of the group.
 const LEAD = 'henrik.solberg@halvorsen.example';
@@ -8,17 +8,8 @@ const GROUP = 'plateau-models';
 const stamp = new Date().toISOString().replace(/\D/g, '').slice(0, 14);
 const COMMENT = `the ridge at this f is worth a second look ${stamp}`;
 
-let session: BrowserSession;
 let page: Page;
-
-beforeAll(async () => {
-  session = await openBrowser();
-  page = session.page;
-});
-
-afterAll(async () => {
-  await session?.close();
-});
+useBrowserSession((session) => (page = session.page));
 
 /** A finished 3 × 3 slow-roll scan of natural inflation, submitted through the API as the signed-in user. */
 async function finishedScan(): Promise<number> {

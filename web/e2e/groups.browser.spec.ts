@@ -1,5 +1,5 @@
 import type { Page } from 'playwright-core';
-import { heading, mainNav, openBrowser, settled, shot, signIn, signOut, webUrl, type BrowserSession } from './support/browser';
+import { heading, mainNav, settled, shot, signIn, signOut, webUrl, useBrowserSession } from './support/browser';
 
 // A site admin acts as a lead in every group, so one account sends the invitation and reads the outbox.
 const ADMIN = 'amara.okafor@halvorsen.example';
@@ -8,17 +8,8 @@ const GROUP = 'Plateau Models';
 const stamp = new Date().toISOString().replace(/\D/g, '').slice(0, 14);
 const NEWCOMER = { email: `new.student.${stamp}@halvorsen.example`, name: `Noor Haddad ${stamp}`, password: 'reheating-check-7' };
 
-let session: BrowserSession;
 let page: Page;
-
-beforeAll(async () => {
-  session = await openBrowser();
-  page = session.page;
-});
-
-afterAll(async () => {
-  await session?.close();
-});
+useBrowserSession((session) => (page = session.page));
 
 describe('bringing a newcomer into a group by e-mail', () => {
   it('invites an address, finds the e-mail in the outbox, and the link creates the account in the group', async () => {

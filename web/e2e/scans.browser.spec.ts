@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import type { Page } from 'playwright-core';
-import { heading, mainNav, openBrowser, settled, shot, signIn, webUrl, type BrowserSession } from './support/browser';
+import { heading, mainNav, settled, shot, signIn, webUrl, useBrowserSession } from './support/browser';
 
 // A group lead of the demo scenario: may create models and launch scans in "Plateau Models".
 const LEAD = 'henrik.solberg@halvorsen.example';
@@ -16,17 +16,8 @@ const BAD_EXPRESSION = 'V0 * (1 - expp(-sqrt(2 / (3 * alpha)) * phi))^2';
 const ALPHAS = '1, 2, 3';
 const POINTS = 9;
 
-let session: BrowserSession;
 let page: Page;
-
-beforeAll(async () => {
-  session = await openBrowser();
-  page = session.page;
-});
-
-afterAll(async () => {
-  await session?.close();
-});
+useBrowserSession((session) => (page = session.page));
 
 /** The id of the scan whose page is open. */
 const scanIdOnPage = () => Number(new URL(page.url()).pathname.match(/^\/scans\/(\d+)/)?.[1]);

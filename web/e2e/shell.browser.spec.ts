@@ -1,27 +1,18 @@
 import type { BrowserContext, Page } from 'playwright-core';
-import { heading as headingOn, mainNav as mainNavOn, openBrowser, settled as settledOn, shot as shotOn, signIn as signInOn, webUrl, DEMO_PASSWORD, type BrowserSession } from './support/browser';
+import { heading as headingOn, mainNav as mainNavOn, settled as settledOn, shot as shotOn, signIn as signInOn, useBrowserSession, webUrl, DEMO_PASSWORD } from './support/browser';
 
 const email = process.env.SIXTYFOLD_DEMO_EMAIL ?? 'amara.okafor@halvorsen.example';
 const password = DEMO_PASSWORD;
 
-let session: BrowserSession;
 let context: BrowserContext;
 let page: Page;
+useBrowserSession((session) => ({ context, page } = session));
 
 const shot = (name: string) => shotOn(page, name);
 const heading = (name: string) => headingOn(page, name);
 const mainNav = () => mainNavOn(page);
 const settled = () => settledOn(page);
 const signIn = (withPassword: string) => signInOn(page, email, withPassword);
-
-beforeAll(async () => {
-  session = await openBrowser();
-  ({ context, page } = session);
-});
-
-afterAll(async () => {
-  await session?.close();
-});
 
 describe('Sixtyfold web shell', () => {
   it('signs in, visits the main pages and signs out', async () => {

@@ -61,6 +61,18 @@ export async function openBrowser(): Promise<BrowserSession> {
   };
 }
 
+/** One chromium for the whole test file: opened before its tests, closed after them. */
+export function useBrowserSession(onOpen: (session: BrowserSession) => void): void {
+  let session: BrowserSession | undefined;
+  beforeAll(async () => {
+    session = await openBrowser();
+    onOpen(session);
+  });
+  afterAll(async () => {
+    await session?.close();
+  });
+}
+
 export const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `${name}.png`), fullPage: true });
 export const heading = (page: Page, name: string | RegExp) => page.getByRole('heading', { name, level: 1, exact: typeof name === 'string' });
 export const mainNav = (page: Page) => page.getByRole('navigation', { name: 'Main' });

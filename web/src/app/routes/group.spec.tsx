@@ -282,13 +282,18 @@ describe('group constraint regions', () => {
     createdAt: '2026-12-01T10:00:00.000Z',
   });
   const csv = (text: string) => new File([text], 'survey-b.csv', { type: 'text/csv' });
-
-  it('uploads a region as a multipart form and lists it', async () => {
-    let regions = [region(4, 'Survey A', 2)];
-    const { requests } = mockApi({
+  /** The group page as a member of Plateau Lab, with these routes besides. */
+  const asMember = (routes: Parameters<typeof mockApi>[0] = {}) =>
+    mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
       ...otherSections(),
       'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
+      ...routes,
+    });
+
+  it('uploads a region as a multipart form and lists it', async () => {
+    let regions = [region(4, 'Survey A', 2)];
+    const { requests } = asMember({
       'GET /api/constraint-regions': () => json(200, regions),
       'POST /api/constraint-regions': (request) => {
         const form = request.body as FormData;
@@ -321,11 +326,7 @@ describe('group constraint regions', () => {
   });
 
   it('checks the fields with the shared schema and asks for the file before sending', async () => {
-    const { requests } = mockApi({
-      'GET /api/auth/me': () => json(200, memberUser),
-      ...otherSections(),
-      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
-    });
+    const { requests } = asMember();
     const { user } = renderApp('/groups/10');
     const form = await screen.findByRole('form', { name: 'Upload a constraint region' });
     await user.type(within(form).getByLabelText('Confidence level'), '95');
@@ -338,11 +339,7 @@ describe('group constraint regions', () => {
   });
 
   it('refuses a file over 1 MB before sending it', async () => {
-    const { requests } = mockApi({
-      'GET /api/auth/me': () => json(200, memberUser),
-      ...otherSections(),
-      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
-    });
+    const { requests } = asMember();
     const { user } = renderApp('/groups/10');
     const form = await screen.findByRole('form', { name: 'Upload a constraint region' });
     await user.type(within(form).getByLabelText('Name'), 'Survey B');
@@ -355,10 +352,7 @@ describe('group constraint regions', () => {
   });
 
   it('shows the line of a refused file', async () => {
-    mockApi({
-      'GET /api/auth/me': () => json(200, memberUser),
-      ...otherSections(),
-      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
+    asMember({
       'POST /api/constraint-regions': () => apiError(400, 'line 4: n_s must lie between 0 and 2 (found 9.65)', undefined, 4),
     });
     const { user } = renderApp('/groups/10');
@@ -377,10 +371,7 @@ describe('group constraint regions', () => {
 
   it('deletes a region only after confirmation, and only where the API would allow it', async () => {
     let regions = [region(4, 'Survey A', 2), region(5, 'Survey C', 7)];
-    const { requests } = mockApi({
-      'GET /api/auth/me': () => json(200, memberUser),
-      ...otherSections(),
-      'GET /api/groups/10': () => json(200, { ...plateauLab(), myRole: 'member' }),
+    const { requests } = asMember({
       'GET /api/constraint-regions': () => json(200, regions),
       'DELETE /api/constraint-regions/4': () => {
         regions = regions.filter((r) => r.id !== 4);
