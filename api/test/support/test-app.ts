@@ -74,9 +74,9 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     },
     async close() {
       await db.destroy();
-      // A 500 is the API's own failure: show its stack, which the test's assertion cannot.
+      // A 5xx is logged with its stack, which a test's failed assertion cannot show.
       const failures = unexpectedErrors(output);
-      if (failures) process.stderr.write(`the API logged unexpected errors:\n${failures}\n`);
+      if (failures) process.stderr.write(`the API answered with server errors (5xx), logged as:\n${failures}\n`);
       if (child.exitCode !== null) return;
       await new Promise<void>((resolve) => {
         child.once('exit', () => resolve());
@@ -86,7 +86,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
   };
 }
 
-/** The API's ERROR log entries of unexpected exceptions (with their stacks), empty when there were none. */
+/** The API's ERROR log entries of 5xx answers (with their stacks), empty when there were none. */
 function unexpectedErrors(output: string): string {
   const entries = output.split(/\n(?=\[Nest\])/);
   return entries.filter((entry) => /\bERROR \[ApiExceptionFilter\]/.test(entry)).join('\n');
