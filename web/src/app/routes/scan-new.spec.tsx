@@ -272,6 +272,29 @@ describe('New scan page', { timeout: 30_000 }, () => {
     expect(posts(requests)[0].body).toEqual({ ...submitted, name: 'Copy of Bump position sweep' });
   });
 
+  it('starts a copy of a list scan with the same points, sent again as a file', async () => {
+    const spec: StoredScanSpec = {
+      groupId: 10, name: 'Picked points', tags: [], note: '', model: { kind: 'family', family: 'natural' },
+      params: { Lambda: 5e-3 }, pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.25, 55.125], [10, 60]] },
+      pivot: { kind: 'fixed' }, method: 'slowroll', potentialSource: 'Lambda^4 * (1 + cos(phi / f))',
+    };
+    const { requests } = mockForm({
+      'GET /api/scans/56': () =>
+        json(200, { ...scan({ id: 56, name: 'Picked points', status: 'completed' }), note: '', spec, startedAt: null, progress: { total: 3, done: 3, failed: 0, running: 0, queued: 0, elapsedSeconds: 1, remainingSeconds: 0 } }),
+      'POST /api/scans/upload': (request) => json(201, created(JSON.parse(String((request.body as FormData).get('spec'))))),
+    });
+    const { user } = renderApp('/scans/new?from=56');
+    await formReady();
+
+    expect(await screen.findByText('3 points from points of Picked points.csv, columns f, nStar')).toBeInTheDocument();
+    expect(screen.getByRole('radio', { name: 'Points from a file' })).toBeChecked();
+    await user.click(screen.getByRole('button', { name: 'Launch scan' }));
+    await waitFor(() => expect(requests.some((r) => r.url.pathname === '/api/scans/upload')).toBe(true));
+    const form = requests.find((r) => r.url.pathname === '/api/scans/upload')!.body as FormData;
+    expect(await (form.get('points') as File).text()).toBe('f,nStar\n5,50\n7.25,55.125\n10,60\n');
+    expect(JSON.parse(String(form.get('spec')))).toMatchObject({ name: 'Copy of Picked points', params: { Lambda: 5e-3 } });
+  });
+
   it('says when the scan to copy cannot be loaded, and offers a blank form', async () => {
     mockForm({ 'GET /api/scans/404': () => apiError(404, 'No such scan') });
     renderApp('/scans/new?from=404');

@@ -1,4 +1,4 @@
-import { CSV_PARSE_OPTIONS, csvReadProblem, pointsCsvReader, type PointsFile, type UploadProblem } from '@sixtyfold/shared';
+import { CSV_PARSE_OPTIONS, csvReadProblem, pointsCsvReader, type PointList, type PointsFile, type UploadProblem } from '@sixtyfold/shared';
 import { parse } from 'csv-parse/browser/esm/sync';
 
 export type PointsFileRead = ({ ok: true } & PointsFile) | ({ ok: false } & UploadProblem);
@@ -19,4 +19,14 @@ export function readPointsFile(text: string, parameters: string[]): PointsFileRe
     if (!problem) throw error;
     return { ok: false, ...problem };
   }
+}
+
+/**
+ * A stored point list as the points file it came from (header, then one row per point), so a
+ * copied scan starts with its points chosen; `String(x)` keeps every double exactly.
+ */
+export function pointsFileOf(list: PointList, name: string): { file: File; text: string } {
+  const lines = [list.columns.join(','), ...list.rows.map((row) => row.map(String).join(','))];
+  const text = `${lines.join('\n')}\n`;
+  return { file: new File([text], name, { type: 'text/csv' }), text };
 }

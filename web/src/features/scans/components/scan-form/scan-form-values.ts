@@ -1,7 +1,7 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import {
   createScanSchema, findFamily, PIVOT_AXES, POTENTIAL_FAMILIES, type CreateScan, type ModelParameter, type PivotAxis,
-  type PotentialModel, type ScanModel,
+  type PointList, type PotentialModel, type ScanModel,
 } from '@sixtyfold/shared';
 import { set, type FieldErrors, type Resolver } from 'react-hook-form';
 import type { PointsFileRead } from '../../utils/read-points-file';
@@ -216,6 +216,12 @@ export function countPoints(axes: AxisDraft[]): number | null {
   return total;
 }
 
+/** The point list of an earlier scan's stored specification, when it was a scan over a list. */
+export const pointListFromSpec = (spec: unknown): PointList | undefined => createScanSchema.safeParse(spec).data?.pointList;
+
+/** The name of the points file a copied list scan starts with. */
+export const copiedPointsFileName = (scanName: string) => `points of ${scanName}.csv`;
+
 /** The form values of an earlier scan's stored specification, named "Copy of …"; null if it does not read as a scan. */
 export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | null {
   const parsed = createScanSchema.safeParse(spec);
@@ -229,9 +235,9 @@ export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | nu
     model: s.model.kind === 'family' ? familyModelKey(s.model.family) : groupModelKey(s.model.modelId),
     params: { ...s.params },
     phiInit: s.phiInit,
-    // A copied list's file is not kept with the scan: the form asks for it again.
+    // A copied list comes back as a file of the same points (see ScanForm's initialPoints).
     points: s.pointList ? 'file' : 'grid',
-    pointsFile: '',
+    pointsFile: s.pointList ? copiedPointsFileName(name) : '',
     axes: (s.axes ?? []).map((axis) =>
       axis.kind === 'range'
         ? { parameter: axis.parameter, kind: 'range', min: axis.min, max: axis.max, count: axis.count, spacing: axis.spacing, values: '' }

@@ -1,5 +1,5 @@
 import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
@@ -7,7 +7,7 @@ import { FailureAlert } from '@/components/ui/failure-alert';
 import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { useUploadScan } from '../../api/upload-scan';
-import { readPointsFile } from '../../utils/read-points-file';
+import { pointsFileOf, readPointsFile } from '../../utils/read-points-file';
 import { methodLabels } from '../../utils/scan-labels';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
@@ -28,6 +28,8 @@ interface ScanFormProps {
   /** Group models; the form offers those of the chosen group. */
   models: PotentialModel[];
   initialValues: ScanFormValues;
+  /** The points of a copied list scan, which the form starts with as if chosen from a file. */
+  initialPoints?: PointList;
   /** Total concurrency of the live workers, for the run-time estimate. */
   workerSlots: WorkerSlots;
   onLaunched: (scan: ScanDetail) => void;
@@ -35,7 +37,7 @@ interface ScanFormProps {
 
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
-export function ScanForm({ groups, models, initialValues, workerSlots, onLaunched }: ScanFormProps) {
+export function ScanForm({ groups, models, initialValues, initialPoints, workerSlots, onLaunched }: ScanFormProps) {
   // One object for the form's lifetime, so the resolver always sees the file read last.
   const context = useRef<ScanFormContext>({ pointsFile: null });
   const {
@@ -60,7 +62,9 @@ export function ScanForm({ groups, models, initialValues, workerSlots, onLaunche
   const model = chosenModel(values.model, models);
   const parameters = model?.parameters ?? [];
   // The file is read here with the API's own reader, again when the model (its allowed columns) changes.
-  const [chosenFile, setChosenFile] = useState<{ file: File; text: string } | null>(null);
+  const [chosenFile, setChosenFile] = useState<{ file: File; text: string } | null>(() =>
+    initialPoints ? pointsFileOf(initialPoints, initialValues.pointsFile) : null,
+  );
   const parameterNames = parameters.map((p) => p.name).join(',');
   const pointsFile = useMemo(() => (chosenFile ? readPointsFile(chosenFile.text, parameterNames.split(',')) : null), [chosenFile, parameterNames]);
   context.current.pointsFile = pointsFile;
