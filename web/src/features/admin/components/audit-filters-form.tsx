@@ -57,7 +57,7 @@ export function AuditFiltersForm({ value, onChange, actors, groups }: AuditFilte
 
   // Actions and target types come from the shared lists the API checks against.
   const select = (key: 'action' | 'actorId' | 'groupId' | 'targetType', label: string, any: string, options: SelectOption[]) => (
-    <Field.Root w="auto" minW="44">
+    <Field.Root w="auto" minW="44" maxW="60">
       <Field.Label fontSize="sm">{label}</Field.Label>
       <NativeSelect.Root size="sm">
         <NativeSelect.Field bg="bg.panel" value={draft[key]} onChange={set(key)}>
