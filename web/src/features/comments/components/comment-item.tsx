@@ -2,6 +2,7 @@ import { Box, Button, HStack, Stack, Text } from '@chakra-ui/react';
 import type { CommentBody, CommentDto, CommentPerson } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { DateTime } from '@/components/ui/date-time';
+import { RemoveButton } from '@/components/ui/remove-button';
 import type { CommentPermissions } from '../utils/comment-permissions';
 import { CommentForm } from './comment-form';
 import { CommentText } from './comment-text';
@@ -54,9 +55,9 @@ export function CommentItem({ comment, can, people, onSave, onDelete }: CommentI
                 </Button>
               )}
               {can.remove && (
-                <Button size="xs" variant="ghost" colorPalette="red" onClick={onDelete} aria-label="Delete comment">
+                <RemoveButton label="Delete comment" onClick={onDelete}>
                   Delete
-                </Button>
+                </RemoveButton>
               )}
             </HStack>
           )}

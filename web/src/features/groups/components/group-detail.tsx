@@ -2,6 +2,7 @@ import { Badge, Button, HStack, Heading, NativeSelect, Stack, Table, Text } from
 import { GROUP_ROLES, type GroupDetail as Group, type GroupMember, type GroupRole } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { Panel } from '@/components/ui/panel';
+import { RemoveButton } from '@/components/ui/remove-button';
 import { RoleBadge } from '@/components/ui/role-badge';
 import { useChangeMemberRole } from '../api/change-member-role';
 import { RemoveMemberDialog } from './remove-member-dialog';
@@ -103,9 +104,9 @@ export function GroupDetail({ group, canManage, myUserId, onLeft }: GroupDetailP
                           </Button>
                         ) : (
                           canManage && (
-                            <Button size="xs" variant="ghost" colorPalette="red" aria-label={`Remove ${member.displayName}`} onClick={() => setRemoving(member)}>
+                            <RemoveButton label={`Remove ${member.displayName}`} onClick={() => setRemoving(member)}>
                               Remove
-                            </Button>
+                            </RemoveButton>
                           )
                         )}
                       </Table.Cell>

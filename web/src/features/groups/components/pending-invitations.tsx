@@ -1,10 +1,11 @@
-import { Button, Table, Text } from '@chakra-ui/react';
+import { Table, Text } from '@chakra-ui/react';
 import type { Invitation } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { DateTime } from '@/components/ui/date-time';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
+import { RemoveButton } from '@/components/ui/remove-button';
 import { RoleBadge } from '@/components/ui/role-badge';
 import { useInvitations } from '../api/get-invitations';
 import { useRevokeInvitation } from '../api/revoke-invitation';
@@ -50,9 +51,9 @@ export function PendingInvitations({ groupId }: { groupId: number }) {
                   <DateTime iso={invitation.expiresAt} />
                 </Table.Cell>
                 <Table.Cell textAlign="end">
-                  <Button size="xs" variant="ghost" colorPalette="red" aria-label={`Revoke the invitation to ${invitation.email}`} onClick={() => setRevoking(invitation)}>
+                  <RemoveButton label={`Revoke the invitation to ${invitation.email}`} onClick={() => setRevoking(invitation)}>
                     Revoke
-                  </Button>
+                  </RemoveButton>
                 </Table.Cell>
               </Table.Row>
             ))}

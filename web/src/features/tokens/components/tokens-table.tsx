@@ -1,6 +1,7 @@
-import { Badge, Button, Table, Text } from '@chakra-ui/react';
+import { Badge, Table, Text } from '@chakra-ui/react';
 import type { ApiToken } from '@sixtyfold/shared';
 import { DateTime } from '@/components/ui/date-time';
+import { RemoveButton } from '@/components/ui/remove-button';
 
 interface TokensTableProps {
   tokens: ApiToken[];
@@ -54,9 +55,9 @@ export function TokensTable({ tokens, onRevoke, now = new Date() }: TokensTableP
                   )}
                 </Table.Cell>
                 <Table.Cell textAlign="end">
-                  <Button size="xs" variant="outline" colorPalette="red" onClick={() => onRevoke(token)} aria-label={`Revoke ${token.name}`}>
+                  <RemoveButton label={`Revoke ${token.name}`} onClick={() => onRevoke(token)}>
                     Revoke
-                  </Button>
+                  </RemoveButton>
                 </Table.Cell>
               </Table.Row>
             );

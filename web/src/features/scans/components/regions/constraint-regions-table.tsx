@@ -1,6 +1,7 @@
-import { Button, Table, Text } from '@chakra-ui/react';
+import { Table, Text } from '@chakra-ui/react';
 import type { ConstraintRegion } from '@sixtyfold/shared';
 import { DateTime } from '@/components/ui/date-time';
+import { RemoveButton } from '@/components/ui/remove-button';
 import { confidenceLabel } from '../../utils/plane-figure';
 
 interface ConstraintRegionsTableProps {
@@ -39,9 +40,9 @@ export function ConstraintRegionsTable({ regions, canRemove, onRemove }: Constra
               </Table.Cell>
               <Table.Cell textAlign="end">
                 {canRemove(region) && (
-                  <Button size="xs" variant="ghost" colorPalette="red" aria-label={`Delete ${region.name}`} onClick={() => onRemove(region)}>
+                  <RemoveButton label={`Delete ${region.name}`} onClick={() => onRemove(region)}>
                     Delete
-                  </Button>
+                  </RemoveButton>
                 )}
               </Table.Cell>
             </Table.Row>

@@ -1,6 +1,7 @@
-import { Button, Field, Fieldset, HStack, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea, VisuallyHidden } from '@chakra-ui/react';
+import { Field, Fieldset, HStack, Input, NativeSelect, SimpleGrid, Stack, Text, Textarea, VisuallyHidden } from '@chakra-ui/react';
 import type { ModelParameter } from '@sixtyfold/shared';
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
+import { RemoveButton } from '@/components/ui/remove-button';
 import { firstMessage, PIVOT_AXIS_INFO, toNumber, type AxisDraft, type ScanFormValues } from './scan-form-values';
 
 interface AxisFieldsProps {
@@ -36,9 +37,9 @@ export function AxisFields({ index, kind, parameter, parameters, register, error
           Axis {n}
         </Fieldset.Legend>
         {onRemove && (
-          <Button size="xs" variant="ghost" colorPalette="red" onClick={onRemove} aria-label={`Remove axis ${n}`}>
+          <RemoveButton label={`Remove axis ${n}`} onClick={onRemove}>
             Remove
-          </Button>
+          </RemoveButton>
         )}
       </HStack>
       <Stack gap="4">
