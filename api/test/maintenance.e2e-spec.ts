@@ -329,6 +329,11 @@ describe('storage, pruning, archives and retention', () => {
     expect(event).toMatchObject({ actorId: null, groupId: tensorId });
     expect(event.details).toMatchObject({ reason: 'retention', points: 4 });
     expect(await t.db.getRepository(ScanArchive).findOneByOrFail({ scanId: expired })).toMatchObject({ createdById: null, points: 4 });
+    // What the nightly job deleted, as a maintainer finds it: the deletions nobody made by hand.
+    const unattended = await admin.get('/api/admin/audit-events').query({ action: 'scan.delete', actorId: 'none', groupId: tensorId, pageSize: 200 });
+    expect(unattended.status).toBe(200);
+    expect(unattended.body.items.map((e: { targetId: string }) => Number(e.targetId)).sort((a: number, b: number) => a - b)).toEqual([...dueIds].sort((a, b) => a - b));
+    expect(unattended.body.items.every((e: { actorId: number | null }) => e.actorId === null)).toBe(true);
 
     // The nightly job: registered at boot with the configured time.
     const storage = await admin.get('/api/maintenance/storage');

@@ -17,7 +17,8 @@ export interface AuditQuery {
   page: number;
   pageSize: number;
   action?: AuditAction;
-  actorId?: number;
+  /** `none`: the events no user caused. */
+  actorId?: number | 'none';
   groupId?: number;
   targetType?: AuditTargetType;
   /** ISO date or date-time, inclusive. */
@@ -54,7 +55,8 @@ export class AuditService {
       .skip((query.page - 1) * query.pageSize)
       .take(query.pageSize);
     if (query.action) qb.andWhere('e.action = :action', { action: query.action });
-    if (query.actorId) qb.andWhere('e.actorId = :actorId', { actorId: query.actorId });
+    if (query.actorId === 'none') qb.andWhere('e.actorId IS NULL');
+    else if (query.actorId) qb.andWhere('e.actorId = :actorId', { actorId: query.actorId });
     if (query.groupId) qb.andWhere('e.groupId = :groupId', { groupId: query.groupId });
     if (query.targetType) qb.andWhere('e.targetType = :targetType', { targetType: query.targetType });
     // Plain dates are UTC days, as the page shows them.

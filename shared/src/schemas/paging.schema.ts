@@ -10,7 +10,8 @@ export type PageQuery = z.infer<typeof pageQuerySchema>;
 
 export const auditQuerySchema = pageQuerySchema.extend({
   action: z.enum(AUDIT_ACTIONS, { error: 'not an action the audit log records' }).optional(),
-  actorId: z.coerce.number().int().positive().optional(),
+  /** A user's id, or `none` for what happened without one (the nightly retention, sign-ins of unknown addresses). */
+  actorId: z.union([z.literal('none'), z.coerce.number().int().positive()], { error: 'actorId is a user id or none' }).optional(),
   groupId: z.coerce.number().int().positive().optional(),
   targetType: z.enum(AUDIT_TARGET_TYPES, { error: 'not a target type of the audit log' }).optional(),
   /** ISO date or date-time; `from` inclusive, `to` exclusive (a plain date `to` means up to the end of that day). */

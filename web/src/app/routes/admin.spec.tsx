@@ -58,6 +58,16 @@ describe('admin audit filters', () => {
     expect(within(form).getByLabelText('To')).toHaveValue('2026-11-30');
   });
 
+  it('filters to what no user did (the nightly retention, unknown sign-ins) with actorId=none', async () => {
+    const { requests } = mockAdmin();
+    const { user, router } = renderApp('/admin');
+    const form = await screen.findByRole('search', { name: 'Filter audit events' });
+    await user.selectOptions(within(form).getByLabelText('Actor'), 'No one (automatic)');
+    await user.click(within(form).getByRole('button', { name: 'Filter' }));
+    await waitFor(() => expect(new URLSearchParams(router.state.location.search).get('actorId')).toBe('none'));
+    await waitFor(() => expect(auditQueries(requests).at(-1)).toEqual({ page: '1', pageSize: '20', actorId: 'none' }));
+  });
+
   it('leaves out values the API would refuse', async () => {
     const { requests } = mockAdmin();
     renderApp('/admin?actorId=someone&groupId=-3&from=yesterday&targetType=group');

@@ -78,7 +78,7 @@ export function AuditFiltersForm({ value, onChange, actors, groups }: AuditFilte
       <Stack gap="3">
         <HStack gap="3" align="end" wrap="wrap">
           {select('action', 'Action', 'Any action', byName(AUDIT_ACTIONS))}
-          {select('actorId', 'Actor', 'Anyone', byId(actors))}
+          {select('actorId', 'Actor', 'Anyone', [{ value: 'none', label: 'No one (automatic)' }, ...byId(actors)])}
           {select('groupId', 'Group', 'Any group', byId(groups))}
           {select('targetType', 'Target type', 'Any target', byName(AUDIT_TARGET_TYPES))}
           <Field.Root w="auto" invalid={!!rangeError}>
