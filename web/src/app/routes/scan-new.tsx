@@ -1,6 +1,6 @@
 import { Alert, Button, Stack } from '@chakra-ui/react';
 import { groupRoleAtLeast, type ScanDetail } from '@sixtyfold/shared';
-import { lazy, Suspense, type ReactNode } from 'react';
+import { lazy, Suspense, useMemo, type ReactNode } from 'react';
 import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -14,7 +14,7 @@ import { useGroups } from '@/features/groups/api/get-groups';
 import { useModels } from '@/features/models/api/get-models';
 import { useScan } from '@/features/scans/api/get-scan';
 import type { LaunchGroup } from '@/features/scans/components/scan-form/scan-form';
-import { blankValues, pointListFromSpec, valuesFromSpec, withGroup } from '@/features/scans/components/scan-form/scan-form-values';
+import { blankValues, copyOfSpec, withGroup } from '@/features/scans/components/scan-form/scan-form-values';
 import { useWorkerPool } from '@/features/workers/api/get-worker-pool';
 import { workerSlots } from '@/features/workers/utils/worker-slots';
 import { useDocumentTitle } from '@/hooks/use-document-title';
@@ -72,6 +72,8 @@ function NewScanPage({ source }: { source?: ScanDetail }) {
   const allGroups = useGroups({ enabled: admin });
   const models = useModels();
   const pool = useWorkerPool();
+  // Parsed once: a list scan's spec can hold 50,000 points, and the page re-renders on every pool poll.
+  const copied = useMemo(() => (source ? copyOfSpec(source.spec, source.name) : null), [source]);
 
   if (models.isPending || (admin && allGroups.isPending)) {
     return (
@@ -104,8 +106,7 @@ function NewScanPage({ source }: { source?: ScanDetail }) {
     );
   }
 
-  const copied = source ? valuesFromSpec(source.spec, source.name) : null;
-  const start = copied ?? blankValues(groups[0].id);
+  const start = copied?.values ?? blankValues(groups[0].id);
   const movedGroup = !groups.some((g) => g.id === start.groupId);
   const initialValues = movedGroup ? withGroup(start, groups[0].id, models.data) : start;
   const slots = pool.data ? workerSlots(pool.data) : pool.isError ? 'unavailable' : 'loading';
@@ -136,7 +137,7 @@ function NewScanPage({ source }: { source?: ScanDetail }) {
             groups={groups}
             models={models.data}
             initialValues={initialValues}
-            initialPoints={copied && source ? pointListFromSpec(source.spec) : undefined}
+            initialPoints={copied?.pointList}
             workerSlots={slots}
             onLaunched={(scan) => navigate(paths.scan.getHref(scan.id))}
           />

@@ -216,17 +216,20 @@ export function countPoints(axes: AxisDraft[]): number | null {
   return total;
 }
 
-/** The point list of an earlier scan's stored specification, when it was a scan over a list. */
-export const pointListFromSpec = (spec: unknown): PointList | undefined => createScanSchema.safeParse(spec).data?.pointList;
-
 /** The name of the points file a copied list scan starts with. */
 export const copiedPointsFileName = (scanName: string) => `points of ${scanName}.csv`;
 
-/** The form values of an earlier scan's stored specification, named "Copy of …"; null if it does not read as a scan. */
-export function valuesFromSpec(spec: unknown, name: string): ScanFormValues | null {
+/**
+ * A copy of an earlier scan's stored specification, named "Copy of …": the form values and, for a
+ * scan over a list, its points; null if it does not read as a scan.
+ */
+export function copyOfSpec(spec: unknown, name: string): { values: ScanFormValues; pointList?: PointList } | null {
   const parsed = createScanSchema.safeParse(spec);
   if (!parsed.success) return null;
-  const s = parsed.data;
+  return { values: valuesOf(parsed.data, name), pointList: parsed.data.pointList };
+}
+
+function valuesOf(s: CreateScan, name: string): ScanFormValues {
   return {
     groupId: s.groupId,
     name: `Copy of ${name}`.slice(0, 200),
