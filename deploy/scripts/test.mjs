@@ -70,9 +70,13 @@ const env = {
   FORCE_COLOR: '0',
 };
 
-log('building shared, api, worker and web');
+// The web bundle (and its type check) is built for a full run and for the browser tests; a run of
+// only the API or worker suites skips it, since the API serves no web app in those tests.
+const buildWeb = filters.size === 0 || wanted('web') || wanted('browser');
+const workspaces = ['shared', 'api', 'worker', ...(buildWeb ? ['web'] : [])];
+log(`building ${workspaces.join(', ')}`);
 // Built without NODE_ENV, so that Vite makes a production bundle whatever the profile.
-npmRun(['run', '--silent', 'build'], { ...env, NODE_ENV: undefined });
+npmRun(['run', '--silent', 'build', ...workspaces.flatMap((w) => ['-w', w])], { ...env, NODE_ENV: undefined });
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
 npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
 
