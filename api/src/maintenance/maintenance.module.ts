@@ -12,9 +12,10 @@ import { RetentionService } from './retention.service';
 import { ScanArchivesService } from './scan-archives.service';
 import { ScanDeletionService } from './scan-deletion.service';
 import { StorageService } from './storage.service';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
+  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule, SchedulingModule],
   controllers: [MaintenanceController],
   providers: [MaintenanceAccessService, ScanArchivesService, ScanDeletionService, StorageService, PruneService, RetentionService],
   exports: [ScanDeletionService],

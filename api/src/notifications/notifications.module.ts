@@ -5,9 +5,10 @@ import { NotificationsAdminController } from './notifications-admin.controller';
 import { NotificationsController, PreferencesController } from './notifications.controller';
 import { NotificationsService } from './notifications.service';
 import { ScanFinishNotifierService } from './scan-finish-notifier.service';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 
 @Module({
-  imports: [MailModule],
+  imports: [MailModule, SchedulingModule],
   controllers: [NotificationsController, PreferencesController, NotificationsAdminController],
   providers: [NotificationsService, ScanFinishNotifierService, NotificationSchedulerService],
   exports: [NotificationsService],

@@ -12,9 +12,10 @@ import { ScanReconcilerService } from './scan-reconciler.service';
 import { ScanResultsService } from './scan-results.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })
