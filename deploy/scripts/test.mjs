@@ -40,6 +40,8 @@ ensureDebianPackages({
   ...profilePackages(profile),
   chromium: 'chromium',
   '/usr/share/fonts/truetype/dejavu': 'fonts-dejavu-core',
+  // The multi-machine test stands in for other machines with network namespaces.
+  ip: 'iproute2',
 });
 
 let services = [];
