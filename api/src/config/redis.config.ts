@@ -21,8 +21,11 @@ export interface RedisConfig {
   /** The ACL user; without one Redis takes the password for its `default` user. */
   username?: string;
   password?: string;
-  /** Set for rediss:// URLs: TLS with the system's CAs, or with `ca` when REDIS_TLS_CA_FILE is given. */
-  tls: { ca?: string; servername: string } | null;
+  /**
+   * Set for rediss:// URLs: TLS with the system's CAs, or with `ca` when REDIS_TLS_CA_FILE is given.
+   * Node checks that the certificate names the URL's host.
+   */
+  tls: { ca?: string } | null;
   /** host:port/db as user, for messages (never the password). */
   label: string;
 }
@@ -46,7 +49,7 @@ export function readRedisConfig(env: NodeJS.ProcessEnv = process.env): RedisConf
     username,
     password: url.password ? decodeURIComponent(url.password) : undefined,
     tls: useTls
-      ? { servername: url.hostname, ...(e.REDIS_TLS_CA_FILE ? { ca: readPemFile('redis', 'REDIS_TLS_CA_FILE', e.REDIS_TLS_CA_FILE) } : {}) }
+      ? e.REDIS_TLS_CA_FILE ? { ca: readPemFile('redis', 'REDIS_TLS_CA_FILE', e.REDIS_TLS_CA_FILE) } : {}
       : null,
     label: `${url.hostname}:${port}/${db}${username ? ` as ${username}` : ''}${useTls ? ' (TLS)' : ''}`,
   };
