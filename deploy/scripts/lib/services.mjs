@@ -73,10 +73,11 @@ function socketPath(dataDir) {
 /**
  * Starts a private MariaDB server in `dir` on `port` of the `bind` addresses (127.0.0.1 by
  * default) and makes sure `database` and its user exist, allowed in from `clientHosts` (MariaDB
- * host patterns). Returns the child process (or null when one of ours was already running).
+ * host patterns); `serverArgs` are added to mariadbd's (TLS files, for instance). Returns the
+ * child process (or null when one of ours was already running).
  */
 export async function startMariaDb({
-  dir: givenDir, port, database, user, password, freshDatabase = false, bind = ['127.0.0.1'], clientHosts = ['127.0.0.1'],
+  dir: givenDir, port, database, user, password, freshDatabase = false, bind = ['127.0.0.1'], clientHosts = ['127.0.0.1'], serverArgs = [],
 }) {
   const dir = path.resolve(givenDir);
   const dataDir = path.join(dir, 'data');
@@ -108,7 +109,7 @@ export async function startMariaDb({
       `--bind-address=${bind.join(',')}`, `--port=${port}`, `--socket=${socket}`,
       `--pid-file=${path.join(dir, 'run', 'mysqld.pid')}`, `--log-error=${errorLog}`,
       '--skip-name-resolve', '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-      '--innodb-buffer-pool-size=256M', '--max-connections=300',
+      '--innodb-buffer-pool-size=256M', '--max-connections=300', ...serverArgs,
     ], { stdio: ['ignore', out, out], detached: true });
     child.once('exit', (code) => { if (code) log(`MariaDB exited with ${code}; see ${errorLog}`); });
     await waitUntil(ping, 'MariaDB', 60_000, errorLog);
@@ -129,9 +130,10 @@ export async function startMariaDb({
 /**
  * Starts a private Redis in `dir` on `port` of the `bind` addresses (127.0.0.1 by default),
  * append-only so queued work survives a restart. With `acl` ({ user, password, rules }) the
- * `default` user is switched off and only that user, with those ACL rules, may sign in.
+ * `default` user is switched off and only that user, with those ACL rules, may sign in;
+ * `serverArgs` are added to redis-server's (a TLS port, for instance).
  */
-export async function startRedis({ dir: givenDir, port, flush = false, bind = ['127.0.0.1'], acl = null }) {
+export async function startRedis({ dir: givenDir, port, flush = false, bind = ['127.0.0.1'], acl = null, serverArgs = [] }) {
   const dir = path.resolve(givenDir);
   mkdirSync(dir, { recursive: true });
   const logFile = path.join(dir, 'redis.log');
@@ -149,7 +151,7 @@ export async function startRedis({ dir: givenDir, port, flush = false, bind = ['
       '--bind', ...bind, '--port', String(port), '--dir', dir,
       ...(acl ? ['--user', 'default', 'off', '--user', acl.user, 'on', `>${acl.password}`, ...acl.rules] : []),
       '--appendonly', 'yes', '--appenddirname', 'aof', '--appendfsync', 'everysec', '--save', '',
-      '--logfile', logFile, '--pidfile', path.join(dir, 'redis.pid'), '--daemonize', 'no',
+      '--logfile', logFile, '--pidfile', path.join(dir, 'redis.pid'), '--daemonize', 'no', ...serverArgs,
     ], { stdio: 'ignore', detached: true });
     child.once('exit', (code) => { if (code) log(`Redis exited with ${code}; see ${logFile}`); });
     await waitUntil(ping, 'Redis', 30_000, logFile);
