@@ -4,6 +4,7 @@ import { AuditModule } from '../audit/audit.module';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { GroupsModule } from '../groups/groups.module';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 import { ScanArchive } from './entities/scan-archive.entity';
 import { MaintenanceAccessService } from './maintenance-access.service';
 import { MaintenanceController } from './maintenance.controller';
@@ -12,7 +13,6 @@ import { RetentionService } from './retention.service';
 import { ScanArchivesService } from './scan-archives.service';
 import { ScanDeletionService } from './scan-deletion.service';
 import { StorageService } from './storage.service';
-import { SchedulingModule } from '../scheduling/scheduling.module';
 
 @Module({
   imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule, SchedulingModule],

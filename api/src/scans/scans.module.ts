@@ -4,6 +4,7 @@ import { AuditModule } from '../audit/audit.module';
 import { GroupsModule } from '../groups/groups.module';
 import { MaintenanceModule } from '../maintenance/maintenance.module';
 import { QueueModule } from '../queue/queue.module';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
@@ -12,7 +13,6 @@ import { ScanReconcilerService } from './scan-reconciler.service';
 import { ScanResultsService } from './scan-results.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
-import { SchedulingModule } from '../scheduling/scheduling.module';
 
 @Module({
   imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule],
