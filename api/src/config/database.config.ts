@@ -14,7 +14,7 @@ const schema = z.object({
   /** true: connect over TLS and verify the server's certificate (refuse a plain connection). */
   DATABASE_TLS: booleanish.default(false),
   /** CA certificate (PEM) that signed the server's certificate; implies DATABASE_TLS=true. */
-  DATABASE_TLS_CA_FILE: z.string().min(1).optional(),
+  DATABASE_TLS_CA_FILE: z.string().optional(),
 });
 
 export interface DatabaseConfig {
@@ -32,7 +32,7 @@ export interface DatabaseConfig {
 export function readDatabaseConfig(env: NodeJS.ProcessEnv = process.env): DatabaseConfig {
   const parsed = parseEnv(schema, env, 'database');
   const url = new URL(parsed.DATABASE_URL.replace(/^mariadb:/, 'mysql:'));
-  const useTls = parsed.DATABASE_TLS || parsed.DATABASE_TLS_CA_FILE !== undefined;
+  const useTls = parsed.DATABASE_TLS || Boolean(parsed.DATABASE_TLS_CA_FILE);
   return {
     host: url.hostname,
     port: Number(url.port || 3306),
