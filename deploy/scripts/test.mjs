@@ -40,6 +40,9 @@ ensureDebianPackages({
   ...profilePackages(profile),
   chromium: 'chromium',
   '/usr/share/fonts/truetype/dejavu': 'fonts-dejavu-core',
+  // The multi-host test stands in for other machines with network namespaces, and makes its TLS certificates.
+  ip: 'iproute2',
+  openssl: 'openssl',
 });
 
 let services = [];

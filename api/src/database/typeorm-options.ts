@@ -13,6 +13,8 @@ export function buildDataSourceOptions(config: DatabaseConfig): DataSourceOption
     password: config.password,
     database: config.database,
     poolSize: config.poolSize,
+    // mysql2 verifies the server's certificate (rejectUnauthorized) whenever TLS is on.
+    ...(config.tls ? { ssl: { ...config.tls, rejectUnauthorized: true } } : {}),
     charset: 'utf8mb4_unicode_ci',
     timezone: 'Z',
     entities: ENTITIES,

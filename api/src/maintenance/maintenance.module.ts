@@ -4,6 +4,7 @@ import { AuditModule } from '../audit/audit.module';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { GroupsModule } from '../groups/groups.module';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 import { ScanArchive } from './entities/scan-archive.entity';
 import { MaintenanceAccessService } from './maintenance-access.service';
 import { MaintenanceController } from './maintenance.controller';
@@ -14,7 +15,7 @@ import { ScanDeletionService } from './scan-deletion.service';
 import { StorageService } from './storage.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
+  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule, SchedulingModule],
   controllers: [MaintenanceController],
   providers: [MaintenanceAccessService, ScanArchivesService, ScanDeletionService, StorageService, PruneService, RetentionService],
   exports: [ScanDeletionService],

@@ -2,7 +2,6 @@ import { Injectable, Logger, type OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { SchedulerRegistry } from '@nestjs/schedule';
-import { CronJob } from 'cron';
 import { IsNull, Not, type DataSource } from 'typeorm';
 import { prunableStatusSchema, type PrunableStatus, type RetentionPolicy, type RetentionRun, type StorageReport } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
@@ -10,6 +9,7 @@ import type { SessionUser } from '../common/session-user';
 import type { MaintenanceConfig } from '../config/maintenance.config';
 import { Group } from '../groups/entities/group.entity';
 import { GroupAccessService } from '../groups/group-access.service';
+import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { PruneService } from './prune.service';
 
 export const RETENTION_JOB = 'retention';
@@ -26,23 +26,20 @@ export class RetentionService implements OnModuleInit {
     private readonly access: GroupAccessService,
     private readonly audit: AuditService,
     private readonly prune: PruneService,
+    private readonly runs: ScheduledRunsService,
   ) {}
 
-  // The time comes from configuration, so the job is registered here rather than with @Cron.
+  // The time comes from configuration, so the job is registered here rather than with @Cron;
+  // with several API processes, each night's run happens in one of them.
   onModuleInit(): void {
     const { retentionCron, retentionTimeZone } = this.config.getOrThrow<MaintenanceConfig>('maintenance');
-    const job = CronJob.from({
-      cronTime: retentionCron,
-      timeZone: retentionTimeZone,
-      onTick: () => {
-        this.applyAll().then(
-          (run) => this.logger.log(`retention run: ${run.groups.map((g) => `group ${g.groupId} ${g.deleted} scans`).join(', ') || 'no policies'}`),
-          (err: Error) => this.logger.error(`retention run failed: ${err.stack ?? err.message}`),
-        );
-      },
-    });
+    const job = this.runs.cron(RETENTION_JOB, retentionCron, retentionTimeZone, () =>
+      this.applyAll().then(
+        (run) => this.logger.log(`retention run: ${run.groups.map((g) => `group ${g.groupId} ${g.deleted} scans`).join(', ') || 'no policies'}`),
+        (err: Error) => this.logger.error(`retention run failed: ${err.stack ?? err.message}`),
+      ),
+    );
     this.scheduler.addCronJob(RETENTION_JOB, job);
-    job.start();
   }
 
   schedule(): StorageReport['retention'] {

@@ -1,14 +1,14 @@
 import { Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { SchedulerRegistry } from '@nestjs/schedule';
-import { CronJob } from 'cron';
 import type { NotificationsConfig } from '../config/notifications.config';
+import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { NotificationsService } from './notifications.service';
 import { ScanFinishNotifierService } from './scan-finish-notifier.service';
 
 const DIGEST_JOB = 'notification-digest';
 
-/** The timed parts: a short tick (finished scans, immediate e-mails) and the daily digest. */
+/** The timed parts: a short tick (finished scans, immediate e-mails) and the daily digest, each run in one API process. */
 @Injectable()
 export class NotificationSchedulerService implements OnApplicationBootstrap, OnApplicationShutdown {
   private readonly logger = new Logger('NotificationScheduler');
@@ -20,14 +20,16 @@ export class NotificationSchedulerService implements OnApplicationBootstrap, OnA
     private readonly registry: SchedulerRegistry,
     private readonly notifications: NotificationsService,
     private readonly finishes: ScanFinishNotifierService,
+    private readonly runs: ScheduledRunsService,
   ) {}
 
   onApplicationBootstrap(): void {
     const { intervalSeconds, digestCron } = this.config.getOrThrow<NotificationsConfig>('notifications');
-    if (intervalSeconds > 0) this.timer = setInterval(() => void this.tick(), intervalSeconds * 1000);
-    const job = CronJob.from({ cronTime: digestCron, onTick: () => void this.notifications.sendDigests().catch((err: Error) => this.logger.warn(`digest run failed: ${err.message}`)) });
+    if (intervalSeconds > 0) this.timer = this.runs.every('notification-tick', intervalSeconds * 1000, () => this.tick());
+    const job = this.runs.cron(DIGEST_JOB, digestCron, undefined, () =>
+      this.notifications.sendDigests().catch((err: Error) => this.logger.warn(`digest run failed: ${err.message}`)),
+    );
     this.registry.addCronJob(DIGEST_JOB, job);
-    job.start();
   }
 
   onApplicationShutdown(): void {

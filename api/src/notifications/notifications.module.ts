@@ -1,5 +1,6 @@
 import { Module } from '@nestjs/common';
 import { MailModule } from '../mail/mail.module';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 import { NotificationSchedulerService } from './notification-scheduler.service';
 import { NotificationsAdminController } from './notifications-admin.controller';
 import { NotificationsController, PreferencesController } from './notifications.controller';
@@ -7,7 +8,7 @@ import { NotificationsService } from './notifications.service';
 import { ScanFinishNotifierService } from './scan-finish-notifier.service';
 
 @Module({
-  imports: [MailModule],
+  imports: [MailModule, SchedulingModule],
   controllers: [NotificationsController, PreferencesController, NotificationsAdminController],
   providers: [NotificationsService, ScanFinishNotifierService, NotificationSchedulerService],
   exports: [NotificationsService],

@@ -1,25 +1,19 @@
 import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
-import { createClient } from 'redis';
 import type { RedisConfig } from '../config/redis.config';
+import { connectRedis, type RedisClient } from './redis-connection';
 
 export const REDIS_CLIENT = Symbol('REDIS_CLIENT');
-export type RedisClient = ReturnType<typeof createClient>;
+export type { RedisClient };
 
-/** One node-redis connection for sessions and health checks (bull keeps its own). */
+/** One node-redis connection for sessions, health checks and scheduled-run claims (bull keeps its own). */
 @Global()
 @Module({
   providers: [
     {
       provide: REDIS_CLIENT,
       inject: [ConfigService],
-      useFactory: async (config: ConfigService): Promise<RedisClient> => {
-        const client = createClient({ url: config.getOrThrow<RedisConfig>('redis').url });
-        // Errors while Redis restarts are logged by the health check; reconnection is automatic.
-        client.on('error', () => undefined);
-        await client.connect();
-        return client;
-      },
+      useFactory: (config: ConfigService): Promise<RedisClient> => connectRedis(config.getOrThrow<RedisConfig>('redis')),
     },
   ],
   exports: [REDIS_CLIENT],

@@ -4,6 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import { chunkSize, scanChunks } from '@sixtyfold/shared';
 import type { AppConfig } from '../config/app.config';
+import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { Scan } from './entities/scan.entity';
 import { completeIfAllStored } from './scan-completion';
 import { ScanQueueService } from './scan-queue.service';
@@ -13,6 +14,8 @@ import { ScanQueueService } from './scan-queue.service';
  * still queued or running gets the chunks whose points are missing put back on the queue
  * (existing jobs keep their ids, so nothing runs twice), and a scan whose points are all
  * stored is marked completed. A Redis that lost its data, or jobs that vanished, still finish.
+ * The periodic pass runs in one API process per interval; the pass at start runs in each process
+ * as it starts (re-queueing is idempotent by job id).
  */
 @Injectable()
 export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicationShutdown {
@@ -24,12 +27,13 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
     @InjectDataSource() private readonly db: DataSource,
     private readonly queue: ScanQueueService,
     private readonly config: ConfigService,
+    private readonly runs: ScheduledRunsService,
   ) {}
 
   onApplicationBootstrap(): void {
     const seconds = this.config.getOrThrow<AppConfig>('app').reconcileIntervalSeconds;
     void this.reconcileAll();
-    if (seconds > 0) this.timer = setInterval(() => void this.reconcileAll(), seconds * 1000);
+    if (seconds > 0) this.timer = this.runs.every('scan-reconcile', seconds * 1000, () => this.reconcileAll());
   }
 
   onApplicationShutdown(): void {

@@ -4,6 +4,7 @@ import { AuditModule } from '../audit/audit.module';
 import { GroupsModule } from '../groups/groups.module';
 import { MaintenanceModule } from '../maintenance/maintenance.module';
 import { QueueModule } from '../queue/queue.module';
+import { SchedulingModule } from '../scheduling/scheduling.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
@@ -14,7 +15,7 @@ import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })

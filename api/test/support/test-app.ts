@@ -29,25 +29,38 @@ function freePort(): Promise<number> {
   });
 }
 
+export interface TestAppPlace {
+  /** Network namespace to run the API in (`ip netns exec`), standing in for another machine. */
+  netns?: string;
+  /** Address the API listens on and is reached at (default 127.0.0.1). */
+  host?: string;
+}
+
 /**
  * Starts the built API (`dist/main.js`, exactly what production runs) as its own process
  * against the test MariaDB and Redis that `npm test` started, with `env` overriding settings.
  * A separate process rather than an in-process Nest app, because on Node 20 jest cannot load
  * the CommonJS @nestjs/throttler next to the ES-module-only Nest 12 packages.
  */
-export async function createTestApp(env: Record<string, string> = {}): Promise<TestApp> {
-  if (!process.env.DATABASE_URL?.includes('test')) {
+export async function createTestApp(env: Record<string, string> = {}, place: TestAppPlace = {}): Promise<TestApp> {
+  const appEnv = { ...process.env, ...env };
+  if (!appEnv.DATABASE_URL?.includes('test')) {
     throw new Error('DATABASE_URL must point at the test database; run the suites through `npm test`');
   }
-  const port = await freePort();
-  const child = spawn(process.execPath, [path.resolve('dist/main.js')], {
-    env: { ...process.env, API_PORT: String(port), API_HOST: '127.0.0.1', NO_COLOR: '1', ...env },
+  const host = place.host ?? '127.0.0.1';
+  // A fresh namespace has nothing listening, so any port there is free.
+  const port = place.netns ? 3000 : await freePort();
+  const node = [process.execPath, path.resolve('dist/main.js')];
+  // `ip netns exec` replaces itself with node, so the child's pid is the API's.
+  const [command, ...args] = place.netns ? ['ip', 'netns', 'exec', place.netns, ...node] : node;
+  const child = spawn(command, args, {
+    env: { ...appEnv, API_PORT: String(port), API_HOST: host, NO_COLOR: '1' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';
   child.stdout!.on('data', (d: Buffer) => (output += d.toString()));
   child.stderr!.on('data', (d: Buffer) => (output += d.toString()));
-  const url = `http://127.0.0.1:${port}`;
+  const url = `http://${host}:${port}`;
   const deadline = Date.now() + 30_000;
   for (;;) {
     if (child.exitCode !== null) throw new Error(`the API exited with ${child.exitCode}:\n${output}`);
@@ -57,7 +70,7 @@ export async function createTestApp(env: Record<string, string> = {}): Promise<T
     await new Promise((r) => setTimeout(r, 150));
   }
   const routes = [...output.matchAll(/Mapped \{([^,]+), (\w+)\} route/g)].map((m) => `${m[2]} ${m[1]}`);
-  const db = new DataSource(buildDataSourceOptions(readDatabaseConfig()));
+  const db = new DataSource(buildDataSourceOptions(readDatabaseConfig(appEnv)));
   await db.initialize();
   const agent = () => request.agent(url);
   return {

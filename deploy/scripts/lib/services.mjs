@@ -71,10 +71,14 @@ function socketPath(dataDir) {
 }
 
 /**
- * Starts a private MariaDB server in `dir` on 127.0.0.1:`port` and makes sure `database` and
- * its user exist. Returns the child process (or null when one of ours was already running).
+ * Starts a private MariaDB server in `dir` on `port` of the `bind` addresses (127.0.0.1 by
+ * default) and makes sure `database` and its user exist, allowed in from `clientHosts` (MariaDB
+ * host patterns); `serverArgs` are added to mariadbd's (TLS files, for instance). Returns the
+ * child process (or null when one of ours was already running).
  */
-export async function startMariaDb({ dir: givenDir, port, database, user, password, freshDatabase = false }) {
+export async function startMariaDb({
+  dir: givenDir, port, database, user, password, freshDatabase = false, bind = ['127.0.0.1'], clientHosts = ['127.0.0.1'], serverArgs = [],
+}) {
   const dir = path.resolve(givenDir);
   const dataDir = path.join(dir, 'data');
   mkdirSync(path.join(dir, 'run'), { recursive: true });
@@ -102,47 +106,57 @@ export async function startMariaDb({ dir: givenDir, port, database, user, passwo
     const out = openSync(errorLog, 'a');
     child = spawn('mariadbd', [
       '--no-defaults', `--user=${os.userInfo().username}`, `--datadir=${dataDir}`,
-      '--bind-address=127.0.0.1', `--port=${port}`, `--socket=${socket}`,
+      `--bind-address=${bind.join(',')}`, `--port=${port}`, `--socket=${socket}`,
       `--pid-file=${path.join(dir, 'run', 'mysqld.pid')}`, `--log-error=${errorLog}`,
       '--skip-name-resolve', '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-      '--innodb-buffer-pool-size=256M', '--max-connections=300',
+      '--innodb-buffer-pool-size=256M', '--max-connections=300', ...serverArgs,
     ], { stdio: ['ignore', out, out], detached: true });
     child.once('exit', (code) => { if (code) log(`MariaDB exited with ${code}; see ${errorLog}`); });
     await waitUntil(ping, 'MariaDB', 60_000, errorLog);
   }
   const drop = freshDatabase ? `DROP DATABASE IF EXISTS \`${database}\`;` : '';
+  const grants = clientHosts.map((host) =>
+    ` CREATE USER IF NOT EXISTS '${user}'@'${host}' IDENTIFIED BY '${password}';` +
+      ` ALTER USER '${user}'@'${host}' IDENTIFIED BY '${password}';` +
+      ` GRANT ALL ON \`${database}\`.* TO '${user}'@'${host}';`);
   const setup = client(
-    `${drop} CREATE DATABASE IF NOT EXISTS \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;` +
-      ` CREATE USER IF NOT EXISTS '${user}'@'127.0.0.1' IDENTIFIED BY '${password}';` +
-      ` ALTER USER '${user}'@'127.0.0.1' IDENTIFIED BY '${password}';` +
-      ` GRANT ALL ON \`${database}\`.* TO '${user}'@'127.0.0.1';`,
+    `${drop} CREATE DATABASE IF NOT EXISTS \`${database}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;${grants.join('')}`,
   );
   if (setup.status !== 0) fail(`could not create database ${database}: ${setup.stderr}`);
   const pidFile = path.join(dir, 'run', 'mysqld.pid');
   return { child, socket, stop: () => stopByPidFile(pidFile, 'MariaDB') };
 }
 
-/** Starts a private Redis in `dir` on 127.0.0.1:`port`, append-only so queued work survives a restart. */
-export async function startRedis({ dir: givenDir, port, flush = false }) {
+/**
+ * Starts a private Redis in `dir` on `port` of the `bind` addresses (127.0.0.1 by default),
+ * append-only so queued work survives a restart. With `acl` ({ user, password, rules }) the
+ * `default` user is switched off and only that user, with those ACL rules, may sign in;
+ * `serverArgs` are added to redis-server's (a TLS port, for instance).
+ */
+export async function startRedis({ dir: givenDir, port, flush = false, bind = ['127.0.0.1'], acl = null, serverArgs = [] }) {
   const dir = path.resolve(givenDir);
   mkdirSync(dir, { recursive: true });
   const logFile = path.join(dir, 'redis.log');
-  const ping = () =>
-    spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), 'ping'], { encoding: 'utf8' }).stdout?.trim() === 'PONG';
+  // The password goes through the environment, where redis-cli reads it without a warning.
+  const cli = (args) => spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), ...(acl ? ['--user', acl.user] : []), ...args], {
+    encoding: 'utf8', env: acl ? { ...process.env, REDISCLI_AUTH: acl.password } : process.env,
+  });
+  const ping = () => cli(['ping']).stdout?.trim() === 'PONG';
   let child = null;
   if (ping()) {
     log(`Redis already answering on ${port}; reusing it`);
   } else {
     if (!(await portIsFree(port))) fail(`port ${port} is taken by another program; stop it or choose another REDIS_PORT_LOCAL`);
     child = spawn('redis-server', [
-      '--bind', '127.0.0.1', '--port', String(port), '--dir', dir,
+      '--bind', ...bind, '--port', String(port), '--dir', dir,
+      ...(acl ? ['--user', 'default', 'off', '--user', acl.user, 'on', `>${acl.password}`, ...acl.rules] : []),
       '--appendonly', 'yes', '--appenddirname', 'aof', '--appendfsync', 'everysec', '--save', '',
-      '--logfile', logFile, '--pidfile', path.join(dir, 'redis.pid'), '--daemonize', 'no',
+      '--logfile', logFile, '--pidfile', path.join(dir, 'redis.pid'), '--daemonize', 'no', ...serverArgs,
     ], { stdio: 'ignore', detached: true });
     child.once('exit', (code) => { if (code) log(`Redis exited with ${code}; see ${logFile}`); });
     await waitUntil(ping, 'Redis', 30_000, logFile);
   }
-  if (flush) spawnSync('redis-cli', ['-h', '127.0.0.1', '-p', String(port), 'flushall'], { stdio: 'ignore' });
+  if (flush) cli(['flushall']);
   return { child, stop: () => stopByPidFile(path.join(dir, 'redis.pid'), 'Redis') };
 }
 

@@ -4,7 +4,7 @@ import { REDIS_CLIENT, redisClientProvider, type RedisClient } from './redis-cli
 
 @Module({
   providers: [redisClientProvider, HeartbeatService],
-  exports: [HeartbeatService],
+  exports: [HeartbeatService, REDIS_CLIENT],
 })
 export class HeartbeatModule implements OnApplicationShutdown {
   constructor(@Inject(REDIS_CLIENT) private readonly redis: RedisClient) {}

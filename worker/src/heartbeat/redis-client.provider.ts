@@ -1,16 +1,11 @@
 import type { Provider } from '@nestjs/common';
-import { readRedisConfig } from '@sixtyfold/api/database';
-import { createClient } from 'redis';
+import { connectRedis, readRedisConfig, type RedisClient } from '@sixtyfold/api/database';
 
 export const REDIS_CLIENT = Symbol('REDIS_CLIENT');
-export type RedisClient = ReturnType<typeof createClient>;
+export type { RedisClient };
 
+/** Signs in at boot with REDIS_URL's user and password; a refusal stops the worker with Redis's answer. */
 export const redisClientProvider: Provider = {
   provide: REDIS_CLIENT,
-  useFactory: async (): Promise<RedisClient> => {
-    const client = createClient({ url: readRedisConfig().url });
-    client.on('error', () => undefined); // reconnects by itself; heartbeats log the failures
-    await client.connect();
-    return client;
-  },
+  useFactory: (): Promise<RedisClient> => connectRedis(readRedisConfig()),
 };

@@ -1,18 +1,20 @@
 import { BullModule } from '@nestjs/bull';
 import { Module } from '@nestjs/common';
-import { readRedisConfig } from '@sixtyfold/api/database';
+import { bullRedisOptions, readRedisConfig } from '@sixtyfold/api/database';
 import { SCAN_QUEUE } from '@sixtyfold/shared';
 import { HeartbeatModule } from '../heartbeat/heartbeat.module';
+import { REDIS_CLIENT } from '../heartbeat/redis-client.provider';
 import { ComputeChunkService } from './compute-chunk.service';
 import { ScanChunkProcessor } from './scan-chunk.processor';
 
 @Module({
   imports: [
     BullModule.forRootAsync({
-      useFactory: () => {
-        const { host, port, db, password } = readRedisConfig();
-        return { redis: { host, port, db, password } };
-      },
+      // Waits for the heartbeat client, which has signed in with the same credentials: a refused
+      // password stops the worker at boot instead of leaving bull retrying in the background.
+      imports: [HeartbeatModule],
+      inject: [REDIS_CLIENT],
+      useFactory: () => ({ redis: bullRedisOptions(readRedisConfig()) }),
     }),
     BullModule.registerQueue({
       name: SCAN_QUEUE,
