@@ -17,7 +17,11 @@ export class ApiExceptionFilter implements ExceptionFilter {
     if (body.statusCode >= 500) {
       this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
     }
-    if (!res.headersSent) res.status(body.statusCode).json(body);
+    if (res.headersSent) return;
+    // A refusal that ends by itself (429, 503) may say when: HttpException({ message, retryAfter }).
+    const retryAfter = exception instanceof HttpException ? (exception.getResponse() as { retryAfter?: unknown }).retryAfter : undefined;
+    if (typeof retryAfter === 'number') res.setHeader('Retry-After', String(retryAfter));
+    res.status(body.statusCode).json(body);
   }
 
   private toBody(exception: unknown): ApiError {
