@@ -35,9 +35,10 @@ export class RetryAfterSeconds implements ThrottlerStorage {
     const record = await this.storage.increment(key, ttl, limit, blockDuration, throttlerName);
     if (!record.isBlocked) return record;
     const reported = record.timeToBlockExpire;
-    const plausible = reported > 0 && reported <= Math.ceil(blockDuration / 1000);
-    const seconds = plausible ? reported : Math.ceil((reported + Date.now() / 1000) / 1000);
-    return { ...record, timeToBlockExpire: Math.max(1, seconds) };
+    const longest = Math.ceil(blockDuration / 1000);
+    // Adding the Unix time back gives the milliseconds left to within one.
+    const seconds = reported > 0 && reported <= longest ? reported : Math.ceil((reported + Date.now() / 1000 - 1) / 1000);
+    return { ...record, timeToBlockExpire: Math.min(longest, Math.max(1, seconds)) };
   }
 }
 

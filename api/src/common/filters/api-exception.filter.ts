@@ -14,7 +14,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
     const body = this.toBody(exception);
-    if (body.statusCode >= 500) {
+    // A 503 is a deliberate "busy" or "not ready" answer, not a fault; a flood of them must not flood the log.
+    if (body.statusCode >= 500 && body.statusCode !== HttpStatus.SERVICE_UNAVAILABLE) {
       this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
     }
     if (res.headersSent) return;
