@@ -19,8 +19,9 @@ import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
 
 /**
  * Everything around the routes, in one place so that main.ts and the end-to-end tests run
- * the same stack: the Host and Origin check, security headers, JSON bodies, sessions in Redis, passport, CSRF, the
- * `/api` prefix, the OpenAPI document and the built web app with its client-side routes.
+ * the same stack: the Host and Origin check, security headers, JSON bodies, sessions in Redis,
+ * passport, CSRF, the `/api` prefix, the OpenAPI document and the built web app with its
+ * client-side routes.
  */
 export function configureApp(nestApp: INestApplication): void {
   const app = nestApp as NestExpressApplication;

@@ -42,7 +42,11 @@ export class MailQuotaService {
     this.limits = config.getOrThrow<MailConfig>('mail').limitsPerHour;
   }
 
-  /** Counts `count` e-mails of `kind` caused by the user, or throws the 429 and counts nothing. */
+  /**
+   * Counts `count` e-mails of `kind` caused by the user, or throws the 429 and counts nothing.
+   * A request that fails after this (a database error, a refused mail) keeps what it took: the
+   * error is on the side of fewer e-mails.
+   */
   async take(userId: number, kind: MailQuotaKind, count: number): Promise<void> {
     if (count <= 0) return;
     const limit = this.limits[kind];
