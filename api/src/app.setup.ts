@@ -11,21 +11,27 @@ import passport from 'passport';
 import { SESSION_COOKIE } from './auth/session.constants';
 import { readBearerToken } from './common/bearer-token';
 import { csrfMiddleware } from './common/middleware/csrf.middleware';
+import { hostCheckMiddleware } from './common/middleware/host-check.middleware';
 import type { AppConfig } from './config/app.config';
+import type { MailConfig } from './config/mail.config';
 import { setupOpenApi } from './openapi/openapi.setup';
 import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
 
 /**
  * Everything around the routes, in one place so that main.ts and the end-to-end tests run
- * the same stack: security headers, JSON bodies, sessions in Redis, passport, CSRF, the
- * `/api` prefix, the OpenAPI document and the built web app with its client-side routes.
+ * the same stack: the Host and Origin check, security headers, JSON bodies, sessions in Redis,
+ * passport, CSRF, the `/api` prefix, the OpenAPI document and the built web app with its
+ * client-side routes.
  */
 export function configureApp(nestApp: INestApplication): void {
   const app = nestApp as NestExpressApplication;
   const config = app.get(ConfigService).getOrThrow<AppConfig>('app');
+  const { appUrl } = app.get(ConfigService).getOrThrow<MailConfig>('mail');
   const redis = app.get<RedisClient>(REDIS_CLIENT);
 
   if (config.trustProxy) app.set('trust proxy', 1);
+  // First, so that a request for another host name gets no session, no file and no route.
+  app.use(hostCheckMiddleware({ appUrl, extra: config.allowedHosts, loopback: config.allowLoopbackHosts }));
   app.disable('x-powered-by');
   // The API docs page (/api/docs) fits this policy as is: swagger-ui-dist's scripts are files served
   // from here (no inline script), its inline <style> is allowed below, and its icons are data: URIs.

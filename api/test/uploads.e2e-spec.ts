@@ -162,6 +162,25 @@ describe('uploads: constraint regions (CSV) and model files (JSON)', () => {
       expect(events).toHaveLength(1);
       expect(events[0]).toMatchObject({ actorId: henrik.id, groupId: plateauId, targetType: 'constraint-region', details: { name: `${PREFIX}: to delete` } });
     });
+
+    it('checks the role before reading the file: another group answers 404 and a viewer 403, never a line error', async () => {
+      const broken = csv('n_s,r\n0.955,0\nnot-a-number,0\n');
+      // The same file from a member shows that it does have a line error to give away.
+      const fromMember = await uploadRegion(member, broken, `${PREFIX}: broken`);
+      expect(fromMember.status).toBe(400);
+      expect(fromMember.body.line).toBe(3);
+      const before = await regionCount();
+      const outsider = await t.signIn(DEMO.tensorMember);
+      const foreign = await uploadRegion(outsider, broken, `${PREFIX}: by outsider`);
+      expect(foreign.status).toBe(404);
+      expect(foreign.body.line).toBeUndefined();
+      expect(foreign.body.message).not.toMatch(/line/);
+      const viewer = await t.signIn(DEMO.plateauViewer);
+      const byViewer = await uploadRegion(viewer, broken, `${PREFIX}: by viewer`);
+      expect(byViewer.status).toBe(403);
+      expect(byViewer.body.line).toBeUndefined();
+      expect(await regionCount()).toBe(before);
+    });
   });
 
   describe('model files', () => {

@@ -21,7 +21,7 @@ if (engineBench.status !== 0) fail('the engine benchmark failed');
 const services = await startProfileServices(profile, { fresh: true });
 const env = {
   ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl, ...profile.smtp,
-  API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
+  API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', APP_URL: `http://127.0.0.1:${profile.apiPort}/`, WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
   SESSION_SECRET: 'sixtyfold-benchmark-session-secret', FORCE_COLOR: '0',
 };
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);

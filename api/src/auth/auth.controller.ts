@@ -29,7 +29,7 @@ export class AuthController {
   @ApiOperation({ summary: 'Sign in: starts a session (cookie sixtyfold.sid)' })
   @ApiZodBody(loginSchema)
   @ApiZodResponse(200, currentUserSchema, 'Signed in; the answer is the user with their group memberships')
-  @ApiErrorResponses(400, 401)
+  @ApiErrorResponses(400, 401, 429, 503)
   login(@CurrentUser() user: SessionUser): Promise<CurrentUserDto> {
     return this.users.describe(user);
   }

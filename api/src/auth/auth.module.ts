@@ -1,13 +1,17 @@
-import { Module } from '@nestjs/common';
+import { Module, type OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
+import { RedisThrottlerStorage } from '@nestjs-redis/throttler-storage';
 import { AuditModule } from '../audit/audit.module';
 import type { AppConfig } from '../config/app.config';
+import { REDIS_CLIENT, type RedisClient } from '../redis/redis.module';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
+import { loginThrottlers, RetryAfterSeconds } from './guards/login-throttler.guard';
 import { LocalStrategy } from './local.strategy';
+import { limitPasswordChecks } from './passwords';
 import { SessionSerializer } from './session.serializer';
 
 @Module({
@@ -16,14 +20,22 @@ import { SessionSerializer } from './session.serializer';
     AuditModule,
     PassportModule.register({ session: true }),
     ThrottlerModule.forRootAsync({
-      inject: [ConfigService],
-      useFactory: (config: ConfigService) => {
-        const { limit, ttlMs } = config.getOrThrow<AppConfig>('app').loginThrottle;
-        return { throttlers: [{ name: 'login', limit, ttl: ttlMs }] };
-      },
+      inject: [ConfigService, REDIS_CLIENT],
+      useFactory: (config: ConfigService, redis: RedisClient) => ({
+        throttlers: loginThrottlers(config.getOrThrow<AppConfig>('app').loginThrottle),
+        // The API's own connection; the storage does not open or close it.
+        storage: new RetryAfterSeconds(new RedisThrottlerStorage(redis as ConstructorParameters<typeof RedisThrottlerStorage>[0])),
+      }),
     }),
   ],
   controllers: [AuthController],
   providers: [AuthService, LocalStrategy, SessionSerializer],
 })
-export class AuthModule {}
+export class AuthModule implements OnModuleInit {
+  constructor(private readonly config: ConfigService) {}
+
+  onModuleInit(): void {
+    const { concurrency, queue } = this.config.getOrThrow<AppConfig>('app').passwordChecks;
+    limitPasswordChecks(concurrency, queue);
+  }
+}

@@ -41,7 +41,7 @@ export class CommentsController {
   @ApiOperation({ summary: 'Comment on a scan or one of its points (any role that can read it); `@handle` mentions group members' })
   @ApiZodBody(createCommentSchema)
   @ApiZodResponse(201, commentSchema, 'The stored comment')
-  @ApiErrorResponses(400, 401, 404)
+  @ApiErrorResponses(400, 401, 404, 429)
   create(
     @CurrentUser() user: SessionUser,
     @Param('scanId', ParseIntPipe) scanId: number,
@@ -54,7 +54,7 @@ export class CommentsController {
   @ApiOperation({ summary: 'Edit my own comment; people it newly mentions are notified' })
   @ApiZodBody(commentBodySchema)
   @ApiZodResponse(200, commentSchema, 'The edited comment')
-  @ApiErrorResponses(400, 401, 403, 404)
+  @ApiErrorResponses(400, 401, 403, 404, 429)
   update(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number, @Body(new ZodValidationPipe(commentBodySchema)) body: CommentBody): Promise<CommentDto> {
     return this.comments.update(user, id, body);
   }

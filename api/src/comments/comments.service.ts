@@ -7,6 +7,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
 import { GroupAccessService } from '../groups/group-access.service';
+import { MailQuotaService } from '../mail/mail-quota.service';
 import { NotificationsService } from '../notifications/notifications.service';
 import { Scan } from '../scans/entities/scan.entity';
 import { User } from '../users/entities/user.entity';
@@ -26,6 +27,7 @@ export class CommentsService {
     private readonly access: GroupAccessService,
     private readonly audit: AuditService,
     private readonly notifications: NotificationsService,
+    private readonly mailQuota: MailQuotaService,
   ) {}
 
   async list(user: SessionUser, scanId: number, query: CommentListQuery): Promise<CommentDto[]> {
@@ -108,6 +110,9 @@ export class CommentsService {
     await tx.getRepository(CommentMention).insert(ids.map((userId) => ({ commentId: comment.id, userId })));
     const toTell = ids.filter((uid) => uid !== user.id && !alreadyMentioned.includes(uid));
     if (!toTell.length) return;
+    // Every notice may become an e-mail; past the author's hourly limit this throws a 429 and
+    // the transaction saves nothing, so the author still has the text and is told why.
+    await this.mailQuota.take(user.id, 'mention', toTell.length);
     const excerpt = comment.body.length > EXCERPT_LENGTH ? `${comment.body.slice(0, EXCERPT_LENGTH - 1)}…` : comment.body;
     const onPoint = comment.pointIndex !== null;
     await this.notifications.notify(toTell, 'mentioned', {

@@ -18,6 +18,9 @@ const schema = z.object({
   APP_URL: z.url({ error: 'APP_URL must be an absolute URL, e.g. https://sixtyfold.halvorsen.example/' }).default('http://127.0.0.1:3060/'),
   /** Folder the local mail catcher writes to; set only in development and tests (the admins' outbox page). */
   MAIL_OUTBOX_DIR: z.string().min(1).optional(),
+  /** E-mails one user may cause within an hour: people told of an @-mention, and invitations sent. */
+  MAIL_MENTION_LIMIT_PER_HOUR: z.coerce.number().int().min(1).default(30),
+  MAIL_INVITATION_LIMIT_PER_HOUR: z.coerce.number().int().min(1).default(20),
 });
 
 export interface MailConfig {
@@ -31,6 +34,7 @@ export interface MailConfig {
   from: string;
   appUrl: string;
   outboxDir: string | null;
+  limitsPerHour: { mention: number; invitation: number };
 }
 
 export function readMailConfig(env: NodeJS.ProcessEnv = process.env): MailConfig {
@@ -46,6 +50,7 @@ export function readMailConfig(env: NodeJS.ProcessEnv = process.env): MailConfig
     from: e.MAIL_FROM,
     appUrl: e.APP_URL.endsWith('/') ? e.APP_URL : `${e.APP_URL}/`,
     outboxDir: e.MAIL_OUTBOX_DIR ?? null,
+    limitsPerHour: { mention: e.MAIL_MENTION_LIMIT_PER_HOUR, invitation: e.MAIL_INVITATION_LIMIT_PER_HOUR },
   };
 }
 

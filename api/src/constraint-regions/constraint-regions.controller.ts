@@ -1,14 +1,13 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { ApiOperation, ApiResponse, ApiTags } from '@nestjs/swagger';
 import {
-  constraintRegionSchema, constraintRegionUploadSchema, REGION_CSV_MAX_BYTES, regionCsvReader, type ConstraintRegion, type ConstraintRegionUpload,
+  constraintRegionSchema, constraintRegionUploadSchema, REGION_CSV_MAX_BYTES, type ConstraintRegion, type ConstraintRegionUpload,
 } from '@sixtyfold/shared';
 import { z } from 'zod';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
 import { FileUpload } from '../common/uploads/file-upload.interceptor';
-import { readCsvUpload } from '../common/uploads/read-csv-upload';
 import { ApiErrorResponses, ApiZodMultipart, ApiZodQuery, ApiZodResponse } from '../openapi/zod-openapi.decorators';
 import { ConstraintRegionsService } from './constraint-regions.service';
 
@@ -39,8 +38,7 @@ export class ConstraintRegionsController {
     @Body(new ZodValidationPipe(constraintRegionUploadSchema)) fields: ConstraintRegionUpload,
     @UploadedFile() file: Express.Multer.File | undefined,
   ): Promise<ConstraintRegion> {
-    const vertices = await readCsvUpload(file, 'file', regionCsvReader());
-    return this.regions.create(user, fields, vertices);
+    return this.regions.create(user, fields, file);
   }
 
   @Delete(':id')

@@ -1,9 +1,10 @@
 import { ForbiddenException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
-import { groupRoleAtLeast, type ConstraintRegion as ConstraintRegionDto, type ConstraintRegionUpload, type RegionVertex } from '@sixtyfold/shared';
+import { groupRoleAtLeast, regionCsvReader, type ConstraintRegion as ConstraintRegionDto, type ConstraintRegionUpload } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
+import { readCsvUpload } from '../common/uploads/read-csv-upload';
 import { Group } from '../groups/entities/group.entity';
 import { GroupAccessService } from '../groups/group-access.service';
 import { ConstraintRegion } from './entities/constraint-region.entity';
@@ -26,10 +27,14 @@ export class ConstraintRegionsService {
     return rows.map(toDto);
   }
 
-  /** Members store a region whose file was read in full; one insert and its audit event. */
-  async create(user: SessionUser, fields: ConstraintRegionUpload, vertices: RegionVertex[]): Promise<ConstraintRegionDto> {
+  /**
+   * Members store a region whose file was read in full; one insert and its audit event. The role
+   * comes first, so that someone who may not upload here learns nothing from the file.
+   */
+  async create(user: SessionUser, fields: ConstraintRegionUpload, file: Express.Multer.File | undefined): Promise<ConstraintRegionDto> {
     await this.access.require(user, fields.groupId, 'member');
     if (!(await this.db.getRepository(Group).existsBy({ id: fields.groupId }))) throw new NotFoundException('No such group');
+    const vertices = await readCsvUpload(file, 'file', regionCsvReader());
     const id = await this.db.transaction(async (tx) => {
       const saved = await tx.getRepository(ConstraintRegion).save({ ...fields, vertices, createdById: user.id });
       await this.audit.record(

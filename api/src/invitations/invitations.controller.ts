@@ -31,7 +31,7 @@ export class GroupInvitationsController {
   @ApiOperation({ summary: 'Invite an e-mail address with a role; sends the invitation e-mail (replaces a pending one to the same address)' })
   @ApiZodBody(createInvitationSchema)
   @ApiZodResponse(201, invitationSchema, 'The invitation, sent')
-  @ApiErrorResponses(400, 401, 403, 404, 409, 502)
+  @ApiErrorResponses(400, 401, 403, 404, 409, 429, 502)
   create(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) groupId: number,

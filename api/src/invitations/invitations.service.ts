@@ -17,6 +17,7 @@ import type { InvitationConfig } from '../config/invitation.config';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { GroupAccessService } from '../groups/group-access.service';
+import { MailQuotaService } from '../mail/mail-quota.service';
 import { MailService } from '../mail/mail.service';
 import { Notification } from '../notifications/entities/notification.entity';
 import { NotificationsService } from '../notifications/notifications.service';
@@ -46,6 +47,7 @@ export class InvitationsService {
     @InjectRepository(User) private readonly users: Repository<User>,
     private readonly access: GroupAccessService,
     private readonly mail: MailService,
+    private readonly mailQuota: MailQuotaService,
     private readonly audit: AuditService,
     private readonly notifications: NotificationsService,
   ) {
@@ -68,6 +70,7 @@ export class InvitationsService {
   /**
    * Creates the invitation and sends its e-mail in one transaction: when the mail server refuses
    * the message, nothing is saved. Re-inviting a pending address replaces its earlier invitation.
+   * Each invitation counts against the lead's hourly limit (MAIL_INVITATION_LIMIT_PER_HOUR).
    */
   async invite(user: SessionUser, groupId: number, body: CreateInvitation): Promise<InvitationDto> {
     await this.access.require(user, groupId, 'lead');
@@ -76,6 +79,8 @@ export class InvitationsService {
     if (existing && (await this.db.getRepository(Membership).exists({ where: { groupId, userId: existing.id } }))) {
       throw new ConflictException(`${body.email} is already a member of ${group.name}; change their role in the member list instead`);
     }
+    // Past the lead's hourly limit: a 429 before anything is saved or sent.
+    await this.mailQuota.take(user.id, 'invitation', 1);
     const saved = await this.db.transaction(async (manager) => {
       const repo = manager.getRepository(Invitation);
       const replaced = await repo.find({ where: { groupId, email: body.email, acceptedAt: IsNull(), revokedAt: IsNull() }, lock: { mode: 'pessimistic_write' } });

@@ -54,7 +54,8 @@ export async function createTestApp(env: Record<string, string> = {}, place: Tes
   // `ip netns exec` replaces itself with node, so the child's pid is the API's.
   const [command, ...args] = place.netns ? ['ip', 'netns', 'exec', place.netns, ...node] : node;
   const child = spawn(command, args, {
-    env: { ...appEnv, API_PORT: String(port), API_HOST: host, NO_COLOR: '1' },
+    // An API reached at another address answers for that name (the Host check), as a real one would.
+    env: { ...appEnv, API_PORT: String(port), API_HOST: host, NO_COLOR: '1', ...(place.host ? { APP_URL: `http://${host}:${port}/` } : {}) },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let output = '';

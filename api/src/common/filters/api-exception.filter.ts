@@ -14,10 +14,15 @@ export class ApiExceptionFilter implements ExceptionFilter {
   catch(exception: unknown, host: ArgumentsHost): void {
     const res = host.switchToHttp().getResponse<Response>();
     const body = this.toBody(exception);
-    if (body.statusCode >= 500) {
+    // A 503 is a deliberate "busy" or "not ready" answer, not a fault; a flood of them must not flood the log.
+    if (body.statusCode >= 500 && body.statusCode !== HttpStatus.SERVICE_UNAVAILABLE) {
       this.logger.error(exception instanceof Error ? exception.stack ?? exception.message : String(exception));
     }
-    if (!res.headersSent) res.status(body.statusCode).json(body);
+    if (res.headersSent) return;
+    // A refusal that ends by itself (429, 503) may say when: HttpException({ message, retryAfter }).
+    const retryAfter = exception instanceof HttpException ? (exception.getResponse() as { retryAfter?: unknown }).retryAfter : undefined;
+    if (typeof retryAfter === 'number') res.setHeader('Retry-After', String(retryAfter));
+    res.status(body.statusCode).json(body);
   }
 
   private toBody(exception: unknown): ApiError {

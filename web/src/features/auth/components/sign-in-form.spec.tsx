@@ -52,7 +52,8 @@ describe('SignInForm', () => {
   });
 
   it('asks the user to wait when sign-in is throttled', async () => {
-    mockApi({ 'POST /api/auth/login': () => apiError(429, 'ThrottlerException: Too Many Requests') });
+    const message = 'Too many sign-in attempts for this account (at most 10 in 60 s, from anywhere); try again in 42 s';
+    mockApi({ 'POST /api/auth/login': () => apiError(429, message) });
     const { user } = renderWithProviders(<SignInForm onSuccess={vi.fn()} />);
 
     await user.type(screen.getByLabelText('E-mail'), 'amara.okafor@halvorsen.example');
@@ -60,6 +61,7 @@ describe('SignInForm', () => {
     await user.click(screen.getByRole('button', { name: 'Sign in' }));
 
     expect(await screen.findByText('Too many attempts, wait a minute')).toBeInTheDocument();
+    expect(screen.getByText(message)).toBeInTheDocument();
   });
 
   it("puts the API's per-field errors next to the fields", async () => {

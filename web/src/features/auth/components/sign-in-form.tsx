@@ -20,10 +20,8 @@ function describeError(error: Error): { title: string; description: string } {
     case 401:
       return { title: error.message, description: 'Check both fields; passwords are case-sensitive.' };
     case 429:
-      return {
-        title: 'Too many attempts, wait a minute',
-        description: 'Sign-in is paused briefly after repeated attempts. Try again in a minute.',
-      };
+      // The API says which limit was reached and in how many seconds to try again.
+      return { title: 'Too many attempts, wait a minute', description: error.message };
     case 400:
       return { title: 'Check the highlighted fields', description: error.message };
     default:
