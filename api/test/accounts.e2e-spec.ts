@@ -241,7 +241,7 @@ describe('accounts: passwords, disabling, token expiry and read-only tokens', ()
   });
 });
 
-describe('seeding the demo scenario', () => {
+describe('seeding the demo scenario, and the first administrator without it', () => {
   const seed = (nodeEnv: string) =>
     spawnSync(process.execPath, [path.resolve('dist/database/seeds/run-seed.js')], {
       env: { ...process.env, NODE_ENV: nodeEnv }, encoding: 'utf8',
@@ -252,6 +252,35 @@ describe('seeding the demo scenario', () => {
     expect(result.status).not.toBe(0);
     expect(result.stderr).toMatch(/NODE_ENV is production/);
     expect(result.stdout).not.toMatch(/seeded/);
+  });
+
+  it('creates a site administrator from the command line, with the password on standard input', async () => {
+    const createAdmin = (args: string[], password: string) =>
+      spawnSync(process.execPath, [path.resolve('dist/database/seeds/create-admin.js'), ...args], {
+        env: { ...process.env, NODE_ENV: 'production' }, input: `${password}\n`, encoding: 'utf8',
+      });
+    const email = 'accounts-operator@halvorsen.example';
+    const short = createAdmin([email, 'Site Operator'], 'short');
+    expect(short.status).not.toBe(0);
+    expect(short.stderr).toMatch(/password: Choose a password of at least 10 characters/);
+
+    const created = createAdmin([` ${email.toUpperCase()} `, 'Site Operator'], 'operator passphrase');
+    expect(created.stderr).toBe('');
+    expect(created.status).toBe(0);
+    expect(created.stdout).toContain(`site administrator ${email} created`);
+    const again = createAdmin([email, 'Site Operator'], 'operator passphrase');
+    expect(again.status).not.toBe(0);
+    expect(again.stderr).toMatch(/already has an account/);
+
+    const t = await createTestApp();
+    try {
+      const agent = await t.signIn(email, 'operator passphrase');
+      expect((await agent.get('/api/auth/me')).body).toMatchObject({ email, displayName: 'Site Operator', siteRole: 'admin' });
+      expect((await agent.get('/api/admin/users')).status).toBe(200);
+    } finally {
+      await t.db.getRepository(User).delete({ email });
+      await t.close();
+    }
   });
 
   it('leaves a database that has accounts alone, even when a demo account is gone', async () => {
