@@ -10,7 +10,8 @@ export class AccountControls1796300000010 implements MigrationInterface {
 
   public async up(queryRunner: QueryRunner): Promise<void> {
     await queryRunner.query('ALTER TABLE `users` ADD `disabled_at` datetime(3) NULL, ADD `session_epoch` int UNSIGNED NOT NULL DEFAULT 0');
-    await queryRunner.query('UPDATE `api_tokens` SET `expires_at` = CURRENT_TIMESTAMP(3) + INTERVAL 90 DAY WHERE `expires_at` IS NULL');
+    // UTC, as the API reads and writes every datetime (timezone 'Z'), whatever the server's zone.
+    await queryRunner.query('UPDATE `api_tokens` SET `expires_at` = UTC_TIMESTAMP(3) + INTERVAL 90 DAY WHERE `expires_at` IS NULL');
     await queryRunner.query('ALTER TABLE `api_tokens` MODIFY `expires_at` datetime(3) NOT NULL, ADD `read_only` tinyint NOT NULL DEFAULT 0');
   }
 

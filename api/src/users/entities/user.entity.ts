@@ -34,7 +34,7 @@ export class User {
 
   /**
    * Sessions remember the epoch they were made in; raising it ends every older session at its next
-   * request (a password change, re-enabling an account). Never sent to clients.
+   * request (a password change, disabling the account). Never sent to clients.
    */
   @Column({ name: 'session_epoch', type: 'int', unsigned: true, default: 0, select: false })
   sessionEpoch: number;
