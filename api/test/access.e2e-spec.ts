@@ -61,6 +61,7 @@ describe('every route against every role', () => {
   let accessGroupId: number;
   let viewerInvitationToken: string;
   let plateauViewerId: number;
+  let switchedUserId: number;
   const ownComment = new Map<Role, number>();
   let memberNotificationId: number;
   const ownRegion = new Map<Role, number>();
@@ -114,6 +115,9 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/workers', url: () => '/api/workers', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/workers/pool', url: () => '/api/workers/pool', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/admin/users', url: () => '/api/admin/users', expect: adminOnly },
+    // A throwaway account: only the admin may disable and re-enable it.
+    { method: 'post', route: '/api/admin/users/:id/disable', url: () => `/api/admin/users/${switchedUserId}/disable`, expect: adminOnly },
+    { method: 'post', route: '/api/admin/users/:id/enable', url: () => `/api/admin/users/${switchedUserId}/enable`, expect: adminOnly },
     { method: 'get', route: '/api/admin/audit-events', url: () => '/api/admin/audit-events', expect: adminOnly },
     { method: 'get', route: '/api/admin/outbox', url: () => '/api/admin/outbox', expect: adminOnly },
     // No message has this id: the admin gets 404 for it, everyone else is stopped first.
@@ -147,6 +151,8 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(200) },
     { method: 'post', route: '/api/tokens', url: () => '/api/tokens', expect: everyoneSignedIn(201) },
     { method: 'delete', route: '/api/tokens/:id', url: (role) => `/api/tokens/${ownToken.get(role)}`, expect: everyoneSignedIn(204) },
+    // A wrong current password, so no one's password changes: every signed-in role gets the 400.
+    { method: 'post', route: '/api/auth/password', url: () => '/api/auth/password', expect: everyoneSignedIn(400) },
     // Sign-in is open to all (a wrong password here, so every role gets the same answer).
     { method: 'post', route: '/api/auth/login', url: () => '/api/auth/login', expect: { anonymous: 401, admin: 401, lead: 401, member: 401, viewer: 401, outsider: 401 } },
     // Sign-out runs last: it ends the sessions the rows above used.
@@ -155,6 +161,7 @@ describe('every route against every role', () => {
 
   const bodyFor = (route: string, role: Role): object => {
     if (route === '/api/tokens') return { name: `access table (${role})` };
+    if (route === '/api/auth/password') return { currentPassword: 'not the password', newPassword: 'access table passphrase' };
     if (route === '/api/auth/login') return { email: `${role}@nowhere.example`, password: 'wrong password' };
     if (route === '/api/groups') return { name: `access table group (${role})` };
     if (route === '/api/groups/:id') return { description: `edited by the access table (${role})` };
@@ -212,6 +219,7 @@ describe('every route against every role', () => {
     }
     ownToken.set('anonymous', ownToken.get('member')!);
     plateauViewerId = (await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauViewer })).id;
+    switchedUserId = (await t.db.getRepository(User).save({ email: 'access-table-disable@halvorsen.example', displayName: 'Disabled by the access table', passwordHash: 'never signs in' })).id;
     accessGroupId = (await t.db.getRepository(Group).save({ slug: 'access-table-group', name: 'access table group', description: '' })).id;
     const invitations = t.db.getRepository(Invitation);
     const inAWeek = new Date(Date.now() + 7 * 86_400_000);

@@ -71,7 +71,7 @@ describe('the OpenAPI document and its UI', () => {
     });
     expect(doc.security).toEqual([{ session: [] }, { token: [] }]);
     expect(doc.paths['/api/health'].get.security).toEqual([{}]);
-    for (const op of [doc.paths['/api/tokens'].get, doc.paths['/api/tokens'].post, doc.paths['/api/tokens/{id}'].delete]) {
+    for (const op of [doc.paths['/api/tokens'].get, doc.paths['/api/tokens'].post, doc.paths['/api/tokens/{id}'].delete, doc.paths['/api/auth/password'].post]) {
       expect(op.security).toEqual([{ session: [] }]);
     }
     expect(doc.paths['/api/tokens'].post.requestBody!.content['application/json'].schema).toEqual(requestSchema(createApiTokenSchema));

@@ -29,7 +29,7 @@ describe('personal API tokens', () => {
   async function createToken(agent: Agent, body: Record<string, unknown> = { name: 'notebook' }) {
     const res = await agent.post('/api/tokens').send(body);
     if (res.status !== 201) throw new Error(`POST /api/tokens answered ${res.status}: ${JSON.stringify(res.body)}`);
-    return res.body as { id: number; token: string; prefix: string; expiresAt: string | null; lastUsedAt: string | null };
+    return res.body as { id: number; token: string; prefix: string; expiresAt: string; lastUsedAt: string | null; readOnly: boolean };
   }
 
   beforeAll(async () => {
@@ -89,8 +89,8 @@ describe('personal API tokens', () => {
     const listed = await member.get('/api/tokens');
     expect(listed.status).toBe(200);
     const mine = (listed.body as Record<string, unknown>[]).find((k) => k.id === id)!;
-    expect(Object.keys(mine).sort()).toEqual(['createdAt', 'expiresAt', 'id', 'lastUsedAt', 'name', 'prefix']);
-    expect(mine.expiresAt).toBeNull();
+    expect(Object.keys(mine).sort()).toEqual(['createdAt', 'expiresAt', 'id', 'lastUsedAt', 'name', 'prefix', 'readOnly']);
+    expect(Date.parse(mine.expiresAt as string) - Date.now()).toBeGreaterThan(89 * DAY_MS);
     const firstUse = mine.lastUsedAt as string;
     expect(Date.now() - Date.parse(firstUse)).toBeLessThan(60_000);
     expect(JSON.stringify(listed.body)).not.toContain(token);

@@ -25,7 +25,7 @@ const env = {
   SESSION_SECRET: 'sixtyfold-benchmark-session-secret', FORCE_COLOR: '0',
 };
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
-npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
+npmRun(['run', '--silent', 'seed', '-w', 'api'], { ...env, NODE_ENV: 'development' }); // the seed refuses production
 
 const { createScanSchema, pointRequest, RequestEvaluator, ScanGrid } = await import('@sixtyfold/shared');
 const { DEMO_PASSWORD } = await import(path.join(ROOT, 'api/dist/database/seeds/demo-scenario.js'));

@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm start`: installs what is missing, starts private MariaDB and Redis, migrates, seeds the
-// demo scenario, builds, and runs the API (which serves the web app) and the workers.
+// demo scenario into an empty database (never with NODE_ENV=production), builds, and runs the API
+// (which serves the web app) and the workers.
 // Ctrl-C stops everything it started; data stays in .data/dev for the next start.
 import { createRequire } from 'node:module';
 import path from 'node:path';
@@ -51,7 +52,10 @@ log('building shared, api, worker and web');
 // Built without NODE_ENV, so that Vite makes a production bundle whatever the profile.
 npmRun(['run', '--silent', 'build'], { ...env, NODE_ENV: undefined });
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
-npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
+// The demo accounts share a published password: a production site never gets them.
+const production = env.NODE_ENV === 'production';
+if (production) log('NODE_ENV is production: the demo scenario is not seeded');
+else npmRun(['run', '--silent', 'seed', '-w', 'api'], env);
 
 log(`starting the API and ${profile.workers} worker process${profile.workers === 1 ? '' : 'es'}`);
 apps = startAppProcesses({ env, workers: profile.workers });
@@ -63,9 +67,13 @@ if (!(await waitForApi(profile.apiPort, apps.api))) {
 
 const { DEMO_USERS, DEMO_PASSWORD } = createRequire(import.meta.url)(path.join(ROOT, 'api/dist/database/seeds/demo-scenario.js'));
 const width = Math.max(...DEMO_USERS.map((u) => u.email.length));
+const demo = production
+  ? ''
+  : `  Demo accounts, unless the database had accounts before (password for all: ${DEMO_PASSWORD})\n` +
+    DEMO_USERS.map((u) => `    ${u.email.padEnd(width)}  ${u.part}`).join('\n') +
+    '\n\n';
 process.stdout.write(
   `\n  Sixtyfold is running at  http://${env.API_HOST}:${profile.apiPort}/\n\n` +
-    `  Demo accounts (password for all: ${DEMO_PASSWORD})\n` +
-    DEMO_USERS.map((u) => `    ${u.email.padEnd(width)}  ${u.part}`).join('\n') +
-    '\n\n  Ctrl-C stops everything; data is kept in .data/dev.\n\n',
+    demo +
+    '  Ctrl-C stops everything; data is kept in .data/dev.\n\n',
 );

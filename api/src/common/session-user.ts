@@ -14,5 +14,9 @@ declare global {
     // Passport's `req.user` is our SessionUser.
     // eslint-disable-next-line @typescript-eslint/no-empty-object-type
     interface User extends SessionUser {}
+    interface Request {
+      /** Why the request's session no longer signs anyone in (set by SessionSerializer), for the 401. */
+      sessionRefusal?: string;
+    }
   }
 }

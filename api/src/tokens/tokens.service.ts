@@ -46,7 +46,7 @@ export class TokensService {
   /** Creates a token and answers its secret, the only time it leaves the server. */
   async create(user: SessionUser, body: CreateApiToken): Promise<CreatedApiToken> {
     const token = API_TOKEN_PREFIX + randomBytes(32).toString('base64url');
-    const expiresAt = body.expiresInDays === undefined ? null : new Date(Date.now() + body.expiresInDays * DAY_MS);
+    const expiresAt = new Date(Date.now() + body.expiresInDays * DAY_MS);
     const saved = await this.db.transaction(async (tx) => {
       const row = await tx.getRepository(ApiToken).save({
         userId: user.id,
@@ -54,11 +54,12 @@ export class TokensService {
         tokenHash: hashToken(token),
         prefix: token.slice(0, SHOWN_PREFIX_LENGTH),
         expiresAt,
+        readOnly: body.readOnly,
         lastUsedAt: null,
         revokedAt: null,
       });
       await this.audit.record(
-        { action: 'token.create', actorId: user.id, targetType: 'api_token', targetId: row.id, details: { name: row.name, prefix: row.prefix, expiresAt: expiresAt?.toISOString() ?? null } },
+        { action: 'token.create', actorId: user.id, targetType: 'api_token', targetId: row.id, details: { name: row.name, prefix: row.prefix, expiresAt: expiresAt.toISOString(), readOnly: row.readOnly } },
         tx,
       );
       return row;
@@ -79,10 +80,11 @@ export class TokensService {
   }
 
   /**
-   * The user a bearer token acts as, loaded fresh like a session's user, or a 401 that says why
-   * not. Tokens are found by hash, so a wrong token never touches a real row.
+   * The user a bearer token acts as, loaded fresh like a session's user, and whether the token is
+   * read-only; or a 401 that says why not. Tokens are found by hash, so a wrong token never
+   * touches a real row.
    */
-  async authenticate(token: string): Promise<SessionUser> {
+  async authenticate(token: string): Promise<{ user: SessionUser; readOnly: boolean }> {
     if (!API_TOKEN_PATTERN.test(token)) {
       throw new UnauthorizedException(`The bearer token is not a Sixtyfold API token: expected ${API_TOKEN_PREFIX} followed by 43 characters`);
     }
@@ -90,15 +92,16 @@ export class TokensService {
     if (!row) throw new UnauthorizedException('Unknown API token: check that it was copied whole, or create a new one');
     if (row.revokedAt) throw new UnauthorizedException('This API token was revoked; create a new one under API tokens');
     const now = new Date();
-    if (row.expiresAt && row.expiresAt <= now) {
+    if (row.expiresAt <= now) {
       throw new UnauthorizedException(`This API token expired on ${row.expiresAt.toISOString()}; create a new one under API tokens`);
     }
-    const user = await this.users.findSessionUser(row.userId);
-    if (!user) throw new UnauthorizedException('Unknown API token: its account no longer exists');
+    const caller = await this.users.findCaller(row.userId);
+    if (!caller) throw new UnauthorizedException('Unknown API token: its account no longer exists');
+    if (caller.disabled) throw new UnauthorizedException('Account disabled: a site administrator has disabled the account this API token acts for');
     if (!row.lastUsedAt || now.getTime() - row.lastUsedAt.getTime() >= LAST_USED_RESOLUTION_MS) {
       await this.tokens.update({ id: row.id }, { lastUsedAt: now });
     }
-    return user;
+    return { user: caller.user, readOnly: row.readOnly };
   }
 }
 
@@ -109,6 +112,7 @@ function describe(row: ApiToken): ApiTokenDto {
     prefix: row.prefix,
     createdAt: row.createdAt.toISOString(),
     lastUsedAt: row.lastUsedAt?.toISOString() ?? null,
-    expiresAt: row.expiresAt?.toISOString() ?? null,
+    expiresAt: row.expiresAt.toISOString(),
+    readOnly: row.readOnly,
   };
 }

@@ -9,12 +9,15 @@ export const adminUserSchema = z.object({
   groupCount: z.number().int(),
   lastLoginAt: z.string().nullable(),
   createdAt: z.string(),
+  /** When a site admin disabled the account (it cannot sign in or use its tokens); null while active. */
+  disabledAt: z.string().nullable(),
 });
 export type AdminUser = z.infer<typeof adminUserSchema>;
 
 /** Every action the audit log records, `<what>.<verb>`; the API refuses to record any other. */
 export const AUDIT_ACTIONS = [
   'auth.login', 'auth.login_failed', 'auth.logout',
+  'user.password_change', 'user.disable', 'user.enable',
   'group.create', 'group.update', 'group.retention_change',
   'membership.invite', 'membership.invite_revoke', 'membership.join', 'membership.remove', 'membership.role_change',
   'model.create', 'model.update', 'model.delete',

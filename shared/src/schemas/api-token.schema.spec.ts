@@ -2,8 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { API_TOKEN_PATTERN, createApiTokenSchema } from './api-token.schema.js';
 
 describe('createApiTokenSchema', () => {
-  it('trims the name and leaves the expiry out when none is given', () => {
-    expect(createApiTokenSchema.parse({ name: '  laptop notebook ' })).toEqual({ name: 'laptop notebook' });
+  it('trims the name and gives a token 90 days, with full access, when nothing else is asked', () => {
+    expect(createApiTokenSchema.parse({ name: '  laptop notebook ' })).toEqual({ name: 'laptop notebook', expiresInDays: 90, readOnly: false });
+  });
+
+  it('keeps a read-only choice and refuses anything but a boolean', () => {
+    expect(createApiTokenSchema.parse({ name: 'x', readOnly: true }).readOnly).toBe(true);
+    const result = createApiTokenSchema.safeParse({ name: 'x', readOnly: 'yes' });
+    expect(result.success).toBe(false);
+    expect(result.error!.issues[0].path).toEqual(['readOnly']);
   });
 
   it('names each bad field', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { loginSchema } from './auth.schema.js';
+import { changePasswordSchema, loginSchema } from './auth.schema.js';
 import { groupRoleAtLeast } from './roles.schema.js';
 
 describe('loginSchema', () => {
@@ -29,5 +29,29 @@ describe('groupRoleAtLeast', () => {
     expect(groupRoleAtLeast('member', 'member')).toBe(true);
     expect(groupRoleAtLeast('viewer', 'member')).toBe(false);
     expect(groupRoleAtLeast('member', 'lead')).toBe(false);
+  });
+});
+
+describe('changePasswordSchema', () => {
+  const byField = (body: unknown) => {
+    const result = changePasswordSchema.safeParse(body);
+    return result.success ? {} : Object.fromEntries(result.error.issues.map((i) => [i.path.join('.'), i.message]));
+  };
+
+  it('accepts a current password and a new one of at least 10 characters', () => {
+    expect(changePasswordSchema.parse({ currentPassword: 'old', newPassword: 'a new passphrase' })).toEqual({ currentPassword: 'old', newPassword: 'a new passphrase' });
+  });
+
+  it('names each missing or short field', () => {
+    expect(byField({ newPassword: 'short' })).toEqual({
+      currentPassword: 'Enter your current password',
+      newPassword: 'Choose a password of at least 10 characters',
+    });
+  });
+
+  it('refuses a new password equal to the current one', () => {
+    expect(byField({ currentPassword: 'inflaton-demo-1', newPassword: 'inflaton-demo-1' })).toEqual({
+      newPassword: 'Choose a password different from the current one',
+    });
   });
 });

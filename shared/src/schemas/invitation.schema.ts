@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { newPasswordSchema } from './auth.schema.js';
 import { groupRoleSchema } from './roles.schema.js';
 
 const emailField = z
@@ -42,8 +43,6 @@ export const invitationPreviewSchema = z.object({
 });
 export type InvitationPreview = z.infer<typeof invitationPreviewSchema>;
 
-export const NEW_PASSWORD_MIN = 10;
-
 /** The account fields a new person gives when accepting an invitation. */
 export const newAccountSchema = z.object({
   displayName: z
@@ -51,10 +50,7 @@ export const newAccountSchema = z.object({
     .trim()
     .min(1, 'Enter your name')
     .max(120, 'Names are at most 120 characters'),
-  password: z
-    .string({ error: 'Choose a password' })
-    .min(NEW_PASSWORD_MIN, `Choose a password of at least ${NEW_PASSWORD_MIN} characters`)
-    .max(200, 'Passwords are at most 200 characters'),
+  password: newPasswordSchema,
 });
 export type NewAccount = z.infer<typeof newAccountSchema>;
 

@@ -96,6 +96,7 @@ describe('app routes', () => {
             groupCount: 1,
             lastLoginAt: null,
             createdAt: '2026-11-01T08:00:00.000Z',
+            disabledAt: null,
           },
         ]),
       'GET /api/admin/audit-events': (request) =>

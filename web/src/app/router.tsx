@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { createBrowserRouter, RouterProvider, type RouteObject } from 'react-router-dom';
 import { paths } from '@/config/paths';
+import { AccountRoute } from './routes/account';
 import { AdminRoute } from './routes/admin';
 import { AdminGroupsRoute } from './routes/admin-groups';
 import { AdminOutboxRoute } from './routes/admin-outbox';
@@ -59,6 +60,7 @@ export const routes: RouteObject[] = [
           { path: paths.tokens.path, element: <TokensRoute /> },
           { path: paths.notifications.path, element: <NotificationsRoute /> },
           { path: paths.preferences.path, element: <PreferencesRoute /> },
+          { path: paths.account.path, element: <AccountRoute /> },
           { path: paths.group.path, element: <GroupRoute /> },
           { path: '*', element: <NotFoundRoute /> },
         ],

@@ -36,6 +36,7 @@ export const paths = {
   tokens: { path: '/tokens', getHref: () => '/tokens' },
   notifications: { path: '/notifications', getHref: () => '/notifications' },
   preferences: { path: '/preferences', getHref: () => '/preferences' },
+  account: { path: '/account', getHref: () => '/account' },
   group: { path: '/groups/:groupId', getHref: (groupId: number) => `/groups/${groupId}` },
   invitation: { path: '/invitations/:token', getHref: (token: string) => `/invitations/${encodeURIComponent(token)}` },
   adminGroups: { path: '/admin/groups', getHref: () => '/admin/groups' },

@@ -1,6 +1,7 @@
 import { type CanActivate, type ExecutionContext, ForbiddenException, Injectable, UnauthorizedException } from '@nestjs/common';
 import { Reflector } from '@nestjs/core';
 import type { Request } from 'express';
+import { READ_ONLY_METHODS } from '@sixtyfold/shared';
 import { TokensService } from '../../tokens/tokens.service';
 import { readBearerToken } from '../bearer-token';
 import { ADMIN_ONLY } from '../decorators/admin-only.decorator';
@@ -26,13 +27,17 @@ export class AccessGuard implements CanActivate {
     const req = context.switchToHttp().getRequest<Request>();
     const bearer = readBearerToken(req);
     if (bearer !== undefined && this.reflector.getAllAndOverride<boolean>(SESSION_ONLY, targets)) {
-      throw new ForbiddenException('Signing in and out and managing API tokens need a browser session; send this request without the Authorization header');
+      throw new ForbiddenException('Signing in and out, changing the password and managing API tokens need a browser session; send this request without the Authorization header');
     }
     if (this.reflector.getAllAndOverride<boolean>(IS_PUBLIC, targets)) return true;
     if (bearer !== undefined) {
-      req.user = await this.tokens.authenticate(bearer);
+      const { user, readOnly } = await this.tokens.authenticate(bearer);
+      if (readOnly && !(READ_ONLY_METHODS as readonly string[]).includes(req.method)) {
+        throw new ForbiddenException(`This API token is read-only: it may only read (${READ_ONLY_METHODS.join(', ')}); use a token without read-only for changes`);
+      }
+      req.user = user;
     } else if (!req.isAuthenticated?.() || !req.user) {
-      throw new UnauthorizedException('Sign in first: your session is missing or has expired');
+      throw new UnauthorizedException(req.sessionRefusal ?? 'Sign in first: your session is missing or has expired');
     }
     if (this.reflector.getAllAndOverride<boolean>(ADMIN_ONLY, targets) && req.user.siteRole !== 'admin') {
       throw new ForbiddenException('This needs the site administrator role');

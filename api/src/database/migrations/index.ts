@@ -6,10 +6,11 @@ import { Maintenance1796300000002 } from './1796300000002-Maintenance';
 import { Invitations1796300000003 } from './1796300000003-Invitations';
 import { CommentsAndNotifications1796300000004 } from './1796300000004-CommentsAndNotifications';
 import { AuditActionNames1796300000005 } from './1796300000005-AuditActionNames';
+import { AccountControls1796300000010 } from './1796300000010-AccountControls';
 
 // Migrations in the order they run; a new migration file is listed here too.
 export const MIGRATIONS: Function[] = [
   InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Uploads1796300000001,
   Maintenance1796300000002, Invitations1796300000003, CommentsAndNotifications1796300000004,
-  AuditActionNames1796300000005,
+  AuditActionNames1796300000005, AccountControls1796300000010,
 ];

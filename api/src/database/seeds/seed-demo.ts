@@ -7,38 +7,27 @@ import { User } from '../../users/entities/user.entity';
 import { DEMO_GROUPS, DEMO_MODELS, DEMO_PASSWORD, DEMO_USERS } from './demo-scenario';
 
 /**
- * Adds whatever part of the demo scenario is missing and changes nothing that exists, so it
- * can run at every start without touching a password or a role someone changed.
+ * Adds the demo scenario to a database without any account, and leaves a database that has
+ * accounts alone: a demo admin with the published password must never appear beside real
+ * people, nor come back after someone deleted it or changed its password.
  */
-export async function seedDemoScenario(ds: DataSource): Promise<{ created: number }> {
-  let created = 0;
-  await ds.transaction(async (tx) => {
+export async function seedDemoScenario(ds: DataSource): Promise<{ seeded: boolean }> {
+  return ds.transaction(async (tx) => {
+    // The lock keeps two starts at once from both finding the table empty.
+    const anyone = await tx.getRepository(User).createQueryBuilder('u').setLock('pessimistic_write').limit(1).getOne();
+    if (anyone) return { seeded: false };
     const groupIds = new Map<string, number>();
     for (const g of DEMO_GROUPS) {
       let group = await tx.findOne(Group, { where: { slug: g.slug } });
-      if (!group) {
-        group = await tx.save(tx.create(Group, g));
-        created++;
-      }
+      if (!group) group = await tx.save(tx.create(Group, g));
       groupIds.set(g.slug, group.id);
     }
     const userIds = new Map<string, number>();
+    const passwordHash = await hashPassword(DEMO_PASSWORD);
     for (const u of DEMO_USERS) {
-      let user = await tx.findOne(User, { where: { email: u.email } });
-      if (!user) {
-        user = await tx.save(
-          tx.create(User, {
-            email: u.email,
-            displayName: u.displayName,
-            siteRole: u.siteRole,
-            passwordHash: await hashPassword(DEMO_PASSWORD),
-          }),
-        );
-        created++;
-        // Memberships come with a new account only, so a role changed later stays changed.
-        for (const m of u.memberships) {
-          await tx.insert(Membership, { groupId: groupIds.get(m.group)!, userId: user.id, role: m.role });
-        }
+      const user = await tx.save(tx.create(User, { email: u.email, displayName: u.displayName, siteRole: u.siteRole, passwordHash }));
+      for (const m of u.memberships) {
+        await tx.insert(Membership, { groupId: groupIds.get(m.group)!, userId: user.id, role: m.role });
       }
       userIds.set(u.email, user.id);
     }
@@ -54,8 +43,7 @@ export async function seedDemoScenario(ds: DataSource): Promise<{ created: numbe
         description: m.description,
         createdById: userIds.get(m.createdBy) ?? null,
       });
-      created++;
     }
+    return { seeded: true };
   });
-  return { created };
 }

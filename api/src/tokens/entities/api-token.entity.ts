@@ -32,8 +32,13 @@ export class ApiToken {
   @Column({ name: 'last_used_at', type: 'datetime', precision: 3, nullable: true })
   lastUsedAt: Date | null;
 
-  @Column({ name: 'expires_at', type: 'datetime', precision: 3, nullable: true })
-  expiresAt: Date | null;
+  /** Every token expires (at most API_TOKEN_MAX_DAYS after its creation). */
+  @Column({ name: 'expires_at', type: 'datetime', precision: 3 })
+  expiresAt: Date;
+
+  /** A read-only token may only read (READ_ONLY_METHODS); AccessGuard refuses the rest with 403. */
+  @Column({ name: 'read_only', type: 'boolean', default: false })
+  readOnly: boolean;
 
   @Column({ name: 'revoked_at', type: 'datetime', precision: 3, nullable: true })
   revokedAt: Date | null;

@@ -28,6 +28,17 @@ export class User {
   @Column({ name: 'last_login_at', type: 'datetime', precision: 3, nullable: true })
   lastLoginAt: Date | null;
 
+  /** Set while a site admin has disabled the account: no sign-in, no session, no API token works. */
+  @Column({ name: 'disabled_at', type: 'datetime', precision: 3, nullable: true })
+  disabledAt: Date | null;
+
+  /**
+   * Sessions remember the epoch they were made in; raising it ends every older session at its next
+   * request (a password change, disabling the account). Never sent to clients.
+   */
+  @Column({ name: 'session_epoch', type: 'int', unsigned: true, default: 0, select: false })
+  sessionEpoch: number;
+
   @CreateDateColumn({ name: 'created_at', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' })
   createdAt: Date;
 

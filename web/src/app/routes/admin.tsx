@@ -1,6 +1,9 @@
 import { Box, Heading, Stack, Text } from '@chakra-ui/react';
+import type { AdminUser } from '@sixtyfold/shared';
+import { useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
+import { FailureAlert } from '@/components/ui/failure-alert';
 import { ErrorState } from '@/components/ui/error-state';
 import { UsersIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
@@ -9,10 +12,13 @@ import { Pager } from '@/components/ui/pager';
 import { Panel } from '@/components/ui/panel';
 import { useAdminUsers } from '@/features/admin/api/get-admin-users';
 import { useAuditEvents } from '@/features/admin/api/get-audit-events';
+import { useSetUserDisabled } from '@/features/admin/api/set-user-disabled';
 import { AuditEventsTable } from '@/features/admin/components/audit-events-table';
 import { AuditFiltersForm } from '@/features/admin/components/audit-filters-form';
+import { DisableUserDialog } from '@/features/admin/components/disable-user-dialog';
 import { UsersTable } from '@/features/admin/components/users-table';
 import { auditFilterChanges, hasAuditFilters, readAuditFilters } from '@/features/admin/utils/audit-filters';
+import { useMe } from '@/features/auth/api/get-me';
 import { RequireSiteAdmin } from '@/features/auth/components/require-site-admin';
 import { useGroups } from '@/features/groups/api/get-groups';
 import { useDocumentTitle } from '@/hooks/use-document-title';
@@ -37,11 +43,24 @@ export function AdminRoute() {
 
 function UsersSection() {
   const users = useAdminUsers();
+  const me = useMe();
+  const [disabling, setDisabling] = useState<AdminUser | null>(null);
+  const enable = useSetUserDisabled();
   return (
     <Box as="section" aria-labelledby="admin-users">
-      <Heading as="h2" id="admin-users" size="lg" color="ink.900" mb="3">
-        Users
-      </Heading>
+      <Stack gap="1" mb="3">
+        <Heading as="h2" id="admin-users" size="lg" color="ink.900">
+          Users
+        </Heading>
+        <Text color="fg.muted" fontSize="sm">
+          A disabled account is signed out everywhere, cannot sign in and its API tokens stop working, until it is enabled again.
+        </Text>
+      </Stack>
+      {enable.isError && (
+        <FailureAlert title="Could not enable the account" mb="4">
+          {enable.error.message}
+        </FailureAlert>
+      )}
       {users.isPending ? (
         <LoadingState label="Loading users…" />
       ) : users.isError ? (
@@ -50,9 +69,16 @@ function UsersSection() {
         <EmptyState icon={<UsersIcon />} title="No users" description="Accounts appear here once they are created." />
       ) : (
         <Panel>
-          <UsersTable users={users.data} />
+          <UsersTable
+            users={users.data}
+            currentUserId={me.data?.id}
+            onDisable={setDisabling}
+            onEnable={(user) => enable.mutate({ userId: user.id, disabled: false })}
+            enablingId={enable.isPending ? enable.variables.userId : null}
+          />
         </Panel>
       )}
+      <DisableUserDialog user={disabling} onClose={() => setDisabling(null)} />
     </Box>
   );
 }

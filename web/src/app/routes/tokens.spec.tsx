@@ -13,6 +13,7 @@ const notebook: ApiToken = {
   createdAt: '2026-11-20T09:00:00.000Z',
   lastUsedAt: null,
   expiresAt: '2099-01-01T00:00:00.000Z',
+  readOnly: true,
 };
 const oldScript: ApiToken = {
   id: 6,
@@ -21,6 +22,7 @@ const oldScript: ApiToken = {
   createdAt: '2025-01-10T09:00:00.000Z',
   lastUsedAt: '2025-02-01T10:30:00.000Z',
   expiresAt: '2025-04-10T09:00:00.000Z',
+  readOnly: false,
 };
 
 describe('API tokens page', () => {
@@ -37,7 +39,9 @@ describe('API tokens page', () => {
     expect(rows[1]).toHaveTextContent('laptop notebook');
     expect(rows[1]).toHaveTextContent('sfy_Zx81Kq0B…');
     expect(within(rows[1]).getByText('Never')).toBeInTheDocument(); // never used
+    expect(within(rows[1]).getByText('Read-only')).toBeInTheDocument();
     expect(within(rows[2]).getByText('Expired')).toBeInTheDocument();
+    expect(within(rows[2]).getByText('Read and write')).toBeInTheDocument();
     expect(screen.getByRole('link', { name: 'API reference' })).toHaveAttribute('href', '/api/docs');
   });
 
@@ -63,8 +67,8 @@ describe('API tokens page', () => {
       'GET /api/auth/me': () => json(200, memberUser),
       'GET /api/tokens': () => json(200, listed),
       'POST /api/tokens': (request) => {
-        const body = request.body as { name: string; expiresInDays?: number };
-        const token = { ...notebook, id: 9, name: body.name, prefix: SECRET.slice(0, 12) };
+        const body = request.body as { name: string; expiresInDays: number; readOnly: boolean };
+        const token = { ...notebook, id: 9, name: body.name, prefix: SECRET.slice(0, 12), readOnly: body.readOnly };
         listed = [token];
         return json(201, { ...token, token: SECRET });
       },
@@ -72,7 +76,11 @@ describe('API tokens page', () => {
     const { user } = renderApp('/tokens');
 
     await user.type(await screen.findByLabelText('Name'), '  analysis notebook ');
-    await user.selectOptions(screen.getByLabelText('Expires after'), '30 days');
+    const days = screen.getByLabelText('Expires after (days)');
+    expect(days).toHaveValue(90);
+    await user.clear(days);
+    await user.type(days, '30');
+    await user.click(screen.getByRole('checkbox', { name: 'Read-only' }));
     await user.click(screen.getByRole('button', { name: 'Create token' }));
 
     const notice = await screen.findByRole('alert', { name: 'New API token' });
@@ -80,7 +88,7 @@ describe('API tokens page', () => {
     expect(within(notice).getByRole('textbox')).toHaveValue(SECRET);
     const post = requests.find((r) => r.method === 'POST')!;
     expect(post.url.pathname).toBe('/api/tokens');
-    expect(post.body).toEqual({ name: 'analysis notebook', expiresInDays: 30 });
+    expect(post.body).toEqual({ name: 'analysis notebook', expiresInDays: 30, readOnly: true });
 
     await user.click(within(notice).getByRole('button', { name: 'Copy the token' }));
     expect(await navigator.clipboard.readText()).toBe(SECRET);
@@ -96,7 +104,25 @@ describe('API tokens page', () => {
     expect(screen.queryByDisplayValue(SECRET)).not.toBeInTheDocument();
   });
 
-  it('sends no expiry when Never is chosen, and shows the API’s field errors', async () => {
+  it('refuses a lifetime over a year, or none, with the shared schema before calling the API', async () => {
+    const { requests } = mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/tokens': () => json(200, []) });
+    const { user } = renderApp('/tokens');
+
+    await user.type(await screen.findByLabelText('Name'), 'forever');
+    const days = screen.getByLabelText('Expires after (days)');
+    await user.clear(days);
+    await user.type(days, '366');
+    await user.click(screen.getByRole('button', { name: 'Create token' }));
+    expect(await screen.findByText('a token lives at most 365 days')).toBeInTheDocument();
+    expect(days).toHaveAttribute('aria-invalid', 'true');
+
+    await user.clear(days);
+    await user.click(screen.getByRole('button', { name: 'Create token' }));
+    expect(await screen.findByText('expiresInDays must be a number of days')).toBeInTheDocument();
+    expect(requests.some((r) => r.method === 'POST')).toBe(false);
+  });
+
+  it('sends 90 days and full access by default, and shows the API’s field errors', async () => {
     const { requests } = mockApi({
       'GET /api/auth/me': () => json(200, memberUser),
       'GET /api/tokens': () => json(200, []),
@@ -104,12 +130,11 @@ describe('API tokens page', () => {
     });
     const { user } = renderApp('/tokens');
 
-    await user.type(await screen.findByLabelText('Name'), 'forever');
-    await user.selectOptions(screen.getByLabelText('Expires after'), 'Never');
+    await user.type(await screen.findByLabelText('Name'), 'default lifetime');
     await user.click(screen.getByRole('button', { name: 'Create token' }));
 
     expect(await screen.findByText('names are at most 100 characters')).toBeInTheDocument();
-    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ name: 'forever' });
+    expect(requests.find((r) => r.method === 'POST')?.body).toEqual({ name: 'default lifetime', expiresInDays: 90, readOnly: false });
   });
 
   it('revokes a token only after confirmation', async () => {

@@ -33,7 +33,9 @@ export function TokensRoute() {
             <Link href={`${env.VITE_API_BASE_PATH}/docs`} color="ink.fg" textDecoration="underline">
               API reference
             </Link>{' '}
-            lists every route. Anyone holding a token can act as you, so revoke the ones you no longer use.
+            lists every route. Every token expires, after 90 days unless you choose otherwise, and a read-only token
+            can fetch but never change anything. Anyone holding a token can act as you, so revoke the ones you no
+            longer use.
           </>
         }
       />

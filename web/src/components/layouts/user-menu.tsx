@@ -86,6 +86,9 @@ export function UserMenu({ user, onSignOut, signingOut }: UserMenuProps) {
             <Menu.Item value="preferences" asChild>
               <RouterLink to={paths.preferences.getHref()}>Preferences</RouterLink>
             </Menu.Item>
+            <Menu.Item value="account" asChild>
+              <RouterLink to={paths.account.getHref()}>Change password</RouterLink>
+            </Menu.Item>
             <Menu.Item value="api-tokens" asChild>
               <RouterLink to={paths.tokens.getHref()}>API tokens</RouterLink>
             </Menu.Item>

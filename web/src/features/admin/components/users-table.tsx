@@ -1,8 +1,19 @@
-import { Badge, Table, Text } from '@chakra-ui/react';
+import { Badge, Button, Table, Text } from '@chakra-ui/react';
 import type { AdminUser } from '@sixtyfold/shared';
 import { DateTime } from '@/components/ui/date-time';
+import { RemoveButton } from '@/components/ui/remove-button';
 
-export function UsersTable({ users }: { users: AdminUser[] }) {
+interface UsersTableProps {
+  users: AdminUser[];
+  /** The signed-in admin, who cannot disable their own account. */
+  currentUserId: number | undefined;
+  onDisable: (user: AdminUser) => void;
+  onEnable: (user: AdminUser) => void;
+  /** The account being re-enabled right now, if any. */
+  enablingId?: number | null;
+}
+
+export function UsersTable({ users, currentUserId, onDisable, onEnable, enablingId = null }: UsersTableProps) {
   return (
     <Table.ScrollArea>
       <Table.Root size="sm" interactive>
@@ -11,9 +22,13 @@ export function UsersTable({ users }: { users: AdminUser[] }) {
             <Table.ColumnHeader>Name</Table.ColumnHeader>
             <Table.ColumnHeader>E-mail</Table.ColumnHeader>
             <Table.ColumnHeader>Site role</Table.ColumnHeader>
+            <Table.ColumnHeader>State</Table.ColumnHeader>
             <Table.ColumnHeader textAlign="end">Groups</Table.ColumnHeader>
             <Table.ColumnHeader>Last sign-in</Table.ColumnHeader>
             <Table.ColumnHeader>Joined</Table.ColumnHeader>
+            <Table.ColumnHeader textAlign="end">
+              <Text srOnly>Actions</Text>
+            </Table.ColumnHeader>
           </Table.Row>
         </Table.Header>
         <Table.Body>
@@ -34,6 +49,17 @@ export function UsersTable({ users }: { users: AdminUser[] }) {
                   </Badge>
                 )}
               </Table.Cell>
+              <Table.Cell>
+                {user.disabledAt ? (
+                  <Badge colorPalette="red" variant="subtle" size="sm" title={`Disabled ${user.disabledAt}`}>
+                    Disabled
+                  </Badge>
+                ) : (
+                  <Badge colorPalette="green" variant="subtle" size="sm">
+                    Active
+                  </Badge>
+                )}
+              </Table.Cell>
               <Table.Cell textAlign="end" fontFamily="mono">
                 {user.groupCount}
               </Table.Cell>
@@ -42,6 +68,25 @@ export function UsersTable({ users }: { users: AdminUser[] }) {
               </Table.Cell>
               <Table.Cell fontSize="sm" color="fg.muted">
                 <DateTime iso={user.createdAt} />
+              </Table.Cell>
+              <Table.Cell textAlign="end">
+                {user.disabledAt ? (
+                  <Button
+                    size="xs"
+                    variant="ghost"
+                    colorPalette="ink"
+                    aria-label={`Enable ${user.displayName}`}
+                    loading={enablingId === user.id}
+                    loadingText="Enabling…"
+                    onClick={() => onEnable(user)}
+                  >
+                    Enable
+                  </Button>
+                ) : user.id === currentUserId ? null : (
+                  <RemoveButton label={`Disable ${user.displayName}`} onClick={() => onDisable(user)}>
+                    Disable
+                  </RemoveButton>
+                )}
               </Table.Cell>
             </Table.Row>
           ))}

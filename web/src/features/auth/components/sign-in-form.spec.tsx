@@ -51,6 +51,22 @@ describe('SignInForm', () => {
     expect(onSuccess).not.toHaveBeenCalled();
   });
 
+  it('says so when the account is disabled', async () => {
+    const message = 'Account disabled: a site administrator has disabled this account and can re-enable it';
+    mockApi({ 'POST /api/auth/login': () => apiError(403, message) });
+    const onSuccess = vi.fn();
+    const { user } = renderWithProviders(<SignInForm onSuccess={onSuccess} />);
+
+    await user.type(screen.getByLabelText('E-mail'), 'amara.okafor@halvorsen.example');
+    await user.type(screen.getByLabelText('Password'), 'the-right-password');
+    await user.click(screen.getByRole('button', { name: 'Sign in' }));
+
+    const alert = await screen.findByRole('alert');
+    expect(alert).toHaveTextContent(message);
+    expect(alert).toHaveTextContent('Ask a site administrator');
+    expect(onSuccess).not.toHaveBeenCalled();
+  });
+
   it('asks the user to wait when sign-in is throttled', async () => {
     const message = 'Too many sign-in attempts for this account (at most 10 in 60 s, from anywhere); try again in 42 s';
     mockApi({ 'POST /api/auth/login': () => apiError(429, message) });

@@ -19,6 +19,9 @@ function describeError(error: Error): { title: string; description: string } {
       return { title: 'Could not reach the Sixtyfold server', description: 'Check your connection, then try again.' };
     case 401:
       return { title: error.message, description: 'Check both fields; passwords are case-sensitive.' };
+    case 403:
+      // The password was right, but the account is disabled.
+      return { title: error.message, description: 'Ask a site administrator if you need your account back.' };
     case 429:
       // The API says which limit was reached and in how many seconds to try again.
       return { title: 'Too many attempts, wait a minute', description: error.message };

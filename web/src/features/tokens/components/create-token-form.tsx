@@ -1,33 +1,24 @@
-import { Button, Field, Input, NativeSelect, Stack } from '@chakra-ui/react';
+import { Button, Field, Input, Stack, Switch } from '@chakra-ui/react';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { createApiTokenSchema, type CreateApiToken, type CreatedApiToken } from '@sixtyfold/shared';
-import { useForm } from 'react-hook-form';
-import type { z } from 'zod';
+import {
+  API_TOKEN_DEFAULT_DAYS, API_TOKEN_MAX_DAYS, createApiTokenSchema, type CreateApiToken, type CreateApiTokenInput, type CreatedApiToken,
+} from '@sixtyfold/shared';
+import { Controller, useForm } from 'react-hook-form';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateToken } from '../api/create-token';
 
-type CreateApiTokenInput = z.input<typeof createApiTokenSchema>;
-
-// Lifetimes offered in the form; the API takes any whole number of days up to a year.
-const LIFETIMES = [
-  { days: 7, label: '7 days' },
-  { days: 30, label: '30 days' },
-  { days: 90, label: '90 days' },
-  { days: 365, label: '1 year' },
-] as const;
-const NO_EXPIRY = '';
-
 export function CreateTokenForm({ onCreated }: { onCreated: (token: CreatedApiToken) => void }) {
   const {
     register,
+    control,
     handleSubmit,
     reset,
     setError,
     formState: { errors },
   } = useForm<CreateApiTokenInput, unknown, CreateApiToken>({
     resolver: zodResolver(createApiTokenSchema),
-    defaultValues: { name: '', expiresInDays: 90 },
+    defaultValues: { name: '', expiresInDays: API_TOKEN_DEFAULT_DAYS, readOnly: false },
   });
   const create = useCreateToken({
     onSuccess: (token) => {
@@ -52,24 +43,39 @@ export function CreateTokenForm({ onCreated }: { onCreated: (token: CreatedApiTo
             <Field.ErrorText>{errors.name?.message}</Field.ErrorText>
           </Field.Root>
           <Field.Root invalid={!!errors.expiresInDays} flex="1">
-            <Field.Label>Expires after</Field.Label>
-            <NativeSelect.Root>
-              <NativeSelect.Field
-                bg="bg.panel"
-                {...register('expiresInDays', { setValueAs: (value: string | number) => (value === NO_EXPIRY ? undefined : Number(value)) })}
-              >
-                {LIFETIMES.map((lifetime) => (
-                  <option key={lifetime.days} value={lifetime.days}>
-                    {lifetime.label}
-                  </option>
-                ))}
-                <option value={NO_EXPIRY}>Never</option>
-              </NativeSelect.Field>
-              <NativeSelect.Indicator />
-            </NativeSelect.Root>
+            <Field.Label>Expires after (days)</Field.Label>
+            <Input
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={API_TOKEN_MAX_DAYS}
+              bg="bg.panel"
+              {...register('expiresInDays', { valueAsNumber: true })}
+            />
+            <Field.HelperText>From 1 to {API_TOKEN_MAX_DAYS}; every token expires.</Field.HelperText>
             <Field.ErrorText>{errors.expiresInDays?.message}</Field.ErrorText>
           </Field.Root>
         </Stack>
+        <Field.Root invalid={!!errors.readOnly}>
+          <Controller
+            control={control}
+            name="readOnly"
+            render={({ field }) => (
+              <Switch.Root
+                name={field.name}
+                checked={field.value === true}
+                onCheckedChange={(details) => field.onChange(details.checked)}
+                colorPalette="ember"
+              >
+                <Switch.HiddenInput onBlur={field.onBlur} />
+                <Switch.Control />
+                <Switch.Label>Read-only</Switch.Label>
+              </Switch.Root>
+            )}
+          />
+          <Field.HelperText>A read-only token can fetch scans and results but cannot submit, change or delete anything.</Field.HelperText>
+          <Field.ErrorText>{errors.readOnly?.message}</Field.ErrorText>
+        </Field.Root>
         <Button type="submit" colorPalette="ember" alignSelf="start" loading={create.isPending} loadingText="Creating…">
           Create token
         </Button>

@@ -21,6 +21,7 @@ export function TokensTable({ tokens, onRevoke, now = new Date() }: TokensTableP
             <Table.ColumnHeader>Created</Table.ColumnHeader>
             <Table.ColumnHeader>Last used</Table.ColumnHeader>
             <Table.ColumnHeader>Expires</Table.ColumnHeader>
+            <Table.ColumnHeader>Access</Table.ColumnHeader>
             <Table.ColumnHeader textAlign="end">
               <Text srOnly>Actions</Text>
             </Table.ColumnHeader>
@@ -28,7 +29,7 @@ export function TokensTable({ tokens, onRevoke, now = new Date() }: TokensTableP
         </Table.Header>
         <Table.Body>
           {tokens.map((token) => {
-            const expired = token.expiresAt !== null && Date.parse(token.expiresAt) <= now.getTime();
+            const expired = Date.parse(token.expiresAt) <= now.getTime();
             return (
               <Table.Row key={token.id}>
                 <Table.Cell fontWeight="500" color="ink.900">
@@ -44,14 +45,21 @@ export function TokensTable({ tokens, onRevoke, now = new Date() }: TokensTableP
                   {token.lastUsedAt ? <DateTime iso={token.lastUsedAt} /> : <Text as="span">Never</Text>}
                 </Table.Cell>
                 <Table.Cell fontSize="sm" color="fg.muted">
-                  {token.expiresAt === null ? (
-                    <Text as="span">Never</Text>
-                  ) : expired ? (
+                  {expired ? (
                     <Badge colorPalette="red" variant="subtle" size="sm" title={token.expiresAt}>
                       Expired
                     </Badge>
                   ) : (
                     <DateTime iso={token.expiresAt} />
+                  )}
+                </Table.Cell>
+                <Table.Cell fontSize="sm" color="fg.muted">
+                  {token.readOnly ? (
+                    <Badge variant="subtle" size="sm">
+                      Read-only
+                    </Badge>
+                  ) : (
+                    <Text as="span">Read and write</Text>
                   )}
                 </Table.Cell>
                 <Table.Cell textAlign="end">
