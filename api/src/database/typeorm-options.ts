@@ -13,6 +13,8 @@ export function buildDataSourceOptions(config: DatabaseConfig): DataSourceOption
     password: config.password,
     database: config.database,
     poolSize: config.poolSize,
+    // mysql2's pool refuses waiters beyond this; the wait itself is bounded by limitPoolWait().
+    extra: { queueLimit: config.queueLimit },
     charset: 'utf8mb4_unicode_ci',
     timezone: 'Z',
     entities: ENTITIES,

@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { Group } from '../groups/entities/group.entity';
 import { Membership } from '../groups/entities/membership.entity';
+import { ExportsModule } from '../exports/exports.module';
 import { GroupsModule } from '../groups/groups.module';
 import { ScanArchive } from './entities/scan-archive.entity';
 import { MaintenanceAccessService } from './maintenance-access.service';
@@ -14,7 +15,7 @@ import { ScanDeletionService } from './scan-deletion.service';
 import { StorageService } from './storage.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule],
+  imports: [TypeOrmModule.forFeature([ScanArchive, Group, Membership]), GroupsModule, AuditModule, ExportsModule],
   controllers: [MaintenanceController],
   providers: [MaintenanceAccessService, ScanArchivesService, ScanDeletionService, StorageService, PruneService, RetentionService],
   exports: [ScanDeletionService],

@@ -42,6 +42,8 @@ const errorDescriptions: Record<number, string> = {
   502: 'The mail server refused the message; nothing was saved',
   413: 'The uploaded file is larger than the limit the message names',
   415: 'The uploaded file is not of the type the route reads',
+  429: 'Too many downloads running at once, yours or the whole site\'s; `message` says which',
+  503: 'The database is busy (no connection came free in time); try again in a moment',
 };
 
 /** Documents the error answers a route can give; all share the ApiError body. */

@@ -142,7 +142,7 @@ export class ScansService {
 
   async get(user: SessionUser, id: number): Promise<ScanDetail> {
     const scan = await this.load(user, id);
-    const running = scan.status === 'running' || scan.status === 'queued' ? await this.queue.runningPoints(id) : 0;
+    const running = scan.status === 'running' || scan.status === 'queued' ? await this.queue.runningPoints(id, scan.totalPoints, scan.method) : 0;
     const finished = scan.donePoints + scan.failedPoints;
     const pending = Math.max(0, scan.totalPoints - finished);
     const end = scan.finishedAt ?? new Date();
