@@ -12,11 +12,13 @@ import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
+import { exportsConfig } from './config/exports.config';
 import { invitationConfig } from './config/invitation.config';
 import { mailConfig } from './config/mail.config';
 import { maintenanceConfig } from './config/maintenance.config';
 import { notificationsConfig } from './config/notifications.config';
 import { redisConfig } from './config/redis.config';
+import { DatabasePoolModule } from './database/database-pool.module';
 import { buildDataSourceOptions } from './database/typeorm-options';
 import { GroupsModule } from './groups/groups.module';
 import { HealthModule } from './health/health.module';
@@ -34,11 +36,12 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig, maintenanceConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig, maintenanceConfig, exportsConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
     }),
+    DatabasePoolModule,
     // Timed jobs (nightly retention, mail digests, finished-scan notices) run inside the API.
     ScheduleModule.forRoot(),
     RedisModule,

@@ -1,22 +1,33 @@
 #!/usr/bin/env node
 // `npm run bench`: the engine's own speed, then a 10,000-point slow-roll scan through the API,
-// the queue, the workers and MariaDB, against the engine alone on the same cores. Figures only.
+// the queue, the workers and MariaDB, against the engine alone on the same cores; then the API
+// under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped).
+// Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import path from 'node:path';
+import { benchExports, benchPoll } from './lib/load-bench.mjs';
 import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
 import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
+const PARTS = ['engine', 'pipeline', 'poll', 'exports'];
+const asked = process.argv.slice(2);
+const unknownPart = asked.find((p) => !PARTS.includes(p));
+if (unknownPart) fail(`no bench part '${unknownPart}'; the parts are ${PARTS.join(', ')}`);
+const runs = (part) => asked.length === 0 || asked.includes(part);
+
 const profile = resolveProfile('bench');
 ensureNodePackages();
 ensureDebianPackages(profilePackages(profile));
 npmRun(['run', '--silent', 'build'], { ...process.env, NODE_ENV: undefined });
 
-log('engine alone');
-const engineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/engine.bench.mjs')], { stdio: 'inherit' });
-if (engineBench.status !== 0) fail('the engine benchmark failed');
+if (runs('engine')) {
+  log('engine alone');
+  const engineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/engine.bench.mjs')], { stdio: 'inherit' });
+  if (engineBench.status !== 0) fail('the engine benchmark failed');
+}
 
 const services = await startProfileServices(profile, { fresh: true });
 const env = {
@@ -43,17 +54,21 @@ const body = {
 // as there are workers, running at once on the same cores (the fair yardstick for the pipeline).
 const spec = { ...createScanSchema.parse(body), potentialSource: 'starobinsky' };
 const grid = new ScanGrid(spec.axes);
-const engine = new RequestEvaluator();
-const start = performance.now();
-for (let i = 0; i < grid.size; i++) engine.evaluate(pointRequest(spec, 'starobinsky', grid.point(i)));
-const engineRate = grid.size / ((performance.now() - start) / 1000);
-const shares = await Promise.all(Array.from({ length: workers }, (_, share) => new Promise((resolve, reject) => {
-  const child = spawn(process.execPath, [path.join(ROOT, 'deploy/scripts/lib/engine-share.mjs'), JSON.stringify(body), String(share), String(workers)]);
-  let out = '';
-  child.stdout.on('data', (d) => (out += d));
-  child.on('exit', (code) => (code === 0 ? resolve(JSON.parse(out)) : reject(new Error(`engine share ${share} exited with ${code}`))));
-})));
-const parallelRate = grid.size / Math.max(...shares.map((s) => s.seconds));
+let engineRate = 0;
+let parallelRate = 0;
+if (runs('pipeline')) {
+  const engine = new RequestEvaluator();
+  const start = performance.now();
+  for (let i = 0; i < grid.size; i++) engine.evaluate(pointRequest(spec, 'starobinsky', grid.point(i)));
+  engineRate = grid.size / ((performance.now() - start) / 1000);
+  const shares = await Promise.all(Array.from({ length: workers }, (_, share) => new Promise((resolve, reject) => {
+    const child = spawn(process.execPath, [path.join(ROOT, 'deploy/scripts/lib/engine-share.mjs'), JSON.stringify(body), String(share), String(workers)]);
+    let out = '';
+    child.stdout.on('data', (d) => (out += d));
+    child.on('exit', (code) => (code === 0 ? resolve(JSON.parse(out)) : reject(new Error(`engine share ${share} exited with ${code}`))));
+  })));
+  parallelRate = grid.size / Math.max(...shares.map((s) => s.seconds));
+}
 
 const apps = startAppProcesses({ env, workers, quiet: true });
 let exitCode = 0;
@@ -81,22 +96,29 @@ try {
     if (scan.status !== 'completed') throw new Error(`the scan did not complete in 10 minutes (${scan.status})`);
     return { scan, seconds: (Date.parse(scan.finishedAt) - submitted) / 1000 };
   };
-  // Warm-up: each worker parses the model once and the JIT settles, as in a long scan.
-  await runScan({ ...body, name: 'benchmark warm-up', axes: [body.axes[0], { ...body.axes[1], count: 40 }] });
-  const { scan, seconds } = await runScan(body);
-  const pipelineRate = grid.size / seconds;
-  process.stdout.write(
-    `\nend to end: ${grid.size} slow-roll points, ${workers} worker process(es)\n` +
-      `  engine alone, one core        ${engineRate.toFixed(0)} points/s (×${workers} = ${(engineRate * workers).toFixed(0)})\n` +
-      `  engine alone, ${workers} processes    ${parallelRate.toFixed(0)} points/s (the same cores, at once)\n` +
-      `  API → queue → workers → DB    ${pipelineRate.toFixed(0)} points/s (${seconds.toFixed(2)} s, ${scan.donePoints} points stored)\n` +
-      `  ratio to the engine alone     ${(pipelineRate / parallelRate).toFixed(2)} (goal ≥ 0.80)\n`,
-  );
+  if (runs('pipeline')) {
+    // Warm-up: each worker parses the model once and the JIT settles, as in a long scan.
+    await runScan({ ...body, name: 'benchmark warm-up', axes: [body.axes[0], { ...body.axes[1], count: 40 }] });
+    const { scan, seconds } = await runScan(body);
+    const pipelineRate = grid.size / seconds;
+    process.stdout.write(
+      `\nend to end: ${grid.size} slow-roll points, ${workers} worker process(es)\n` +
+        `  engine alone, one core        ${engineRate.toFixed(0)} points/s (×${workers} = ${(engineRate * workers).toFixed(0)})\n` +
+        `  engine alone, ${workers} processes    ${parallelRate.toFixed(0)} points/s (the same cores, at once)\n` +
+        `  API → queue → workers → DB    ${pipelineRate.toFixed(0)} points/s (${seconds.toFixed(2)} s, ${scan.donePoints} points stored)\n` +
+        `  ratio to the engine alone     ${(pipelineRate / parallelRate).toFixed(2)} (goal ≥ 0.80)\n`,
+    );
+  }
+  const load = { base, headers, workers, databaseUrl: profile.databaseUrl, email: 'lucia.marin@halvorsen.example', password: DEMO_PASSWORD };
+  if (runs('poll')) await benchPoll(load);
+  if (runs('exports')) await benchExports(load);
 } catch (err) {
   process.stderr.write(`benchmark failed: ${err.message}\n`);
   exitCode = 1;
 } finally {
+  const stopping = performance.now();
   await apps.stop();
+  log(`the API and workers stopped in ${((performance.now() - stopping) / 1000).toFixed(1)} s`);
   for (const s of services.reverse()) await s.stop();
 }
 process.exit(exitCode);

@@ -15,6 +15,9 @@ const schema = z.object({
   DATABASE_TLS: booleanish.default(false),
   /** CA certificate (PEM) that signed the server's certificate; implies DATABASE_TLS=true. */
   DATABASE_TLS_CA_FILE: z.string().optional(),
+  // A request waits at most this long for a pooled connection, and at most this many wait: beyond, 503.
+  DATABASE_ACQUIRE_TIMEOUT_MS: z.coerce.number().int().min(1).default(5000),
+  DATABASE_QUEUE_LIMIT: z.coerce.number().int().min(1).default(100),
 });
 
 export interface DatabaseConfig {
@@ -26,6 +29,8 @@ export interface DatabaseConfig {
   poolSize: number;
   /** TLS with a verified server certificate (system CAs, or `ca`); null for a plain connection. */
   tls: { ca?: string } | null;
+  acquireTimeoutMs: number;
+  queueLimit: number;
 }
 
 /** Reads DATABASE_URL into connection settings; shared by the API, the worker and the migration CLI. */
@@ -43,6 +48,8 @@ export function readDatabaseConfig(env: NodeJS.ProcessEnv = process.env): Databa
     tls: useTls
       ? parsed.DATABASE_TLS_CA_FILE ? { ca: readPemFile('database', 'DATABASE_TLS_CA_FILE', parsed.DATABASE_TLS_CA_FILE) } : {}
       : null,
+    acquireTimeoutMs: parsed.DATABASE_ACQUIRE_TIMEOUT_MS,
+    queueLimit: parsed.DATABASE_QUEUE_LIMIT,
   };
 }
 

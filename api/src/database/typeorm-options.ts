@@ -15,6 +15,8 @@ export function buildDataSourceOptions(config: DatabaseConfig): DataSourceOption
     poolSize: config.poolSize,
     // mysql2 verifies the server's certificate (rejectUnauthorized) whenever TLS is on.
     ...(config.tls ? { ssl: { ...config.tls, rejectUnauthorized: true } } : {}),
+    // mysql2's pool refuses waiters beyond this; the wait itself is bounded by limitPoolWait().
+    extra: { queueLimit: config.queueLimit },
     charset: 'utf8mb4_unicode_ci',
     timezone: 'Z',
     entities: ENTITIES,

@@ -1,7 +1,6 @@
 import { Body, Controller, Get, HttpCode, Param, ParseIntPipe, Patch, Post, Query, Res } from '@nestjs/common';
 import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { pipeline } from 'node:stream/promises';
 import {
   archiveListQuerySchema, prunePlanSchema, pruneFilterSchema, pruneRequestSchema, pruneResultSchema, retentionPolicySchema,
   retentionRunSchema, scanArchiveSchema, storageReportSchema, type ArchiveListQuery, type PruneFilter, type PrunePlan,
@@ -11,6 +10,7 @@ import { z } from 'zod';
 import { AdminOnly } from '../common/decorators/admin-only.decorator';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
+import { ExportsService } from '../exports/exports.service';
 import type { SessionUser } from '../common/session-user';
 import { ApiErrorResponses, ApiZodBody, ApiZodQuery, ApiZodResponse } from '../openapi/zod-openapi.decorators';
 import { PruneService } from './prune.service';
@@ -27,6 +27,7 @@ export class MaintenanceController {
     private readonly prune: PruneService,
     private readonly archives: ScanArchivesService,
     private readonly retention: RetentionService,
+    private readonly exports: ExportsService,
   ) {}
 
   @Get('storage')
@@ -73,14 +74,16 @@ export class MaintenanceController {
   @ApiOperation({ summary: 'Download an archive: a .tar.gz holding scan.json (the record and specification) and points.csv' })
   @ApiProduces('application/gzip')
   @ApiResponse({ status: 200, description: 'The archive file', content: { 'application/gzip': { schema: { type: 'string', format: 'binary' } } } })
-  @ApiErrorResponses(400, 401, 403, 404)
+  @ApiErrorResponses(400, 401, 403, 404, 429)
   async download(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number, @Res({ passthrough: true }) res: Response): Promise<void> {
-    const { archive, stream } = await this.archives.open(user, id);
-    res.setHeader('Content-Type', 'application/gzip');
-    res.setHeader('Content-Length', String(archive.bytes));
-    res.setHeader('Content-Disposition', `attachment; filename="${archive.fileName}"`);
-    res.setHeader('X-Archive-Sha256', archive.sha256);
-    await pipeline(stream, res);
+    const { archive, openFile } = await this.archives.open(user, id);
+    const headers = {
+      'Content-Type': 'application/gzip',
+      'Content-Length': String(archive.bytes),
+      'Content-Disposition': `attachment; filename="${archive.fileName}"`,
+      'X-Archive-Sha256': archive.sha256,
+    };
+    await this.exports.send(user, res, { headers, open: openFile });
   }
 
   @Get('groups/:id/retention')

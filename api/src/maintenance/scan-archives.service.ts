@@ -6,7 +6,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { createReadStream, createWriteStream } from 'node:fs';
 import { mkdir, rename, rm, stat } from 'node:fs/promises';
 import path from 'node:path';
-import { PassThrough, Transform, type Readable } from 'node:stream';
+import { Transform } from 'node:stream';
 import { pipeline } from 'node:stream/promises';
 import { createGzip } from 'node:zlib';
 import { pack } from 'tar-stream';
@@ -14,6 +14,7 @@ import { In, type DataSource, type EntityManager } from 'typeorm';
 import type { ArchiveListQuery, ScanArchive as ScanArchiveDto } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import type { MaintenanceConfig } from '../config/maintenance.config';
+import { openQueryStream, type ExportSource } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from '../scans/entities/scan.entity';
 import { ScanArchive } from './entities/scan-archive.entity';
@@ -88,22 +89,22 @@ export class ScanArchivesService {
 
   /** Streams the scan's points (in point order, never all in memory) into a CSV file; answers the row count. */
   private async writePointsCsv(scanId: number, file: string): Promise<number> {
-    const rows = await this.db
-      .createQueryBuilder()
-      .select(ARCHIVE_POINT_COLUMNS.map((c) => `p.${c}`).join(', '))
-      .from('scan_points', 'p')
-      .where('p.scan_id = :scanId', { scanId })
-      .orderBy('p.point_index', 'ASC')
-      .stream();
+    const rows = await openQueryStream(this.db, `SELECT ${ARCHIVE_POINT_COLUMNS.join(', ')} FROM scan_points WHERE scan_id = ? ORDER BY point_index`, [scanId]);
     let count = 0;
     const toRecord = new Transform({
       objectMode: true,
       transform(raw: Record<string, unknown>, _enc, done) {
         count += 1;
-        done(null, ARCHIVE_POINT_COLUMNS.map((c) => csvValue(c, raw[c] ?? raw[`p_${c}`])));
+        done(null, ARCHIVE_POINT_COLUMNS.map((c) => csvValue(c, raw[c])));
       },
     });
-    await pipeline(rows, toRecord, stringify({ header: true, columns: [...ARCHIVE_POINT_COLUMNS] }), createWriteStream(file));
+    let completed = false;
+    try {
+      await pipeline(rows.readable, toRecord, stringify({ header: true, columns: [...ARCHIVE_POINT_COLUMNS] }), createWriteStream(file));
+      completed = true;
+    } finally {
+      await rows.close(completed);
+    }
     return count;
   }
 
@@ -116,16 +117,19 @@ export class ScanArchivesService {
     return rows.map(toDto);
   }
 
-  /** The archive's record and its file as a stream, for admins and the group's leads. */
-  async open(user: SessionUser, id: number): Promise<{ archive: ScanArchiveDto; stream: Readable }> {
+  /** The archive's record and its file as a download source, for admins and the group's leads. */
+  async open(user: SessionUser, id: number): Promise<{ archive: ScanArchiveDto; openFile: () => Promise<ExportSource> }> {
     const row = await this.db.getRepository(ScanArchive).findOne({ where: { id }, relations: { createdBy: true } });
     if (!row) throw new NotFoundException('No such archive');
     await this.access.require(user, row.groupId, 'lead', 'archive');
     const file = path.join(this.dir, row.fileName);
     const exists = await stat(file).then(() => true, () => false);
     if (!exists) throw new NotFoundException(`The archive file ${row.fileName} is missing from the archive folder`);
-    const stream = createReadStream(file).pipe(new PassThrough());
-    return { archive: toDto(row), stream };
+    const openFile = async (): Promise<ExportSource> => {
+      const readable = createReadStream(file);
+      return { readable, close: async () => void readable.destroy() };
+    };
+    return { archive: toDto(row), openFile };
   }
 }
 

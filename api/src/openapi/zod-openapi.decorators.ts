@@ -42,8 +42,8 @@ const errorDescriptions: Record<number, string> = {
   502: 'The mail server refused the message; nothing was saved',
   413: 'The uploaded file is larger than the limit the message names',
   415: 'The uploaded file is not of the type the route reads',
-  429: 'A limit was reached (the message says which); `Retry-After` gives the seconds to wait',
-  503: 'The server is busy or not ready; try again in a few seconds',
+  429: 'A limit was reached (too many sign-ins, e-mails or downloads at once; the message says which); `Retry-After` gives the seconds to wait where it applies',
+  503: 'The server is busy (no database connection came free in time, or too many password checks waiting) or not ready; try again in a moment',
 };
 
 /** Documents the error answers a route can give; all share the ApiError body. */

@@ -1,7 +1,9 @@
 import { InjectQueue } from '@nestjs/bull';
 import { ConflictException, Injectable } from '@nestjs/common';
 import type { Queue } from 'bull';
-import { chunkJobId, chunkPriority, COMPUTE_CHUNK_JOB, SCAN_QUEUE, scanChunks, type ComputeChunkJob, type ScanMethod } from '@sixtyfold/shared';
+import {
+  chunkJobId, chunkPoints, chunkPriority, COMPUTE_CHUNK_JOB, parseChunkJobId, SCAN_QUEUE, scanChunks, type ComputeChunkJob, type ScanMethod,
+} from '@sixtyfold/shared';
 
 /** Puts a scan's chunks on the queue; job ids come from scan and chunk, so a repeat adds nothing. */
 @Injectable()
@@ -54,17 +56,23 @@ export class ScanQueueService {
     let removed = 0;
     for (const c of scanChunks(scanId, total, method)) {
       const job = await this.queue.getJob(chunkJobId(scanId, c.chunk));
-      if (job && !(await job.isActive())) {
-        await job.remove();
-        removed++;
-      }
+      // A worker may take the job between the look and the removal; it then stops on its own.
+      if (job && !(await job.isActive()) && (await job.remove().then(() => true, () => false))) removed++;
     }
     return removed;
   }
 
-  /** Points of this scan in chunks that a worker holds right now. */
-  async runningPoints(scanId: number): Promise<number> {
-    const active = await this.queue.getActive();
-    return active.filter((j) => j.data.scanId === scanId).reduce((n, j) => n + (j.data.end - j.data.start), 0);
+  /**
+   * Points of this scan in chunks that a worker holds right now. One read of the active list's job
+   * ids (scan and chunk are in the id), no job fetched: a job that finishes meanwhile cannot fail it.
+   */
+  async runningPoints(scanId: number, total: number, method: ScanMethod): Promise<number> {
+    const ids = await this.queue.client.lrange(this.queue.toKey('active'), 0, -1);
+    let points = 0;
+    for (const id of ids) {
+      const job = parseChunkJobId(id);
+      if (job?.scanId === scanId) points += chunkPoints(total, method, job.chunk);
+    }
+    return points;
   }
 }

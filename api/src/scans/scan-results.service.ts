@@ -1,13 +1,16 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { stringify } from 'csv-stringify';
-import { Transform, type Readable } from 'node:stream';
+import type { Response } from 'express';
+import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
   POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
+import { ExportsService } from '../exports/exports.service';
+import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
@@ -54,6 +57,7 @@ export class ScanResultsService {
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly access: GroupAccessService,
+    private readonly exports: ExportsService,
   ) {}
 
   async readable(user: SessionUser, id: number): Promise<Scan> {
@@ -115,13 +119,20 @@ export class ScanResultsService {
   }
 
   /**
-   * Every matching point as CSV or JSON, streamed from MariaDB row by row, so that a million
-   * points never sit in memory. Columns: point index, one per axis, status, reason, outputs.
+   * Every matching point as CSV or JSON into `res`, streamed from MariaDB row by row, so that a
+   * million points never sit in memory. Columns: point index, one per axis, status, reason, outputs.
    */
-  async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json'): Promise<Readable> {
+  async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json', res: Response): Promise<void> {
     const scan = await this.readable(user, id);
     const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
-    const source = await this.filtered(scan, q).stream();
+    const [sql, parameters] = this.filtered(scan, q).getQueryAndParameters();
+    const download = {
+      headers: {
+        'Content-Type': format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8',
+        'Content-Disposition': `attachment; filename="scan-${id}-points.${format}"`,
+      },
+      open: () => openQueryStream(this.db, sql, parameters),
+    };
     const toPoint = new Transform({
       objectMode: true,
       transform(raw: RawPoint, _enc, done) {
@@ -138,7 +149,7 @@ export class ScanResultsService {
           done(null, [p.pointIndex, ...axes.map((a) => p.inputs[a]), p.status, p.failureReason ?? '', ...outputs.map((o) => p[o] ?? '')]);
         },
       });
-      return source.pipe(toPoint).pipe(flatten).pipe(stringify({ header: true, columns }));
+      return this.exports.send(user, res, { ...download, stages: [toPoint, flatten, stringify({ header: true, columns })] });
     }
     let first = true;
     const json = new Transform({
@@ -151,7 +162,7 @@ export class ScanResultsService {
         done(null, first ? '[]\n' : '\n]\n');
       },
     });
-    return source.pipe(toPoint).pipe(json);
+    return this.exports.send(user, res, { ...download, stages: [toPoint, json] });
   }
 
   /**

@@ -1,7 +1,6 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Query, Res, UploadedFile, UseInterceptors } from '@nestjs/common';
 import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
-import { pipeline } from 'node:stream/promises';
 import {
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
@@ -86,7 +85,7 @@ export class ScansController {
       'text/csv': { schema: { type: 'string' } },
     },
   })
-  @ApiErrorResponses(400, 401, 404)
+  @ApiErrorResponses(400, 401, 404, 429, 503)
   async points(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,
@@ -94,10 +93,7 @@ export class ScansController {
     @Res({ passthrough: true }) res: Response,
   ): Promise<Page<ScanPointDto> | void> {
     if (!query.format) return this.results.page(user, id, query);
-    const stream = await this.results.export(user, id, query, query.format);
-    res.setHeader('Content-Type', query.format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="scan-${id}-points.${query.format}"`);
-    await pipeline(stream, res);
+    await this.results.export(user, id, query, query.format, res);
   }
 
   @Get(':id/points/:pointIndex')

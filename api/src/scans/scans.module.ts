@@ -1,6 +1,7 @@
 import { Module } from '@nestjs/common';
 import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
+import { ExportsModule } from '../exports/exports.module';
 import { GroupsModule } from '../groups/groups.module';
 import { MaintenanceModule } from '../maintenance/maintenance.module';
 import { QueueModule } from '../queue/queue.module';
@@ -15,7 +16,7 @@ import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule, ExportsModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })

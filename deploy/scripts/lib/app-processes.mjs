@@ -1,5 +1,6 @@
 // Starts the API and the worker processes of a profile and keeps the workers running.
 import { spawn } from 'node:child_process';
+import os from 'node:os';
 import path from 'node:path';
 import { ROOT } from './environment.mjs';
 import { log } from './output.mjs';
@@ -33,6 +34,8 @@ function startNode(script, label, env, { quiet = false } = {}) {
   return child;
 }
 
+const WORKER_NICENESS = 10;
+
 /**
  * The API plus `count` workers. A worker that dies is started again after a pause, the way a
  * process manager would; `stop()` ends them all (SIGTERM, then SIGKILL after a grace period).
@@ -43,6 +46,13 @@ export function startAppProcesses({ env, workers: count, quiet = false }) {
   const workers = [];
   const launchWorker = (i) => {
     const child = startNode(path.join(ROOT, 'worker/dist/main.js'), `[worker-${i + 1}]`, env, { quiet });
+    // Workers compute flat out; at a lower priority they leave the API the moments it needs to
+    // answer (progress polls, sign-in) on the same cores, and still get every idle cycle.
+    try {
+      os.setPriority(child.pid, WORKER_NICENESS);
+    } catch {
+      // not permitted here: the workers run at the API's priority
+    }
     workers[i] = child;
     child.once('exit', (code, signal) => {
       if (stopping) return;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { chunkJobId, chunkSize, scanChunks } from './scan-queue.js';
+import { chunkJobId, chunkPoints, chunkSize, parseChunkJobId, scanChunks } from './scan-queue.js';
 
 describe('scan chunks', () => {
   it('cover every point once, in order, for any size', () => {
@@ -25,5 +25,15 @@ describe('scan chunks', () => {
 
   it('name jobs by scan and chunk, so a repeat enqueue adds nothing', () => {
     expect(chunkJobId(12, 3)).toBe('scan-12-chunk-3');
+  });
+
+  it('read scan and chunk back from a job id, and size a chunk without listing them all', () => {
+    expect(parseChunkJobId(chunkJobId(12, 3))).toEqual({ scanId: 12, chunk: 3 });
+    expect(parseChunkJobId('preview-5')).toBeNull();
+    expect(parseChunkJobId('scan-1-chunk-2x')).toBeNull();
+    for (const total of [1, 17, 10_000, 32_001]) {
+      for (const c of scanChunks(7, total, 'exact')) expect(chunkPoints(total, 'exact', c.chunk)).toBe(c.end - c.start);
+    }
+    expect(chunkPoints(100, 'slowroll', 5)).toBe(0);
   });
 });

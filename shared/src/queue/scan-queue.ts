@@ -34,6 +34,18 @@ export function chunkJobId(scanId: number, chunk: number): string {
   return `scan-${scanId}-chunk-${chunk}`;
 }
 
+/** Scan and chunk of a chunk job id, or null for any other id. */
+export function parseChunkJobId(jobId: string): { scanId: number; chunk: number } | null {
+  const match = /^scan-(\d+)-chunk-(\d+)$/.exec(jobId);
+  return match ? { scanId: Number(match[1]), chunk: Number(match[2]) } : null;
+}
+
+/** Points [start, end) of one chunk of a scan of `total` points. */
+export function chunkPoints(total: number, method: ScanMethod, chunk: number): number {
+  const size = chunkSize(total, method);
+  return Math.max(0, Math.min(total, (chunk + 1) * size) - chunk * size);
+}
+
 /** The chunks of a scan of `total` points. */
 export function scanChunks(scanId: number, total: number, method: ScanMethod): ComputeChunkJob[] {
   const size = chunkSize(total, method);
