@@ -64,7 +64,8 @@ export class ScanQueueService {
 
   /** Points of this scan in chunks that a worker holds right now. */
   async runningPoints(scanId: number): Promise<number> {
-    const active = await this.queue.getActive();
+    // A job that finishes while bull lists the active ones comes back as null.
+    const active = (await this.queue.getActive()).filter((j): j is NonNullable<typeof j> => j !== null);
     return active.filter((j) => j.data.scanId === scanId).reduce((n, j) => n + (j.data.end - j.data.start), 0);
   }
 }
