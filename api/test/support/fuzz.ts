@@ -31,13 +31,13 @@ export const MAX_ANSWER_MS = 2000;
 
 /** Answers per target, printed at the end of the run. */
 export class FuzzTally {
-  private readonly targets = new Map<string, { seed: number; inputs: number; statuses: Map<number, number>; slowestMs: number }>();
+  private readonly targets = new Map<string, { seed: number; inputs: number; statuses: Map<number, number>; slowestMs: number; slowestInput: string }>();
 
-  record(target: string, seed: number, answer: Answer): void {
-    const t = this.targets.get(target) ?? { seed, inputs: 0, statuses: new Map(), slowestMs: 0 };
+  record(target: string, seed: number, answer: Answer, input: unknown): void {
+    const t = this.targets.get(target) ?? { seed, inputs: 0, statuses: new Map(), slowestMs: 0, slowestInput: '' };
     t.inputs++;
     t.statuses.set(answer.status, (t.statuses.get(answer.status) ?? 0) + 1);
-    t.slowestMs = Math.max(t.slowestMs, answer.ms);
+    if (answer.ms > t.slowestMs) Object.assign(t, { slowestMs: answer.ms, slowestInput: shown(input).slice(0, 300) });
     this.targets.set(target, t);
   }
 
@@ -51,18 +51,28 @@ export class FuzzTally {
       const statuses = [...t.statuses].sort(([a], [b]) => a - b).map(([s, c]) => `${s}×${c}`).join(' ');
       return `  ${name.padEnd(26)} seed ${t.seed}  inputs ${String(t.inputs).padStart(5)}  2xx ${String(count(200)).padStart(5)}  4xx ${String(count(400)).padStart(5)}  5xx ${count(500)}  slowest ${Math.round(t.slowestMs)} ms  (${statuses})`;
     });
-    return [`fuzz: ${this.total} inputs (FUZZ_SEED=${FUZZ_SEED})`, ...lines].join('\n');
+    const slowest = [...this.targets.values()].reduce((a, b) => (b.slowestMs > a.slowestMs ? b : a));
+    return [`fuzz: ${this.total} inputs (FUZZ_SEED=${FUZZ_SEED})`, ...lines, `  slowest input (${Math.round(slowest.slowestMs)} ms): ${slowest.slowestInput}`].join('\n');
   }
 }
 
-function fail(what: string, answer: Answer, input: unknown): never {
-  // Long strings and file bytes shortened, so that the failure stays readable.
-  const shown = JSON.stringify(input, (_key, value: unknown) =>
+/** An input as JSON, long strings and file bytes shortened so that a report stays readable. */
+function shown(input: unknown): string {
+  const text = JSON.stringify(input, (_key, value: unknown) =>
     typeof value === 'string' && value.length > 300 ? `${value.slice(0, 300)}… (${value.length} characters)`
     : value && typeof value === 'object' && (value as { type?: unknown }).type === 'Buffer' ? `<${(value as { data: unknown[] }).data.length} bytes: ${Buffer.from((value as { data: number[] }).data.slice(0, 200)).toString('utf8')}>`
     : value,
   );
-  throw new Error(`${what}\nanswer ${answer.status} in ${Math.round(answer.ms)} ms: ${answer.text.slice(0, 600)}\ninput: ${shown === undefined ? String(input) : shown.slice(0, 1200)}`);
+  return text === undefined ? String(input) : text;
+}
+
+function fail(what: string, answer: Answer, input: unknown): never {
+  throw new Error(`${what}\nanswer ${answer.status} in ${Math.round(answer.ms)} ms: ${answer.text.slice(0, 600)}\ninput: ${shown(input).slice(0, 1200)}`);
+}
+
+/** For inputs whose outcome is known in advance (a valid one is stored, say). */
+export function expectStatus(answer: Answer, statuses: number[], input: unknown): void {
+  if (!statuses.includes(answer.status)) fail(`expected ${statuses.join(' or ')}`, answer, input);
 }
 
 const FIELD_PREFIX = /^[A-Za-z_$][\w$.\-[\]]*: /;
@@ -84,8 +94,8 @@ export function checkAnswer(answer: Answer, input: unknown, origin: Origin): voi
   const { message, fieldErrors, line } = answer.body;
   if (typeof message !== 'string' || message.trim() === '') fail('a 4xx without a message', answer, input);
   if (answer.status !== 400) return;
-  const namedFields = Object.keys(fieldErrors ?? {}).filter((k) => k !== '_' && k !== '');
-  const names = namedFields.length > 0 || FIELD_PREFIX.test(message);
+  // "_" stands for the input as a whole (a body that is not an object, or a rule over several fields).
+  const names = Object.keys(fieldErrors ?? {}).length > 0 || FIELD_PREFIX.test(message);
   if (origin === 'upload') {
     const onLine = typeof line === 'number' && Number.isInteger(line) && line >= 1 && message.startsWith(`line ${line}: `);
     if (!names && !onLine && !/\bfile\b/.test(message)) fail('a 400 naming neither a field, a line nor the file', answer, input);
@@ -143,21 +153,25 @@ function setAt(root: unknown, path: (string | number)[], change: (parent: Record
 /** A JSON body as sent: the text (which may hold what JSON.stringify never writes) and its value. */
 export interface JsonInput {
   text: string;
-  /** JSON.parse(text), or undefined when the text is not JSON. */
+  /** The body the API's parser hands on (JSON.parse(text)), or undefined when it refuses the text. */
   value: unknown;
   how: string;
 }
 
-const asInput = (value: unknown, how: string): JsonInput => ({ text: JSON.stringify(value), value, how });
-function rawInput(text: string, how: string): JsonInput {
-  let value: unknown;
+/** What the API's JSON parser hands on: objects and arrays (it is strict); anything else is refused as not JSON. */
+function parsedBody(text: string): unknown {
   try {
-    value = JSON.parse(text);
+    const value: unknown = JSON.parse(text);
+    return typeof value === 'object' && value !== null ? value : undefined;
   } catch {
-    value = undefined;
+    return undefined;
   }
-  return { text, value, how };
 }
+const asInput = (value: unknown, how: string): JsonInput => {
+  const text = JSON.stringify(value) ?? '';
+  return { text, value: parsedBody(text), how };
+};
+const rawInput = (text: string, how: string): JsonInput => ({ text, value: parsedBody(text), how });
 
 /** One field of a valid value broken: replaced, removed, duplicated, or written as an out-of-range number. */
 export function nearValid(valid: fc.Arbitrary<unknown>): fc.Arbitrary<JsonInput> {
