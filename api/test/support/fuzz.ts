@@ -7,7 +7,7 @@ import type { z } from 'zod';
  * the checks every answer must pass, and generators of near-valid and junk inputs.
  */
 
-/** One seed for the whole run; each target adds its own offset, so a target replays alone. */
+/** One seed for the whole run; each target (and each of its lanes) adds its own offset. */
 export const FUZZ_SEED = Number(process.env.FUZZ_SEED ?? 20261204);
 
 /** A request's answer, as the checks need it. */
@@ -49,7 +49,7 @@ export class FuzzTally {
     const lines = [...this.targets.entries()].map(([name, t]) => {
       const count = (from: number) => [...t.statuses].filter(([s]) => s >= from && s < from + 100).reduce((n, [, c]) => n + c, 0);
       const statuses = [...t.statuses].sort(([a], [b]) => a - b).map(([s, c]) => `${s}×${c}`).join(' ');
-      return `  ${name.padEnd(26)} seed ${t.seed}  inputs ${String(t.inputs).padStart(5)}  2xx ${String(count(200)).padStart(5)}  4xx ${String(count(400)).padStart(5)}  5xx ${count(500)}  slowest ${Math.round(t.slowestMs)} ms  (${statuses})`;
+      return `  ${name.padEnd(28)} seeds ${t.seed}+  inputs ${String(t.inputs).padStart(5)}  2xx ${String(count(200)).padStart(5)}  4xx ${String(count(400)).padStart(5)}  5xx ${count(500)}  slowest ${Math.round(t.slowestMs)} ms  (${statuses})`;
     });
     const slowest = [...this.targets.values()].reduce((a, b) => (b.slowestMs > a.slowestMs ? b : a));
     return [`fuzz: ${this.total} inputs (FUZZ_SEED=${FUZZ_SEED})`, ...lines, `  slowest input (${Math.round(slowest.slowestMs)} ms): ${slowest.slowestInput}`].join('\n');
