@@ -144,6 +144,25 @@ describe('fuzzing the scan, model and upload routes', () => {
   // ---------------------------------------------------------------------------------------------
   // Generators that need the group and its model
 
+  /**
+   * Whether a (broken) groupId names one of the seeded groups, made before ours: a site admin may
+   * add there, and the other test files count what those groups hold, so such inputs are skipped.
+   * Ids past ours (no such group) are sent.
+   */
+  const inAnotherGroup = (id: unknown) => {
+    const n = typeof id === 'string' ? Number(id.trim()) : id;
+    return typeof n === 'number' && Number.isInteger(n) && n > 0 && n < groupId;
+  };
+  const bodyGroup = (value: unknown) => (value && typeof value === 'object' ? (value as { groupId?: unknown }).groupId : undefined);
+  const specGroup = (text: string) => {
+    try {
+      return bodyGroup(JSON.parse(text));
+    } catch {
+      return undefined;
+    }
+  };
+  const fieldsGroup = (fields: [string, string][]) => fields.some(([name, value]) => (name === 'groupId' && inAnotherGroup(value)) || (name === 'spec' && inAnotherGroup(specGroup(value))));
+
   /** The settings of a scan without its points, over one of the models, and what the points vary. */
   function scanSettings(shape: 'grid' | 'list') {
     return fc.tuple(fc.constantFrom(...models), fc.constantFrom('fixed', 'reheating')).chain(([choice, pivotKind]) => {
@@ -243,7 +262,7 @@ describe('fuzzing the scan, model and upload routes', () => {
 
   it('POST /api/scans: generated grid scans are stored (then cancelled), or refused naming their fields', async () => {
     let accepted = 0;
-    await fuzz('POST /api/scans', 1000, bodyInputs(gridScan(), { valid: 1, near: 6, junk: 3 }), async (input) => {
+    await fuzz('POST /api/scans', 1000, bodyInputs(gridScan(), { valid: 1, near: 6, junk: 3 }).filter((input) => !inAnotherGroup(bodyGroup(input.value))), async (input) => {
       const answer = await sendJson('post', '/api/scans', input);
       checkAnswer(answer, input, 'body');
       if (input.value !== undefined) checkSchemaRefusal(answer, input, createScanSchema.safeParse(input.value));
@@ -261,7 +280,7 @@ describe('fuzzing the scan, model and upload routes', () => {
 
   it('POST /api/models and PATCH /api/models/:id: generated models are stored or refused naming their fields', async () => {
     const modelBody = modelFields.map((m) => ({ groupId, ...m }));
-    await fuzz('POST /api/models', 1200, bodyInputs(modelBody, { valid: 4, near: 5, junk: 1 }), async (input) => {
+    await fuzz('POST /api/models', 1200, bodyInputs(modelBody, { valid: 4, near: 5, junk: 1 }).filter((input) => !inAnotherGroup(bodyGroup(input.value))), async (input) => {
       const answer = await sendJson('post', '/api/models', input);
       checkAnswer(answer, input, 'body');
       if (input.value !== undefined) {
@@ -478,7 +497,7 @@ describe('fuzzing the scan, model and upload routes', () => {
         weight: 2,
       },
     );
-    await fuzz('POST /api/scans/upload', 800, inputs, async (input) => {
+    await fuzz('POST /api/scans/upload', 800, inputs.filter((input) => !fieldsGroup(input.fields)), async (input) => {
       const answer = await sendUpload('/api/scans/upload', 'points', input);
       checkAnswer(answer, input, 'upload');
       if (input.how === 'valid') expectStatus(answer, [201], input);
@@ -522,7 +541,7 @@ describe('fuzzing the scan, model and upload routes', () => {
         weight: 2,
       },
     );
-    await fuzz('POST /api/models/import', 1200, inputs, async (input) => {
+    await fuzz('POST /api/models/import', 1200, inputs.filter((input) => !fieldsGroup(input.fields)), async (input) => {
       const answer = await sendUpload('/api/models/import', 'file', input);
       checkAnswer(answer, input, 'upload');
       if (input.text !== undefined) {
@@ -564,7 +583,7 @@ describe('fuzzing the scan, model and upload routes', () => {
         weight: 1,
       },
     );
-    await fuzz('POST /api/constraint-regions', 1200, inputs, async (input) => {
+    await fuzz('POST /api/constraint-regions', 1200, inputs.filter((input) => !fieldsGroup(input.fields)), async (input) => {
       const answer = await sendUpload('/api/constraint-regions', 'file', input);
       checkAnswer(answer, input, 'upload');
       const fields = Object.fromEntries(input.fields);
