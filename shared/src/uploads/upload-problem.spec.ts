@@ -11,7 +11,7 @@ describe('csvReadProblem', () => {
 
   it('reports csv-parse refusals on their line, the quote in an unquoted cell among them', () => {
     expect(csvReadProblem(csvParseError('CSV_QUOTE_NOT_CLOSED', 'Quote Not Closed: the parsing is finished with an opening quote at line 4', 4))).toEqual({
-      message: 'line 4: the file is not valid CSV: the parsing is finished with an opening quote at line 4',
+      message: 'line 4: the file is not valid CSV: Quote Not Closed: the parsing is finished with an opening quote at line 4',
       line: 4,
     });
     expect(csvReadProblem(csvParseError('INVALID_OPENING_QUOTE', 'Invalid Opening Quote: a quote is found on field 0 at line 2, value is "$"', 2))).toEqual({
