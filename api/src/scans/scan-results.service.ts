@@ -70,10 +70,15 @@ export class ScanResultsService {
   /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
   private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
-    const unknown = [...q.inputRanges.map((r) => r.name), sortedInput(q.sort)].filter((n): n is string => n !== null && !axes.includes(n));
-    if (unknown.length) {
-      throw new BadRequestException(`the scan has no axis ${unknown.join(', ')}; its axes are ${axes.join(', ')}`);
+    // Each refusal under the query key that named the input, as the schema's own refusals are.
+    const bad: Record<string, string[]> = {};
+    const noAxis = (name: string) => [`the scan has no axis ${name}; its axes are ${axes.join(', ')}`];
+    const sorted = sortedInput(q.sort);
+    if (sorted !== null && !axes.includes(sorted)) bad.sort = noAxis(sorted);
+    for (const range of q.inputRanges.filter((r) => !axes.includes(r.name))) {
+      for (const end of ['min', 'max'] as const) if (range[end] !== undefined) bad[`input.${range.name}_${end}`] = noAxis(range.name);
     }
+    if (Object.keys(bad).length) throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
     const qb = this.db
       .getRepository(ScanPoint)
       .createQueryBuilder('p')

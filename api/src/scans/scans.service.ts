@@ -36,14 +36,16 @@ export class ScansService {
   /** Validates against the model and the limits, stores the scan, then queues its chunks. */
   async create(user: SessionUser, spec: CreateScan): Promise<ScanDetail> {
     await this.access.require(user, spec.groupId, 'member');
-    const group = await this.db.getRepository(Group).findOneByOrFail({ id: spec.groupId });
+    // Site admins pass the role check for any id, so the group may still not exist.
+    const group = await this.db.getRepository(Group).findOneBy({ id: spec.groupId });
+    if (!group) throw new NotFoundException({ message: 'groupId: no such group', fieldErrors: { groupId: ['no such group'] } });
     let model;
     if (spec.model.kind === 'family') {
       model = familyModel(spec.model.family);
       if (!model) throw new BadRequestException({ message: `model.family: no built-in family '${spec.model.family}'`, fieldErrors: { 'model.family': [`no built-in family '${spec.model.family}'`] } });
     } else {
       const row = await this.db.getRepository(PotentialModel).findOneBy({ id: spec.model.modelId });
-      if (!row || row.groupId !== spec.groupId) throw new NotFoundException('No such model in this group');
+      if (!row || row.groupId !== spec.groupId) throw new NotFoundException({ message: 'model.modelId: no such model in this group', fieldErrors: { 'model.modelId': ['no such model in this group'] } });
       model = { source: row.expression, parameters: row.parameters, phiInit: row.phiInit, isFamily: false };
     }
     const stored = completeSpec(spec, model);

@@ -1,5 +1,6 @@
-import { describe, expect, it } from 'vitest';
-import { MAX_POTENTIAL_LENGTH } from '../engine/expression/index.js';
+import { describe, expect, it, vi } from 'vitest';
+import { MAX_POTENTIAL_LENGTH, parsePotential } from '../engine/expression/index.js';
+import { math } from '../engine/expression/mathjs-instance.js';
 import { checkPotentialExpression, modelInputSchema, modelUpdateSchema } from './potential-model.schema.js';
 
 const plateau = {
@@ -67,6 +68,23 @@ describe('checkPotentialExpression', () => {
       ok: false,
       message: 'The expression does not depend on phi: V must be a function of the field phi',
     });
+  });
+});
+
+describe('checkPotentialExpression: cost', () => {
+  // Simplifying the third derivative of this short expression took about 3 s, longer than any answer may take.
+  const slowToSimplify = 'a * cos(phi) / log(0.01039 * phi)';
+
+  it('checks an expression without simplifying its derivatives; the engine still simplifies them', () => {
+    const simplify = vi.spyOn(math, 'simplify');
+    try {
+      expect(checkPotentialExpression(slowToSimplify, ['a'])).toEqual({ ok: true, usedParameters: ['a'] });
+      expect(simplify).not.toHaveBeenCalled();
+      expect(parsePotential(slowToSimplify, ['a']).ok).toBe(true);
+      expect(simplify).toHaveBeenCalled();
+    } finally {
+      simplify.mockRestore();
+    }
   });
 });
 

@@ -39,8 +39,8 @@ const RECENT_CHECKS = 32;
  * the field phi. `message` says where (the 1-based character, for people) and why; `index` and
  * `length` are 0-based offsets in `expression` for highlighting.
  *
- * Parsing differentiates the expression three times, which takes a second or more for a long
- * one, so the last answers are kept: a form that validates every field on each keystroke asks
+ * Parsing differentiates the expression three times (unsimplified: fast, but still work for a
+ * long one), so the last answers are kept: a form that validates every field on each keystroke asks
  * again only when the expression or the parameter names change. Same input, same answer.
  */
 export function checkPotentialExpression(expression: string, parameterNames: string[]): PotentialExpressionCheck {
@@ -57,7 +57,9 @@ export function checkPotentialExpression(expression: string, parameterNames: str
 }
 
 function readPotential(expression: string, parameterNames: string[]): PotentialExpressionCheck {
-  const parsed = parsePotential(expression, parameterNames);
+  // Whether V reads and differentiates does not depend on simplifying its derivatives, which
+  // alone can take seconds for a short expression (about 3 s for cos(phi) / log(0.01 * phi)).
+  const parsed = parsePotential(expression, parameterNames, { simplify: false });
   if (parsed.ok) return { ok: true, usedParameters: [...parsed.potential.parameterNames] };
   const { message, index, length } = parsed.problem;
   if (index === undefined) return { ok: false, message };

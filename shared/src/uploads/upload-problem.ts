@@ -24,9 +24,10 @@ export class UploadRejected extends Error {
  */
 export function csvReadProblem(error: unknown): UploadProblem | null {
   if (error instanceof UploadRejected) return { message: error.message, ...(error.line !== undefined ? { line: error.line } : {}) };
-  // csv-parse's errors carry a code CSV_… (their class is not exported to every bundle alike).
+  // csv-parse's errors carry a code CSV_… (their class is not exported to every bundle alike),
+  // all but one: a quote inside an unquoted cell is INVALID_OPENING_QUOTE.
   const code = (error as { code?: unknown } | null)?.code;
-  if (error instanceof Error && typeof code === 'string' && code.startsWith('CSV_')) {
+  if (error instanceof Error && typeof code === 'string' && (code.startsWith('CSV_') || code === 'INVALID_OPENING_QUOTE')) {
     const line = (error as Error & { lines?: number }).lines;
     const reason = error.message.replace(/^Invalid [^:]*: /, '');
     return line ? { message: `line ${line}: the file is not valid CSV: ${reason}`, line } : { message: `the file is not valid CSV: ${reason}` };

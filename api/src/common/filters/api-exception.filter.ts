@@ -26,6 +26,14 @@ export class ApiExceptionFilter implements ExceptionFilter {
   }
 
   private toBody(exception: unknown): ApiError {
+    // Nest wraps body-parser's errors (malformed JSON, too large) in an HttpException with the
+    // original as its cause; either way the answer says what was wrong with the body.
+    const parserError = exception instanceof HttpException ? exception.cause : exception;
+    const parserMessage = bodyParserMessage(parserError);
+    if (parserMessage) {
+      const statusCode = (parserError as { status: number }).status;
+      return { statusCode, error: STATUS_CODES[statusCode] ?? 'Error', message: parserMessage };
+    }
     if (exception instanceof HttpException) {
       const statusCode = exception.getStatus();
       const response = exception.getResponse();
@@ -36,15 +44,10 @@ export class ApiExceptionFilter implements ExceptionFilter {
       if (typeof raw.line === 'number') body.line = raw.line;
       return body;
     }
-    // body-parser errors (malformed JSON, too large) carry their own 4xx status.
+    // Other http-errors with a client status (from Express itself) keep it.
     const status = (exception as { status?: unknown })?.status;
     if (typeof status === 'number' && status >= 400 && status < 500) {
-      const type = (exception as { type?: string }).type;
-      const message =
-        type === 'entity.parse.failed' ? 'The request body is not valid JSON'
-        : type === 'entity.too.large' ? 'The request body is too large'
-        : (exception as Error).message;
-      return { statusCode: status, error: STATUS_CODES[status] ?? 'Error', message };
+      return { statusCode: status, error: STATUS_CODES[status] ?? 'Error', message: (exception as Error).message };
     }
     return {
       statusCode: HttpStatus.INTERNAL_SERVER_ERROR,
@@ -52,4 +55,14 @@ export class ApiExceptionFilter implements ExceptionFilter {
       message: 'Something went wrong on our side; the error was logged. Try again, and tell the maintainer if it persists.',
     };
   }
+}
+
+/** body-parser's refusals (a 4xx `status` and a `type`) as a sentence about the body; null for any other error. */
+export function bodyParserMessage(error: unknown): string | null {
+  const { status, type, message } = (error ?? {}) as { status?: unknown; type?: unknown; message?: unknown };
+  if (typeof status !== 'number' || status < 400 || status >= 500) return null;
+  // The parser's own reason names the position, e.g. "Unexpected token } in JSON at position 12".
+  if (type === 'entity.parse.failed') return `The request body is not valid JSON: ${String(message)}`;
+  if (type === 'entity.too.large') return 'The request body is too large';
+  return null;
 }

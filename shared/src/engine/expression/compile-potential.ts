@@ -78,9 +78,11 @@ const FUNCTION_LIST = POTENTIAL_FUNCTIONS.join(', ');
  *
  * @param source the expression, e.g. `V0 * (1 - exp(-sqrt(2/(3*alpha)) * phi))^2`
  * @param parameterNames names the expression may use besides phi, pi and e
+ * @param options.simplify false for a validity check only: the derivatives are left unsimplified
+ *   (as for any derivative too large to simplify), which saves up to seconds
  * @returns the parsed potential, or the first problem found with its position in `source`
  */
-export function parsePotential(source: string, parameterNames: readonly string[]): PotentialParseResult {
+export function parsePotential(source: string, parameterNames: readonly string[], options: { simplify?: boolean } = {}): PotentialParseResult {
   const fail = (problem: ExpressionProblem): PotentialParseResult => ({ ok: false, problem });
 
   if (source.length > MAX_POTENTIAL_LENGTH) {
@@ -132,7 +134,7 @@ export function parsePotential(source: string, parameterNames: readonly string[]
   const usedNames = Object.freeze(declared.filter((name) => used.has(name)));
   let differentiated;
   try {
-    differentiated = differentiateThreeTimes(node, resolve, usedNames);
+    differentiated = differentiateThreeTimes(node, resolve, usedNames, options);
   } catch (error) {
     if (error instanceof RangeError) return fail(tooDeep());
     throw error;

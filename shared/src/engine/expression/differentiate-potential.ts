@@ -45,11 +45,14 @@ export type DerivativesResult =
  * otherwise the raw tree is compiled and the next order is derived from it.
  *
  * @param parameterNames parameters the potential uses, for the sample points.
+ * @param options.simplify false to skip simplify (and its cost of up to seconds): a check whether
+ *   the potential is usable needs the derivatives to exist, not to be short.
  */
 export function differentiateThreeTimes(
   potential: MathNode,
   resolve: SymbolResolver,
   parameterNames: readonly string[],
+  { simplify = true }: { simplify?: boolean } = {},
 ): DerivativesResult {
   const derivatives: Derivative[] = [];
   let previous = potential;
@@ -66,7 +69,7 @@ export function differentiateThreeTimes(
     const rawTree = fromMathNode(raw, resolve, true);
     if (!rawTree.ok) return { ok: false, order, failure: { reason: 'unsupported', unsupported: rawTree.unsupported } };
 
-    const simplified = nodes <= MAX_SIMPLIFY_NODES ? trySimplify(raw) : undefined;
+    const simplified = simplify && nodes <= MAX_SIMPLIFY_NODES ? trySimplify(raw) : undefined;
     const text = (simplified ?? raw).toString();
     const simplifiedTree = simplified ? fromMathNode(simplified, resolve, true) : undefined;
     if (simplified && simplifiedTree?.ok && agreesOnSamples(rawTree.tree, simplifiedTree.tree, parameterNames)) {
