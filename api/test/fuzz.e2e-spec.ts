@@ -76,7 +76,8 @@ describe('fuzzing the scan, model and upload routes', () => {
   let models: ModelChoice[];
 
   beforeAll(async () => {
-    t = await createTestApp();
+    // Three lanes may download at once as the one admin: the export limits are streams.e2e-spec's subject, not this file's.
+    t = await createTestApp({ EXPORTS_PER_USER: '8', EXPORTS_PER_SITE: '8' });
     // A site admin acts as a lead in every group: one sign-in serves the whole file.
     admin = await t.signIn(DEMO.admin);
     const group = await admin.post('/api/groups').send({ name: GROUP_NAME, description: 'generated inputs', pointLimit: GROUP_POINT_LIMIT });

@@ -1,14 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
-import net from 'node:net';
 import path from 'node:path';
 import request from 'supertest';
 import { Group } from '../src/groups/entities/group.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { DEMO_PASSWORD } from '../src/database/seeds/demo-scenario';
 import { Machines, namespacesUnavailable, type Machine } from './support/namespaces';
-import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { createTestApp, DEMO, freePort, type TestApp } from './support/test-app';
 import { makeTestCertificates, type TestCertificates } from './support/tls-certificates';
 import { until } from './support/until';
 import { WORKER_MAIN } from './support/workers';
@@ -35,17 +34,6 @@ interface ServicesLib {
     dir: string; port: number; flush: boolean; bind: string[]; acl: { user: string; password: string; rules: string[] }; serverArgs: string[];
   }): Promise<Started>;
   removeFolder(dir: string): void;
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = net.createServer();
-    server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
-      const { port } = server.address() as net.AddressInfo;
-      server.close(() => resolve(port));
-    });
-  });
 }
 
 /** A process started on a machine, with everything it printed. */

@@ -18,7 +18,8 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
-function freePort(): Promise<number> {
+/** A TCP port nothing listens on right now, on 127.0.0.1. */
+export function freePort(): Promise<number> {
   return new Promise((resolve, reject) => {
     const server = net.createServer();
     server.once('error', reject);
