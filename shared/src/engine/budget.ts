@@ -15,8 +15,8 @@ export interface PointBudget {
  * `shared/bench/budget-use.bench.mjs`; the figures are in DEVELOPERS.md beside these).
  */
 export const DEFAULT_POINT_BUDGET: PointBudget = {
-  evaluations: 20_000_000,
-  steps: 200_000,
+  evaluations: 50_000_000,
+  steps: 1_000_000, // 40 MB of nodes; the table's capacity doubles, so at most 80 MB
   wallTimeMs: 60_000,
 };
 
