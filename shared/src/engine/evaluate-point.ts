@@ -1,3 +1,4 @@
+import { BudgetMeter, type EngineOptions } from './budget.js';
 import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundSolution } from './background/background.js';
 import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
 import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
@@ -71,8 +72,11 @@ export class PointEvaluator {
   private readonly background = new BackgroundSolver();
   private readonly modes: ModeSolver;
   private readonly pivot = new Float64Array(2);
+  private readonly budget: BudgetMeter;
 
-  constructor(modeOptions: Partial<ModeOptions> = {}) {
+  /** `engine` sets the per-point budgets (defaults `DEFAULT_POINT_BUDGET`) and the clock for the wall-time one. */
+  constructor(modeOptions: Partial<ModeOptions> = {}, engine: EngineOptions = {}) {
+    this.budget = new BudgetMeter(engine);
     this.modes = new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...modeOptions });
   }
 
@@ -80,8 +84,10 @@ export class PointEvaluator {
     const invalid = validateSpec(spec);
     if (invalid) return invalid;
     const options = { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: spec.tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
-    const bg = this.background.solve(spec.potential, spec.phiInit, options);
+    this.budget.start();
+    const bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget);
     if (bg.status !== 'ok') return bg;
+    this.budget.spent += bg.evaluations;
     const modes = spec.modes ? new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...spec.modes }) : this.modes;
 
     let nStar = spec.nStar ?? 55;
@@ -113,6 +119,8 @@ export class PointEvaluator {
 
   private observe(spec: PointSpec, bg: BackgroundSolution, nStar: number, modes: ModeSolver): PointOutcome {
     if (bg.nEnd < nStar) {
+      const settles = this.background.settlesAfterEnd(bg, this.budget);
+      if (settles) return settles;
       return failure('insufficient_efolds', `only ${fmt(bg.nEnd)} e-folds of inflation from φ_init = ${fmt(spec.phiInit)} to the end, fewer than N_* = ${fmt(nStar)}; start further up the potential`, { nTotal: bg.nEnd });
     }
     const nPivot = bg.nEnd - nStar;
@@ -128,7 +136,7 @@ export class PointEvaluator {
     let evaluations = bg.evaluations;
     let spectrum: PointResult['spectrum'];
     if (spec.method === 'exact') {
-      const exact = modes.solve(potential, bg, nPivot, { phi: phiStar, pi: piStar }, spec.spectrum ? SPECTRUM_LNK : undefined);
+      const exact = modes.solve(potential, bg, nPivot, { phi: phiStar, pi: piStar }, spec.spectrum ? SPECTRUM_LNK : undefined, this.budget);
       if ('status' in exact) return exact;
       ({ ns, r, alphaS, As } = exact);
       nt = -r / 8;

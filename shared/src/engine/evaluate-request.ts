@@ -1,5 +1,6 @@
 import { evaluateRequestSchema, type EvaluateRequest } from '../schemas/evaluate.schema.js';
 import { parsePotential, type ParsedPotential } from './expression/index.js';
+import type { EngineOptions } from './budget.js';
 import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
 import { findFamily, type PotentialFamily } from './families/potential-families.js';
 import { failure, type Failure } from './types.js';
@@ -41,7 +42,12 @@ export class RequestEvaluator {
   private readonly parsed = new Map<string, ParsedPotential | Failure>();
   /** Default starts of families by the parameters they depend on: a scan over N_* or a scale finds one once. */
   private readonly starts = new Map<string, number>();
-  private readonly point = new PointEvaluator();
+  private readonly point: PointEvaluator;
+
+  /** `engine`: per-point budgets and the clock for the wall-time budget (the worker and the browser pass `performance.now`). */
+  constructor(engine: EngineOptions = {}) {
+    this.point = new PointEvaluator({}, engine);
+  }
 
   evaluate(input: unknown): EvaluateResponse {
     const request = evaluateRequestSchema.safeParse(input);

@@ -1,5 +1,6 @@
 export * from './types.js';
 export * from './constants.js';
+export { DEFAULT_POINT_BUDGET, type EngineOptions, type PointBudget } from './budget.js';
 export { PointEvaluator, type Method, type PointOutcome, type PointResult, type PointSpec } from './evaluate-point.js';
 export { RequestEvaluator, type EvaluateResponse } from './evaluate-request.js';
 export { POTENTIAL_FAMILIES, findFamily, type PotentialFamily } from './families/potential-families.js';

@@ -16,6 +16,7 @@ export const FAILURE_CODES = [
   'no_end',
   'trapped',
   'integration_failed',
+  'budget_exceeded',
 ] as const;
 export type FailureCode = (typeof FAILURE_CODES)[number];
 

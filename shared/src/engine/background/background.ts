@@ -1,4 +1,5 @@
 import { CashKarpStepper, hermite } from '../integrators/cash-karp.js';
+import { BudgetMeter } from '../budget.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from '../types.js';
 
 export interface BackgroundOptions {
@@ -75,6 +76,7 @@ export class BackgroundTable {
   }
 
   private grow(): void {
+    // Doubling, so the memory is at most twice the stored steps (which the steps budget bounds).
     const size = this.n.length * 2;
     for (const key of ['n', 'phi', 'pi', 'dphi', 'dpi'] as const) {
       const next = new Float64Array(size);
@@ -122,7 +124,12 @@ export class BackgroundSolver {
     out[1] = -(3 - eps) * (pi + this.potential.dV(phi) / V);
   }
 
-  solve(potential: PotentialFunctions, phiInit: number, options: BackgroundOptions = this.options): BackgroundSolution | Failure {
+  solve(
+    potential: PotentialFunctions,
+    phiInit: number,
+    options: BackgroundOptions = this.options,
+    budget: BudgetMeter = new BudgetMeter(),
+  ): BackgroundSolution | Failure {
     this.potential = potential;
     this.options = options;
     this.stepper.setTolerance(options.tolerance, options.maxStep);
@@ -170,6 +177,9 @@ export class BackgroundSolver {
       if (result === 'underflow') {
         return failure('integration_failed', `the step size underflowed near N = ${fmt(s.t)}, φ = ${fmt(s.y[0])}`, { nTotal: s.t, phi: s.y[0] });
       }
+      // One node is kept for the end of inflation, so the table never holds more than the steps budget.
+      const over = budget.exceeded(s.evaluations, this.table.length + 2);
+      if (over) return budget.failure(over, 'in the background integration', { n: s.t, phi: s.y[0], pi: s.y[1] });
       this.table.push(s.tPrev, s.yPrev, s.dyPrev);
       const pi = s.y[1];
       if (0.5 * pi * pi >= 1) return this.locateEnd();
@@ -179,6 +189,8 @@ export class BackgroundSolver {
         if (turns >= 2) return this.trapped(lastTurnPhi, s.y[0]);
         lastTurnPhi = s.y[0];
       }
+      const basin = this.confiningBasin(s.y[0], pi);
+      if (basin) return this.trapped(basin[0], basin[1]);
       if (Math.abs(s.y[0]) > options.fieldLimit) {
         return failure('no_end', `the field ran off to φ = ${fmt(s.y[0])} after ${fmt(s.t)} e-folds without inflation ending`, { nTotal: s.t, phi: s.y[0] });
       }
@@ -275,8 +287,71 @@ export class BackgroundSolver {
     return failure('invalid_potential', `V is not a finite number at φ = ${fmt(this.badPhi)} on the path, or V' stops being defined just beyond it (after about ${fmt(n)} e-folds)`, { phi: this.badPhi, nTotal: n });
   }
 
-  private trapped(phiA: number, phiB: number): Failure {
-    // The minimum lies between the two turning points: bisect V' there.
+  /**
+   * Settling into a minimum without oscillating (over-damped, or from either side): the energy
+   * density ρ = 3H² = V/(1 − ε_H/3) never grows (dρ/dt = −3Hφ̇²), so a field with V(a) > ρ and
+   * V(b) > ρ on both sides of it stays inside (a, b) for ever. We take (a, b) around the minimum
+   * the local quadratic model predicts, φ_0 ≈ φ + δ with δ = −V'/V'' (V'' > 0), at 1.5 times the
+   * farthest the field can reach in that model, r = √(δ² + 2ε_H/(3V''/V)); inside, V' must go
+   * from negative to positive (a minimum, not an inflection) and V(φ_0) > 2ρ/3, so ε_H = 3(1 − V/ρ)
+   * stays below 1 there: inflation never ends. Only tried within 1 % of the field scale of a
+   * minimum, where the quadratic model holds; the checks themselves decide, not the model.
+   */
+  private confiningBasin(phi: number, pi: number): [number, number] | null {
+    const p = this.potential;
+    const d2V = p.d2V(phi);
+    if (!(d2V > 0)) return null;
+    const V = p.V(phi);
+    const delta = -p.dV(phi) / d2V;
+    const eps = 0.5 * pi * pi;
+    const reach = Math.sqrt(delta * delta + (2 * eps * V) / (3 * d2V));
+    if (!(reach < 1e-2 * Math.max(1, Math.abs(phi)))) return null;
+    const rho = V / (1 - eps / 3);
+    const a = phi + delta - 1.5 * reach;
+    const b = phi + delta + 1.5 * reach;
+    if (!(a < phi && phi < b && p.V(a) > rho && p.V(b) > rho && p.dV(a) < 0 && p.dV(b) > 0)) return null;
+    if (!(p.V(phi + delta) > (2 / 3) * rho)) return null;
+    return [a, b];
+  }
+
+  /**
+   * After a brief end of inflation (ε_H = 1 reached on the way into a minimum), does the field
+   * settle into a minimum with V > 0, where inflation resumes for ever? Follows the field on
+   * from the end, storing nothing, for at most `efolds` e-folds; null when it does not settle.
+   */
+  settlesAfterEnd(solution: BackgroundSolution, budget: BudgetMeter, efolds = 200): Failure | null {
+    const s = this.stepper;
+    this.node[0] = solution.phiEnd;
+    this.node[1] = solution.piEnd;
+    s.reset(solution.nEnd, this.node, 0.01);
+    let turns = 0;
+    let lastTurnPhi = NaN;
+    const nMax = solution.nEnd + efolds;
+    while (s.t < nMax) {
+      if (s.step(nMax) !== 'ok' || !(this.potential.V(s.y[0]) > 0) || Math.abs(s.y[0]) > this.options.fieldLimit) return null;
+      if (budget.exceeded(s.evaluations, 0)) return null;
+      const pi = s.y[1];
+      let basin: [number, number] | null = null;
+      if (pi * s.yPrev[1] < 0) {
+        turns++;
+        if (turns >= 2) basin = [lastTurnPhi, s.y[0]];
+        lastTurnPhi = s.y[0];
+      }
+      basin ??= 0.5 * pi * pi < 1 ? this.confiningBasin(s.y[0], pi) : null;
+      if (basin) {
+        const phiMin = this.minimumBetween(basin[0], basin[1]);
+        return failure(
+          'trapped',
+          `inflation stops briefly after ${fmt(solution.nEnd)} e-folds (ε_H = 1 at φ = ${fmt(solution.phiEnd)}), but the field then settles into the local minimum at φ = ${fmt(phiMin)} (V = ${fmt(this.potential.V(phiMin))} > 0), where inflation resumes and never ends`,
+          { phi: phiMin, nTotal: Infinity },
+        );
+      }
+    }
+    return null;
+  }
+
+  /** The zero of V' between two field values on either side of a minimum, by bisection. */
+  private minimumBetween(phiA: number, phiB: number): number {
     let lo = Math.min(phiA, phiB);
     let hi = Math.max(phiA, phiB);
     const dLo = this.potential.dV(lo);
@@ -285,7 +360,12 @@ export class BackgroundSolver {
       if (this.potential.dV(mid) * dLo > 0) lo = mid;
       else hi = mid;
     }
-    const phiMin = 0.5 * (lo + hi);
+    return 0.5 * (lo + hi);
+  }
+
+  private trapped(phiA: number, phiB: number): Failure {
+    // The minimum lies between the two turning points (or inside the confining interval).
+    const phiMin = this.minimumBetween(phiA, phiB);
     const n = this.stepper.t;
     return failure(
       'trapped',

@@ -1,4 +1,5 @@
 import type { BackgroundSolution } from '../background/background.js';
+import { BudgetMeter } from '../budget.js';
 import { CashKarpStepper } from '../integrators/cash-karp.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from '../types.js';
 
@@ -101,7 +102,7 @@ export class ModeSolver {
   }
 
   /** Integrates one mode k (in units of k_*); returns P_R, and P_t when withTensor. */
-  private mode(bg: BackgroundSolution, lnK: number, withTensor: boolean): { scalar: number; tensor: number; evaluations: number } | Failure {
+  private mode(bg: BackgroundSolution, lnK: number, withTensor: boolean, budget: BudgetMeter): { scalar: number; tensor: number; evaluations: number } | Failure {
     const { startDepth, endDepth } = this.options;
     this.k = Math.exp(lnK);
     const nStart = this.crossing(bg, lnK - Math.log(startDepth));
@@ -152,7 +153,10 @@ export class ModeSolver {
       if (result !== 'ok' || guard > 200_000) {
         return failure('integration_failed', `a mode equation could not be integrated near N = ${fmt(s.t)} (${result})`, { nTotal: bg.nEnd });
       }
+      const over = budget.exceeded(s.evaluations, 0);
+      if (over) return budget.failure(over, `in the mode equations (k = ${fmt(k)} k_*)`, { n: s.t, phi: s.y[0], pi: s.y[1] });
     }
+    budget.spent += s.evaluations;
     const k3 = k * k * k;
     const scalar = (k3 * (s.y[2] * s.y[2] + s.y[3] * s.y[3])) / TWO_PI2;
     const tensor = withTensor ? (2 * k3 * (s.y[6] * s.y[6] + s.y[7] * s.y[7])) / TWO_PI2 : NaN;
@@ -165,6 +169,7 @@ export class ModeSolver {
     nPivot: number,
     pivotState: { phi: number; pi: number },
     spectrumLnK?: readonly number[],
+    budget: BudgetMeter = new BudgetMeter(),
   ): ExactObservables | Failure {
     this.potential = potential;
     this.nPivot = nPivot;
@@ -176,7 +181,7 @@ export class ModeSolver {
     let As = NaN;
     let Pt = NaN;
     for (const off of offsets) {
-      const m = this.mode(bg, off, off === 0);
+      const m = this.mode(bg, off, off === 0, budget);
       if ('status' in m) return m;
       evaluations += m.evaluations;
       lnP.push(Math.log(m.scalar));
@@ -194,7 +199,7 @@ export class ModeSolver {
     if (spectrumLnK) {
       const spectrum = { lnK: [...spectrumLnK], scalar: [] as number[], tensor: [] as number[] };
       for (const lnK of spectrumLnK) {
-        const m = this.mode(bg, lnK, true);
+        const m = this.mode(bg, lnK, true, budget);
         if ('status' in m) return m;
         evaluations += m.evaluations;
         spectrum.scalar.push(m.scalar);

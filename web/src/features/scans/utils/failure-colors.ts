@@ -8,6 +8,7 @@ const COLORS: Record<(typeof FAILURE_CODES)[number], string> = {
   no_inflation_at_start: '#9a7b12',
   trapped: '#c2407e',
   integration_failed: '#4f4a40',
+  budget_exceeded: '#6b3fa0',
   negative_potential: '#1b6f96',
   invalid_input: '#8f8676',
   invalid_potential: '#7a4b2a',

@@ -45,6 +45,7 @@ export const FAILURE_LABELS: Record<FailureCode, string> = {
   no_end: 'inflation does not end',
   trapped: 'field trapped',
   integration_failed: 'integration failed',
+  budget_exceeded: 'over the point budget',
 };
 
 export const failureLabel = (status: string) => FAILURE_LABELS[status as FailureCode] ?? status;
