@@ -3,7 +3,8 @@ import { RequestEvaluator } from '@sixtyfold/shared';
 import type { EngineJob, EngineReply } from './engine-protocol';
 
 // The same engine the workers run, off the main thread so the page stays responsive.
-const evaluator = new RequestEvaluator();
+// The same per-point budgets as the workers, wall time included (the engine has no clock of its own).
+const evaluator = new RequestEvaluator({ now: () => performance.now() });
 
 self.onmessage = (event: MessageEvent<EngineJob>) => {
   const started = performance.now();

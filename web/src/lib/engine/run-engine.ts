@@ -37,7 +37,7 @@ let inline: RequestEvaluator | null = null;
  */
 export function runEngine(requests: EvaluateRequest[]): Promise<EngineRun> {
   if (typeof Worker === 'undefined') {
-    inline ??= new RequestEvaluator();
+    inline ??= new RequestEvaluator({ now: () => performance.now() });
     const started = performance.now();
     const results = requests.map((request) => inline!.evaluate(request));
     return Promise.resolve({ results, milliseconds: performance.now() - started });
