@@ -17,6 +17,10 @@ export const FAILURE_CODES = [
   'trapped',
   'integration_failed',
   'budget_exceeded',
+  'pivot_too_early',
+  'slow_roll_invalid',
+  'spectrum_feature',
+  'chunk_failed',
 ] as const;
 export type FailureCode = (typeof FAILURE_CODES)[number];
 

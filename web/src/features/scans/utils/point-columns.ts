@@ -46,6 +46,10 @@ export const FAILURE_LABELS: Record<FailureCode, string> = {
   trapped: 'field trapped',
   integration_failed: 'integration failed',
   budget_exceeded: 'over the point budget',
+  pivot_too_early: 'pivot too near the start',
+  slow_roll_invalid: 'slow roll not valid',
+  spectrum_feature: 'not a power law at the pivot',
+  chunk_failed: 'workers could not compute',
 };
 
 export const failureLabel = (status: string) => FAILURE_LABELS[status as FailureCode] ?? status;
