@@ -9,7 +9,7 @@ describe('models that do not end inflation normally', () => {
   it('power-law inflation never ends, and says so', () => {
     const result = evaluate({ potential: 'power-law' });
     expect(result.status).toBe('no_end');
-    expect(result.message).toMatch(/had not ended after 2000 e-folds/);
+    expect(result.message).toMatch(/never will: ahead of the field the potential falls towards zero with ε_V ≤ [0-9.e-]+ < 1/);
     expect(result.ns).toBeNull();
   });
 
@@ -68,7 +68,7 @@ describe('hilltops and extrema', () => {
     const flat = evaluate({ potential: 'V0 * (1 + a * (phi - 3)^3)', params: { V0: 1e-10, a: 0.02 }, phiInit: 6, nStar: 5 });
     expect(flat.status).toBe('no_end');
     expect(flat.ns).toBeNull();
-    const tilted = evaluate({ potential: 'V0 * (1 + a * (phi - 3)^3 + c * phi)', params: { V0: 1e-10, a: 0.02, c: 1e-3 }, phiInit: 6, nStar: 5 });
+    const tilted = evaluate({ potential: 'V0 * (1 + a * (phi - 3)^3 + c * phi)', params: { V0: 1e-10, a: 0.02, c: 1e-3 }, phiInit: 6, nStar: 50 });
     expect(tilted.status).toBe('ok');
     expect(tilted.phiEnd!).toBeLessThan(3);
     expect(tilted.nTotal!).toBeGreaterThan(10); // the near-inflection plateau gives many e-folds

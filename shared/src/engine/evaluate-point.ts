@@ -2,7 +2,7 @@ import { BudgetMeter, type EngineOptions } from './budget.js';
 import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundSolution } from './background/background.js';
 import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
 import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
-import { hubbleFlow, potentialSlowRoll, secondOrderSlowRoll, type SecondOrderObservables } from './observables/slow-roll.js';
+import { hubbleFlow, potentialSlowRoll, secondOrderSlowRoll, slowRollEfolds, slowRollOutsideRegime, type SecondOrderObservables } from './observables/slow-roll.js';
 import { nStarFromReheating, reheatingDensity, type Reheating } from './pivot/reheating.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from './types.js';
 
@@ -70,6 +70,8 @@ const SPECTRUM_LNK = Array.from({ length: 13 }, (_, i) => -3 + i * 0.5);
  */
 export class PointEvaluator {
   private readonly background = new BackgroundSolver();
+  /** A second path through the same potential, for the attractor check; it stores nothing. */
+  private readonly probe = new BackgroundSolver();
   private readonly modes: ModeSolver;
   private readonly pivot = new Float64Array(2);
   private readonly budget: BudgetMeter;
@@ -117,11 +119,54 @@ export class PointEvaluator {
     return nStarFromReheating(reh, hubbleStar, rhoEnd);
   }
 
+  /**
+   * Too few e-folds from the start. When slow roll from φ_init would give enough, the field lost
+   * them by moving faster than slow roll (it arrived with too much speed: an overshoot), and
+   * starting further up only adds speed.
+   */
+  private tooFewEfolds(spec: PointSpec, bg: BackgroundSolution, nStar: number): Failure {
+    const expected = slowRollEfolds(spec.potential, spec.phiInit, bg.phiEnd);
+    if (expected >= nStar) {
+      return failure(
+        'insufficient_efolds',
+        `only ${fmt(bg.nEnd)} e-folds of inflation from φ_init = ${fmt(spec.phiInit)} to the end, fewer than N_* = ${fmt(nStar)}, where slow roll would give ${fmt(expected)}: the field arrives too fast and rushes through the flat stretch. Start lower, nearer the region where it slow-rolls (or, for a built-in family, leave φ_init out and let the engine choose)`,
+        { nTotal: bg.nEnd },
+      );
+    }
+    return failure('insufficient_efolds', `only ${fmt(bg.nEnd)} e-folds of inflation from φ_init = ${fmt(spec.phiInit)} to the end, fewer than N_* = ${fmt(nStar)}; start further up the potential`, { nTotal: bg.nEnd });
+  }
+
+  /**
+   * Is the field on its attractor at the pivot? Every start sits at the slow-roll velocity
+   * π = −V'/V, which is near but not on the attractor; the difference decays like e^{−3ΔN} in
+   * slow roll and not at all in ultra-slow roll. So a second path starts with its velocity 10 %
+   * higher and we compare dφ/dN where both pass φ_*: the pivot has forgotten the start when
+   * that difference is below 1e-3 of the one at the start (S < 1e-3). Only checked for pivots
+   * within 12 e-folds of the start: past that, slow roll has damped it by e^{−36}, and a longer
+   * phase off the attractor is the model's physics, not an artefact of the start.
+   */
+  private forgetsStart(spec: PointSpec, nPivot: number, phiStar: number, piStar: number): Failure | null {
+    if (nPivot >= ATTRACTOR_CHECK_EFOLDS) return null;
+    const { potential, phiInit } = spec;
+    const pi0 = -potential.dV(phiInit) / potential.V(phiInit);
+    const kicked = this.probe.velocityAtField(potential, phiInit, pi0 * (1 + START_KICK), phiStar, this.budget);
+    const memory = Math.abs(kicked - piStar) / Math.abs(piStar) / START_KICK;
+    if (memory < ATTRACTOR_MEMORY) return null;
+    // Slow roll damps the memory by e^{−3} per e-fold; past the remaining factor the pivot would have forgotten.
+    const needed = Number.isFinite(memory) ? nPivot + Math.log(memory / ATTRACTOR_MEMORY) / 3 : NaN;
+    const need = Number.isFinite(needed) ? `about ${fmt(Math.ceil(needed))} e-folds of history before the pivot are needed` : 'more history before the pivot is needed';
+    return failure(
+      'pivot_too_early',
+      `the pivot lies only ${fmt(nPivot)} e-folds after the start, and the field there still remembers how it started (a 10 % different starting speed changes dφ/dN at φ_* by ${Number.isFinite(memory) ? `${fmt(memory * START_KICK * 100)} %` : 'more than the field can show'}): it is not yet on its attractor. ${need}, ${fmt(nPivot)} available; start further up the potential`,
+      { nTotal: nPivot, phi: phiStar },
+    );
+  }
+
   private observe(spec: PointSpec, bg: BackgroundSolution, nStar: number, modes: ModeSolver): PointOutcome {
     if (bg.nEnd < nStar) {
       const settles = this.background.settlesAfterEnd(bg, this.budget);
       if (settles) return settles;
-      return failure('insufficient_efolds', `only ${fmt(bg.nEnd)} e-folds of inflation from φ_init = ${fmt(spec.phiInit)} to the end, fewer than N_* = ${fmt(nStar)}; start further up the potential`, { nTotal: bg.nEnd });
+      return this.tooFewEfolds(spec, bg, nStar);
     }
     const nPivot = bg.nEnd - nStar;
     this.background.stateAt(nPivot, this.pivot);
@@ -131,16 +176,20 @@ export class PointEvaluator {
     const sr = potentialSlowRoll(potential, phiStar);
     const flow = hubbleFlow(potential, phiStar, piStar);
     const second = secondOrderSlowRoll(flow);
+    if (spec.method === 'slowroll') {
+      const outside = slowRollOutsideRegime(sr, second);
+      if (outside) return failure('slow_roll_invalid', `slow roll does not hold at the pivot (φ_* = ${fmt(phiStar)}): ${outside}; use the exact method`, { nTotal: bg.nEnd, phi: phiStar });
+    }
+    const early = this.forgetsStart(spec, nPivot, phiStar, piStar);
+    if (early) return early;
     let { ns, r, alphaS, As } = sr;
     let nt = sr.nt;
-    let evaluations = bg.evaluations;
     let spectrum: PointResult['spectrum'];
     if (spec.method === 'exact') {
       const exact = modes.solve(potential, bg, nPivot, { phi: phiStar, pi: piStar }, spec.spectrum ? SPECTRUM_LNK : undefined, this.budget);
       if ('status' in exact) return exact;
       ({ ns, r, alphaS, As } = exact);
       nt = -r / 8;
-      evaluations += exact.evaluations;
       if (exact.spectrum) {
         spectrum = { ...exact.spectrum, kPerMpc: exact.spectrum.lnK.map((l) => PIVOT_K_PER_MPC * Math.exp(l)) };
       }
@@ -172,7 +221,8 @@ export class PointEvaluator {
       etaV: sr.etaV,
       xi2V: sr.xi2V,
       secondOrder: second,
-      evaluations,
+      // Everything the point spent: background, attractor check, modes, reheating iterations.
+      evaluations: this.budget.spent,
     };
     if (spec.trajectory) result.trajectory = trajectoryOf(bg);
     if (spectrum) result.spectrum = spectrum;
@@ -180,6 +230,11 @@ export class PointEvaluator {
   }
 }
 
+
+/** Pivots this close to the start are checked for memory of the start (see `forgetsStart`). */
+const ATTRACTOR_CHECK_EFOLDS = 12;
+const START_KICK = 0.1;
+const ATTRACTOR_MEMORY = 1e-3;
 
 function trajectoryOf(bg: BackgroundSolution): NonNullable<PointResult['trajectory']> {
   const t = bg.table;

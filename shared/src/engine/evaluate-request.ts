@@ -2,7 +2,7 @@ import { evaluateRequestSchema, type EvaluateRequest } from '../schemas/evaluate
 import { parsePotential, type ParsedPotential } from './expression/index.js';
 import type { EngineOptions } from './budget.js';
 import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
-import { findFamily, type PotentialFamily } from './families/potential-families.js';
+import { findFamily, START_EFOLDS, type PotentialFamily } from './families/potential-families.js';
 import { failure, type Failure } from './types.js';
 
 /** One evaluated point as scripts and the API see it: outputs are null when status is not ok. */
@@ -28,6 +28,10 @@ export interface EvaluateResponse {
   trajectory?: PointResult['trajectory'];
   spectrum?: PointResult['spectrum'];
 }
+
+/** Outcomes after which a family's start is moved further up (doubling its slow-roll e-folds, up to the largest N_*). */
+const MOVE_START_ON = new Set<string>(['insufficient_efolds', 'pivot_too_early']);
+const MAX_START_EFOLDS = 1200;
 
 const NULL_OUTPUTS = {
   ns: null, r: null, alphaS: null, nt: null, As: null, amplitudeScale: null, nStar: null, phiStar: null,
@@ -64,11 +68,10 @@ export class RequestEvaluator {
     const bound = parsed.bind(params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
     const potential = bound.potential;
-    const phiInit = req.phiInit ?? (family ? this.defaultStart(family, params, parsed) : undefined);
-    if (phiInit === undefined) {
+    if (req.phiInit === undefined && !family) {
       return respond(failure('invalid_input', 'phiInit is required for an expression (built-in families know where they inflate)'), null);
     }
-    const outcome = this.point.evaluate({
+    const evaluateFrom = (phiInit: number) => this.point.evaluate({
       potential,
       phiInit,
       method: req.method,
@@ -78,7 +81,16 @@ export class RequestEvaluator {
       trajectory: req.trajectory,
       spectrum: req.spectrum,
     });
-    return respond(outcome, phiInit);
+    if (req.phiInit !== undefined || !family) return respond(evaluateFrom(req.phiInit as number), req.phiInit ?? null);
+    // A family's start moves up the potential by itself while the point lacks history before the pivot.
+    let efolds = START_EFOLDS;
+    for (;;) {
+      const phiInit = this.defaultStart(family, params, parsed, efolds);
+      if (phiInit === undefined) return respond(failure('invalid_input', `no start for ${family.key} with these parameters`), null);
+      const outcome = evaluateFrom(phiInit);
+      if (!MOVE_START_ON.has(outcome.status) || efolds >= MAX_START_EFOLDS) return respond(outcome, phiInit);
+      efolds *= 2;
+    }
   }
 
   /**
@@ -86,15 +98,15 @@ export class RequestEvaluator {
    * depend on at its default, so the same start comes out to the last bit whichever point of a
    * scan asked first, and one computation serves a whole scan over N_* or the overall scale.
    */
-  private defaultStart(family: PotentialFamily, params: Record<string, number>, parsed: ParsedPotential): number | undefined {
-    const key = `${family.key}|${family.startDependsOn.map((name) => params[name]).join(',')}`;
+  private defaultStart(family: PotentialFamily, params: Record<string, number>, parsed: ParsedPotential, efolds: number): number | undefined {
+    const key = `${family.key}|${efolds}|${family.startDependsOn.map((name) => params[name]).join(',')}`;
     let start = this.starts.get(key);
     if (start === undefined) {
       const startParams = Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue]));
       for (const name of family.startDependsOn) startParams[name] = params[name];
       const bound = parsed.bind(startParams);
       if (!bound.ok) return undefined;
-      start = family.phiInit(startParams, bound.potential);
+      start = family.phiInit(startParams, bound.potential, efolds);
       remember(this.starts, key, start);
     }
     return start;

@@ -7,8 +7,11 @@ export interface BackgroundOptions {
   tolerance: number;
   /** Largest step in e-folds (keeps the stored nodes dense enough to interpolate). */
   maxStep: number;
-  /** Inflation that has not ended after this many e-folds is reported as `no_end`. */
-  maxEfolds: number;
+  /**
+   * After this many e-folds (and again at every doubling) the potential ahead of the field is read
+   * to decide whether inflation can still end (`fateAhead`); there is no cap on the e-folds.
+   */
+  lookAheadAfter: number;
   /** |φ| beyond this is a field running off to infinity (`no_end`). */
   fieldLimit: number;
 }
@@ -16,7 +19,7 @@ export interface BackgroundOptions {
 export const DEFAULT_BACKGROUND_OPTIONS: BackgroundOptions = {
   tolerance: 1e-6,
   maxStep: 2,
-  maxEfolds: 2000,
+  lookAheadAfter: 1000,
   fieldLimit: 1e8,
 };
 
@@ -162,9 +165,9 @@ export class BackgroundSolver {
     s.reset(0, y0, Math.min(0.01, options.maxStep));
     let turns = 0;
     let lastTurnPhi = NaN;
-    const nMax = options.maxEfolds;
+    let lookAheadAt = options.lookAheadAfter;
     for (;;) {
-      let result = s.step(nMax);
+      let result = s.step(Infinity);
       // A step that ends where V ≤ 0 or is undefined, or whose trial stages strayed there, is
       // retaken in shorter pieces; only if that fails does the path itself leave the domain.
       if ((result === 'ok' && !(potential.V(s.y[0]) > 0)) || result === 'non_finite') {
@@ -194,11 +197,80 @@ export class BackgroundSolver {
       if (Math.abs(s.y[0]) > options.fieldLimit) {
         return failure('no_end', `the field ran off to φ = ${fmt(s.y[0])} after ${fmt(s.t)} e-folds without inflation ending`, { nTotal: s.t, phi: s.y[0] });
       }
-      if (s.t >= nMax) {
-        const eps = 0.5 * pi * pi;
-        return failure('no_end', `inflation had not ended after ${fmt(nMax)} e-folds (ε_H = ${fmt(eps)} at φ = ${fmt(s.y[0])}); this potential may never end inflation`, { nTotal: s.t, phi: s.y[0] });
+      if (s.t >= lookAheadAt) {
+        lookAheadAt *= 2;
+        const never = this.fateAhead(s.y[0], pi);
+        if (never) return failure('no_end', `inflation has not ended after ${fmt(s.t)} e-folds and never will: ${never}`, { nTotal: s.t, phi: s.y[0] });
       }
     }
+  }
+
+  /**
+   * Whether inflation can still end, read from the potential ahead of a field that has inflated
+   * for a long time. On its attractor the field rolls downhill at dφ/dN ≈ −V'/V, so walking the
+   * potential in that direction (steps of 1e-3 relative, up to the field limit) tells its fate:
+   *  - ε_V = (V'/V)²/2 reaches 1, V reaches 0, or V' changes sign (a minimum, where the trapped
+   *    criteria take over): something happens there, so the integration goes on (null);
+   *  - V' vanishes without changing sign (an exact inflection or a flat stretch, found by refining
+   *    each local minimum of |V'/V| to below 1e-12): the slow-roll velocity vanishes there and the
+   *    field approaches that point for ever;
+   *  - none of these up to |φ| = fieldLimit: the field rolls on for ever with ε_V < 1.
+   * Returns the reason inflation never ends, or null while it still can. Sampling can miss a
+   * feature narrower than the step; the budgets bound the integration then.
+   */
+  private fateAhead(phi: number, pi: number): string | null {
+    const p = this.potential;
+    const slope = (x: number) => p.dV(x) / p.V(x);
+    const s0 = slope(phi);
+    const direction = s0 !== 0 ? -Math.sign(s0) : Math.sign(pi) || 1;
+    const limit = this.options.fieldLimit;
+    let x = phi;
+    let prev = Math.abs(s0);
+    let prevPrev = Infinity;
+    let maxEps = 0.5 * s0 * s0;
+    while (Math.abs(x) < limit) {
+      const h = 1e-3 * Math.max(1, Math.abs(x));
+      const next = x + direction * h;
+      const V = p.V(next);
+      const v1 = slope(next);
+      if (!(V > 0) || !Number.isFinite(v1)) return null;
+      if (V < 1e-280) {
+        return `ahead of the field the potential falls towards zero with ε_V ≤ ${fmt(Math.max(maxEps, 0.5 * v1 * v1))} < 1 until it leaves double precision at φ = ${fmt(next)}, so the field rolls on for ever`;
+      }
+      if (-direction * v1 < 0) return null;
+      const eps = 0.5 * v1 * v1;
+      if (eps >= 1) return null;
+      maxEps = Math.max(maxEps, eps);
+      const a = Math.abs(v1);
+      if (a === 0) return `V'/V is zero to double precision from φ = ${fmt(next)} on, ahead of the field (V = ${fmt(V)} > 0); the field slows down approaching that flat stretch and never gets past`;
+      if (prev < prevPrev && prev <= a) {
+        // |V'/V| had a local minimum near x: refine it; zero there is a stationary point the field cannot pass.
+        const at = this.smallestSlope(x - direction * h, next);
+        if (Math.abs(slope(at)) < 1e-12) {
+          return `V' vanishes at φ = ${fmt(at)} ahead of the field (V = ${fmt(p.V(at))} > 0) without changing sign; the field slows down approaching it and never gets past`;
+        }
+      }
+      prevPrev = prev;
+      prev = a;
+      x = next;
+    }
+    return `ahead of the field the potential keeps falling with ε_V ≤ ${fmt(maxEps)} < 1 all the way to |φ| = ${fmt(limit)}, so the field rolls on for ever`;
+  }
+
+  /** Where |V'/V| is smallest between two field values, by golden-section search. */
+  private smallestSlope(a: number, b: number): number {
+    const p = this.potential;
+    const f = (x: number) => Math.abs(p.dV(x) / p.V(x));
+    const g = (Math.sqrt(5) - 1) / 2;
+    let lo = Math.min(a, b);
+    let hi = Math.max(a, b);
+    for (let i = 0; i < 200 && hi - lo > 1e-15 * Math.max(1, Math.abs(hi)); i++) {
+      const m1 = hi - g * (hi - lo);
+      const m2 = lo + g * (hi - lo);
+      if (f(m1) < f(m2)) hi = m2;
+      else lo = m1;
+    }
+    return 0.5 * (lo + hi);
   }
 
   /** Root of ε_H = 1 in the last step: bracket on the interpolant, then Newton on re-taken steps. */
@@ -277,6 +349,39 @@ export class BackgroundSolver {
     }
     out[0] = s.y[0];
     out[1] = s.y[1];
+  }
+
+  /**
+   * dφ/dN where the field passes φ_target, starting from (φ_init, π_init) and storing nothing: a
+   * second path through the same potential, to see whether the pivot remembers how the field
+   * started. NaN when the field never gets there (turns, stalls, leaves V > 0).
+   */
+  velocityAtField(potential: PotentialFunctions, phiInit: number, piInit: number, phiTarget: number, budget: BudgetMeter): number {
+    this.potential = potential;
+    const s = this.stepper;
+    this.stepper.setTolerance(this.options.tolerance, this.options.maxStep);
+    this.node[0] = phiInit;
+    this.node[1] = piInit;
+    s.reset(0, this.node, 0.01);
+    const side = Math.sign(phiTarget - phiInit);
+    for (let guard = 0; guard < 100_000; guard++) {
+      if (s.step(Infinity) !== 'ok' || !(potential.V(s.y[0]) > 0) || budget.exceeded(s.evaluations, 0)) return NaN;
+      if (0.5 * s.y[1] * s.y[1] >= 1 || Math.sign(s.y[1]) !== side) return NaN;
+      if (Math.sign(phiTarget - s.y[0]) !== side) {
+        // Crossed inside this step: Newton on re-taken steps lands on φ_target itself (dφ/dN = π).
+        const tPrev = s.tPrev;
+        let t = tPrev + ((phiTarget - s.yPrev[0]) / (s.y[0] - s.yPrev[0])) * (s.t - tPrev);
+        for (let iter = 0; iter < 20; iter++) {
+          if (s.restepTo(t) !== 'ok') return NaN;
+          const dt = (phiTarget - s.y[0]) / s.y[1];
+          t += dt;
+          if (Math.abs(dt) < 1e-12) break;
+        }
+        budget.spent += s.evaluations;
+        return s.y[1];
+      }
+    }
+    return NaN;
   }
 
   private potentialFailure(): Failure {

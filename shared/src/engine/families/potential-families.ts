@@ -15,13 +15,14 @@ export interface PotentialFamily {
   reference: string;
   /** False for families in which inflation never ends by itself. */
   endsInflation: boolean;
-  /** A start about 75 slow-roll e-folds before the end, from the parameters. */
-  phiInit(params: Record<string, number>, potential: PotentialFunctions): number;
+  /** A start about `efolds` (default 75) slow-roll e-folds before the end, from the parameters. */
+  phiInit(params: Record<string, number>, potential: PotentialFunctions, efolds?: number): number;
   /** The parameters that start depends on (the overall scale never matters), so it can be reused. */
   startDependsOn: string[];
 }
 
-const START_EFOLDS = 75;
+/** Slow-roll e-folds of a family's default start; the engine moves further up when a point needs more. */
+export const START_EFOLDS = 75;
 const p = (name: string, defaultValue: number, min: number, max: number, description: string): ModelParameter => ({
   name, defaultValue, min, max, description,
 });
@@ -37,7 +38,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     reference: 'Linde 1983, Phys. Lett. B 129, 177 (chaotic inflation)',
     endsInflation: true,
     // Slow roll: N = (φ² − φ_end²)/(2p) with φ_end = p/√2.
-    phiInit: ({ p: power }) => Math.sqrt(2 * power * START_EFOLDS + (power * power) / 2),
+    phiInit: ({ p: power }, _potential, efolds = START_EFOLDS) => Math.sqrt(2 * power * efolds + (power * power) / 2),
   },
   {
     key: 'quadratic-quartic',
@@ -49,7 +50,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     reference: 'Linde 1983, Phys. Lett. B 129, 177; the two-term form as in Planck 2018 X, arXiv:1807.06211',
     endsInflation: true,
     // V/V' ≥ φ/4 for both terms, so φ² = 8N + 8 gives at least N e-folds.
-    phiInit: () => Math.sqrt(8 * START_EFOLDS + 8),
+    phiInit: (_params, _potential, efolds = START_EFOLDS) => Math.sqrt(8 * efolds + 8),
   },
   {
     key: 'starobinsky',
@@ -60,7 +61,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: 'plateau at large φ > 0, rolling towards φ = 0',
     reference: 'Starobinsky 1980, Phys. Lett. B 91, 99',
     endsInflation: true,
-    phiInit: (_params, V) => slowRollStart(V, 5, 0.01, START_EFOLDS),
+    phiInit: (_params, V, efolds = START_EFOLDS) => slowRollStart(V, 5, 0.01, efolds),
   },
   {
     key: 'natural',
@@ -72,9 +73,9 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     reference: 'Freese, Frieman & Olinto 1990, Phys. Rev. Lett. 65, 3233',
     endsInflation: true,
     // Slow roll: N = 2f² ln[sin(x_end/2)/sin(x/2)], x = φ/f, tan(x_end/2) = √2 f.
-    phiInit: ({ f }) => {
+    phiInit: ({ f }, _potential, efolds = START_EFOLDS) => {
       const xEnd = 2 * Math.atan(Math.SQRT2 * f);
-      return 2 * f * Math.asin(Math.sin(xEnd / 2) * Math.exp(-START_EFOLDS / (2 * f * f)));
+      return 2 * f * Math.asin(Math.sin(xEnd / 2) * Math.exp(-efolds / (2 * f * f)));
     },
   },
   {
@@ -86,7 +87,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: '0 < φ < μ, rolling away from the maximum at φ = 0',
     reference: 'Boubekeur & Lyth 2005, JCAP 07, 010 (hep-ph/0502047)',
     endsInflation: true,
-    phiInit: ({ mu }, V) => slowRollStart(V, 1e-6 * mu, mu * (1 - 1e-12), START_EFOLDS),
+    phiInit: ({ mu }, V, efolds = START_EFOLDS) => slowRollStart(V, 1e-6 * mu, mu * (1 - 1e-12), efolds),
   },
   {
     key: 'hilltop-quartic',
@@ -97,7 +98,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: '0 < φ < μ, rolling away from the maximum at φ = 0',
     reference: 'Boubekeur & Lyth 2005, JCAP 07, 010 (hep-ph/0502047); Kohri, Lin & Lyth 2007, arXiv:0707.3826',
     endsInflation: true,
-    phiInit: ({ mu }, V) => slowRollStart(V, 1e-6 * mu, mu * (1 - 1e-12), START_EFOLDS),
+    phiInit: ({ mu }, V, efolds = START_EFOLDS) => slowRollStart(V, 1e-6 * mu, mu * (1 - 1e-12), efolds),
   },
   {
     key: 'alpha-t',
@@ -108,7 +109,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: 'plateau at large φ > 0, rolling towards φ = 0',
     reference: 'Kallosh & Linde 2013, JCAP 07, 002 (arXiv:1306.5220); Kallosh, Linde & Roest 2013, JHEP 11, 198 (arXiv:1311.0472)',
     endsInflation: true,
-    phiInit: ({ alpha }, V) => slowRollStart(V, 30 * Math.sqrt(alpha), 1e-6, START_EFOLDS),
+    phiInit: ({ alpha }, V, efolds = START_EFOLDS) => slowRollStart(V, 30 * Math.sqrt(alpha), 1e-6, efolds),
   },
   {
     key: 'alpha-e',
@@ -119,7 +120,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: 'plateau at large φ > 0, rolling towards φ = 0',
     reference: 'Kallosh, Linde & Roest 2013, JHEP 11, 198 (arXiv:1311.0472)',
     endsInflation: true,
-    phiInit: ({ alpha }, V) => slowRollStart(V, 30 * Math.sqrt(alpha), 1e-6, START_EFOLDS),
+    phiInit: ({ alpha }, V, efolds = START_EFOLDS) => slowRollStart(V, 30 * Math.sqrt(alpha), 1e-6, efolds),
   },
   {
     key: 'double-well',
@@ -130,7 +131,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     region: '0 < φ < v, rolling from near the maximum at φ = 0 towards the minimum at φ = v',
     reference: 'Vilenkin 1983 and Linde 1983 (new inflation from symmetry breaking); as in Planck 2018 X, arXiv:1807.06211',
     endsInflation: true,
-    phiInit: ({ v }, V) => slowRollStart(V, 1e-6 * v, v * (1 - 1e-12), START_EFOLDS),
+    phiInit: ({ v }, V, efolds = START_EFOLDS) => slowRollStart(V, 1e-6 * v, v * (1 - 1e-12), efolds),
   },
   {
     key: 'power-law',
@@ -157,7 +158,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
     reference: 'McAllister, Silverstein & Westphal 2010, Phys. Rev. D 82, 046003 (arXiv:0808.0706); Flauger et al. 2010, JCAP 06, 009 (arXiv:0907.2916)',
     endsInflation: true,
     // Linear slow roll: N = (φ² − φ_end²)/2 with φ_end = 1/√2.
-    phiInit: () => Math.sqrt(2 * START_EFOLDS + 0.5),
+    phiInit: (_params, _potential, efolds = START_EFOLDS) => Math.sqrt(2 * efolds + 0.5),
   },
 ];
 

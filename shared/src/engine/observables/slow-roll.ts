@@ -1,5 +1,5 @@
 import { STEWART_LYTH_C } from '../constants.js';
-import type { PotentialFunctions } from '../types.js';
+import { fmt, type PotentialFunctions } from '../types.js';
 
 export interface SlowRollObservables {
   epsilonV: number;
@@ -87,4 +87,44 @@ export function secondOrderSlowRoll(flow: HubbleFlow): SecondOrderObservables {
     alphaS: -2 * e1 * e2 - e2 * e3,
     As: (hubble2 / (8 * Math.PI * Math.PI * e1)) * (1 - 2 * (C + 1) * e1 - C * e2),
   };
+}
+
+/**
+ * Where first-order slow roll stops being a description of the pivot (common practice: the
+ * expansion needs ε_V, |η_V| and |ξ²_V| small; these bounds sit well above what every smooth
+ * built-in family reaches at N_* = 50–60, ε_V ≤ 0.03, |η_V| ≤ 0.05, |ξ²_V| ≤ 0.002, and first and
+ * second order then differ by at most 0.002 in n_s, measured in DEVELOPERS.md).
+ */
+export const SLOW_ROLL_REGIME = { epsilonV: 0.1, etaV: 0.2, xi2V: 0.02, nsOrders: 0.02 } as const;
+
+/** Why slow roll is outside its regime at the pivot, with the numbers; null inside it. */
+export function slowRollOutsideRegime(sr: SlowRollObservables, second: SecondOrderObservables): string | null {
+  const limits = SLOW_ROLL_REGIME;
+  const problems: string[] = [];
+  if (!(sr.epsilonV <= limits.epsilonV)) problems.push(`ε_V = ${fmt(sr.epsilonV)} > ${limits.epsilonV}`);
+  if (!(Math.abs(sr.etaV) <= limits.etaV)) problems.push(`|η_V| = ${fmt(Math.abs(sr.etaV))} > ${limits.etaV}`);
+  if (!(Math.abs(sr.xi2V) <= limits.xi2V)) problems.push(`|ξ²_V| = ${fmt(Math.abs(sr.xi2V))} > ${limits.xi2V}`);
+  const orders = Math.abs(sr.ns - second.ns);
+  if (!(orders <= limits.nsOrders)) problems.push(`first and second order differ by ${fmt(orders)} in n_s (> ${limits.nsOrders})`);
+  return problems.length ? problems.join(', ') : null;
+}
+
+/**
+ * Slow-roll e-folds between two field values, N = ∫ V/|V'| dφ (the standard slow-roll count,
+ * common practice), by Simpson's rule on 400 intervals; Infinity when V' vanishes or changes sign
+ * between them (the slow-roll field never gets through).
+ */
+export function slowRollEfolds(potential: PotentialFunctions, from: number, to: number): number {
+  const n = 400;
+  const h = (to - from) / n;
+  const sign = Math.sign(potential.dV(from));
+  let sum = 0;
+  for (let i = 0; i <= n; i++) {
+    const phi = from + i * h;
+    const dV = potential.dV(phi);
+    if (!(Math.sign(dV) === sign) || dV === 0) return Infinity;
+    const w = i === 0 || i === n ? 1 : i % 2 === 1 ? 4 : 2;
+    sum += (w * potential.V(phi)) / Math.abs(dV);
+  }
+  return (Math.abs(h) / 3) * sum;
 }
