@@ -87,7 +87,12 @@ export class PointEvaluator {
     if (invalid) return invalid;
     const options = { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: spec.tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
     this.budget.start();
-    const bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget);
+    let bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget);
+    // Inflation that pauses (ε_H = 1 on a steep stretch) and resumes ends at its last end.
+    for (let pauses = 1; bg.status === 'ok' && pauses <= MAX_PAUSES && this.background.resumesAfterEnd(bg, this.budget); pauses++) {
+      this.budget.spent += bg.evaluations;
+      bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget, pauses);
+    }
     if (bg.status !== 'ok') return bg;
     this.budget.spent += bg.evaluations;
     const modes = spec.modes ? new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...spec.modes }) : this.modes;
@@ -141,13 +146,15 @@ export class PointEvaluator {
    * π = −V'/V, which is near but not on the attractor; the difference decays like e^{−3ΔN} in
    * slow roll and not at all in ultra-slow roll. So a second path starts with its velocity 10 %
    * higher and we compare dφ/dN where both pass φ_*: the pivot has forgotten the start when
-   * that difference is below 1e-3 of the one at the start (S < 1e-3). Only checked for pivots
-   * within 12 e-folds of the start: past that, slow roll has damped it by e^{−36}, and a longer
-   * phase off the attractor is the model's physics, not an artefact of the start.
+   * that difference is below 1e-3 of the one at the start (S < 1e-3). Checked for pivots within
+   * 12 e-folds of the start (past that, slow roll has damped it by e^{−36}), and for any pivot
+   * where the field moves at more than 1.5 times its slow-roll speed −V'/V (ultra-slow roll
+   * after an overshoot, which does not forget its start).
    */
   private forgetsStart(spec: PointSpec, nPivot: number, phiStar: number, piStar: number): Failure | null {
-    if (nPivot >= ATTRACTOR_CHECK_EFOLDS) return null;
     const { potential, phiInit } = spec;
+    const slowRollSpeed = Math.abs(potential.dV(phiStar) / potential.V(phiStar));
+    if (nPivot >= ATTRACTOR_CHECK_EFOLDS && Math.abs(piStar) <= 1.5 * slowRollSpeed) return null;
     const pi0 = -potential.dV(phiInit) / potential.V(phiInit);
     const kicked = this.probe.velocityAtField(potential, phiInit, pi0 * (1 + START_KICK), phiStar, this.budget);
     const memory = Math.abs(kicked - piStar) / Math.abs(piStar) / START_KICK;
@@ -233,6 +240,8 @@ export class PointEvaluator {
 
 /** Pivots this close to the start are checked for memory of the start (see `forgetsStart`). */
 const ATTRACTOR_CHECK_EFOLDS = 12;
+/** Pauses of inflation passed over before the end is taken as final. */
+const MAX_PAUSES = 8;
 const START_KICK = 0.1;
 const ATTRACTOR_MEMORY = 1e-3;
 

@@ -132,6 +132,8 @@ export class BackgroundSolver {
     phiInit: number,
     options: BackgroundOptions = this.options,
     budget: BudgetMeter = new BudgetMeter(),
+    /** Brief ends of inflation to pass over (ε_H = 1 reached, then inflation resumes; see `resumesAfterEnd`). */
+    pauses = 0,
   ): BackgroundSolution | Failure {
     this.potential = potential;
     this.options = options;
@@ -166,6 +168,7 @@ export class BackgroundSolver {
     let turns = 0;
     let lastTurnPhi = NaN;
     let lookAheadAt = options.lookAheadAfter;
+    let paused = false;
     for (;;) {
       let result = s.step(Infinity);
       // A step that ends where V ≤ 0 or is undefined, or whose trial stages strayed there, is
@@ -185,7 +188,17 @@ export class BackgroundSolver {
       if (over) return budget.failure(over, 'in the background integration', { n: s.t, phi: s.y[0], pi: s.y[1] });
       this.table.push(s.tPrev, s.yPrev, s.dyPrev);
       const pi = s.y[1];
-      if (0.5 * pi * pi >= 1) return this.locateEnd();
+      const eps = 0.5 * pi * pi;
+      if (paused) {
+        if (eps < 1) paused = false;
+        continue;
+      }
+      if (eps >= 1) {
+        if (pauses === 0) return this.locateEnd();
+        pauses--;
+        paused = true;
+        continue;
+      }
       if (pi * s.yPrev[1] < 0) {
         // The field turned around: a second turn means it oscillates in a minimum while inflating.
         turns++;
@@ -354,7 +367,8 @@ export class BackgroundSolver {
   /**
    * dφ/dN where the field passes φ_target, starting from (φ_init, π_init) and storing nothing: a
    * second path through the same potential, to see whether the pivot remembers how the field
-   * started. NaN when the field never gets there (turns, stalls, leaves V > 0).
+   * started. It goes on through pauses of inflation (ε_H ≥ 1). NaN when the field never gets
+   * there (turns, stalls, leaves V > 0).
    */
   velocityAtField(potential: PotentialFunctions, phiInit: number, piInit: number, phiTarget: number, budget: BudgetMeter): number {
     this.potential = potential;
@@ -366,7 +380,7 @@ export class BackgroundSolver {
     const side = Math.sign(phiTarget - phiInit);
     for (let guard = 0; guard < 100_000; guard++) {
       if (s.step(Infinity) !== 'ok' || !(potential.V(s.y[0]) > 0) || budget.exceeded(s.evaluations, 0)) return NaN;
-      if (0.5 * s.y[1] * s.y[1] >= 1 || Math.sign(s.y[1]) !== side) return NaN;
+      if (Math.sign(s.y[1]) !== side) return NaN; // turned before getting there
       if (Math.sign(phiTarget - s.y[0]) !== side) {
         // Crossed inside this step: Newton on re-taken steps lands on φ_target itself (dφ/dN = π).
         const tPrev = s.tPrev;
@@ -453,6 +467,34 @@ export class BackgroundSolver {
       }
     }
     return null;
+  }
+
+  /**
+   * After the end of inflation, does it resume? A field that rolls down a steep stretch onto a
+   * plateau can reach ε_H = 1 on the way (a brief pause) and then inflate again. Follows the field
+   * from the end, storing nothing, for at most 3 e-folds: true when ε_H falls back below 1 and
+   * stays there for a whole e-fold while the field keeps its direction; false as soon as the field
+   * turns (it oscillates about a minimum: inflation is over).
+   */
+  resumesAfterEnd(solution: BackgroundSolution, budget: BudgetMeter): boolean {
+    const s = this.stepper;
+    this.node[0] = solution.phiEnd;
+    this.node[1] = solution.piEnd;
+    s.reset(solution.nEnd, this.node, 0.01);
+    const nMax = solution.nEnd + 3;
+    let inflatingSince = NaN;
+    while (s.t < nMax) {
+      if (s.step(nMax) !== 'ok' || !(this.potential.V(s.y[0]) > 0) || budget.exceeded(s.evaluations, 0)) break;
+      if (s.y[1] * solution.piEnd <= 0) break;
+      if (0.5 * s.y[1] * s.y[1] >= 1) inflatingSince = NaN;
+      else if (Number.isNaN(inflatingSince)) inflatingSince = s.tPrev;
+      else if (s.t - inflatingSince >= 1) {
+        budget.spent += s.evaluations;
+        return true;
+      }
+    }
+    budget.spent += s.evaluations;
+    return false;
   }
 
   /** The zero of V' between two field values on either side of a minimum, by bisection. */

@@ -1,4 +1,5 @@
 import { STEWART_LYTH_C } from '../constants.js';
+import { CashKarpStepper } from '../integrators/cash-karp.js';
 import { fmt, type PotentialFunctions } from '../types.js';
 
 export interface SlowRollObservables {
@@ -111,20 +112,23 @@ export function slowRollOutsideRegime(sr: SlowRollObservables, second: SecondOrd
 
 /**
  * Slow-roll e-folds between two field values, N = ∫ V/|V'| dφ (the standard slow-roll count,
- * common practice), by Simpson's rule on 400 intervals; Infinity when V' vanishes or changes sign
- * between them (the slow-roll field never gets through).
+ * common practice), integrated adaptively with φ as the time variable, so a narrow near-flat
+ * stretch is resolved; Infinity when V' vanishes or changes sign between them (the slow-roll
+ * field never gets through).
  */
 export function slowRollEfolds(potential: PotentialFunctions, from: number, to: number): number {
-  const n = 400;
-  const h = (to - from) / n;
   const sign = Math.sign(potential.dV(from));
-  let sum = 0;
-  for (let i = 0; i <= n; i++) {
-    const phi = from + i * h;
+  if (sign === 0) return Infinity;
+  let stalled = false;
+  const stepper = new CashKarpStepper(1, (out, _y, phi) => {
     const dV = potential.dV(phi);
-    if (!(Math.sign(dV) === sign) || dV === 0) return Infinity;
-    const w = i === 0 || i === n ? 1 : i % 2 === 1 ? 4 : 2;
-    sum += (w * potential.V(phi)) / Math.abs(dV);
+    if (Math.sign(dV) !== sign) stalled = true;
+    out[0] = stalled ? 0 : potential.V(phi) / Math.abs(dV);
+  }, { tolerance: 1e-8, maxStep: Math.abs(to - from) / 20 });
+  stepper.reset(from, [0], (to - from) / 1000);
+  for (let guard = 0; stepper.t !== to && guard < 100_000; guard++) {
+    const result = stepper.step(to);
+    if (stalled || result !== 'ok') return Infinity;
   }
-  return (Math.abs(h) / 3) * sum;
+  return Math.abs(stepper.y[0]);
 }
