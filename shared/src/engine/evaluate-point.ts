@@ -157,6 +157,7 @@ export class PointEvaluator {
     if (nPivot >= ATTRACTOR_CHECK_EFOLDS && Math.abs(piStar) <= 1.5 * slowRollSpeed) return null;
     const pi0 = -potential.dV(phiInit) / potential.V(phiInit);
     const kicked = this.probe.velocityAtField(potential, phiInit, pi0 * (1 + START_KICK), phiStar, this.budget);
+    if (typeof kicked !== 'number') return kicked;
     const memory = Math.abs(kicked - piStar) / Math.abs(piStar) / START_KICK;
     if (memory < ATTRACTOR_MEMORY) return null;
     // Slow roll damps the memory by e^{−3} per e-fold; past the remaining factor the pivot would have forgotten.

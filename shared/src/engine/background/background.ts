@@ -370,7 +370,7 @@ export class BackgroundSolver {
    * started. It goes on through pauses of inflation (ε_H ≥ 1). NaN when the field never gets
    * there (turns, stalls, leaves V > 0).
    */
-  velocityAtField(potential: PotentialFunctions, phiInit: number, piInit: number, phiTarget: number, budget: BudgetMeter): number {
+  velocityAtField(potential: PotentialFunctions, phiInit: number, piInit: number, phiTarget: number, budget: BudgetMeter): number | Failure {
     this.potential = potential;
     const s = this.stepper;
     this.stepper.setTolerance(this.options.tolerance, this.options.maxStep);
@@ -379,7 +379,9 @@ export class BackgroundSolver {
     s.reset(0, this.node, 0.01);
     const side = Math.sign(phiTarget - phiInit);
     for (let guard = 0; guard < 100_000; guard++) {
-      if (s.step(Infinity) !== 'ok' || !(potential.V(s.y[0]) > 0) || budget.exceeded(s.evaluations, 0)) return NaN;
+      if (s.step(Infinity) !== 'ok' || !(potential.V(s.y[0]) > 0)) return NaN;
+      const over = budget.exceeded(s.evaluations, 0);
+      if (over) return budget.failure(over, 'in the attractor check (a second path from the start)', { n: s.t, phi: s.y[0], pi: s.y[1] });
       if (Math.sign(s.y[1]) !== side) return NaN; // turned before getting there
       if (Math.sign(phiTarget - s.y[0]) !== side) {
         // Crossed inside this step: Newton on re-taken steps lands on φ_target itself (dφ/dN = π).
