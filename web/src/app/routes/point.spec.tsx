@@ -159,6 +159,31 @@ describe('point page', () => {
     expect(screen.getByRole('region', { name: 'Inputs' })).toHaveTextContent('the family’s start for these parameters');
   });
 
+  it('compares a slow-roll point with the mode equations on request, output by output', async () => {
+    const natural: StoredScanSpec = {
+      ...chaotic, name: 'Natural, f = 3', model: { kind: 'family', family: 'natural' }, potentialSource: 'natural', params: { f: 3 }, phiInit: undefined,
+      axes: [{ kind: 'list', parameter: 'nStar', values: [55] }], method: 'slowroll',
+    };
+    mockApi({
+      'GET /api/auth/me': () => json(200, memberUser),
+      'GET /api/scans/42': () => json(200, scanDetail({}, natural)),
+      'GET /api/scans/42/points/0': () => json(200, storedPoint(natural, 0)),
+    });
+    const { user } = renderApp('/scans/42/points/0');
+
+    await user.click(await screen.findByRole('button', { name: 'Compare with the mode equations' }, slow));
+    const table = await screen.findByRole('table', { name: 'Slow roll against the mode equations' }, slow);
+    const engine = new RequestEvaluator();
+    const request = pointRequest(natural, natural.potentialSource, scanPoints(natural).point(0));
+    const slowRoll = engine.evaluate(request);
+    const modes = engine.evaluate({ ...request, method: 'exact' });
+    const rOff = (((slowRoll.r! - modes.r!) / modes.r!) * 100).toFixed(2);
+    // Natural inflation with f = 3 is where first-order slow roll overestimates r by ~10 % (checked against an independent integration).
+    expect(Number(rOff)).toBeGreaterThan(5);
+    const rRow = within(table).getAllByRole('row').find((row) => within(row).queryAllByRole('cell')[0]?.textContent === 'r')!;
+    expect(rRow).toHaveTextContent(`${rOff} %`);
+  });
+
   it("carries the point's own thread, with the group's members to mention", async () => {
     const group = {
       id: 10, slug: 'plateau-lab', name: 'Plateau Lab', description: '', myRole: 'member', memberCount: 1, pointLimit: 1_000_000,

@@ -12,6 +12,7 @@ import { PointInputs } from './point-inputs';
 import { PointOutputs } from './point-outputs';
 import { PointSpectrum } from './point-spectrum';
 import { PointTrajectory } from './point-trajectory';
+import { SlowRollCheck } from './slow-roll-check';
 
 function Section({ id, title, children, aside }: { id: string; title: string; children: ReactNode; aside?: ReactNode }) {
   return (
@@ -58,6 +59,8 @@ export function ScanPointView({ scan, spec, pointIndex }: ScanPointViewProps) {
   const trajectory = usePointEngine(scan.id, pointIndex, request, 'trajectory');
   const [spectrumWanted, setSpectrumWanted] = useState(false);
   const spectrum = usePointEngine(scan.id, pointIndex, request, 'spectrum', spectrumWanted);
+  const [modesWanted, setModesWanted] = useState(false);
+  const modes = usePointEngine(scan.id, pointIndex, request, 'modes', modesWanted);
 
   // A 404 for a point inside the grid means the workers have not stored it yet.
   const notStored = stored.error instanceof ApiRequestError && stored.error.status === 404;
@@ -129,6 +132,33 @@ export function ScanPointView({ scan, spec, pointIndex }: ScanPointViewProps) {
           </Stack>
         )}
       </Section>
+
+      {spec.method === 'slowroll' && (
+        <Section
+          id="point-slow-roll-check"
+          title="How exact is slow roll here"
+          aside={
+            !modesWanted && (
+              <Button size="sm" colorPalette="ember" onClick={() => setModesWanted(true)}>
+                Compare with the mode equations
+              </Button>
+            )
+          }
+        >
+          {!modesWanted ? (
+            <Text color="fg.muted">
+              This scan uses first-order slow roll, which is only refused outside its regime. Inside it, it can still be off by more than
+              the data’s error bars: compare this point with the exact mode equations, computed in your browser.
+            </Text>
+          ) : modes.isPending || trajectory.isPending ? (
+            <LoadingState label="Solving the mode equations in your browser…" />
+          ) : modes.isError ? (
+            <ErrorState title="The in-browser engine could not solve the mode equations" error={modes.error} onRetry={() => modes.refetch()} />
+          ) : trajectory.data ? (
+            <SlowRollCheck slowRoll={trajectory.data} modes={modes.data} />
+          ) : null}
+        </Section>
+      )}
 
       {spec.method === 'exact' && (
         <Section
