@@ -2,6 +2,7 @@ import { BudgetMeter, type EngineOptions } from './budget.js';
 import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundSolution } from './background/background.js';
 import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
 import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
+import { FEATURE_RESIDUAL } from './observables/spectrum-shape.js';
 import { hubbleFlow, potentialSlowRoll, secondOrderSlowRoll, slowRollEfolds, slowRollOutsideRegime, type SecondOrderObservables } from './observables/slow-roll.js';
 import { nStarFromReheating, reheatingDensity, type Reheating } from './pivot/reheating.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from './types.js';
@@ -196,6 +197,13 @@ export class PointEvaluator {
     if (spec.method === 'exact') {
       const exact = modes.solve(potential, bg, nPivot, { phi: phiStar, pi: piStar }, spec.spectrum ? SPECTRUM_LNK : undefined, this.budget);
       if ('status' in exact) return exact;
+      if (exact.featureResidual > FEATURE_RESIDUAL) {
+        return failure(
+          'spectrum_feature',
+          `the spectrum is not a power law at the pivot: across ln(k/k_*) = ±${fmt(2 * modes.stencil)} P_R departs from a power law with running by up to ${fmt(exact.featureResidual * 100)} % (a step or oscillation there), so n_s and α_s from the stencil would describe the feature, not a tilt; A_s = ${fmt(exact.As)} and r = ${fmt(exact.r)} at k_* itself`,
+          { nTotal: bg.nEnd, phi: phiStar },
+        );
+      }
       ({ ns, r, alphaS, As } = exact);
       nt = -r / 8;
       if (exact.spectrum) {

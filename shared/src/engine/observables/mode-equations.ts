@@ -1,6 +1,7 @@
 import type { BackgroundSolution } from '../background/background.js';
 import { BudgetMeter } from '../budget.js';
 import { CashKarpStepper } from '../integrators/cash-karp.js';
+import { powerLawResidual } from './spectrum-shape.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from '../types.js';
 
 export interface ModeOptions {
@@ -23,6 +24,8 @@ export interface ExactObservables {
   /** P_R(k_*) for the potential as given (before normalisation). */
   As: number;
   Pt: number;
+  /** Largest departure of ln P_R from a power law with running across the stencil (`powerLawResidual`). */
+  featureResidual: number;
   evaluations: number;
   /** P_R and P_t at ln(k/k_*) = lnK[i], when a spectrum was asked for. */
   spectrum?: { lnK: number[]; scalar: number[]; tensor: number[] };
@@ -53,6 +56,11 @@ export class ModeSolver {
   constructor(private options: ModeOptions = DEFAULT_MODE_OPTIONS) {
     this.scalar = new CashKarpStepper(6, (out, y, t) => this.rhs(out, y, t, false), { tolerance: options.tolerance, maxStep: 0.25 });
     this.both = new CashKarpStepper(10, (out, y, t) => this.rhs(out, y, t, true), { tolerance: options.tolerance, maxStep: 0.25 });
+  }
+
+  /** Spacing in ln k of the stencil around k_*. */
+  get stencil(): number {
+    return this.options.stencil;
   }
 
   /** ln(aH) at N for background state (φ, π), with a_* H_* = k_* = 1. */
@@ -195,7 +203,8 @@ export class ModeSolver {
     // to keep integration noise out of α_s misses them by ~1e-4.
     const ns = 1 + (lnP[0] - 8 * lnP[1] + 8 * lnP[3] - lnP[4]) / (12 * d);
     const alphaS = (-lnP[0] + 16 * lnP[1] - 30 * lnP[2] + 16 * lnP[3] - lnP[4]) / (12 * d * d);
-    const result: ExactObservables = { ns, alphaS, r: Pt / As, As, Pt, evaluations };
+    const featureResidual = powerLawResidual(offsets, lnP);
+    const result: ExactObservables = { ns, alphaS, r: Pt / As, As, Pt, featureResidual, evaluations };
     if (spectrumLnK) {
       const spectrum = { lnK: [...spectrumLnK], scalar: [] as number[], tensor: [] as number[] };
       for (const lnK of spectrumLnK) {
