@@ -479,6 +479,7 @@ export class BackgroundSolver {
    * turns (it oscillates about a minimum: inflation is over).
    */
   resumesAfterEnd(solution: BackgroundSolution, budget: BudgetMeter): boolean {
+    if (!this.slowRollRegionAhead(solution.phiEnd, solution.piEnd)) return false;
     const s = this.stepper;
     this.node[0] = solution.phiEnd;
     this.node[1] = solution.piEnd;
@@ -496,6 +497,26 @@ export class BackgroundSolver {
       }
     }
     budget.spent += s.evaluations;
+    return false;
+  }
+
+  /**
+   * Is there, between φ and the next minimum of V in the direction the field moves, somewhere
+   * with ε_V < 1? Without one, inflation cannot resume before the minimum (sampled every 1 % of
+   * the field scale, so the common case, a field falling into its minimum, costs ~100 looks at V).
+   */
+  private slowRollRegionAhead(phi: number, pi: number): boolean {
+    const p = this.potential;
+    const direction = Math.sign(pi) || 1;
+    let x = phi;
+    for (let i = 0; i < 5000 && Math.abs(x) < this.options.fieldLimit; i++) {
+      x += direction * 1e-2 * Math.max(1, Math.abs(x));
+      const V = p.V(x);
+      const dV = p.dV(x);
+      if (!(V > 0) || !Number.isFinite(dV)) return false;
+      if (direction * dV > 0) return false; // past the minimum: the field climbs from here
+      if (0.5 * (dV / V) ** 2 < 1) return true;
+    }
     return false;
   }
 
