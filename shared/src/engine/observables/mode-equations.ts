@@ -4,8 +4,10 @@ import { CashKarpStepper } from '../integrators/cash-karp.js';
 import { failure, fmt, type Failure, type PotentialFunctions } from '../types.js';
 
 export interface ModeOptions {
-  /** Modes start at k/(aH) = this, deep inside the horizon (Bunch-Davies vacuum). */
+  /** Modes start at least at k/(aH) = this, deep inside the horizon (Bunch-Davies vacuum); deeper when the background oscillates (see `startDepthFor`). */
   startDepth: number;
+  /** A mode starts at k/(aH) ≥ this × the largest frequency in N of V''/V it meets before horizon exit. */
+  oscillationSafety: number;
   /** Modes stop at k/(aH) = this, well outside the horizon where ζ and h are frozen. */
   endDepth: number;
   /** Step error tolerance of the mode integrations. */
@@ -14,7 +16,7 @@ export interface ModeOptions {
   stencil: number;
 }
 
-export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.1 };
+export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, oscillationSafety: 8, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.1 };
 
 export interface ExactObservables {
   ns: number;
@@ -29,14 +31,17 @@ export interface ExactObservables {
 }
 
 const TWO_PI2 = 2 * Math.PI * Math.PI;
+/** (√5 − 1)/2: multiples of it modulo 1 fill [0, 1) evenly and never repeat. */
+const GOLDEN_FRACTION = (Math.sqrt(5) - 1) / 2;
 
 /**
  * Exact scalar and tensor power spectra from the mode equations in e-folds,
  *   ζ'' + (3 − ε₁ + ε₂) ζ' + (k/aH)² ζ = 0,   h'' + (3 − ε₁) h' + (k/aH)² h = 0,
  * which are the Mukhanov-Sasaki equations (Mukhanov, Feldman & Brandenberger 1992, Phys. Rep.
  * 215, 203; Sasaki 1986) for ζ = v/z, z = a√(2ε₁), and for h = 2v_T/a, with N as time. Each mode
- * starts in the Bunch-Davies state v = e^{−ikτ}(1 − i/kτ)/√(2k) at k/aH = startDepth and is
- * integrated, together with the background (φ, π), until k/aH = endDepth. The scale factor is
+ * starts in the Bunch-Davies state v = e^{−ikτ}(1 − i/kτ)/√(2k) at the depth `startDepthFor`
+ * chooses (k/aH = startDepth, or deeper for an oscillating background) and is integrated,
+ * together with the background (φ, π), until k/aH = endDepth. The scale factor is
  * normalised so that aH = k_* at the pivot crossing; k is measured in units of k_*.
  * P_R = k³|ζ|²/(2π²), P_t = 2·k³|h|²/(2π²) (two polarisations).
  */
@@ -47,18 +52,26 @@ export class ModeSolver {
   private k = 1;
   private readonly scalar: CashKarpStepper;
   private readonly both: CashKarpStepper;
+  private readonly backgroundOnly: CashKarpStepper;
   private readonly start = new Float64Array(10);
   private readonly bg = new Float64Array(2);
 
   constructor(private options: ModeOptions = DEFAULT_MODE_OPTIONS) {
     this.scalar = new CashKarpStepper(6, (out, y, t) => this.rhs(out, y, t, false), { tolerance: options.tolerance, maxStep: 0.25 });
     this.both = new CashKarpStepper(10, (out, y, t) => this.rhs(out, y, t, true), { tolerance: options.tolerance, maxStep: 0.25 });
+    this.backgroundOnly = new CashKarpStepper(2, (out, y) => this.backgroundRhs(out, y), { tolerance: options.tolerance, maxStep: 0.25 });
   }
 
   /** ln(aH) at N for background state (φ, π), with a_* H_* = k_* = 1. */
   private lnAH(N: number, phi: number, pi: number): number {
     const H2 = this.potential.V(phi) / (3 - 0.5 * pi * pi);
     return N - this.nPivot + 0.5 * Math.log(H2) - this.lnHPivot;
+  }
+
+  private backgroundRhs(out: Float64Array, y: Float64Array): void {
+    const pi = y[1];
+    out[0] = pi;
+    out[1] = -(3 - 0.5 * pi * pi) * (pi + this.potential.dV(y[0]) / this.potential.V(y[0]));
   }
 
   private rhs(out: Float64Array, y: Float64Array, N: number, withTensor: boolean): void {
@@ -101,17 +114,87 @@ export class ModeSolver {
     return 0.5 * (lo + hi);
   }
 
+  /**
+   * How deep inside the horizon mode k must start: k/aH = max(startDepth, c·ω), where ω is the
+   * largest frequency in N of the mass term V''/V along the path from the start to the mode's
+   * horizon exit and c = `oscillationSafety` (8). A background oscillating at ω drives a resonance
+   * at k/aH ≈ ω/2; the Bunch-Davies start also ignores the oscillating mass, an error that falls
+   * as 1/(k/aH)² and reached 1e-4 in n_s only beyond k/aH ≈ 5–8 ω on the monodromy and modulated
+   * φ² cases. Since a deeper start widens the window, the depth is iterated until it stops growing.
+   * Smooth potentials have ω ≲ 1 and keep startDepth.
+   */
+  private startDepthFor(bg: BackgroundSolution, lnK: number): number {
+    const { startDepth, oscillationSafety } = this.options;
+    const nExit = this.crossing(bg, lnK);
+    let depth = startDepth;
+    for (let iter = 0; iter < 10; iter++) {
+      const nStart = this.crossing(bg, lnK - Math.log(depth));
+      const next = oscillationSafety * this.largestFrequency(bg, nStart, nExit);
+      if (!(next > depth * 1.001)) break;
+      depth = next;
+    }
+    return depth;
+  }
+
+  /**
+   * The largest frequency in N of q = V''/V on the stored path between n0 and n1, estimated as
+   * max|dq/dN| / max|q| over samples (exact for q = A cos ωN, small for slowly varying q). The
+   * ratio of maxima needs no sampling of every period, only samples at many phases: they are
+   * spread by a golden-ratio sequence, so no period can alias with their spacing.
+   */
+  private largestFrequency(bg: BackgroundSolution, n0: number, n1: number): number {
+    const p = this.potential;
+    const samples = Math.min(512, 8 + Math.ceil(16 * (n1 - n0)));
+    let maxQ = 0;
+    let maxDq = 0;
+    for (let j = 0; j < samples; j++) {
+      const u = (j * GOLDEN_FRACTION) % 1;
+      bg.table.interpolate(n0 + u * (n1 - n0), this.bg);
+      const phi = this.bg[0];
+      const V = p.V(phi);
+      const q = p.d2V(phi) / V;
+      const dq = this.bg[1] * (p.d3V(phi) / V - (q * p.dV(phi)) / V);
+      if (Number.isFinite(q) && Number.isFinite(dq)) {
+        maxQ = Math.max(maxQ, Math.abs(q));
+        maxDq = Math.max(maxDq, Math.abs(dq));
+      }
+    }
+    return maxQ > 0 ? maxDq / maxQ : 0;
+  }
+
+  /** The background at N re-integrated from the stored node before it: an interpolated start state would shift an oscillating background's phase. */
+  private backgroundAt(bg: BackgroundSolution, N: number): number {
+    const t = bg.table;
+    const i = t.locate(N);
+    const s = this.backgroundOnly;
+    this.bg[0] = t.phi[i];
+    this.bg[1] = t.pi[i];
+    s.reset(t.n[i], this.bg, Math.min(0.05, N - t.n[i] || 0.05));
+    for (let guard = 0; s.t < N && guard < 100_000; guard++) {
+      if (s.step(N) !== 'ok') {
+        bg.table.interpolate(N, this.bg);
+        return s.evaluations;
+      }
+    }
+    this.bg[0] = s.y[0];
+    this.bg[1] = s.y[1];
+    return s.evaluations;
+  }
+
   /** Integrates one mode k (in units of k_*); returns P_R, and P_t when withTensor. */
   private mode(bg: BackgroundSolution, lnK: number, withTensor: boolean, budget: BudgetMeter): { scalar: number; tensor: number; evaluations: number } | Failure {
-    const { startDepth, endDepth } = this.options;
+    const { endDepth } = this.options;
     this.k = Math.exp(lnK);
-    const nStart = this.crossing(bg, lnK - Math.log(startDepth));
-    bg.table.interpolate(nStart, this.bg);
+    const depth = this.startDepthFor(bg, lnK);
+    const nStart = this.crossing(bg, lnK - Math.log(depth));
+    const startEvaluations = this.backgroundAt(bg, nStart);
     const phi = this.bg[0];
     const pi = this.bg[1];
     const lnAH0 = this.lnAH(nStart, phi, pi);
-    if (lnK - lnAH0 < Math.log(startDepth) - 1e-6) {
-      return failure('insufficient_efolds', `the exact method needs modes to start at k/aH = ${fmt(startDepth)}, i.e. about ${fmt(Math.log(startDepth))} e-folds before the pivot crossing, but the integration starts too late; choose φ_init further up the potential`, { nTotal: bg.nEnd });
+    if (lnK - lnAH0 < Math.log(depth) - 1e-6) {
+      // Here nStart = 0; aH grows by e^{1−ε₁} per e-fold, so each missing factor e in depth is about one e-fold.
+      const needed = this.nPivot + Math.log(depth) - (lnK - lnAH0);
+      return failure('pivot_too_early', `the modes need to start ${fmt(needed)} e-folds before the pivot (k/aH = ${fmt(depth)}) but the background starts only ${fmt(this.nPivot)} e-folds before it; start further up the potential`, { nTotal: bg.nEnd });
     }
     let nStop = this.crossing(bg, lnK - Math.log(endDepth));
     if (nStop > bg.nEnd) nStop = bg.nEnd;
@@ -153,14 +236,15 @@ export class ModeSolver {
       if (result !== 'ok' || guard > 200_000) {
         return failure('integration_failed', `a mode equation could not be integrated near N = ${fmt(s.t)} (${result})`, { nTotal: bg.nEnd });
       }
-      const over = budget.exceeded(s.evaluations, 0);
+      const over = budget.exceeded(startEvaluations + s.evaluations, 0);
       if (over) return budget.failure(over, `in the mode equations (k = ${fmt(k)} k_*)`, { n: s.t, phi: s.y[0], pi: s.y[1] });
     }
-    budget.spent += s.evaluations;
+    const evaluations = startEvaluations + s.evaluations;
+    budget.spent += evaluations;
     const k3 = k * k * k;
     const scalar = (k3 * (s.y[2] * s.y[2] + s.y[3] * s.y[3])) / TWO_PI2;
     const tensor = withTensor ? (2 * k3 * (s.y[6] * s.y[6] + s.y[7] * s.y[7])) / TWO_PI2 : NaN;
-    return { scalar, tensor, evaluations: s.evaluations };
+    return { scalar, tensor, evaluations };
   }
 
   solve(
