@@ -7,7 +7,9 @@ export interface ModeOptions {
   /** Modes start at least at k/(aH) = this, deep inside the horizon (Bunch-Davies vacuum); deeper when the background oscillates (see `startDepthFor`). */
   startDepth: number;
   /** A mode starts at k/(aH) ≥ this × the largest frequency in N of V''/V it meets before horizon exit. */
-  oscillationSafety: number;
+  resonanceSafety: number;
+  /** A mode starts at (k/(aH))³ ≥ this × the largest |d(V''/V)/dN| it meets before horizon exit. */
+  adiabaticSafety: number;
   /** Modes stop at k/(aH) = this, well outside the horizon where ζ and h are frozen. */
   endDepth: number;
   /** Step error tolerance of the mode integrations. */
@@ -16,7 +18,7 @@ export interface ModeOptions {
   stencil: number;
 }
 
-export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, oscillationSafety: 8, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.1 };
+export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, resonanceSafety: 4, adiabaticSafety: 1e5, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.1 };
 
 export interface ExactObservables {
   ns: number;
@@ -31,6 +33,26 @@ export interface ExactObservables {
 }
 
 const TWO_PI2 = 2 * Math.PI * Math.PI;
+const adiabaticOut = new Float64Array(4);
+
+/**
+ * The state (v, v_N) = (vr + i·vi, vNr + i·vNi) at k/aH = x corrected to first adiabatic order for
+ * an extra mass term δZ(aH)²: |v| = 1/√(2W) and v_τ = −iWv − (W_τ/2W)v with W² = k² − (aH)²(2 + δZ),
+ * to first order in δZ/x²; δZ = 0 returns the state unchanged. Returns a shared buffer.
+ */
+function adiabaticState(vr: number, vi: number, vNr: number, vNi: number, dZ: number, x: number): Float64Array {
+  const amplitude = 1 + dZ / (4 * x * x);
+  const ar = amplitude * vr;
+  const ai = amplitude * vi;
+  const phase = dZ / (2 * x); // −i(W − W_dS)/(aH)
+  const growth = dZ / (2 * x * x); // −(W_τ/2W)/(aH) beyond de Sitter, δZ_N dropped
+  adiabaticOut[0] = ar;
+  adiabaticOut[1] = ai;
+  adiabaticOut[2] = amplitude * vNr - phase * ai + growth * ar;
+  adiabaticOut[3] = amplitude * vNi + phase * ar + growth * ai;
+  return adiabaticOut;
+}
+
 /** (√5 − 1)/2: multiples of it modulo 1 fill [0, 1) evenly and never repeat. */
 const GOLDEN_FRACTION = (Math.sqrt(5) - 1) / 2;
 
@@ -115,21 +137,25 @@ export class ModeSolver {
   }
 
   /**
-   * How deep inside the horizon mode k must start: k/aH = max(startDepth, c·ω), where ω is the
-   * largest frequency in N of the mass term V''/V along the path from the start to the mode's
-   * horizon exit and c = `oscillationSafety` (8). A background oscillating at ω drives a resonance
-   * at k/aH ≈ ω/2; the Bunch-Davies start also ignores the oscillating mass, an error that falls
-   * as 1/(k/aH)² and reached 1e-4 in n_s only beyond k/aH ≈ 5–8 ω on the monodromy and modulated
-   * φ² cases. Since a deeper start widens the window, the depth is iterated until it stops growing.
-   * Smooth potentials have ω ≲ 1 and keep startDepth.
+   * How deep inside the horizon mode k starts. The background it meets, from the start to its
+   * horizon exit, is summarised by the mass term q = V''/V sampled along the stored path: its
+   * largest size Q = max|q|, its largest rate R = max|dq/dN| and so its largest frequency in N,
+   * ω = R/Q (exact for q = A cos ωN; small for a slowly varying q). The mode starts at
+   *   k/aH = max(startDepth, c·ω, (C·R)^{1/3}),
+   * iterated because a deeper start widens the window. c·ω (c = `resonanceSafety`, 4) puts the
+   * start 8 times beyond the resonance at k/aH ≈ ω/2 with an oscillating background; (C·R)^{1/3}
+   * (C = `adiabaticSafety`, 1e5) keeps the neglected next adiabatic term of the initial state,
+   * about (dq/dN)/(k/aH)³, near 1e-5. Smooth potentials have ω ≲ 1 and R ≪ 1 and keep startDepth.
    */
   private startDepthFor(bg: BackgroundSolution, lnK: number): number {
-    const { startDepth, oscillationSafety } = this.options;
+    const { startDepth, resonanceSafety, adiabaticSafety } = this.options;
     const nExit = this.crossing(bg, lnK);
     let depth = startDepth;
     for (let iter = 0; iter < 10; iter++) {
       const nStart = this.crossing(bg, lnK - Math.log(depth));
-      const next = oscillationSafety * this.largestFrequency(bg, nStart, nExit);
+      const { size, rate } = this.massTermAlong(bg, nStart, nExit);
+      const frequency = size > 0 ? rate / size : 0;
+      const next = Math.max(resonanceSafety * frequency, Math.cbrt(adiabaticSafety * rate));
       if (!(next > depth * 1.001)) break;
       depth = next;
     }
@@ -137,29 +163,44 @@ export class ModeSolver {
   }
 
   /**
-   * The largest frequency in N of q = V''/V on the stored path between n0 and n1, estimated as
-   * max|dq/dN| / max|q| over samples (exact for q = A cos ωN, small for slowly varying q). The
-   * ratio of maxima needs no sampling of every period, only samples at many phases: they are
-   * spread by a golden-ratio sequence, so no period can alias with their spacing.
+   * max|q| and max|dq/dN| of q = V''/V on the stored path between n0 and n1. Maxima need no
+   * sample in every period, only samples at many phases: they are spread by a golden-ratio
+   * sequence, so no period can alias with their spacing.
    */
-  private largestFrequency(bg: BackgroundSolution, n0: number, n1: number): number {
+  private massTermAlong(bg: BackgroundSolution, n0: number, n1: number): { size: number; rate: number } {
     const p = this.potential;
     const samples = Math.min(512, 8 + Math.ceil(16 * (n1 - n0)));
-    let maxQ = 0;
-    let maxDq = 0;
+    let size = 0;
+    let rate = 0;
     for (let j = 0; j < samples; j++) {
-      const u = (j * GOLDEN_FRACTION) % 1;
-      bg.table.interpolate(n0 + u * (n1 - n0), this.bg);
+      bg.table.interpolate(n0 + ((j * GOLDEN_FRACTION) % 1) * (n1 - n0), this.bg);
       const phi = this.bg[0];
       const V = p.V(phi);
       const q = p.d2V(phi) / V;
       const dq = this.bg[1] * (p.d3V(phi) / V - (q * p.dV(phi)) / V);
       if (Number.isFinite(q) && Number.isFinite(dq)) {
-        maxQ = Math.max(maxQ, Math.abs(q));
-        maxDq = Math.max(maxDq, Math.abs(dq));
+        size = Math.max(size, Math.abs(q));
+        rate = Math.max(rate, Math.abs(dq));
       }
     }
-    return maxQ > 0 ? maxDq / maxQ : 0;
+    return { size, rate };
+  }
+
+  /**
+   * (z''/z)/(aH)² − 2 for z = a√(2ε₁): (1 + ε₂/2)(2 − ε₁ + ε₂/2) + ε₂ε₃/2 − 2, with ε₂ = 2π'/π and
+   * ε₂ε₃ = 2π''/π − ε₂²/2 from the background equation (Hubble-flow functions as in
+   * test/reference/odex-reference.ts).
+   */
+  private scalarMassBeyondDeSitter(phi: number, pi: number): number {
+    const p = this.potential;
+    const V = p.V(phi);
+    const v1 = p.dV(phi) / V;
+    const e1 = 0.5 * pi * pi;
+    const piPrime = -(3 - e1) * (pi + v1);
+    const piSecond = pi * piPrime * (pi + v1) - (3 - e1) * (piPrime + (p.d2V(phi) / V - v1 * v1) * pi);
+    const e2 = (2 * piPrime) / pi;
+    const e2e3 = (2 * piSecond) / pi - 0.5 * e2 * e2;
+    return (1 + e2 / 2) * (2 - e1 + e2 / 2) + e2e3 / 2 - 2;
   }
 
   /** The background at N re-integrated from the stored node before it: an interpolated start state would shift an oscillating background's phase. */
@@ -216,18 +257,26 @@ export class ModeSolver {
     const vNi = (norm * (-k + k / (x * x))) / aH;
     const z = a * Math.sqrt(2 * e1);
     const zN = 1 + e2 / 2; // z_N / z
+    // A start deepened for an oscillating background adds to the de Sitter state the first
+    // adiabatic correction for the rest of the mass term, δZ = (z''/z)/(aH)² − 2: without it the
+    // start errs by ~δZ/(k/aH)², and δZ ≈ 3V''/V oscillates with amplitudes up to thousands.
+    // A start at startDepth keeps the plain state (its error, < 1e-5, is checked in convergence.spec).
+    const deepened = depth > this.options.startDepth;
     const y = this.start;
     y[0] = phi;
     y[1] = pi;
-    y[2] = vr / z;
-    y[3] = vi / z;
-    y[4] = (vNr - vr * zN) / z;
-    y[5] = (vNi - vi * zN) / z;
-    // h = 2v/a, h_N = 2(v_N − v)/a
-    y[6] = (2 * vr) / a;
-    y[7] = (2 * vi) / a;
-    y[8] = (2 * (vNr - vr)) / a;
-    y[9] = (2 * (vNi - vi)) / a;
+    const scalarMass = deepened ? this.scalarMassBeyondDeSitter(phi, pi) : 0;
+    const v = adiabaticState(vr, vi, vNr, vNi, scalarMass, x);
+    y[2] = v[0] / z;
+    y[3] = v[1] / z;
+    y[4] = (v[2] - v[0] * zN) / z;
+    y[5] = (v[3] - v[1] * zN) / z;
+    // h = 2v/a, h_N = 2(v_N − v)/a; the tensor mass term (a''/a)/(aH)² = 2 − ε₁.
+    const vt = adiabaticState(vr, vi, vNr, vNi, deepened ? -e1 : 0, x);
+    y[6] = (2 * vt[0]) / a;
+    y[7] = (2 * vt[1]) / a;
+    y[8] = (2 * (vt[2] - vt[0])) / a;
+    y[9] = (2 * (vt[3] - vt[1])) / a;
 
     const s = withTensor ? this.both : this.scalar;
     s.reset(nStart, y, 0.01);
