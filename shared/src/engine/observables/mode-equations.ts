@@ -123,11 +123,11 @@ export class ModeSolver {
     }
   }
 
-  /** N at which ln(aH) reaches `target`, by bisection on the stored background (aH grows while ε₁ < 1). */
-  private crossing(bg: BackgroundSolution, target: number): number {
+  /** N at which ln(aH) reaches `target` (to `precision` in N), by bisection on the stored background (aH grows while ε₁ < 1). */
+  private crossing(bg: BackgroundSolution, target: number, precision = 1e-13): number {
     let lo = 0;
     let hi = bg.nEnd;
-    for (let i = 0; i < 200 && hi - lo > 1e-13; i++) {
+    for (let i = 0; i < 200 && hi - lo > precision; i++) {
       const mid = 0.5 * (lo + hi);
       bg.table.interpolate(mid, this.bg);
       if (this.lnAH(mid, this.bg[0], this.bg[1]) < target) lo = mid;
@@ -137,22 +137,24 @@ export class ModeSolver {
   }
 
   /**
-   * How deep inside the horizon mode k starts. The background it meets, from the start to its
-   * horizon exit, is summarised by the mass term q = V''/V sampled along the stored path: its
-   * largest size Q = max|q|, its largest rate R = max|dq/dN| and so its largest frequency in N,
-   * ω = R/Q (exact for q = A cos ωN; small for a slowly varying q). The mode starts at
+   * How deep inside the horizon the modes lnKLow … lnKHigh start (one depth for the five modes of
+   * the stencil, so that n_s and α_s difference like with like). The background they meet, from
+   * the start of the lowest to the horizon exit of the highest, is summarised by the mass term
+   * q = V''/V sampled along the stored path: its largest size Q = max|q|, its largest rate
+   * R = max|dq/dN| and so its largest frequency in N, ω = R/Q (exact for q = A cos ωN; small for a
+   * slowly varying q). The modes start at
    *   k/aH = max(startDepth, c·ω, (C·R)^{1/3}),
    * iterated because a deeper start widens the window. c·ω (c = `resonanceSafety`, 4) puts the
    * start 8 times beyond the resonance at k/aH ≈ ω/2 with an oscillating background; (C·R)^{1/3}
    * (C = `adiabaticSafety`, 1e5) keeps the neglected next adiabatic term of the initial state,
    * about (dq/dN)/(k/aH)³, near 1e-5. Smooth potentials have ω ≲ 1 and R ≪ 1 and keep startDepth.
    */
-  private startDepthFor(bg: BackgroundSolution, lnK: number): number {
+  private startDepthFor(bg: BackgroundSolution, lnKLow: number, lnKHigh: number): number {
     const { startDepth, resonanceSafety, adiabaticSafety } = this.options;
-    const nExit = this.crossing(bg, lnK);
+    const nExit = this.crossing(bg, lnKHigh, 1e-3); // only bounds the sampled window
     let depth = startDepth;
     for (let iter = 0; iter < 10; iter++) {
-      const nStart = this.crossing(bg, lnK - Math.log(depth));
+      const nStart = this.crossing(bg, lnKLow - Math.log(depth), 1e-3);
       const { size, rate } = this.massTermAlong(bg, nStart, nExit);
       const frequency = size > 0 ? rate / size : 0;
       const next = Math.max(resonanceSafety * frequency, Math.cbrt(adiabaticSafety * rate));
@@ -169,7 +171,7 @@ export class ModeSolver {
    */
   private massTermAlong(bg: BackgroundSolution, n0: number, n1: number): { size: number; rate: number } {
     const p = this.potential;
-    const samples = Math.min(512, 8 + Math.ceil(16 * (n1 - n0)));
+    const samples = Math.min(512, 8 + Math.ceil(8 * (n1 - n0)));
     let size = 0;
     let rate = 0;
     for (let j = 0; j < samples; j++) {
@@ -222,11 +224,10 @@ export class ModeSolver {
     return s.evaluations;
   }
 
-  /** Integrates one mode k (in units of k_*); returns P_R, and P_t when withTensor. */
-  private mode(bg: BackgroundSolution, lnK: number, withTensor: boolean, budget: BudgetMeter): { scalar: number; tensor: number; evaluations: number } | Failure {
+  /** Integrates one mode k (in units of k_*) from k/aH = depth; returns P_R, and P_t when withTensor. */
+  private mode(bg: BackgroundSolution, lnK: number, depth: number, withTensor: boolean, budget: BudgetMeter): { scalar: number; tensor: number; evaluations: number } | Failure {
     const { endDepth } = this.options;
     this.k = Math.exp(lnK);
-    const depth = this.startDepthFor(bg, lnK);
     const nStart = this.crossing(bg, lnK - Math.log(depth));
     const startEvaluations = this.backgroundAt(bg, nStart);
     const phi = this.bg[0];
@@ -309,12 +310,13 @@ export class ModeSolver {
     this.lnHPivot = 0.5 * Math.log(potential.V(pivotState.phi) / (3 - 0.5 * pivotState.pi * pivotState.pi));
     const d = this.options.stencil;
     const offsets = [-2 * d, -d, 0, d, 2 * d];
+    const stencilDepth = this.startDepthFor(bg, -2 * d, 2 * d);
     const lnP: number[] = [];
     let evaluations = 0;
     let As = NaN;
     let Pt = NaN;
     for (const off of offsets) {
-      const m = this.mode(bg, off, off === 0, budget);
+      const m = this.mode(bg, off, stencilDepth, off === 0, budget);
       if ('status' in m) return m;
       evaluations += m.evaluations;
       lnP.push(Math.log(m.scalar));
@@ -332,7 +334,7 @@ export class ModeSolver {
     if (spectrumLnK) {
       const spectrum = { lnK: [...spectrumLnK], scalar: [] as number[], tensor: [] as number[] };
       for (const lnK of spectrumLnK) {
-        const m = this.mode(bg, lnK, true, budget);
+        const m = this.mode(bg, lnK, this.startDepthFor(bg, lnK, lnK), true, budget);
         if ('status' in m) return m;
         evaluations += m.evaluations;
         spectrum.scalar.push(m.scalar);
