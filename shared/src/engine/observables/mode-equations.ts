@@ -138,7 +138,7 @@ export class ModeSolver {
 
   /**
    * How deep inside the horizon the modes lnKLow … lnKHigh start (one depth for the five modes of
-   * the stencil, so that n_s and α_s difference like with like). The background they meet, from
+   * the stencil, so that n_s and α_s compare modes started alike). The background they meet, from
    * the start of the lowest to the horizon exit of the highest, is summarised by the mass term
    * q = V''/V sampled along the stored path: its largest size Q = max|q|, its largest rate
    * R = max|dq/dN| and so its largest frequency in N, ω = R/Q (exact for q = A cos ωN; small for a
