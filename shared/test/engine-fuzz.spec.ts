@@ -12,7 +12,8 @@ import { FAILURE_CODES } from '../src/engine/types.js';
  * regime. `FUZZ_SEED=<n>` replays or varies a run (the default seed keeps CI repeatable).
  */
 
-const SEED = Number(process.env.FUZZ_SEED ?? 20261204);
+// shared is free of Node types, so the environment is read through globalThis.
+const SEED = Number((globalThis as { process?: { env: Record<string, string | undefined> } }).process?.env.FUZZ_SEED ?? 20261204);
 const BUDGET = { evaluations: 300_000, steps: 20_000 };
 
 const constant = fc.oneof(
@@ -96,11 +97,10 @@ describe('the engine on generated potentials', () => {
     run('slowroll', 300);
     // The generator reaches both answers and refusals, so the checks above are exercised.
     expect(tally.get('slowroll ok') ?? 0).toBeGreaterThan(20);
-    console.log([...tally].map(([key, n]) => `${key}: ${n}`).join(', '));
   }, 120_000);
 
   it('mode equations: 40 points, the same rules', () => {
     run('exact', 40);
-    console.log([...tally].filter(([key]) => key.startsWith('exact')).map(([key, n]) => `${key}: ${n}`).join(', '));
+    expect([...tally.keys()].some((key) => key.startsWith('exact'))).toBe(true);
   }, 120_000);
 });

@@ -30,6 +30,8 @@ export interface Failure {
   /** Set when known: e-folds available before the failure, field value where it happened. */
   nTotal?: number;
   phi?: number;
+  /** For a point refused on its validity (e.g. `spectrum_feature`): the numbers that were computed and are not to be trusted as a tilt. */
+  observables?: { ns: number; r: number; alphaS: number; As: number };
 }
 
 export function failure(status: FailureCode, message: string, extra: Omit<Failure, 'status' | 'message'> = {}): Failure {
