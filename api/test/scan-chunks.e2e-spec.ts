@@ -103,9 +103,9 @@ describe('chunks on the queue', () => {
     workers = startWorkers(2, { ...SLOW_POINTS, WORKER_SLICE_SECONDS: '600' });
     const done = await finished(id, 'the slow chunk to be stored');
 
+    expect(await pointsComputed()).toBe(8);
     expect(jobsOf(id)).toEqual([`scan-${id}-chunk-0`]);
     expect(stalled).toEqual([]);
-    expect(await pointsComputed()).toBe(8);
     // Every point ran to its wall-time limit, so none gave a spectrum.
     expect({ status: done.status, done: done.donePoints, failed: done.failedPoints }).toEqual({ status: 'failed', done: 0, failed: 8 });
     const rows = await t.db.getRepository(ScanPoint).findBy({ scanId: id });
