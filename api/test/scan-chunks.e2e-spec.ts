@@ -2,7 +2,9 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from '@jest/glob
 import Queue from 'bull';
 import type { ChildProcess } from 'node:child_process';
 import os from 'node:os';
-import { parseChunkJobId, SCAN_QUEUE, WORKER_HEARTBEAT_PREFIX, workerHeartbeatSchema, type ComputeChunkJob } from '@sixtyfold/shared';
+import {
+  chunkJobOptions, COMPUTE_CHUNK_JOB, continuationOf, parseChunkJobId, SCAN_QUEUE, WORKER_HEARTBEAT_PREFIX, workerHeartbeatSchema, type ComputeChunkJob,
+} from '@sixtyfold/shared';
 import { readRedisConfig } from '../src/config/redis.config';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
@@ -178,4 +180,42 @@ describe('chunks on the queue', () => {
     expect(await pointsComputed()).toBe(slowIds.length + 40);
     expect(stalled).toEqual([]);
   }, 180_000);
+
+  it('a continuation counts as the rest of its chunk, keeps the reconciler from queueing the chunk again, and leaves with a cancel', async () => {
+    // No worker runs: this test takes the jobs itself, as a worker would, and hands one on.
+    const id = await submit(quickScan(plateauId, 'continuation bookkeeping', 25)); // chunks 0–249 and 250–499
+    const take = async () => {
+      const job = await queue.getNextJob();
+      if (!job) throw new Error('no chunk waiting');
+      expect(job.data.scanId).toBe(id);
+      return job;
+    };
+    const handOn = async (job: Queue.Job<ComputeChunkJob>, from: number) => {
+      const rest = continuationOf(job.data, from);
+      await queue.add(COMPUTE_CHUNK_JOB, rest, chunkJobOptions(rest));
+      await job.moveToCompleted('sliced', true, true);
+    };
+    const waiting = async () => (await queue.getJobs(['waiting', 'delayed'])).filter((job) => job?.data.scanId === id).map((job) => job.id);
+
+    await handOn(await take(), 100);
+    // The second chunk goes first (priority 3): the continuation waits behind it.
+    const second = await take();
+    expect(second.id).toBe(`scan-${id}-chunk-1`);
+    const rest = await take();
+    expect(rest.id).toBe(`scan-${id}-chunk-0-from-100`);
+    const progress = (await member.get(`/api/scans/${id}`)).body.progress;
+    expect({ running: progress.running, queued: progress.queued }).toEqual({ running: 250 + 150, queued: 100 });
+
+    // The reconciler passes every second; chunk 0 is missing points, but its continuation runs.
+    await new Promise((r) => setTimeout(r, 2500));
+    expect(await waiting()).toEqual([]);
+
+    await handOn(rest, 180);
+    expect(await waiting()).toEqual([`scan-${id}-chunk-0-from-180`]);
+    await new Promise((r) => setTimeout(r, 2500));
+    expect(await waiting()).toEqual([`scan-${id}-chunk-0-from-180`]);
+    expect((await member.post(`/api/scans/${id}/cancel`).send({})).status).toBe(200);
+    expect(await waiting()).toEqual([]);
+    await second.moveToCompleted('cancelled', true, true);
+  }, 60_000);
 });

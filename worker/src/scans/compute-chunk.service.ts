@@ -101,12 +101,12 @@ export class ComputeChunkService {
         computedAt: now,
       });
       if (i + 1 === job.end) break;
-      const elapsed = performance.now();
-      if (elapsed - startedAt >= this.sliceMs) {
+      const at = performance.now();
+      if (at - startedAt >= this.sliceMs) {
         end = i + 1;
         break;
       }
-      if (elapsed - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
+      if (at - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
         await renew((i + 1 - job.start) / (job.end - job.start));
         renewedAt = performance.now();
         // A cancelled scan stops between points, and nothing of this chunk is written.
