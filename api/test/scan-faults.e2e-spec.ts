@@ -14,7 +14,7 @@ import { until } from './support/until';
 // point is stored exactly once and equals what the engine computes undisturbed.
 const WORKER_MAIN = path.resolve('../worker/dist/main.js');
 
-// A killed worker's chunk comes back after the bull lock expires (~20 s); restarts take a while.
+// A killed worker's chunk comes back after the bull lock expires (at most 35 s); restarts take a while.
 const FAULT_TIMEOUT = 180_000;
 
 /** SIGTERM, and SIGKILL if a worker cut off from its servers cannot shut down in time. */

@@ -58,14 +58,18 @@ describe('worker pool membership', () => {
   });
 
   it('refuses to start with a bad configuration and says why', async () => {
-    const child = spawn(process.execPath, [WORKER_MAIN], {
-      env: { ...process.env, WORKER_CONCURRENCY: 'lots' },
-      stdio: ['ignore', 'ignore', 'pipe'],
-    });
-    let stderr = '';
-    child.stderr!.on('data', (d: Buffer) => (stderr += d.toString()));
-    const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
-    expect(code).not.toBe(0);
-    expect(stderr).toMatch(/WORKER_CONCURRENCY/);
+    const cases: [Record<string, string>, RegExp][] = [
+      [{ WORKER_CONCURRENCY: 'lots' }, /WORKER_CONCURRENCY/],
+      // A point could then hold the event loop until the chunk's lock lapsed.
+      [{ WORKER_POINT_TIME_LIMIT_SECONDS: '20', WORKER_LOCK_SECONDS: '21' }, /WORKER_LOCK_SECONDS: must be more than WORKER_POINT_TIME_LIMIT_SECONDS \+ 2 s/],
+    ];
+    for (const [env, reason] of cases) {
+      const child = spawn(process.execPath, [WORKER_MAIN], { env: { ...process.env, ...env }, stdio: ['ignore', 'ignore', 'pipe'] });
+      let stderr = '';
+      child.stderr!.on('data', (d: Buffer) => (stderr += d.toString()));
+      const code = await new Promise<number | null>((resolve) => child.once('exit', resolve));
+      expect(code).not.toBe(0);
+      expect(stderr).toMatch(reason);
+    }
   });
 });

@@ -11,9 +11,9 @@ import { ScanQueueService } from './scan-queue.service';
 
 /**
  * MariaDB is the record, Redis only the transport. At start and then periodically, every scan
- * still queued or running gets the chunks whose points are missing put back on the queue
- * (existing jobs keep their ids, so nothing runs twice), and a scan whose points are all
- * stored is marked completed. A Redis that lost its data, or jobs that vanished, still finish.
+ * still queued or running gets the chunks whose points are missing and that have no job waiting
+ * or running (neither the chunk's own nor a continuation of it) put back on the queue, and a scan
+ * whose points are all stored is marked completed. A Redis that lost its data, or jobs that vanished, still finish.
  * The periodic pass runs in one API process per interval; the pass at start runs in each process
  * as it starts (re-queueing is idempotent by job id).
  */
@@ -46,8 +46,11 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
     this.running = true;
     let requeued = 0;
     try {
+      // The queue first, then the points: a chunk with no job in this picture stores nothing
+      // more, so whatever it has stored by now is in the reads that follow.
+      const queued = new Set((await this.queue.liveJobs()).map((job) => `${job.scanId}/${job.chunk}`));
       const live = await this.db.getRepository(Scan).find({ where: [{ status: 'queued' }, { status: 'running' }], select: { id: true, totalPoints: true, method: true } });
-      for (const scan of live) requeued += await this.reconcile(scan);
+      for (const scan of live) requeued += await this.reconcile(scan, (chunk) => queued.has(`${scan.id}/${chunk}`));
       if (requeued > 0) this.logger.log(`re-queued ${requeued} chunk(s) of ${live.length} live scan(s)`);
     } catch (err) {
       this.logger.warn(`reconciliation failed, will try again: ${(err as Error).message}`);
@@ -57,20 +60,21 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
     return requeued;
   }
 
-  private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method'>): Promise<number> {
+  private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method'>, queued: (chunk: number) => boolean): Promise<number> {
     const size = chunkSize(scan.totalPoints, scan.method);
     const rows: { chunk: string; stored: string }[] = await this.db.query(
       'SELECT FLOOR(point_index / ?) AS chunk, COUNT(*) AS stored FROM scan_points WHERE scan_id = ? GROUP BY chunk',
       [size, scan.id],
     );
     const stored = new Map(rows.map((r) => [Number(r.chunk), Number(r.stored)]));
-    const missing = new Set(
-      scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start).map((c) => c.chunk),
-    );
-    if (missing.size === 0) {
+    const incomplete = scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start);
+    if (incomplete.length === 0) {
       await completeIfAllStored(this.db, scan.id);
       return 0;
     }
-    return this.queue.enqueue(scan.id, scan.totalPoints, scan.method, missing);
+    // A chunk whose job or continuation is on the queue is on its way; one without is computed
+    // again whole (rare: Redis lost its jobs), and the store overwrites what it had.
+    const missing = new Set(incomplete.filter((c) => !queued(c.chunk)).map((c) => c.chunk));
+    return missing.size === 0 ? 0 : this.queue.enqueue(scan.id, scan.totalPoints, scan.method, missing);
   }
 }

@@ -180,7 +180,7 @@ export class ScansService {
       .set({ status: 'cancelled', finishedAt: () => 'CURRENT_TIMESTAMP(3)' })
       .where('id = :id AND status IN (:...live)', { id, live: ['queued', 'running'] })
       .execute();
-    await this.queue.remove(id, scan.totalPoints, scan.method);
+    await this.queue.remove(id);
     await this.audit.record({ action: 'scan.cancel', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id });
     return this.get(user, id);
   }
@@ -232,7 +232,7 @@ export class ScansService {
     const scan = await this.load(user, id);
     await this.access.require(user, scan.groupId, 'lead', 'scan');
     await this.deletion.delete(id, user.id, 'manual', false);
-    await this.queue.remove(id, scan.totalPoints, scan.method);
+    await this.queue.remove(id);
   }
 
   private async load(user: SessionUser, id: number): Promise<Scan> {

@@ -1,8 +1,10 @@
 import { Injectable, Logger } from '@nestjs/common';
+import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import { completeIfAllStored, Scan, ScanPoint } from '@sixtyfold/api/database';
-import { pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
+import { continuationOf, pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
+import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
 
 export interface ChunkOutcome {
   scanId: number;
@@ -10,25 +12,44 @@ export interface ChunkOutcome {
   computed: number;
   failed: number;
   skipped?: 'missing' | 'cancelled';
+  /** The rest of the chunk, to go back on the queue: this job's time slice ran out before it. */
+  rest?: ComputeChunkJob;
 }
 
 type PointRow = Omit<ScanPoint, 'scan'>;
+
+/** Points [start, end) of a scan. */
+interface PointRange {
+  start: number;
+  end: number;
+}
 
 /**
  * Computes one chunk of a scan with the engine and stores it. The rows are written with one
  * INSERT … ON DUPLICATE KEY UPDATE on (scan_id, point_index), and the scan's counters move by
  * the difference the chunk made, in the same transaction: a retried or duplicated chunk
  * overwrites its rows and leaves the counters right.
+ *
+ * The engine is synchronous, so while a point computes nothing else in this process runs, bull's
+ * lock renewal included. Between points the chunk calls `renew` (which extends its lock)
+ * whenever LOCK_RENEWAL_SECONDS have passed; a point ends at its wall-time limit, so the lock is
+ * never left unrenewed longer than one point's limit plus that interval, which the config keeps
+ * below the lock duration. And after its time slice a chunk stores the points it has and returns
+ * the rest as a continuation, so a scan of slow points shares the pool with the others.
  */
 @Injectable()
 export class ComputeChunkService {
   private readonly logger = new Logger('ComputeChunk');
-  // The engine has no clock of its own; given this one, a point that runs past its wall-time budget ends as budget_exceeded.
-  private readonly engine = new RequestEvaluator({ now: () => performance.now() });
+  private readonly engine: RequestEvaluator;
+  private readonly sliceMs: number;
 
   private readonly pointColumns: { name: string; property: keyof PointRow; primary: boolean; json: boolean }[];
 
-  constructor(@InjectDataSource() private readonly db: DataSource) {
+  constructor(@InjectDataSource() private readonly db: DataSource, config: ConfigService) {
+    const worker = config.getOrThrow<WorkerConfig>('worker');
+    // The engine has no clock of its own; given this one, a point that runs past its wall-time limit ends as budget_exceeded.
+    this.engine = new RequestEvaluator({ now: () => performance.now(), budget: { wallTimeMs: worker.pointTimeLimitMs } });
+    this.sliceMs = worker.sliceMs;
     this.pointColumns = db.getMetadata(ScanPoint).columns.map((c) => ({
       name: c.databaseName,
       property: c.propertyName as keyof PointRow,
@@ -37,10 +58,12 @@ export class ComputeChunkService {
     }));
   }
 
-  async run(job: ComputeChunkJob, progress: (fraction: number) => Promise<void> | void = () => undefined): Promise<ChunkOutcome> {
+  /** `renew(fraction)` keeps the job's lock and reports its progress; it is called between points every LOCK_RENEWAL_SECONDS. */
+  async run(job: ComputeChunkJob, renew: (fraction: number) => Promise<void> = async () => undefined): Promise<ChunkOutcome> {
+    const skipped = (why: 'missing' | 'cancelled'): ChunkOutcome => ({ scanId: job.scanId, chunk: job.chunk, computed: 0, failed: 0, skipped: why });
     const scan = await this.db.getRepository(Scan).findOneBy({ id: job.scanId });
-    if (!scan) return { scanId: job.scanId, chunk: job.chunk, computed: 0, failed: 0, skipped: 'missing' };
-    if (scan.status === 'cancelled') return { scanId: job.scanId, chunk: job.chunk, computed: 0, failed: 0, skipped: 'cancelled' };
+    if (!scan) return skipped('missing');
+    if (scan.status === 'cancelled') return skipped('cancelled');
     await this.db
       .createQueryBuilder()
       .update(Scan)
@@ -52,6 +75,9 @@ export class ComputeChunkService {
     const points = scanPoints(spec);
     const rows: PointRow[] = [];
     const now = new Date();
+    const startedAt = performance.now();
+    let renewedAt = startedAt;
+    let end = job.end;
     for (let i = job.start; i < job.end; i++) {
       const inputs = points.point(i);
       const result = this.engine.evaluate(pointRequest(spec, spec.potentialSource, inputs));
@@ -74,16 +100,64 @@ export class ComputeChunkService {
         energyScaleGeV: result.energyScaleGeV,
         computedAt: now,
       });
-      if ((i - job.start) % 250 === 249) {
-        await progress((i - job.start + 1) / (job.end - job.start));
+      if (i + 1 === job.end) break;
+      const at = performance.now();
+      if (at - startedAt >= this.sliceMs) {
+        end = i + 1;
+        break;
+      }
+      if (at - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
+        await renew((i + 1 - job.start) / (job.end - job.start));
+        renewedAt = performance.now();
         // A cancelled scan stops between points, and nothing of this chunk is written.
-        if (await this.cancelled(scan.id)) return { scanId: scan.id, chunk: job.chunk, computed: 0, failed: 0, skipped: 'cancelled' };
+        if (await this.cancelled(scan.id)) return skipped('cancelled');
       }
     }
-    const stored = await this.db.transaction((tx) => this.store(tx, scan.id, job, rows));
-    if (!stored) return { scanId: scan.id, chunk: job.chunk, computed: 0, failed: 0, skipped: 'cancelled' };
+    const range = { start: job.start, end };
+    const stored = await this.db.transaction((tx) => this.store(tx, scan.id, range, rows));
+    if (!stored) return skipped('cancelled');
+    this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: points ${range.start}–${range.end - 1} stored`);
     const failed = rows.filter((r) => r.status !== 'ok').length;
-    return { scanId: scan.id, chunk: job.chunk, computed: rows.length - failed, failed };
+    return { scanId: scan.id, chunk: job.chunk, computed: rows.length - failed, failed, rest: end < job.end ? continuationOf(job, end) : undefined };
+  }
+
+  /**
+   * The points of a job that the workers gave up on (its attempts used up, or stalled too often),
+   * stored as `chunk_failed` with the reason, through the same store: points stored already
+   * (by an earlier slice, say) stay as they are, the counters move by the rows added, and the
+   * scan completes when they were its last. Returns the number of points written.
+   */
+  async storeGivenUp(job: ComputeChunkJob, reason: string): Promise<number> {
+    const scan = await this.db.getRepository(Scan).findOneBy({ id: job.scanId });
+    if (!scan || scan.status === 'cancelled') return 0;
+    // The inputs, when the stored spec can be read at all (it may be what made the chunk fail).
+    let inputs: (i: number) => Record<string, number> = () => ({});
+    try {
+      const points = scanPoints(scan.spec as unknown as StoredScanSpec);
+      inputs = (i) => points.point(i);
+    } catch {
+      // Stored without inputs; the reason says what went wrong.
+    }
+    const now = new Date();
+    return this.db.transaction(async (tx) => {
+      if (!(await this.lockLiveScan(tx, scan.id))) return 0;
+      const present: { point_index: number }[] = await tx.query(
+        'SELECT point_index FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE',
+        [scan.id, job.start, job.end],
+      );
+      const stored = new Set(present.map((p) => Number(p.point_index)));
+      let written = 0;
+      // One write per run of missing points, each over exactly the range it fills.
+      for (let i = job.start; i < job.end; ) {
+        if (stored.has(i)) { i++; continue; }
+        const rows: PointRow[] = [];
+        for (; i < job.end && !stored.has(i); i++) rows.push(failedRow(scan.id, i, inputs(i), reason, now));
+        await this.write(tx, scan.id, { start: rows[0].pointIndex, end: i }, rows);
+        written += rows.length;
+      }
+      await completeIfAllStored(tx, scan.id);
+      return written;
+    });
   }
 
   private async cancelled(scanId: number): Promise<boolean> {
@@ -91,17 +165,31 @@ export class ComputeChunkService {
     return !row || row.status === 'cancelled';
   }
 
-  /** Writes the chunk unless the scan was cancelled or deleted meanwhile; false when skipped. */
-  private async store(tx: EntityManager, scanId: number, job: ComputeChunkJob, rows: PointRow[]): Promise<boolean> {
-    // The scan row first: every chunk of a scan takes its lock in the same order, and a cancel
-    // (which updates this row) is either before this check or after this chunk's commit.
+  /** Writes the points of `range` (exactly `rows`) unless the scan was cancelled or deleted meanwhile; false when skipped. */
+  private async store(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<boolean> {
+    if (!(await this.lockLiveScan(tx, scanId))) return false;
+    await this.write(tx, scanId, range, rows);
+    await completeIfAllStored(tx, scanId);
+    return true;
+  }
+
+  /**
+   * Locks the scan row; false when the scan is gone or cancelled. Every store of a scan takes
+   * this lock first, in the same order, and a cancel (which updates this row) is either before
+   * this check or after the store's commit.
+   */
+  private async lockLiveScan(tx: EntityManager, scanId: number): Promise<boolean> {
     const [scanRow] = await tx.query('SELECT status FROM scans WHERE id = ? FOR UPDATE', [scanId]);
-    if (!scanRow || scanRow.status === 'cancelled') return false;
-    // What an earlier attempt of this chunk stored; after the write the range holds exactly `rows`.
+    return Boolean(scanRow) && scanRow.status !== 'cancelled';
+  }
+
+  /** Upserts `rows`, which are exactly the points of `range`, and moves the counters by the difference they make. Under the scan's lock. */
+  private async write(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<void> {
+    // What an earlier attempt stored in this range; after the write the range holds exactly `rows`.
     const [before] = await tx.query(
       `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
          FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE`,
-      [scanId, job.start, job.end],
+      [scanId, range.start, range.end],
     );
     const { sql, parameters } = this.upsert(rows);
     await tx.query(sql, parameters);
@@ -110,9 +198,6 @@ export class ComputeChunkService {
       `UPDATE scans SET done_points = done_points + ?, failed_points = failed_points + ? WHERE id = ?`,
       [ok - Number(before.ok), rows.length - ok - Number(before.bad), scanId],
     );
-    await completeIfAllStored(tx, scanId);
-    this.logger.debug(`scan ${scanId} chunk ${job.chunk}: ${rows.length} points stored`);
-    return true;
   }
 
   /**
@@ -130,4 +215,13 @@ export class ComputeChunkService {
     return { sql, parameters };
   }
 
+}
+
+/** The record of a point the workers could not compute. */
+function failedRow(scanId: number, pointIndex: number, inputs: Record<string, number>, reason: string, computedAt: Date): PointRow {
+  return {
+    scanId, pointIndex, inputs, status: 'chunk_failed', failureReason: reason.slice(0, 500),
+    ns: null, r: null, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar: null, phiStar: null, phiEnd: null, energyScaleGeV: null,
+    computedAt,
+  };
 }

@@ -2,10 +2,14 @@ import { BullModule } from '@nestjs/bull';
 import { Module } from '@nestjs/common';
 import { bullRedisOptions, readRedisConfig } from '@sixtyfold/api/database';
 import { SCAN_QUEUE } from '@sixtyfold/shared';
+import { readWorkerConfig } from '../config/worker.config';
 import { HeartbeatModule } from '../heartbeat/heartbeat.module';
 import { REDIS_CLIENT } from '../heartbeat/redis-client.provider';
 import { ComputeChunkService } from './compute-chunk.service';
 import { ScanChunkProcessor } from './scan-chunk.processor';
+
+// Bull takes the queue's settings when the module is declared, so they are read from the environment here.
+const { lockDurationMs } = readWorkerConfig();
 
 @Module({
   imports: [
@@ -18,9 +22,11 @@ import { ScanChunkProcessor } from './scan-chunk.processor';
     }),
     BullModule.registerQueue({
       name: SCAN_QUEUE,
-      // A chunk takes about a second and yields between points, so its lock renews in time; a
-      // killed worker's chunk is taken back within lockDuration + stalledInterval (~20 s).
-      settings: { lockDuration: 15_000, stalledInterval: 5_000, maxStalledCount: 3 },
+      // A running chunk renews its lock between points (ComputeChunkService), so the lock lapses
+      // only when its worker is gone or hung: another worker's stall check, every stalledInterval,
+      // then takes the chunk back, at most lockDuration + stalledInterval (35 s by default) after
+      // the last renewal. A chunk that stalls more than maxStalledCount times fails for good.
+      settings: { lockDuration: lockDurationMs, stalledInterval: 5_000, maxStalledCount: 3 },
     }),
     HeartbeatModule,
   ],
