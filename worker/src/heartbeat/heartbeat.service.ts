@@ -46,16 +46,19 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
   }
 
   async beat(): Promise<void> {
+    const { concurrency, lockDurationMs } = this.config.getOrThrow<WorkerConfig>('worker');
     const beat: WorkerHeartbeat = {
       id: this.id,
       host: os.hostname(),
       pid: process.pid,
-      concurrency: this.config.getOrThrow<WorkerConfig>('worker').concurrency,
+      concurrency,
       startedAt: this.startedAt,
       lastSeenAt: new Date().toISOString(),
       chunksDone: this.chunksDone,
       pointsDone: this.pointsDone,
     };
-    await this.redis.set(this.key, JSON.stringify(beat), { expiration: { type: 'EX', value: WORKER_HEARTBEAT_TTL_SECONDS } });
+    // One point blocks the timer for up to its time limit, which the lock duration bounds: the key outlives that.
+    const ttl = Math.max(WORKER_HEARTBEAT_TTL_SECONDS, Math.ceil(lockDurationMs / 1000) + 5);
+    await this.redis.set(this.key, JSON.stringify(beat), { expiration: { type: 'EX', value: ttl } });
   }
 }
