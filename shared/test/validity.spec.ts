@@ -78,6 +78,13 @@ describe('enough history before the pivot', () => {
     expect(result.ns!).toBeCloseTo(1 - 2 / 200.5, 3);
   });
 
+  it('a family whose start would have to sit on its hilltop says so', () => {
+    // Hilltop quadratic with μ = 0.5: η_V = −2/μ² = −8 at the top (closed form), so 75 slow-roll e-folds need φ ~ e^{−8·75/2}.
+    const result = evaluate({ potential: 'hilltop-quadratic', params: { mu: 0.5 }, method: 'slowroll' });
+    expect(result.status).toBe('insufficient_efolds');
+    expect(result.message).toMatch(/\|η_V\| = 8 at the top\) needs the field at φ = [\d.]+e-\d+, where V'\/V = .* is below the 1e-14 the engine resolves/);
+  });
+
   describe('a field arriving on a plateau from a steep side', () => {
     // 6x² − 8(1 − b)x³ + 3x⁴ with x = φ/v has a near-inflection at x = 1 (V' ∝ 12x(1 − x)² + 24bx²).
     const shape = (b: number, v: number) => ({

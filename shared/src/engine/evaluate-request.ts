@@ -3,7 +3,7 @@ import { parsePotential, type ParsedPotential } from './expression/index.js';
 import type { EngineOptions } from './budget.js';
 import { PointEvaluator, type PointOutcome, type PointResult } from './evaluate-point.js';
 import { findFamily, START_EFOLDS, type PotentialFamily } from './families/potential-families.js';
-import { failure, type Failure } from './types.js';
+import { failure, fmt, type Failure } from './types.js';
 
 /** One evaluated point as scripts and the API see it: outputs are null when status is not ok. */
 export interface EvaluateResponse {
@@ -87,6 +87,12 @@ export class RequestEvaluator {
     for (;;) {
       const phiInit = this.defaultStart(family, params, parsed, efolds);
       if (phiInit === undefined) return respond(failure('invalid_input', `no start for ${family.key} with these parameters`), null);
+      const slope = potential.dV(phiInit) / potential.V(phiInit);
+      if (Math.abs(slope) < 1e-14) {
+        // The engine takes such a start as resting on the top (see BackgroundSolver.solve): say why the family put it there.
+        const eta = Math.abs(potential.d2V(phiInit) / potential.V(phiInit));
+        return respond(failure('insufficient_efolds', `with these parameters ${family.name} has no start that gives ${efolds} e-folds: a hilltop this sharp (|η_V| = ${fmt(eta)} at the top) needs the field at φ = ${fmt(phiInit)}, where V'/V = ${fmt(slope)} is below the 1e-14 the engine resolves`), phiInit);
+      }
       const outcome = evaluateFrom(phiInit);
       if (!MOVE_START_ON.has(outcome.status) || efolds >= MAX_START_EFOLDS) return respond(outcome, phiInit);
       efolds *= 2;
