@@ -13,7 +13,7 @@ import { getScanGridQueryOptions } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
 import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellIndices, insideLimitsMask, pointIndexOf, sameCells, zRangeOf } from '../../utils/grid-cells';
+import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
 import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
 import { OutlineToggle } from '../heatmaps/outline-toggle';
@@ -149,7 +149,6 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
                 const r = sliceOf(s, 'r');
                 const matched = slice && ns && r && sameCells(ns, r) && sameCells(slice, ns);
                 const grid = new ScanGrid(specs[s].axes ?? []);
-                const names = (specs[s].axes ?? []).map((axis) => axis.parameter);
                 return (
                   <Panel key={scan.id} p={{ base: '3', md: '4' }} minW="0">
                     {slice ? (
@@ -159,7 +158,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
                         zRange={zRange}
                         hoverSlices={matched ? [ns, r] : undefined}
                         outline={outlined && matched ? insideLimitsMask(ns, r, limits) : null}
-                        onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, pointIndexOf(grid.lengths, cellIndices(names, slice, ix, iy))))}
+                        onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, cellPointIndex(grid, slice, ix, iy)))}
                       />
                     ) : (
                       <LoadingState label={`Loading ${scan.name}…`} />

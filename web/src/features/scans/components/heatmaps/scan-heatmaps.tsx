@@ -9,7 +9,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { isLive } from '../../api/get-scan';
 import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellCounts, cellIndices, failureGroups, insideLimitsMask, markedCells, pointIndexOf, sameCells } from '../../utils/grid-cells';
+import { cellCounts, cellPointIndex, failureGroups, insideLimitsMask, markedCells, sameCells } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
 import { axisOptions, formatValue } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
@@ -102,7 +102,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   // The clicked cell's point opens in the drawer.
   const [, openPoint] = useOpenPoint(grid.size);
   const openCell = (slice: ScanGridSlice) => (cell: { ix: number; iy: number }) =>
-    openPoint(pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy)));
+    openPoint(cellPointIndex(grid, slice, cell.ix, cell.iy));
   const counts = pointDiscussion?.counts;
   // Marks are worked out once per slice and set of counts, so a panel's figure is rebuilt only when they change.
   const marks = useMemo(() => new WeakMap<ScanGridSlice, boolean[][] | null>(), [counts, grid]);
