@@ -1,7 +1,7 @@
 import { DataList, Table, Text } from '@chakra-ui/react';
 import { axisValues, type ScanAxis, type StoredScanSpec } from '@sixtyfold/shared';
 import { formatValue, inputLabel } from '../utils/point-columns';
-import { methodLabels } from '../utils/scan-labels';
+import { methodLabels } from '@/lib/method-labels';
 
 function pivotText(spec: StoredScanSpec): string {
   const pivot = spec.pivot;

@@ -1,5 +1,5 @@
 import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, SCAN_METHODS, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
 import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
@@ -8,7 +8,7 @@ import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { useUploadScan } from '../../api/upload-scan';
 import { pointsFileOf, readPointsFile } from '../../utils/read-points-file';
-import { methodLabels } from '../../utils/scan-labels';
+import { methodLabels } from '@/lib/method-labels';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
 import {
@@ -377,8 +377,11 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
               <Field.Label>Method</Field.Label>
               <NativeSelect.Root>
                 <NativeSelect.Field bg="bg.panel" {...register('method')}>
-                  <option value="slowroll">{methodLabels.slowroll}</option>
-                  <option value="exact">{methodLabels.exact}</option>
+                  {SCAN_METHODS.map((m) => (
+                    <option key={m} value={m}>
+                      {methodLabels[m]}
+                    </option>
+                  ))}
                 </NativeSelect.Field>
                 <NativeSelect.Indicator />
               </NativeSelect.Root>
