@@ -7,7 +7,7 @@ import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { runEnginePoint } from '@/lib/engine/run-engine';
 import { methodLabels } from '@/lib/method-labels';
-import { formatNumber } from '../utils/format-number';
+import { formatNumber } from '@/lib/format-number';
 import { defaultValueTexts, readNumber, readValues } from '../utils/parameter-values';
 import { parsePotentialOnce } from '../utils/parse-cache';
 import { defaultPhiRange } from '../utils/slow-roll-curves';
@@ -148,7 +148,7 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
                   <>
                     , here at φ_init ≈{' '}
                     <Text as="span" fontFamily="mono">
-                      {formatNumber(start, 5)}
+                      {formatNumber(start, 5, 'power')}
                     </Text>
                   </>
                 )}

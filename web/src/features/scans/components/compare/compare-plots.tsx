@@ -7,6 +7,7 @@ import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
+import { formatNumber } from '@/lib/format-number';
 import { getConstraintRegionsQueryOptions } from '../../api/get-constraint-regions';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions } from '../../api/get-scan-grid';
@@ -15,7 +16,7 @@ import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
+import { axisOptions, inputLabel } from '../../utils/point-columns';
 import { OutlineToggle } from '../heatmaps/outline-toggle';
 import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LimitSetSelect } from '../limit-set-select';
@@ -136,7 +137,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
               </HStack>
               <Text fontSize="xs" color="fg.muted" mt="3">
                 {zRange
-                  ? `One colour scale for every scan: ${outputLabel(output)} from ${formatValue(zRange[0])} to ${formatValue(zRange[1])}.`
+                  ? `One colour scale for every scan: ${outputLabel(output)} from ${formatNumber(zRange[0])} to ${formatNumber(zRange[1])}.`
                   : 'No stored values yet.'}{' '}
                 Other axes sit at their middle value in each scan.
               </Text>
