@@ -10,6 +10,7 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCommentCounts } from '@/features/comments/api/get-comment-counts';
 import { CommentThread } from '@/features/comments/components/comment-thread';
+import { useRegionOverlay } from '@/features/constraint-regions/hooks/use-region-overlay';
 import { useGroup } from '@/features/groups/api/get-group';
 import { useModel } from '@/features/models/api/get-model';
 import { useScan } from '@/features/scans/api/get-scan';
@@ -86,6 +87,7 @@ function ScanResults({ scan, spec, user }: { scan: ScanDetail; spec: StoredScanS
       spec={spec}
       discussion={{ content: <Panel p={{ base: '4', md: '6' }}>{thread(null)}</Panel>, count: counts.data?.scan }}
       pointDiscussion={{ counts: counts.data?.points, render: thread }}
+      useRegionOverlay={useRegionOverlay}
     />
   );
 }

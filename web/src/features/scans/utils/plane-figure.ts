@@ -4,6 +4,7 @@ import {
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
+import { regionLabel } from '@/lib/region-labels';
 import { isLogSpaced } from './grid-cells';
 import { inputLabel } from './point-columns';
 
@@ -95,14 +96,6 @@ export function limitTraces(limits: ObservationalLimits, rFloor: number): Data[]
       fillcolor: level === 68 ? PLOT_COLORS.limit68 : PLOT_COLORS.limit95, line: { width: 0 }, hoverinfo: 'skip',
     } as Data;
   });
-}
-
-/** 0.95 → "95% CL". */
-export const confidenceLabel = (level: number) => `${+(level * 100).toFixed(2)}% CL`;
-
-/** "Name (95% CL, source)": how a region is named in the legend and the toggles. */
-export function regionLabel(region: Pick<ConstraintRegion, 'name' | 'confidenceLevel' | 'source'>): string {
-  return `${region.name} (${confidenceLabel(region.confidenceLevel)}, ${region.source})`;
 }
 
 /** Each uploaded region as a closed outline (its first vertex repeated at the end), not filled. */

@@ -1,6 +1,6 @@
 import { Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, ScanGrid, type ConstraintRegion, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
-import { useQueries, type UseQueryResult } from '@tanstack/react-query';
+import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
@@ -8,11 +8,9 @@ import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
-import { getConstraintRegionsQueryOptions } from '../../api/get-constraint-regions';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
-import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
@@ -22,7 +20,7 @@ import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LimitSetSelect } from '../limit-set-select';
 import { NsRPlane } from '../plane/ns-r-plane';
 import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
-import { RegionToggles } from '../plane/region-toggles';
+import type { UseRegionOverlay } from '../plane/region-overlay';
 
 /** What the side-by-side maps can show; one colour scale spans all of them. */
 export const COMPARED_OUTPUTS = ['ns', 'r', 'alphaS', 'nTotal', 'amplitudeScale'] as const satisfies readonly PointOutput[];
@@ -45,22 +43,19 @@ function middleOfOtherAxes(spec: StoredScanSpec, x: string, y: string): Record<s
   );
 }
 
-// Module-level, so useQueries keeps the combined list while no query changes (the plane redraws less).
-const allRegions = (results: UseQueryResult<ConstraintRegion[]>[]) => results.flatMap((result) => result.data ?? []);
-
 /**
  * Two to four scans side by side: the same output over the same two axes on one colour scale,
  * then all of them on one n_s–r plane. Settings live in the address with the selection.
  */
-export function ComparePlots({ scanIds }: { scanIds: number[] }) {
+export function ComparePlots({ scanIds, useRegionOverlay }: { scanIds: number[]; useRegionOverlay: UseRegionOverlay }) {
   const details = useQueries({ queries: scanIds.map((id) => getScanQueryOptions(id)) });
   const failed = details.find((query) => query.isError);
   if (failed?.isError) return <ErrorState title="Could not load a scan to compare" error={failed.error} onRetry={() => failed.refetch()} />;
   if (details.some((query) => !query.data)) return <LoadingState label="Loading the scans…" />;
-  return <ComparedScans scans={details.map((query) => query.data!)} />;
+  return <ComparedScans scans={details.map((query) => query.data!)} useRegionOverlay={useRegionOverlay} />;
 }
 
-function ComparedScans({ scans }: { scans: ScanDetail[] }) {
+function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRegionOverlay: UseRegionOverlay }) {
   const navigate = useNavigate();
   const specs = scans.map((scan) => scan.spec as unknown as StoredScanSpec);
   const axes = commonAxes(specs);
@@ -97,10 +92,8 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
     const plane = planeQueries[s]?.data;
     return plane ? [{ label: scan.name, plane }] : [];
   });
-  // The regions of every group the compared scans belong to, each group once.
-  const groupIds = [...new Set(scans.map((scan) => scan.groupId))];
-  const regions = useQueries({ queries: groupIds.map((groupId) => getConstraintRegionsQueryOptions(groupId)), combine: allRegions });
-  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions);
+  // The regions of every group the compared scans belong to.
+  const regions = useRegionOverlay(scans.map((scan) => scan.groupId));
   const planeSettings: PlaneSettings = {
     colorBy: null,
     limitsKey: limits.key,
@@ -178,11 +171,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
         </Heading>
         <Panel p={{ base: '3', md: '4' }}>
           <PlaneControls settings={planeSettings} onChange={onPlaneChange} />
-          {regions.length > 0 && (
-            <Stack mt="3">
-              <RegionToggles regions={regions} hidden={hiddenRegions} onChange={setHiddenRegions} />
-            </Stack>
-          )}
+          {regions.toggles && <Stack mt="3">{regions.toggles}</Stack>}
         </Panel>
         <Panel p={{ base: '3', md: '4' }}>
           {series.length < scans.length ? (
@@ -193,7 +182,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
               limits={limits}
               rScale={planeSettings.rScale}
               references={planeSettings.references}
-              regions={shownRegions}
+              regions={regions.shown}
               onPointClick={({ series: s, pointIndex }) => navigate(paths.point.getHref(scans[s].id, pointIndex))}
             />
           )}
