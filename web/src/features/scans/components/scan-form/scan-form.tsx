@@ -1,13 +1,13 @@
 import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
 import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, SCAN_METHODS, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useMemo, useRef, useState, type ReactNode } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { useUploadScan } from '../../api/upload-scan';
-import { pointsFileOf, readPointsFile } from '../../utils/read-points-file';
+import { pointsFileOf, readPointsFile, type PointsFileRead } from '../../utils/read-points-file';
 import { methodLabels } from '@/lib/method-labels';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
@@ -37,6 +37,15 @@ interface ScanFormProps {
 
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
 
+type ChosenFile = { file: File; text: string };
+
+/** The chosen file read with the API's own reader, against the model's parameters (its allowed columns). */
+const readChosenFile = (chosen: ChosenFile | null, parameters: { name: string }[]) => (chosen ? readPointsFile(chosen.text, parameters.map((p) => p.name)) : null);
+
+/** What the scan varies: the points file's columns, or the grid's axes. */
+const variedBy = (values: Pick<ScanFormValues, 'points' | 'axes'>, pointsFile: PointsFileRead | null) =>
+  values.points === 'file' ? fileColumns(pointsFile) : values.axes.map((axis) => axis.parameter);
+
 export function ScanForm({ groups, models, initialValues, initialPoints, workerSlots, onLaunched }: ScanFormProps) {
   // One object for the form's lifetime, so the resolver always sees the file read last.
   const context = useRef<ScanFormContext>({ pointsFile: null });
@@ -62,34 +71,15 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   const model = chosenModel(values.model, models);
   const parameters = model?.parameters ?? [];
   // The file is read here with the API's own reader, again when the model (its allowed columns) changes.
-  const [chosenFile, setChosenFile] = useState<{ file: File; text: string } | null>(() =>
+  const [chosenFile, setChosenFile] = useState<ChosenFile | null>(() =>
     initialPoints ? pointsFileOf(initialPoints, initialValues.pointsFile) : null,
   );
   const parameterNames = parameters.map((p) => p.name).join(',');
-  const pointsFile = useMemo(() => (chosenFile ? readPointsFile(chosenFile.text, parameterNames.split(',')) : null), [chosenFile, parameterNames]);
+  const pointsFile = useMemo(() => readChosenFile(chosenFile, parameters), [chosenFile, parameterNames]);
   context.current.pointsFile = pointsFile;
-  const onAxis = new Set(fromFile ? fileColumns(pointsFile) : values.axes.map((a) => a.parameter));
+  const onAxis = new Set(variedBy(values, pointsFile));
   const fixedParameters = parameters.filter((p) => !onAxis.has(p.name));
   const variedNote = (what: string) => (onAxis.has(what) ? (fromFile ? 'from the points file.' : 'on an axis.') : null);
-  // A newly read file re-validates after a failed launch, as any edit does (not on the launch itself:
-  // that would clear the server's errors).
-  const lastRead = useRef(pointsFile);
-  useEffect(() => {
-    if (lastRead.current === pointsFile) return;
-    lastRead.current = pointsFile;
-    if (isSubmitted) void trigger();
-  }, [pointsFile, isSubmitted, trigger]);
-  // Switching between grid and file, or reading another file, changes what is varied: what a
-  // column now sets is no longer fixed, and what left the columns gets its default back.
-  const varied = [...onAxis].join(',');
-  const previousVaried = useRef(varied);
-  useEffect(() => {
-    const before = previousVaried.current.split(',').filter(Boolean);
-    previousVaried.current = varied;
-    if (before.join(',') === varied) return;
-    const now = varied.split(',').filter(Boolean).map((parameter) => ({ parameter }));
-    apply({ ...getValues(), ...syncFixedValues({ ...getValues(), axes: now }, before, parameters) });
-  }, [varied]);
 
   // The same check as the submit button, on every edit, so the summary only times a valid scan.
   const { input, problems } = toScanInput(values, pointsFile);
@@ -97,9 +87,20 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   const spec = parsed.success && model && Object.keys(problems).length === 0 ? { ...parsed.data, phiInit: parsed.data.phiInit ?? model.phiInit ?? undefined } : null;
   const estimate = useRunEstimate(spec, model?.source ?? null);
 
-  /** Writes back what a change implies elsewhere (fixed values, axes), field by field so no input remounts. */
-  const apply = (next: ScanFormValues) => {
+  /**
+   * Writes back what a change implies elsewhere (fixed values, axes), field by field so no input
+   * remounts. A change of what is varied (grid or file, another file, a model that reads the file
+   * otherwise) frees what left the axes or columns, with its default back, and fixes nothing varied.
+   */
+  const apply = (edited: ScanFormValues, nextChosenFile = chosenFile) => {
     const current = getValues();
+    const nextParameters = chosenModel(edited.model, models)?.parameters ?? [];
+    const nextFile = nextChosenFile === chosenFile && edited.model === current.model ? pointsFile : readChosenFile(nextChosenFile, nextParameters);
+    const before = variedBy(current, pointsFile);
+    const after = variedBy(edited, nextFile);
+    const next = same(before, after) ? edited : { ...edited, ...syncFixedValues({ ...edited, axes: after.map((parameter) => ({ parameter })) }, before, nextParameters) };
+    // The resolver reads the file from the context: the new one before any check below.
+    context.current.pointsFile = nextFile;
     for (const key of Object.keys(next) as (keyof ScanFormValues)[]) {
       if (key === 'axes') {
         next.axes.forEach((axis, i) => !same(axis, current.axes[i]) && setValue(`axes.${i}`, axis));
@@ -139,8 +140,9 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   );
 
   const chooseFile = async (file: File | undefined) => {
-    setChosenFile(file ? { file, text: await file.text() } : null);
-    setValue('pointsFile', file?.name ?? '');
+    const chosen = file ? { file, text: await file.text() } : null;
+    setChosenFile(chosen);
+    apply({ ...getValues(), pointsFile: file?.name ?? '' }, chosen);
   };
 
   const refused = isFieldRefusal(submission.error);
@@ -283,7 +285,7 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
             size="sm"
             my="3"
             value={values.points}
-            onValueChange={(details) => setValue('points', details.value === 'file' ? 'file' : 'grid')}
+            onValueChange={(details) => apply({ ...getValues(), points: details.value === 'file' ? 'file' : 'grid' })}
             aria-label="Where the points come from"
           >
             <SegmentGroup.Indicator />
