@@ -1,6 +1,6 @@
 import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, SCAN_METHODS, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
-import { useMemo, useRef, useState, type ReactNode } from 'react';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { useMemo, useRef, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
 import { FailureAlert } from '@/components/ui/failure-alert';
@@ -8,12 +8,13 @@ import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { useUploadScan } from '../../api/upload-scan';
 import { pointsFileOf, readPointsFile, type PointsFileRead } from '../../utils/read-points-file';
-import { methodLabels } from '@/lib/method-labels';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
+import { PivotMethodFields } from './pivot-method-fields';
+import { chosenModel, nextAxis, syncFixedValues, withAxisParameter, withGroup, withModel } from './scan-form-edits';
 import {
-  chosenModel, countPoints, familyModelKey, fileColumns, firstMessage, groupModelKey, MAX_AXES, nextAxis, scanFormResolver, syncFixedValues,
-  toNumber, toScanInput, withAxisParameter, withGroup, withModel, type ScanFormContext, type ScanFormValues,
+  countPoints, familyModelKey, fileColumns, firstMessage, groupModelKey, MAX_AXES, scanFormResolver, toNumber, toScanInput, type ScanFormContext,
+  type ScanFormValues,
 } from './scan-form-values';
 import { useRunEstimate } from './use-run-estimate';
 
@@ -337,70 +338,7 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
           )}
         </Fieldset.Root>
 
-        <Fieldset.Root>
-          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
-            Pivot and method
-          </Fieldset.Legend>
-          <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-            <Field.Root>
-              <Field.Label>Pivot</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field bg="bg.panel" {...register('pivot.kind')}>
-                  <option value="fixed">Fixed N_*</option>
-                  <option value="reheating">N_* from reheating</option>
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              <Field.HelperText>
-                {values.pivot.kind === 'fixed'
-                  ? 'The pivot leaves the horizon N_* e-folds before the end of inflation.'
-                  : 'N_* follows from the reheating history: its equation of state and the energy where radiation takes over.'}
-              </Field.HelperText>
-            </Field.Root>
-            {values.pivot.kind === 'fixed' ? (
-              <PivotValue label="N_*" onAxisNote={variedNote('nStar') && `N_* varies ${variedNote('nStar')}`} error={errors.pivot?.nStar?.message}>
-                <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.nStar', { setValueAs: toNumber })} />
-              </PivotValue>
-            ) : (
-              <>
-                <PivotValue label="w_reh" onAxisNote={variedNote('reheatingW') && `w_reh varies ${variedNote('reheatingW')}`} error={errors.pivot?.w?.message}>
-                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.w', { setValueAs: toNumber })} />
-                </PivotValue>
-                <PivotValue
-                  label="ρ_reh^1/4 (GeV)"
-                  onAxisNote={variedNote('reheatingEnergyGeV') && `The reheating energy varies ${variedNote('reheatingEnergyGeV')}`}
-                  error={errors.pivot?.energyGeV?.message}
-                >
-                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.energyGeV', { setValueAs: toNumber })} />
-                </PivotValue>
-              </>
-            )}
-            <Field.Root>
-              <Field.Label>Method</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field bg="bg.panel" {...register('method')}>
-                  {SCAN_METHODS.map((m) => (
-                    <option key={m} value={m}>
-                      {methodLabels[m]}
-                    </option>
-                  ))}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              <Field.HelperText>
-                {values.method === 'slowroll'
-                  ? 'Observables from the slow-roll parameters at the pivot: fast.'
-                  : 'Solves the mode equation for the spectra near the pivot: slower, exact.'}
-              </Field.HelperText>
-            </Field.Root>
-            <Field.Root invalid={!!errors.tolerance}>
-              <Field.Label>Tolerance</Field.Label>
-              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" placeholder="engine default" {...register('tolerance', { setValueAs: toNumber })} />
-              <Field.HelperText>Optional relative tolerance of the integrator, between 1e-14 and 1e-4.</Field.HelperText>
-              <Field.ErrorText>{errors.tolerance?.message}</Field.ErrorText>
-            </Field.Root>
-          </SimpleGrid>
-        </Fieldset.Root>
+        <PivotMethodFields register={register} errors={errors} pivotKind={values.pivot.kind} method={values.method} variedNote={variedNote} />
 
         <LaunchSummary points={fromFile ? (pointsFile?.ok ? pointsFile.pointList.rows.length : null) : countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
 
@@ -416,36 +354,5 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
         </Button>
       </Stack>
     </form>
-  );
-}
-
-interface PivotValueProps {
-  label: string;
-  /** Set when an axis varies this value, which then has no fixed value. */
-  onAxisNote: string | null;
-  error: string | undefined;
-  children: ReactNode;
-}
-
-function PivotValue({ label, onAxisNote, error, children }: PivotValueProps) {
-  if (onAxisNote) {
-    return (
-      <Stack gap="1.5" justify="center">
-        <Text fontSize="sm" fontWeight="500">
-          {label}
-        </Text>
-        <Text fontSize="sm" color="fg.muted">
-          {onAxisNote}
-        </Text>
-        {error && <Text fontSize="sm" color="fg.error">{error}</Text>}
-      </Stack>
-    );
-  }
-  return (
-    <Field.Root invalid={!!error}>
-      <Field.Label>{label}</Field.Label>
-      {children}
-      <Field.ErrorText>{error}</Field.ErrorText>
-    </Field.Root>
   );
 }
