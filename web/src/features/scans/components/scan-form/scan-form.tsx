@@ -1,5 +1,5 @@
-import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { Button, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Textarea } from '@chakra-ui/react';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
 import { useMemo, useRef, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
@@ -11,11 +11,9 @@ import { pointsFileOf, readPointsFile, type PointsFileRead } from '../../utils/r
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
 import { PivotMethodFields } from './pivot-method-fields';
+import { PotentialFields } from './potential-fields';
 import { chosenModel, nextAxis, syncFixedValues, withAxisParameter, withGroup, withModel } from './scan-form-edits';
-import {
-  countPoints, familyModelKey, fileColumns, firstMessage, groupModelKey, MAX_AXES, scanFormResolver, toNumber, toScanInput, type ScanFormContext,
-  type ScanFormValues,
-} from './scan-form-values';
+import { countPoints, fileColumns, firstMessage, MAX_AXES, scanFormResolver, toNumber, toScanInput, type ScanFormContext, type ScanFormValues } from './scan-form-values';
 import { useRunEstimate } from './use-run-estimate';
 
 export interface LaunchGroup {
@@ -198,85 +196,16 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
           </Stack>
         </Fieldset.Root>
 
-        <Fieldset.Root>
-          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
-            Potential
-          </Fieldset.Legend>
-          <Stack gap="4">
-            <Field.Root invalid={!!errors.model || !model}>
-              <Field.Label>Model</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field
-                  bg="bg.panel"
-                  {...register('model')}
-                  // Controlled: its options depend on the group, and a changing option list must keep the choice.
-                  value={values.model}
-                  onChange={(event) => apply(withModel(getValues(), event.target.value, models))}
-                >
-                  <optgroup label="Built-in families">
-                    {POTENTIAL_FAMILIES.map((family) => (
-                      <option key={family.key} value={familyModelKey(family.key)}>
-                        {family.name}
-                      </option>
-                    ))}
-                  </optgroup>
-                  {groupModels.length > 0 && (
-                    <optgroup label={`Models of ${groups.find((g) => g.id === values.groupId)?.name ?? 'this group'}`}>
-                      {groupModels.map((m) => (
-                        <option key={m.id} value={groupModelKey(m.id)}>
-                          {m.name}
-                        </option>
-                      ))}
-                    </optgroup>
-                  )}
-                  {!model && <option value={values.model}>A model that is no longer available</option>}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              {model ? (
-                <Field.HelperText>
-                  V(φ) ={' '}
-                  <Code fontFamily="mono" fontSize="xs" bg="ink.subtle" color="ink.fg" whiteSpace="normal" wordBreak="break-word">
-                    {model.expression}
-                  </Code>
-                  {model.reference && <> · {model.reference}</>}
-                </Field.HelperText>
-              ) : (
-                <Field.ErrorText>This model is not in the chosen group any more; choose another.</Field.ErrorText>
-              )}
-              <Field.ErrorText>{firstMessage(errors.model)}</Field.ErrorText>
-            </Field.Root>
-
-            {fixedParameters.length > 0 && (
-              <Box>
-                <Text fontSize="sm" fontWeight="500" mb="2">
-                  Fixed parameters
-                </Text>
-                <SimpleGrid columns={{ base: 1, sm: 2, lg: 3 }} gap="4">
-                  {fixedParameters.map((p) => (
-                    <Field.Root key={p.name} invalid={!!errors.params?.[p.name]}>
-                      <Field.Label fontFamily="mono">{p.name}</Field.Label>
-                      <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register(`params.${p.name}`, { setValueAs: toNumber })} />
-                      {p.description && <Field.HelperText>{p.description}</Field.HelperText>}
-                      <Field.ErrorText>{errors.params?.[p.name]?.message}</Field.ErrorText>
-                    </Field.Root>
-                  ))}
-                </SimpleGrid>
-              </Box>
-            )}
-
-            <Field.Root invalid={!!errors.phiInit} maxW={{ md: 'xs' }}>
-              <Field.Label>φ_init</Field.Label>
-              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('phiInit', { setValueAs: toNumber })} />
-              <Field.HelperText>
-                {values.model.startsWith('family:')
-                  ? 'Optional: a built-in family starts about 75 e-folds before the end of inflation.'
-                  : 'Where the field starts rolling, from the model unless you change it.'}
-              </Field.HelperText>
-              <Field.ErrorText>{errors.phiInit?.message}</Field.ErrorText>
-            </Field.Root>
-          </Stack>
-        </Fieldset.Root>
+        <PotentialFields
+          register={register}
+          errors={errors}
+          modelKey={values.model}
+          model={model}
+          groupModels={groupModels}
+          groupName={groups.find((g) => g.id === values.groupId)?.name ?? 'this group'}
+          fixedParameters={fixedParameters}
+          onModelChange={(modelKey) => apply(withModel(getValues(), modelKey, models))}
+        />
 
         <Fieldset.Root invalid={fromFile ? !!fileProblem : !!axesError}>
           <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900">
