@@ -252,20 +252,15 @@ export class ScanResultsService {
     const nx = grid.lengths[xi];
     const ny = grid.lengths[yi];
     if (nx * ny > 1_000_000) throw new BadRequestException(`a slice of ${nx} × ${ny} cells is more than a heatmap can show (1,000,000)`);
-    // Mixed-radix strides: the last axis moves fastest.
-    const strides = names.map((_, a) => grid.lengths.slice(a + 1).reduce((n, l) => n * l, 1));
+    const cell = names.map((name) => q.at[name] ?? 0);
     const at: ScanGridSlice['at'] = {};
-    let base = 0;
     names.forEach((name, a) => {
-      if (a === xi || a === yi) return;
-      const index = q.at[name] ?? 0;
-      base += index * strides[a];
-      at[name] = { index, value: grid.values[a][index] };
+      if (a !== xi && a !== yi) at[name] = { index: cell[a], value: grid.values[a][cell[a]] };
     });
     const z: (number | null)[][] = Array.from({ length: ny }, () => new Array<number | null>(nx).fill(null));
     const status: (string | null)[][] = Array.from({ length: ny }, () => new Array<string | null>(nx).fill(null));
     const cellOf = new Map<number, [number, number]>();
-    for (let iy = 0; iy < ny; iy++) for (let ix = 0; ix < nx; ix++) cellOf.set(base + ix * strides[xi] + iy * strides[yi], [iy, ix]);
+    grid.sliceIndices(xi, yi, cell).forEach((row, iy) => row.forEach((pointIndex, ix) => cellOf.set(pointIndex, [iy, ix])));
     const wanted = [...cellOf.keys()];
     const column = q.output === 'status' ? null : COLUMN[q.output];
     for (let i = 0; i < wanted.length; i += 5000) {

@@ -72,6 +72,44 @@ describe('scan specification', () => {
     expect(() => grid.point(9)).toThrow(RangeError);
   });
 
+  it('finds the point of a cell: the cell of point(i) has index i, for grids of 1 to 4 axes', () => {
+    const lengths = [3, 4, 2, 5];
+    for (let axisCount = 1; axisCount <= 4; axisCount++) {
+      const grid = new ScanGrid(lengths.slice(0, axisCount).map((count, a) => ({ kind: 'list', parameter: `p${a}`, values: Array.from({ length: count }, (_, v) => 10 * a + v) })));
+      for (let i = 0; i < grid.size; i++) {
+        // Axis a's values are 10a + v, so point(i) names its own cell.
+        const cell = Object.values(grid.point(i)).map((value, a) => value - 10 * a);
+        expect(grid.indexOf(cell)).toBe(i);
+        expect(grid.indices(i)).toEqual(cell);
+      }
+    }
+    // Closed form, last axis fastest: ((i·4 + j)·2 + k)·5 + l.
+    const four = new ScanGrid(lengths.map((count, a) => ({ kind: 'range', parameter: `p${a}`, min: 0, max: 1, count, spacing: 'linear' })));
+    expect(four.indexOf([2, 1, 1, 3])).toBe(((2 * 4 + 1) * 2 + 1) * 5 + 3);
+    expect(() => four.indexOf([3, 0, 0, 0])).toThrow(RangeError);
+    expect(() => four.indexOf([0, 0, 0])).toThrow(RangeError);
+  });
+
+  it('lays out the points of a 2-D slice, the other axes held at their index', () => {
+    const grid = new ScanGrid([
+      { kind: 'list', parameter: 'a', values: [1, 2] },
+      { kind: 'list', parameter: 'b', values: [5, 6, 7] },
+      { kind: 'list', parameter: 'c', values: [8, 9] },
+    ]);
+    // x = b, y = a, c at index 1: point index a·6 + b·2 + 1.
+    expect(grid.sliceIndices(1, 0, [0, 0, 1])).toEqual([
+      [1, 3, 5],
+      [7, 9, 11],
+    ]);
+    // x = c, y = b, a at index 1 (the x and y entries of the cell are ignored).
+    expect(grid.sliceIndices(2, 1, [1, 2, 0])).toEqual([
+      [6, 7],
+      [8, 9],
+      [10, 11],
+    ]);
+    expect(() => grid.sliceIndices(1, 1, [0, 0, 0])).toThrow(RangeError);
+  });
+
   it('turns a point into an engine request that the engine accepts', () => {
     const spec = createScanSchema.parse(base);
     const grid = new ScanGrid(spec.axes!);

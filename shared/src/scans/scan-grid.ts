@@ -63,6 +63,31 @@ export class ScanGrid {
     return out;
   }
 
+  /** The point index of the cell at axis indices `cell` (one per axis): the inverse of indices(). */
+  indexOf(cell: readonly number[]): number {
+    if (cell.length !== this.lengths.length) throw new RangeError(`a cell of this grid has ${this.lengths.length} axis indices, not ${cell.length}`);
+    return cell.reduce((index, i, a) => {
+      if (!(Number.isInteger(i) && i >= 0 && i < this.lengths[a])) throw new RangeError(`axis ${a} has ${this.lengths[a]} values, so index ${i} is outside it`);
+      return index * this.lengths[a] + i;
+    }, 0);
+  }
+
+  /**
+   * The point indices of a 2-D slice, as [iy][ix]: axis `x` and axis `y` run over all their
+   * values, every other axis a stays at `cell[a]` (the entries for x and y are ignored).
+   */
+  sliceIndices(x: number, y: number, cell: readonly number[]): number[][] {
+    if (x === y) throw new RangeError('x and y must be different axes');
+    const at = [...cell];
+    return Array.from({ length: this.lengths[y] }, (_, iy) =>
+      Array.from({ length: this.lengths[x] }, (_, ix) => {
+        at[x] = ix;
+        at[y] = iy;
+        return this.indexOf(at);
+      }),
+    );
+  }
+
   /** The axis values of point `index`, by axis parameter name. */
   point(index: number): Record<string, number> {
     if (!(index >= 0 && index < this.size && Number.isInteger(index))) throw new RangeError(`point ${index} is outside the grid of ${this.size}`);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { scanMethodSchema } from './scan-summary.schema.js';
 
 /** A reheating history for N_* (see engine/pivot/reheating.ts). */
 export const reheatingSchema = z
@@ -23,7 +24,7 @@ export const evaluateRequestSchema = z
     phiInit: z.number().optional(),
     nStar: z.number().gt(0, 'N_* must be positive').lte(1000, 'N_* is at most 1000').optional(),
     reheating: reheatingSchema.optional(),
-    method: z.enum(['slowroll', 'exact']).default('slowroll'),
+    method: scanMethodSchema.default('slowroll'),
     tolerance: z.number().min(1e-14).max(1e-4).optional(),
     trajectory: z.boolean().optional(),
     spectrum: z.boolean().optional(),

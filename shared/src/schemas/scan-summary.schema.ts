@@ -1,10 +1,12 @@
 import { z } from 'zod';
+import type { Method } from '../engine/evaluate-point.js';
 
 export const SCAN_STATUSES = ['draft', 'queued', 'running', 'completed', 'failed', 'cancelled'] as const;
 export const scanStatusSchema = z.enum(SCAN_STATUSES);
 export type ScanStatus = z.infer<typeof scanStatusSchema>;
 
-export const SCAN_METHODS = ['slowroll', 'exact'] as const;
+/** The engine's methods, listed once for scans, trial evaluations, forms and tables. */
+export const SCAN_METHODS = ['slowroll', 'exact'] as const satisfies readonly Method[];
 export const scanMethodSchema = z.enum(SCAN_METHODS);
 export type ScanMethod = z.infer<typeof scanMethodSchema>;
 

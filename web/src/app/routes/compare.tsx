@@ -8,6 +8,7 @@ import { PageHeader } from '@/components/ui/page-header';
 import { Panel } from '@/components/ui/panel';
 import { useMe } from '@/features/auth/api/get-me';
 import { useScans } from '@/features/scans/api/get-scans';
+import { useRegionOverlay } from '@/features/constraint-regions/hooks/use-region-overlay';
 import { ComparePlots } from '@/features/scans/components/compare/compare-plots';
 import { ScanComparison } from '@/features/scans/components/scan-comparison';
 import { ScanPicker } from '@/features/scans/components/scan-picker';
@@ -112,7 +113,7 @@ export function CompareRoute() {
                 <Panel>
                   <ScanComparison scans={chosen} groupNames={groupNames} />
                 </Panel>
-                <ComparePlots scanIds={chosen.map((scan) => scan.id)} />
+                <ComparePlots scanIds={chosen.map((scan) => scan.id)} useRegionOverlay={useRegionOverlay} />
               </Stack>
             )}
           </Box>

@@ -12,7 +12,7 @@ import { GroupSettingsForm } from '@/features/groups/components/group-settings-f
 import { InviteForm } from '@/features/groups/components/invite-form';
 import { PendingInvitations } from '@/features/groups/components/pending-invitations';
 import { RetentionSettings } from '@/features/maintenance/components/retention-settings';
-import { GroupConstraintRegions } from '@/features/scans/components/regions/group-constraint-regions';
+import { GroupConstraintRegions } from '@/features/constraint-regions/components/group-constraint-regions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { ApiRequestError } from '@/lib/api-client';
 import { NotFoundRoute } from './not-found';

@@ -13,7 +13,6 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { LiveScanCard } from '@/features/overview/components/live-scan-card';
 import { RecentScanItem } from '@/features/overview/components/recent-scan-item';
-import { scanPace } from '@/features/scans/utils/scan-pace';
 import { getScanQueryOptions, isLive } from '@/features/scans/api/get-scan';
 import { liveRefreshMs, useLiveScans } from '@/features/scans/api/get-live-scans';
 import { useScans } from '@/features/scans/api/get-scans';
@@ -23,6 +22,7 @@ import { useWorkerPool } from '@/features/workers/api/get-worker-pool';
 import { WorkerPoolPanel } from '@/features/workers/components/worker-pool-panel';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { groupNamesOf } from '@/lib/group-names';
+import { scanPace } from '@/lib/scan-pace';
 
 // Cards for live scans (each running one polls its details, so keep this modest) and finished ones shown.
 const LIVE_LIMIT = 12;

@@ -204,6 +204,28 @@ describe('New scan page', { timeout: 30_000 }, () => {
     expect(createScanSchema.safeParse({ ...settings, pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] } }).success).toBe(true);
   });
 
+  it('frees what the file’s columns vary and fixes again, with its default, what they stop varying', async () => {
+    mockForm();
+    const { user } = renderApp('/scans/new');
+    await formReady();
+    await user.selectOptions(await screen.findByLabelText('Model'), 'family:natural');
+    expect(screen.getByLabelText('Axis 1 parameter')).toHaveValue('f');
+    await user.clear(screen.getByLabelText('Lambda'));
+    await user.type(screen.getByLabelText('Lambda'), '0.01');
+
+    await user.click(screen.getByRole('radio', { name: 'Points from a file' }));
+    await user.upload(screen.getByLabelText(/^Points file/), new File(['Lambda,nStar\n0.005,50\n'], 'picked.csv', { type: 'text/csv' }));
+    expect(await screen.findByText('1 points from picked.csv, columns Lambda, nStar')).toBeInTheDocument();
+    // f left the varied inputs: fixed again at its default; Lambda and N_* come from the file.
+    expect(screen.getByLabelText('f')).toHaveValue(7);
+    expect(screen.queryByLabelText('Lambda')).not.toBeInTheDocument();
+
+    await user.click(screen.getByRole('radio', { name: 'Grid' }));
+    expect(screen.getByLabelText('Lambda')).toHaveValue(5e-3);
+    expect(screen.getByLabelText('N_*')).toHaveValue(55);
+    expect(screen.queryByLabelText('f')).not.toBeInTheDocument();
+  });
+
   it('maps the server’s field errors back onto the form, with its message in an alert', async () => {
     const limit = 'This scan has 2,000,000 points, 1,000,000 more than Plateau Lab’s limit of 1,000,000';
     mockForm({

@@ -14,7 +14,7 @@ import { useGroups } from '@/features/groups/api/get-groups';
 import { useModels } from '@/features/models/api/get-models';
 import { useScan } from '@/features/scans/api/get-scan';
 import type { LaunchGroup } from '@/features/scans/components/scan-form/scan-form';
-import { blankValues, copyOfSpec, withGroup } from '@/features/scans/components/scan-form/scan-form-values';
+import { blankValues, copyOfSpec, withGroup } from '@/features/scans/components/scan-form/scan-form-edits';
 import { useWorkerPool } from '@/features/workers/api/get-worker-pool';
 import { workerSlots } from '@/features/workers/utils/worker-slots';
 import { useDocumentTitle } from '@/hooks/use-document-title';

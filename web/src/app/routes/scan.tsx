@@ -10,7 +10,9 @@ import { paths } from '@/config/paths';
 import { useMe } from '@/features/auth/api/get-me';
 import { useCommentCounts } from '@/features/comments/api/get-comment-counts';
 import { CommentThread } from '@/features/comments/components/comment-thread';
+import { useRegionOverlay } from '@/features/constraint-regions/hooks/use-region-overlay';
 import { useGroup } from '@/features/groups/api/get-group';
+import { useModel } from '@/features/models/api/get-model';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanActions } from '@/features/scans/components/scan-actions';
 import { ScanHeader } from '@/features/scans/components/scan-header';
@@ -28,6 +30,8 @@ export function ScanRoute() {
   const scan = useScan(scanId ?? 0);
   useDocumentTitle(scan.data?.name ?? 'Scan');
   useRefreshWhenFinished(scan.data);
+  const spec = scan.data ? storedSpecOf(scan.data) : null;
+  const model = useModel(spec?.model.kind === 'group' ? spec.model.modelId : null);
 
   if (scanId === null) {
     return <EmptyState icon={<ScanGridIcon />} title="No such scan" description="Scan addresses end in the scan's number, like /scans/12." />;
@@ -35,7 +39,6 @@ export function ScanRoute() {
   if (scan.isPending) return <LoadingState label="Loading the scan…" />;
   if (scan.isError && !scan.data) return <ErrorState title={`Could not load scan ${scanId}`} error={scan.error} onRetry={() => scan.refetch()} />;
 
-  const spec = storedSpecOf(scan.data);
   const groupName = groupNamesOf(user).get(scan.data.groupId) ?? `Group ${scan.data.groupId}`;
   return (
     <Stack gap="0">
@@ -46,6 +49,7 @@ export function ScanRoute() {
             scan={scan.data}
             spec={spec}
             groupName={groupName}
+            model={model}
             actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
           />
           <ScanResults scan={scan.data} spec={spec} user={user} />
@@ -83,6 +87,7 @@ function ScanResults({ scan, spec, user }: { scan: ScanDetail; spec: StoredScanS
       spec={spec}
       discussion={{ content: <Panel p={{ base: '4', md: '6' }}>{thread(null)}</Panel>, count: counts.data?.scan }}
       pointDiscussion={{ counts: counts.data?.points, render: thread }}
+      useRegionOverlay={useRegionOverlay}
     />
   );
 }

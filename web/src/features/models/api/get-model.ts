@@ -11,4 +11,5 @@ export const getModelQueryOptions = (modelId: number) =>
     queryFn: ({ signal }) => getModel(modelId, signal),
   });
 
-export const useModel = (modelId: number) => useQuery(getModelQueryOptions(modelId));
+/** A group model by id; null waits (a scan over a built-in family has no model to load). */
+export const useModel = (modelId: number | null) => useQuery({ ...getModelQueryOptions(modelId ?? 0), enabled: modelId !== null });

@@ -1,12 +1,13 @@
 import { Box, Button, Field, Flex, Heading, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
-import type { CompiledPotential, EvaluateRequest, Method, PotentialFamily, PotentialModel } from '@sixtyfold/shared';
+import { SCAN_METHODS, scanMethodSchema, type CompiledPotential, type EvaluateRequest, type PotentialFamily, type PotentialModel, type ScanMethod } from '@sixtyfold/shared';
 import { useMutation } from '@tanstack/react-query';
 import { useDeferredValue, useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { runEnginePoint } from '@/lib/engine/run-engine';
-import { formatNumber } from '../utils/format-number';
+import { methodLabels } from '@/lib/method-labels';
+import { formatNumber } from '@/lib/format-number';
 import { defaultValueTexts, readNumber, readValues } from '../utils/parameter-values';
 import { parsePotentialOnce } from '../utils/parse-cache';
 import { defaultPhiRange } from '../utils/slow-roll-curves';
@@ -17,10 +18,6 @@ import { TrialResults } from './trial-results';
 /** A built-in family (the engine picks its start) or a group's model (the start is φ_init). */
 export type ExplorerSubject = { kind: 'family'; family: PotentialFamily } | { kind: 'model'; model: PotentialModel };
 
-const METHODS: { value: Method; label: string }[] = [
-  { value: 'slowroll', label: 'Slow-roll (first order)' },
-  { value: 'exact', label: 'Mode equation (exact)' },
-];
 const DEFAULT_N_STAR = 55;
 
 type RangeTexts = { min: string; max: string };
@@ -75,7 +72,7 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
     phiMin === null ? 'Enter a number for φ min' : phiMax === null ? 'Enter a number for φ max' : phiMax <= phiMin ? 'φ max must be larger than φ min' : null;
 
   const [nStarText, setNStarText] = useState(String(DEFAULT_N_STAR));
-  const [method, setMethod] = useState<Method>('slowroll');
+  const [method, setMethod] = useState<ScanMethod>('slowroll');
   const nStar = readNumber(nStarText);
   const nStarError = nStar === null || nStar <= 0 || nStar > 1000 ? 'N_* is a number of e-folds between 0 and 1000, e.g. 55' : null;
   const phiInitError = subject.kind === 'model' && start === undefined ? 'Enter where the field starts, e.g. 7.5' : null;
@@ -151,7 +148,7 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
                   <>
                     , here at φ_init ≈{' '}
                     <Text as="span" fontFamily="mono">
-                      {formatNumber(start, 5)}
+                      {formatNumber(start, 5, 'power')}
                     </Text>
                   </>
                 )}
@@ -273,10 +270,10 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
                 <Field.Root maxW={{ md: '64' }}>
                   <Field.Label>Method</Field.Label>
                   <NativeSelect.Root>
-                    <NativeSelect.Field value={method} onChange={(event) => setMethod(event.target.value as Method)} bg="bg.panel">
-                      {METHODS.map((m) => (
-                        <option key={m.value} value={m.value}>
-                          {m.label}
+                    <NativeSelect.Field value={method} onChange={(event) => setMethod(scanMethodSchema.parse(event.target.value))} bg="bg.panel">
+                      {SCAN_METHODS.map((m) => (
+                        <option key={m} value={m}>
+                          {methodLabels[m]}
                         </option>
                       ))}
                     </NativeSelect.Field>

@@ -3,7 +3,7 @@ import type { EvaluateResponse } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { useMemo } from 'react';
 import { Plot, PLOT_COLORS } from '@/components/plots/plot';
-import { formatNumber } from '../utils/format-number';
+import { formatNumber } from '@/lib/format-number';
 
 export const FIELD_PLOT_LABEL = 'Trial background: the field φ against e-folds N';
 export const EPSILON_PLOT_LABEL = 'Trial background: the Hubble slow-roll parameter ε_H against e-folds N, log scale';
@@ -22,7 +22,7 @@ export function TrialResults({ result }: TrialResultsProps) {
           <Alert.Title>The engine could not evaluate this point</Alert.Title>
           <Alert.Description>
             {result.message}
-            {result.nTotal !== null && ` (${formatNumber(result.nTotal)} e-folds in total.)`} Change the parameters, φ_init or N_* and run
+            {result.nTotal !== null && ` (${formatNumber(result.nTotal, 4, 'power')} e-folds in total.)`} Change the parameters, φ_init or N_* and run
             it again.
           </Alert.Description>
         </Alert.Content>
@@ -31,12 +31,12 @@ export function TrialResults({ result }: TrialResultsProps) {
   }
 
   const stats: { label: string; value: string; help: string }[] = [
-    { label: 'n_s', value: formatNumber(result.ns, 5), help: 'scalar spectral index' },
-    { label: 'r', value: formatNumber(result.r, 4), help: 'tensor-to-scalar ratio' },
-    { label: 'α_s', value: formatNumber(result.alphaS, 3), help: 'running of n_s' },
-    { label: 'A_s', value: formatNumber(result.As, 4), help: 'scalar amplitude of V as given' },
-    { label: 'N_total', value: formatNumber(result.nTotal, 4), help: 'e-folds from φ_init to the end' },
-    { label: 'Amplitude factor', value: formatNumber(result.amplitudeScale, 4), help: 'multiply V by this for A_s = 2.1 × 10⁻⁹' },
+    { label: 'n_s', value: formatNumber(result.ns, 5, 'power'), help: 'scalar spectral index' },
+    { label: 'r', value: formatNumber(result.r, 4, 'power'), help: 'tensor-to-scalar ratio' },
+    { label: 'α_s', value: formatNumber(result.alphaS, 3, 'power'), help: 'running of n_s' },
+    { label: 'A_s', value: formatNumber(result.As, 4, 'power'), help: 'scalar amplitude of V as given' },
+    { label: 'N_total', value: formatNumber(result.nTotal, 4, 'power'), help: 'e-folds from φ_init to the end' },
+    { label: 'Amplitude factor', value: formatNumber(result.amplitudeScale, 4, 'power'), help: 'multiply V by this for A_s = 2.1 × 10⁻⁹' },
   ];
 
   return (
@@ -57,8 +57,8 @@ export function TrialResults({ result }: TrialResultsProps) {
         ))}
       </SimpleGrid>
       <Text fontSize="sm" color="fg.muted" role="status">
-        Computed in {Math.max(1, Math.round(result.milliseconds))} ms in your browser · φ_init = {formatNumber(result.phiInit, 5)}, pivot at φ_*
-        = {formatNumber(result.phiStar, 5)}, inflation ends at φ_end = {formatNumber(result.phiEnd, 5)}
+        Computed in {Math.max(1, Math.round(result.milliseconds))} ms in your browser · φ_init = {formatNumber(result.phiInit, 5, 'power')}, pivot at φ_*
+        = {formatNumber(result.phiStar, 5, 'power')}, inflation ends at φ_end = {formatNumber(result.phiEnd, 5, 'power')}
       </Text>
       {result.trajectory && <TrajectoryPlots result={result} />}
     </Stack>

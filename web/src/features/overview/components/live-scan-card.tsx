@@ -6,7 +6,7 @@ import { DateTime } from '@/components/ui/date-time';
 import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
 import { formatDuration, formatRate } from '@/lib/format-duration';
-import type { ScanPace } from '@/features/scans/utils/scan-pace';
+import type { ScanPace } from '@/lib/scan-pace';
 
 interface LiveScanCardProps {
   scan: ScanSummary;

@@ -8,10 +8,11 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Pager } from '@/components/ui/pager';
 import { paths } from '@/config/paths';
+import { formatNumber } from '@/lib/format-number';
 import { readPage } from '@/lib/search-params';
 import { isLive } from '../api/get-scan';
 import { pointsExportHref, useScanPoints, type PointsQuery } from '../api/get-scan-points';
-import { failureLabel, formatValue, inputLabel, OUTPUT_LABELS } from '../utils/point-columns';
+import { failureLabel, inputLabel, OUTPUT_LABELS } from '../utils/point-columns';
 import {
   filtersOf, readPointsQuery, toggledSort, withFilter, withoutFilter, type ColumnFilter, type PointColumn,
 } from '../utils/points-query';
@@ -195,7 +196,7 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
                     </Table.Cell>
                     {columns.map((column) => (
                       <Table.Cell key={column.key} textAlign="end">
-                        {formatValue(column.value(point))}
+                        {formatNumber(column.value(point))}
                       </Table.Cell>
                     ))}
                     <Table.Cell fontFamily="body">

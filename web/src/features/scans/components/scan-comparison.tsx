@@ -2,7 +2,7 @@ import { Table, Text } from '@chakra-ui/react';
 import type { ScanSummary } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
 import { DateTime } from '@/components/ui/date-time';
-import { methodLabels } from '../utils/scan-labels';
+import { methodLabels } from '@/lib/method-labels';
 
 interface ScanComparisonProps {
   scans: ScanSummary[];

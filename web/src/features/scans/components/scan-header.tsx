@@ -1,12 +1,11 @@
 import { Badge, DataList, Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findFamily, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { findFamily, type PotentialModel, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
 import { AppLink } from '@/components/ui/app-link';
 import { DateTime } from '@/components/ui/date-time';
 import { PageHeader } from '@/components/ui/page-header';
 import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
-import { useScanModel } from '../api/get-scan-model';
 import { ScanLiveProgress } from './scan-live-progress';
 import { ScanSettings } from './scan-settings';
 import { ScanStatusBadge } from './scan-status-badge';
@@ -15,12 +14,17 @@ interface ScanHeaderProps {
   scan: ScanDetail;
   spec: StoredScanSpec;
   groupName: string;
+  /** The group model the scan ran with, as far as it has loaded (the page loads it through the models feature). */
+  model: GroupModel;
   actions?: ReactNode;
 }
 
-function ModelName({ spec }: { spec: StoredScanSpec }) {
-  const modelId = spec.model.kind === 'group' ? spec.model.modelId : null;
-  const model = useScanModel(modelId);
+export interface GroupModel {
+  data?: PotentialModel;
+  error: Error | null;
+}
+
+function ModelName({ spec, model }: { spec: StoredScanSpec; model: GroupModel }) {
   if (spec.model.kind === 'family') {
     const family = findFamily(spec.model.family);
     return (
@@ -29,7 +33,7 @@ function ModelName({ spec }: { spec: StoredScanSpec }) {
       </AppLink>
     );
   }
-  const label = model.data?.name ?? (model.isError ? `Model ${spec.model.modelId} (${model.error.message})` : `Model ${spec.model.modelId}`);
+  const label = model.data?.name ?? (model.error ? `Model ${spec.model.modelId} (${model.error.message})` : `Model ${spec.model.modelId}`);
   return (
     <AppLink to={paths.model.getHref(spec.model.modelId)} color="ink.fg">
       {label}
@@ -46,7 +50,7 @@ function SectionTitle({ id, children }: { id: string; children: ReactNode }) {
 }
 
 /** Who ran what, how it was set up and how far it has got. */
-export function ScanHeader({ scan, spec, groupName, actions }: ScanHeaderProps) {
+export function ScanHeader({ scan, spec, groupName, model, actions }: ScanHeaderProps) {
   return (
     <Stack gap="4" mb="6">
       <PageHeader
@@ -71,7 +75,7 @@ export function ScanHeader({ scan, spec, groupName, actions }: ScanHeaderProps) 
             <DataList.Item>
               <DataList.ItemLabel>Model</DataList.ItemLabel>
               <DataList.ItemValue>
-                <ModelName spec={spec} />
+                <ModelName spec={spec} model={model} />
               </DataList.ItemValue>
             </DataList.Item>
             <DataList.Item>

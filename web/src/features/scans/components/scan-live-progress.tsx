@@ -1,8 +1,8 @@
 import { Progress, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import type { ScanDetail } from '@sixtyfold/shared';
-import { isLive, LIVE_REFRESH_MS } from '../api/get-scan';
 import { formatDuration, formatRate } from '@/lib/format-duration';
-import { scanPace } from '../utils/scan-pace';
+import { scanPace } from '@/lib/scan-pace';
+import { isLive, LIVE_REFRESH_MS } from '../api/get-scan';
 
 function Figure({ label, value, tone }: { label: string; value: string; tone?: string }) {
   return (

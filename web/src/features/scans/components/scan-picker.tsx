@@ -2,7 +2,7 @@ import { Checkbox, HStack, Stack, Text } from '@chakra-ui/react';
 import type { ScanSummary } from '@sixtyfold/shared';
 import { DateTime } from '@/components/ui/date-time';
 import { MAX_COMPARED_SCANS } from '../utils/scan-ids-param';
-import { methodLabels } from '../utils/scan-labels';
+import { methodLabels } from '@/lib/method-labels';
 
 interface ScanPickerProps {
   scans: ScanSummary[];

@@ -1,23 +1,24 @@
 import { DataList, Table, Text } from '@chakra-ui/react';
 import { axisValues, type ScanAxis, type StoredScanSpec } from '@sixtyfold/shared';
-import { formatValue, inputLabel } from '../utils/point-columns';
-import { methodLabels } from '../utils/scan-labels';
+import { inputLabel } from '../utils/point-columns';
+import { formatNumber } from '@/lib/format-number';
+import { methodLabels } from '@/lib/method-labels';
 
 function pivotText(spec: StoredScanSpec): string {
   const pivot = spec.pivot;
-  if (pivot.kind === 'fixed') return pivot.nStar === undefined ? 'N_* on an axis' : `N_* = ${formatValue(pivot.nStar)}`;
-  const w = pivot.w === undefined ? 'w_reh on an axis' : `w_reh = ${formatValue(pivot.w)}`;
-  const energy = pivot.energyGeV === undefined ? 'ρ_reh^1/4 on an axis' : `ρ_reh^1/4 = ${formatValue(pivot.energyGeV)} GeV`;
+  if (pivot.kind === 'fixed') return pivot.nStar === undefined ? 'N_* on an axis' : `N_* = ${formatNumber(pivot.nStar)}`;
+  const w = pivot.w === undefined ? 'w_reh on an axis' : `w_reh = ${formatNumber(pivot.w)}`;
+  const energy = pivot.energyGeV === undefined ? 'ρ_reh^1/4 on an axis' : `ρ_reh^1/4 = ${formatNumber(pivot.energyGeV)} GeV`;
   return `From reheating: ${w}, ${energy}`;
 }
 
 function axisText(axis: ScanAxis): string {
   if (axis.kind === 'range') {
-    if (axis.count === 1) return `${formatValue(axis.min)} (1 value)`;
-    return `${formatValue(axis.min)} to ${formatValue(axis.max)}, ${axis.count.toLocaleString('en-US')} values, ${axis.spacing === 'log' ? 'log' : 'linear'} spacing`;
+    if (axis.count === 1) return `${formatNumber(axis.min)} (1 value)`;
+    return `${formatNumber(axis.min)} to ${formatNumber(axis.max)}, ${axis.count.toLocaleString('en-US')} values, ${axis.spacing === 'log' ? 'log' : 'linear'} spacing`;
   }
   const values = axisValues(axis);
-  const shown = values.slice(0, 6).map((value) => formatValue(value)).join(', ');
+  const shown = values.slice(0, 6).map((value) => formatNumber(value)).join(', ');
   return `List of ${values.length.toLocaleString('en-US')} values: ${shown}${values.length > 6 ? ', …' : ''}`;
 }
 
@@ -34,7 +35,7 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
       </DataList.Item>
       <DataList.Item>
         <DataList.ItemLabel>Tolerance</DataList.ItemLabel>
-        <DataList.ItemValue {...mono}>{spec.tolerance === undefined ? 'engine default' : formatValue(spec.tolerance)}</DataList.ItemValue>
+        <DataList.ItemValue {...mono}>{spec.tolerance === undefined ? 'engine default' : formatNumber(spec.tolerance)}</DataList.ItemValue>
       </DataList.Item>
       <DataList.Item>
         <DataList.ItemLabel>Pivot</DataList.ItemLabel>
@@ -42,12 +43,12 @@ export function ScanSettings({ spec }: { spec: StoredScanSpec }) {
       </DataList.Item>
       <DataList.Item>
         <DataList.ItemLabel>φ_init</DataList.ItemLabel>
-        <DataList.ItemValue {...mono}>{spec.phiInit === undefined ? 'the family’s own start' : formatValue(spec.phiInit)}</DataList.ItemValue>
+        <DataList.ItemValue {...mono}>{spec.phiInit === undefined ? 'the family’s own start' : formatNumber(spec.phiInit)}</DataList.ItemValue>
       </DataList.Item>
       <DataList.Item>
         <DataList.ItemLabel>Fixed</DataList.ItemLabel>
         <DataList.ItemValue {...mono}>
-          {fixed.length === 0 ? 'nothing' : fixed.map(([name, value]) => `${inputLabel(name)} = ${formatValue(value)}`).join(', ')}
+          {fixed.length === 0 ? 'nothing' : fixed.map(([name, value]) => `${inputLabel(name)} = ${formatNumber(value)}`).join(', ')}
         </DataList.ItemValue>
       </DataList.Item>
       {spec.pointList && (

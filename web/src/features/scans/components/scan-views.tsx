@@ -1,12 +1,13 @@
 import { Badge, Tabs } from '@chakra-ui/react';
 import type { ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
-import { ScanPointsTable } from '@/features/scans/components/points-table';
 import { useViewParams } from '../hooks/use-view-params';
 import type { PointDiscussion } from './heatmaps/point-drawer';
 import { ScanHeatmaps } from './heatmaps/scan-heatmaps';
 import { ScanLinePlots } from './heatmaps/scan-line-plots';
+import type { UseRegionOverlay } from './plane/region-overlay';
 import { ScanPlaneView } from './plane/scan-plane-view';
+import { ScanPointsTable } from './points-table';
 
 export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'discussion'] as const;
 export type ScanView = (typeof SCAN_VIEWS)[number];
@@ -26,9 +27,11 @@ interface ScanViewsProps {
   discussion?: { content: ReactNode; count?: number };
   /** Each point's discussion, in the drawer a clicked cell or line point opens. */
   pointDiscussion?: PointDiscussion;
+  /** The constraint regions drawn on the plane; composed in by the page. */
+  useRegionOverlay: UseRegionOverlay;
 }
 
-export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViewsProps) {
+export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOverlay }: ScanViewsProps) {
   const [params, update] = useViewParams();
   const first: ScanView = spec.axes ? 'heatmaps' : 'plane';
   const asked = params.get('view') === null ? first : readScanView(params.get('view'));
@@ -65,7 +68,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion }: ScanViews
         </Tabs.Content>
       )}
       <Tabs.Content value="plane">
-        <ScanPlaneView scan={scan} spec={spec} />
+        <ScanPlaneView scan={scan} spec={spec} useRegionOverlay={useRegionOverlay} />
       </Tabs.Content>
       <Tabs.Content value="points">
         <ScanPointsTable scan={scan} />

@@ -4,7 +4,7 @@ import { useNavigate } from 'react-router-dom';
 import { AppLink } from '@/components/ui/app-link';
 import { DateTime } from '@/components/ui/date-time';
 import { paths } from '@/config/paths';
-import { methodLabels } from '../utils/scan-labels';
+import { methodLabels } from '@/lib/method-labels';
 import { ScanProgress } from './scan-progress';
 import { ScanStatusBadge } from './scan-status-badge';
 

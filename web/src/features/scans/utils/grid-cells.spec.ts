@@ -1,25 +1,20 @@
 import { findLimits, nsInterval, ScanGrid } from '@sixtyfold/shared';
 import { naturalSpec, slice } from '@/testing/scan-fixtures';
-import { cellCounts, cellIndices, failureGroups, insideLimitsMask, isLogSpaced, markedCells, outlineSegments, pointIndexOf, sameCells, zRangeOf } from './grid-cells';
+import { cellCounts, cellPointIndex, failureGroups, insideLimitsMask, isLogSpaced, markedCells, outlineSegments, sameCells, zRangeOf } from './grid-cells';
 
-describe('point index and axis indices', () => {
-  it('is the inverse of ScanGrid.indices, last axis fastest', () => {
+describe('point index of a slice cell', () => {
+  it('places a heatmap cell on every axis, the others at the slice’s cut', () => {
     const grid = new ScanGrid([
       { kind: 'list', parameter: 'a', values: [1, 2, 3] },
       { kind: 'range', parameter: 'b', min: 0, max: 1, count: 4, spacing: 'linear' },
       { kind: 'list', parameter: 'c', values: [7, 8] },
     ]);
-    for (let index = 0; index < grid.size; index++) expect(pointIndexOf(grid.lengths, grid.indices(index))).toBe(index);
-    expect(pointIndexOf(grid.lengths, [1, 2, 1])).toBe(1 * 8 + 2 * 2 + 1);
-  });
-
-  it('places a heatmap cell on every axis, the others at the slice’s cut', () => {
     const cut = { x: { parameter: 'c', values: [7, 8] }, y: { parameter: 'a', values: [1, 2, 3] }, at: { b: { index: 3, value: 1 } } };
-    expect(cellIndices(['a', 'b', 'c'], cut, 1, 2)).toEqual([2, 3, 1]);
-    const grid = new ScanGrid(naturalSpec.axes!);
+    // Cell (ix 1, iy 2) is a at index 2, b at 3, c at 1.
+    expect(cellPointIndex(grid, cut, 1, 2)).toBe(2 * 8 + 3 * 2 + 1);
+    const natural = new ScanGrid(naturalSpec.axes!);
     // x = N_* (fast axis), y = f: cell (ix 1, iy 2) is f = 10, N_* = 55.
-    const index = pointIndexOf(grid.lengths, cellIndices(['f', 'nStar'], slice('ns', [], []), 1, 2));
-    expect(grid.point(index)).toEqual({ f: 10, nStar: 55 });
+    expect(natural.point(cellPointIndex(natural, slice('ns', [], []), 1, 2))).toEqual({ f: 10, nStar: 55 });
   });
 });
 

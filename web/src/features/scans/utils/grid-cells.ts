@@ -1,23 +1,21 @@
 import { insideLimits, type ConfidenceLevel, type ObservationalLimits, type ScanGrid, type ScanGridSlice } from '@sixtyfold/shared';
 
-/**
- * The point index of a cell from every axis index: the mixed radix of the axis lengths with the
- * last axis fastest, the inverse of ScanGrid.indices (shared/src/scans/scan-grid.ts).
- */
-export function pointIndexOf(lengths: number[], indices: number[]): number {
-  return lengths.reduce((index, length, axis) => index * length + indices[axis], 0);
+/** Axis indices of the cell (ix, iy) of a slice, in the scan's axis order; other axes at the slice's cut. */
+function sliceCell(grid: ScanGrid, slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, ix: number, iy: number): number[] {
+  return grid.axes.map(({ parameter }) => (parameter === slice.x.parameter ? ix : parameter === slice.y.parameter ? iy : (slice.at[parameter]?.index ?? 0)));
 }
 
-/** Axis indices of the cell (ix, iy) of a slice, in the scan's axis order. */
-export function cellIndices(axes: string[], slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, ix: number, iy: number): number[] {
-  return axes.map((name) => (name === slice.x.parameter ? ix : name === slice.y.parameter ? iy : (slice.at[name]?.index ?? 0)));
+/** The point index of the cell (ix, iy) of a slice. */
+export function cellPointIndex(grid: ScanGrid, slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, ix: number, iy: number): number {
+  return grid.indexOf(sliceCell(grid, slice, ix, iy));
 }
 
 /** Which cells of a slice stand for a point listed in `byPoint` (comment counts by point index, say). */
-export function markedCells(grid: Pick<ScanGrid, 'axes' | 'lengths'>, slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, byPoint: Record<string, number>): boolean[][] | null {
+export function markedCells(grid: ScanGrid, slice: Pick<ScanGridSlice, 'x' | 'y' | 'at'>, byPoint: Record<string, number>): boolean[][] | null {
   if (Object.keys(byPoint).length === 0) return null;
-  const axes = grid.axes.map((axis) => axis.parameter);
-  return slice.y.values.map((_, iy) => slice.x.values.map((_, ix) => (byPoint[String(pointIndexOf(grid.lengths, cellIndices(axes, slice, ix, iy)))] ?? 0) > 0));
+  const names = grid.axes.map((axis) => axis.parameter);
+  const points = grid.sliceIndices(names.indexOf(slice.x.parameter), names.indexOf(slice.y.parameter), sliceCell(grid, slice, 0, 0));
+  return points.map((row) => row.map((pointIndex) => (byPoint[String(pointIndex)] ?? 0) > 0));
 }
 
 export interface FailureGroup {

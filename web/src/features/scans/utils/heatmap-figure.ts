@@ -1,10 +1,11 @@
 import type { ScanGridSlice } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
+import { formatNumber } from '@/lib/format-number';
 import { failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
 import { isLogSpaced, outlineSegments } from './grid-cells';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
-import { formatValue, inputLabel } from './point-columns';
+import { inputLabel } from './point-columns';
 
 export interface HeatmapFigureInput {
   /** The output drawn, with every cell's status. */
@@ -26,10 +27,7 @@ const OK_CELL_COLOR = '#d9dcea';
 export const NOT_STORED_COLOR = '#e7e3da';
 
 /** Tick labels are short: three significant digits say where a cell is; hovering gives all digits. */
-function tickLabel(value: number): string {
-  const magnitude = Math.abs(value);
-  return magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e5) ? value.toExponential(1) : String(Number(value.toPrecision(3)));
-}
+const tickLabel = (value: number) => formatNumber(value, 3);
 
 /** Up to `most` evenly spread tick positions along an axis of n cells, ends included. */
 export function tickIndices(n: number, most = 7): number[] {
@@ -53,15 +51,15 @@ function axisLayout(axis: ScanGridSlice['x']): Partial<Layout['xaxis']> {
 
 /** What hovering a cell shows: where it is (every axis value) and what came out there. */
 function hoverTexts(slice: ScanGridSlice, others: ScanGridSlice[]): string[][] {
-  const fixed = Object.entries(slice.at).map(([name, { value }]) => `${inputLabel(name)} = ${formatValue(value)}`);
+  const fixed = Object.entries(slice.at).map(([name, { value }]) => `${inputLabel(name)} = ${formatNumber(value)}`);
   const shown = [...others, slice].filter((s, i, all) => s.output !== 'status' && all.findIndex((o) => o.output === s.output) === i);
   return slice.y.values.map((yValue, iy) =>
     slice.x.values.map((xValue, ix) => {
-      const lines = [`${inputLabel(slice.x.parameter)} = ${formatValue(xValue)}`, `${inputLabel(slice.y.parameter)} = ${formatValue(yValue)}`, ...fixed];
+      const lines = [`${inputLabel(slice.x.parameter)} = ${formatNumber(xValue)}`, `${inputLabel(slice.y.parameter)} = ${formatNumber(yValue)}`, ...fixed];
       const status = slice.status[iy][ix];
       if (status === null) lines.push('not stored yet');
       else if (status !== 'ok') lines.push(`failed: ${status}`);
-      else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatValue(s.z[iy]?.[ix])}`);
+      else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatNumber(s.z[iy]?.[ix])}`);
       return lines.join('<br>');
     }),
   );

@@ -1,9 +1,10 @@
 import type { PointOutput, ScanPointDto } from '@sixtyfold/shared';
 import type { Data, Layout, Shape } from 'plotly.js';
 import { PLOT_COLORS } from '@/components/plots/plot';
+import { formatNumber } from '@/lib/format-number';
 import { failureColor } from './failure-colors';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
-import { formatValue, inputLabel } from './point-columns';
+import { inputLabel } from './point-columns';
 
 /**
  * Failed points as shaded bands reaching halfway to their neighbours, one band per run of the
@@ -44,7 +45,7 @@ export function lineFigure(points: ScanPointDto[], axis: string, output: PointOu
         x: ok.map((p) => p.inputs[axis]),
         y: ok.map((p) => p[output]),
         customdata: ok.map((p) => p.pointIndex),
-        text: ok.map((p) => `${axisLabel} = ${formatValue(p.inputs[axis])}<br>${label} = ${formatValue(p[output])}<br>n_s = ${formatValue(p.ns)}, r = ${formatValue(p.r)}`),
+        text: ok.map((p) => `${axisLabel} = ${formatNumber(p.inputs[axis])}<br>${label} = ${formatNumber(p[output])}<br>n_s = ${formatNumber(p.ns)}, r = ${formatNumber(p.r)}`),
         hovertemplate: '%{text}<extra></extra>',
         line: { color: PLOT_COLORS.accent, width: 2 },
         marker: { color: PLOT_COLORS.ember, size: 5 },

@@ -1,5 +1,6 @@
 import { attractorPrediction, findLimits, monomialPrediction, nsInterval, type ScanPlane } from '@sixtyfold/shared';
-import { planeFigure, referenceTraces, regionLabel, rFloorOf, SERIES_COLORS } from './plane-figure';
+import { regionLabel } from '@/lib/region-labels';
+import { planeFigure, referenceTraces, rFloorOf, SERIES_COLORS } from './plane-figure';
 
 type Trace = { name: string; x: number[]; y: number[]; customdata?: unknown[]; marker?: { color?: unknown; colorbar?: { title?: { text?: string } } } };
 

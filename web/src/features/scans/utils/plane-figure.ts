@@ -3,8 +3,10 @@ import {
 } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
+import { formatNumber } from '@/lib/format-number';
+import { regionLabel } from '@/lib/region-labels';
 import { isLogSpaced } from './grid-cells';
-import { formatValue, inputLabel } from './point-columns';
+import { inputLabel } from './point-columns';
 
 export interface PlaneSeries {
   label: string;
@@ -59,7 +61,7 @@ export function referenceTraces(): Data[] {
       {
         type: 'scatter', mode: 'lines', name: `φ^p, N_* = ${nStar} (p = 0.3 to 4)`, legendgroup: `mono-${nStar}`,
         x: mono.map((m) => m.ns), y: mono.map((m) => m.r),
-        text: powers.map((p) => `φ^p, p = ${formatValue(p)}, N_* = ${nStar}`), hovertemplate: '%{text}<br>n_s = %{x}<br>r = %{y}<extra></extra>',
+        text: powers.map((p) => `φ^p, p = ${formatNumber(p)}, N_* = ${nStar}`), hovertemplate: '%{text}<br>n_s = %{x}<br>r = %{y}<extra></extra>',
         line: { color: PLOT_COLORS.muted, width: 1.5, dash },
       },
       {
@@ -73,7 +75,7 @@ export function referenceTraces(): Data[] {
       {
         type: 'scatter', mode: 'lines', name: `α-attractor, N_* = ${nStar} (α = 10⁻² to 10²)`,
         x: plateau.map((m) => m.ns), y: plateau.map((m) => m.r),
-        text: alphas.map((alpha) => `α-attractor, α = ${formatValue(alpha)}, N_* = ${nStar}`), hovertemplate: '%{text}<br>n_s = %{x}<br>r = %{y}<extra></extra>',
+        text: alphas.map((alpha) => `α-attractor, α = ${formatNumber(alpha)}, N_* = ${nStar}`), hovertemplate: '%{text}<br>n_s = %{x}<br>r = %{y}<extra></extra>',
         line: { color: PLOT_COLORS.ink, width: 1.5, dash },
       },
     ] as Data[];
@@ -89,19 +91,11 @@ export function limitTraces(limits: ObservationalLimits, rFloor: number): Data[]
   return ([95, 68] as const).map((level) => {
     const [low, high] = nsInterval(limits, level);
     return {
-      type: 'scatter', mode: 'lines', fill: 'toself', name: `n_s ${level}% interval × r < ${formatValue(limits.r.max95)} (95%)`,
+      type: 'scatter', mode: 'lines', fill: 'toself', name: `n_s ${level}% interval × r < ${formatNumber(limits.r.max95)} (95%)`,
       x: [low, high, high, low, low], y: [rFloor, rFloor, limits.r.max95, limits.r.max95, rFloor],
       fillcolor: level === 68 ? PLOT_COLORS.limit68 : PLOT_COLORS.limit95, line: { width: 0 }, hoverinfo: 'skip',
     } as Data;
   });
-}
-
-/** 0.95 → "95% CL". */
-export const confidenceLabel = (level: number) => `${+(level * 100).toFixed(2)}% CL`;
-
-/** "Name (95% CL, source)": how a region is named in the legend and the toggles. */
-export function regionLabel(region: Pick<ConstraintRegion, 'name' | 'confidenceLevel' | 'source'>): string {
-  return `${region.name} (${confidenceLabel(region.confidenceLevel)}, ${region.source})`;
 }
 
 /** Each uploaded region as a closed outline (its first vertex repeated at the end), not filled. */
@@ -127,12 +121,12 @@ export function rFloorOf(series: PlaneSeries[], rScale: 'linear' | 'log'): numbe
 }
 
 function hoverText(plane: ScanPlane, i: number, label: string | null): string {
-  const inputs = plane.parameters.map((name) => `${inputLabel(name)} = ${formatValue(plane.inputs[name]?.[i])}`);
+  const inputs = plane.parameters.map((name) => `${inputLabel(name)} = ${formatNumber(plane.inputs[name]?.[i])}`);
   const lines = [
     ...(label ? [label] : []),
     `point ${plane.pointIndex[i]}`,
-    `n_s = ${formatValue(plane.ns[i])}, r = ${formatValue(plane.r[i])}`,
-    `α_s = ${formatValue(plane.alphaS[i])}, N_* = ${formatValue(plane.nStar[i])}`,
+    `n_s = ${formatNumber(plane.ns[i])}, r = ${formatNumber(plane.r[i])}`,
+    `α_s = ${formatNumber(plane.alphaS[i])}, N_* = ${formatNumber(plane.nStar[i])}`,
     ...inputs,
   ];
   return lines.join('<br>');

@@ -23,18 +23,6 @@ const PIVOT_LABELS: Record<string, string> = {
 
 export const inputLabel = (parameter: string) => PIVOT_LABELS[parameter] ?? parameter;
 
-/**
- * Numbers as a table shows them: enough digits to tell neighbouring grid points apart
- * (n_s differs in the 4th decimal across a typical scan), exponents for the very small or large.
- */
-export function formatValue(value: number | null | undefined, digits = 6): string {
-  if (value === null || value === undefined) return '—';
-  if (value === 0) return '0';
-  const magnitude = Math.abs(value);
-  if (magnitude >= 1e-3 && magnitude < 1e5) return String(Number(value.toPrecision(digits)));
-  return value.toExponential(digits - 2);
-}
-
 /** Why a point has no observables, in a few words (the stored reason says the rest). */
 export const FAILURE_LABELS: Record<FailureCode, string> = {
   invalid_input: 'invalid input',

@@ -1,27 +1,26 @@
 import { Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, ScanGrid, type ConstraintRegion, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
-import { useQueries, type UseQueryResult } from '@tanstack/react-query';
+import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
-import { getConstraintRegionsQueryOptions } from '../../api/get-constraint-regions';
+import { formatNumber } from '@/lib/format-number';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
-import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellIndices, insideLimitsMask, pointIndexOf, sameCells, zRangeOf } from '../../utils/grid-cells';
+import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { axisOptions, formatValue, inputLabel } from '../../utils/point-columns';
+import { axisOptions, inputLabel } from '../../utils/point-columns';
 import { OutlineToggle } from '../heatmaps/outline-toggle';
 import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LimitSetSelect } from '../limit-set-select';
 import { NsRPlane } from '../plane/ns-r-plane';
 import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
-import { RegionToggles } from '../plane/region-toggles';
+import type { UseRegionOverlay } from '../plane/region-overlay';
 
 /** What the side-by-side maps can show; one colour scale spans all of them. */
 export const COMPARED_OUTPUTS = ['ns', 'r', 'alphaS', 'nTotal', 'amplitudeScale'] as const satisfies readonly PointOutput[];
@@ -44,22 +43,19 @@ function middleOfOtherAxes(spec: StoredScanSpec, x: string, y: string): Record<s
   );
 }
 
-// Module-level, so useQueries keeps the combined list while no query changes (the plane redraws less).
-const allRegions = (results: UseQueryResult<ConstraintRegion[]>[]) => results.flatMap((result) => result.data ?? []);
-
 /**
  * Two to four scans side by side: the same output over the same two axes on one colour scale,
  * then all of them on one n_s–r plane. Settings live in the address with the selection.
  */
-export function ComparePlots({ scanIds }: { scanIds: number[] }) {
+export function ComparePlots({ scanIds, useRegionOverlay }: { scanIds: number[]; useRegionOverlay: UseRegionOverlay }) {
   const details = useQueries({ queries: scanIds.map((id) => getScanQueryOptions(id)) });
   const failed = details.find((query) => query.isError);
   if (failed?.isError) return <ErrorState title="Could not load a scan to compare" error={failed.error} onRetry={() => failed.refetch()} />;
   if (details.some((query) => !query.data)) return <LoadingState label="Loading the scans…" />;
-  return <ComparedScans scans={details.map((query) => query.data!)} />;
+  return <ComparedScans scans={details.map((query) => query.data!)} useRegionOverlay={useRegionOverlay} />;
 }
 
-function ComparedScans({ scans }: { scans: ScanDetail[] }) {
+function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRegionOverlay: UseRegionOverlay }) {
   const navigate = useNavigate();
   const specs = scans.map((scan) => scan.spec as unknown as StoredScanSpec);
   const axes = commonAxes(specs);
@@ -96,10 +92,8 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
     const plane = planeQueries[s]?.data;
     return plane ? [{ label: scan.name, plane }] : [];
   });
-  // The regions of every group the compared scans belong to, each group once.
-  const groupIds = [...new Set(scans.map((scan) => scan.groupId))];
-  const regions = useQueries({ queries: groupIds.map((groupId) => getConstraintRegionsQueryOptions(groupId)), combine: allRegions });
-  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions);
+  // The regions of every group the compared scans belong to.
+  const regions = useRegionOverlay(scans.map((scan) => scan.groupId));
   const planeSettings: PlaneSettings = {
     colorBy: null,
     limitsKey: limits.key,
@@ -136,7 +130,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
               </HStack>
               <Text fontSize="xs" color="fg.muted" mt="3">
                 {zRange
-                  ? `One colour scale for every scan: ${outputLabel(output)} from ${formatValue(zRange[0])} to ${formatValue(zRange[1])}.`
+                  ? `One colour scale for every scan: ${outputLabel(output)} from ${formatNumber(zRange[0])} to ${formatNumber(zRange[1])}.`
                   : 'No stored values yet.'}{' '}
                 Other axes sit at their middle value in each scan.
               </Text>
@@ -149,7 +143,6 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
                 const r = sliceOf(s, 'r');
                 const matched = slice && ns && r && sameCells(ns, r) && sameCells(slice, ns);
                 const grid = new ScanGrid(specs[s].axes ?? []);
-                const names = (specs[s].axes ?? []).map((axis) => axis.parameter);
                 return (
                   <Panel key={scan.id} p={{ base: '3', md: '4' }} minW="0">
                     {slice ? (
@@ -159,7 +152,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
                         zRange={zRange}
                         hoverSlices={matched ? [ns, r] : undefined}
                         outline={outlined && matched ? insideLimitsMask(ns, r, limits) : null}
-                        onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, pointIndexOf(grid.lengths, cellIndices(names, slice, ix, iy))))}
+                        onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, cellPointIndex(grid, slice, ix, iy)))}
                       />
                     ) : (
                       <LoadingState label={`Loading ${scan.name}…`} />
@@ -178,11 +171,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
         </Heading>
         <Panel p={{ base: '3', md: '4' }}>
           <PlaneControls settings={planeSettings} onChange={onPlaneChange} />
-          {regions.length > 0 && (
-            <Stack mt="3">
-              <RegionToggles regions={regions} hidden={hiddenRegions} onChange={setHiddenRegions} />
-            </Stack>
-          )}
+          {regions.toggles && <Stack mt="3">{regions.toggles}</Stack>}
         </Panel>
         <Panel p={{ base: '3', md: '4' }}>
           {series.length < scans.length ? (
@@ -193,7 +182,7 @@ function ComparedScans({ scans }: { scans: ScanDetail[] }) {
               limits={limits}
               rScale={planeSettings.rScale}
               references={planeSettings.references}
-              regions={shownRegions}
+              regions={regions.shown}
               onPointClick={({ series: s, pointIndex }) => navigate(paths.point.getHref(scans[s].id, pointIndex))}
             />
           )}

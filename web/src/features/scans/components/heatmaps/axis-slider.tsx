@@ -1,6 +1,7 @@
 import { HStack, Slider, Text } from '@chakra-ui/react';
 import { useEffect, useState } from 'react';
-import { formatValue, inputLabel } from '../../utils/point-columns';
+import { formatNumber } from '@/lib/format-number';
+import { inputLabel } from '../../utils/point-columns';
 
 interface AxisSliderProps {
   parameter: string;
@@ -23,7 +24,7 @@ export function AxisSlider({ parameter, values, index, onChange }: AxisSliderPro
   }, [draft, index, onChange]);
 
   const label = inputLabel(parameter);
-  const valueText = (i: number) => `${formatValue(values[i])} (value ${i + 1} of ${values.length})`;
+  const valueText = (i: number) => `${formatNumber(values[i])} (value ${i + 1} of ${values.length})`;
   return (
     <Slider.Root
       minW={{ base: 'full', sm: '64' }}
@@ -40,7 +41,7 @@ export function AxisSlider({ parameter, values, index, onChange }: AxisSliderPro
       <HStack justify="space-between">
         <Slider.Label fontSize="sm">{label}</Slider.Label>
         <Text fontFamily="mono" fontSize="sm" color="ink.900">
-          {label} = {formatValue(values[draft])}
+          {label} = {formatNumber(values[draft])}
           <Text as="span" color="fg.muted">
             {' '}
             ({draft + 1}/{values.length})

@@ -4,11 +4,12 @@ import type { ReactNode } from 'react';
 import { Link as RouterLink } from 'react-router-dom';
 import { paths } from '@/config/paths';
 import { ApiRequestError } from '@/lib/api-client';
+import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
 import { useScanPoint } from '../../api/get-scan-point';
 import { useViewParams } from '../../hooks/use-view-params';
 import { outputLabel } from '../../utils/output-labels';
-import { failureLabel, formatValue, inputLabel } from '../../utils/point-columns';
+import { failureLabel, inputLabel } from '../../utils/point-columns';
 
 /** A point's discussion, composed in by the page: comment counts by point index, and the thread itself. */
 export interface PointDiscussion {
@@ -40,7 +41,7 @@ function PointNumbers({ scan, grid, pointIndex }: { scan: ScanDetail; grid: Scan
       {Object.entries(inputs).map(([name, value]) => (
         <DataList.Item key={name}>
           <DataList.ItemLabel>{inputLabel(name)}</DataList.ItemLabel>
-          <DataList.ItemValue {...mono}>{formatValue(value)}</DataList.ItemValue>
+          <DataList.ItemValue {...mono}>{formatNumber(value)}</DataList.ItemValue>
         </DataList.Item>
       ))}
       <DataList.Item>
@@ -61,7 +62,7 @@ function PointNumbers({ scan, grid, pointIndex }: { scan: ScanDetail; grid: Scan
         KEY_OUTPUTS.map((output) => (
           <DataList.Item key={output}>
             <DataList.ItemLabel>{outputLabel(output)}</DataList.ItemLabel>
-            <DataList.ItemValue {...mono}>{formatValue(point[output])}</DataList.ItemValue>
+            <DataList.ItemValue {...mono}>{formatNumber(point[output])}</DataList.ItemValue>
           </DataList.Item>
         ))}
     </DataList.Root>

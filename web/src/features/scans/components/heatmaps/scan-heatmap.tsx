@@ -2,10 +2,11 @@ import { Heading, Stack, Text } from '@chakra-ui/react';
 import type { ScanGridSlice } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { Plot } from '@/components/plots/plot';
+import { formatNumber } from '@/lib/format-number';
 import { cellCounts, zRangeOf } from '../../utils/grid-cells';
 import { heatmapFigure } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
-import { formatValue, inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '../../utils/point-columns';
 
 export interface ScanHeatmapProps {
   /** The output drawn, with every cell's status (from useScanGridSlice). */
@@ -53,7 +54,7 @@ export function ScanHeatmap({ slice, title, zRange, hoverSlices, outline, marked
         }
       />
       <Text fontSize="xs" color="fg.muted">
-        {range ? `${outputLabel(slice.output)} from ${formatValue(range[0])} to ${formatValue(range[1])}; ` : ''}
+        {range ? `${outputLabel(slice.output)} from ${formatNumber(range[0])} to ${formatNumber(range[1])}; ` : ''}
         {n(counts.ok)} ok, {n(counts.failed)} failed, {n(counts.missing)} not stored yet
       </Text>
     </Stack>

@@ -6,12 +6,13 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
+import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
 import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellCounts, cellIndices, failureGroups, insideLimitsMask, markedCells, pointIndexOf, sameCells } from '../../utils/grid-cells';
+import { cellCounts, cellPointIndex, failureGroups, insideLimitsMask, markedCells, sameCells } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
-import { axisOptions, formatValue } from '../../utils/point-columns';
+import { axisOptions } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
 import { AxisSlider } from './axis-slider';
 import { FailureLegend } from './failure-legend';
@@ -102,7 +103,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   // The clicked cell's point opens in the drawer.
   const [, openPoint] = useOpenPoint(grid.size);
   const openCell = (slice: ScanGridSlice) => (cell: { ix: number; iy: number }) =>
-    openPoint(pointIndexOf(grid.lengths, cellIndices(names, slice, cell.ix, cell.iy)));
+    openPoint(cellPointIndex(grid, slice, cell.ix, cell.iy));
   const counts = pointDiscussion?.counts;
   // Marks are worked out once per slice and set of counts, so a panel's figure is rebuilt only when they change.
   const marks = useMemo(() => new WeakMap<ScanGridSlice, boolean[][] | null>(), [counts, grid]);
@@ -180,8 +181,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
         {statusSource && <FailureLegend groups={failureGroups(statusSource.status)} missing={cellCounts(statusSource.status).missing} />}
         {outlined && (
           <Text>
-            Outlined{matched ? ` (${insideCount.toLocaleString('en-US')} cells)` : ''}: n_s in the 95% interval {formatValue(nsLow)} to{' '}
-            {formatValue(nsHigh)} and r below {formatValue(limits.r.max95)}, the n_s interval × r bound of {limits.label} (the product of the two
+            Outlined{matched ? ` (${insideCount.toLocaleString('en-US')} cells)` : ''}: n_s in the 95% interval {formatNumber(nsLow)} to{' '}
+            {formatNumber(nsHigh)} and r below {formatNumber(limits.r.max95)}, the n_s interval × r bound of {limits.label} (the product of the two
             one-dimensional limits, not the joint contour). Source: {limits.source}.
           </Text>
         )}

@@ -1,5 +1,7 @@
 import type { ConstraintRegion } from '@sixtyfold/shared';
 import { screen, waitFor } from '@testing-library/react';
+// The page composes the regions in; so does this test.
+import { useRegionOverlay } from '@/features/constraint-regions/hooks/use-region-overlay';
 import { json, mockApi } from '@/testing/mock-api';
 import { plotIn } from '@/testing/plotly-chart-mock';
 import { renderWithProviders } from '@/testing/render';
@@ -23,7 +25,7 @@ describe('scan n_s–r plane regions', () => {
       'GET /api/scans/42/plane': () => json(200, plane),
       'GET /api/constraint-regions': () => json(200, [survey]),
     });
-    const { user } = renderWithProviders(<ScanPlaneView scan={scanDetail()} spec={naturalSpec} />);
+    const { user } = renderWithProviders(<ScanPlaneView scan={scanDetail()} spec={naturalSpec} useRegionOverlay={useRegionOverlay} />);
     const chart = await screen.findByRole('img', { name: /^n_s–r plane of/ });
     const names = () => plotIn(chart).data.map((trace) => trace.name);
 

@@ -9,23 +9,20 @@ import { CurveIcon } from '@/components/ui/icons';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
-import { useConstraintRegions } from '../../api/get-constraint-regions';
 import { isLive } from '../../api/get-scan';
 import { useScanPlane } from '../../api/get-scan-plane';
-import { useRegionToggles } from '../../hooks/use-region-toggles';
 import { useViewParams } from '../../hooks/use-view-params';
 import { NsRPlane } from './ns-r-plane';
 import { PlaneControls, type PlaneSettings } from './plane-controls';
-import { RegionToggles } from './region-toggles';
+import type { UseRegionOverlay } from './region-overlay';
 
 /** The scan's ok points on the n_s–r plane, with the settings kept in the address. */
-export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredScanSpec }) {
+export function ScanPlaneView({ scan, spec, useRegionOverlay }: { scan: ScanDetail; spec: StoredScanSpec; useRegionOverlay: UseRegionOverlay }) {
   const navigate = useNavigate();
   const live = isLive(scan);
   const plane = useScanPlane(scan.id, { live });
   const [params, update] = useViewParams();
-  const regions = useConstraintRegions(scan.groupId);
-  const { hidden: hiddenRegions, setHidden: setHiddenRegions, shown: shownRegions } = useRegionToggles(regions.data);
+  const regions = useRegionOverlay([scan.groupId]);
 
   const axes = variedInputs(spec);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
@@ -50,11 +47,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
     <Stack gap="4">
       <Panel p={{ base: '3', md: '4' }}>
         <PlaneControls settings={settings} onChange={onChange} colorOptions={colorOptions} />
-        {regions.data && regions.data.length > 0 && (
-          <Stack mt="3">
-            <RegionToggles regions={regions.data} hidden={hiddenRegions} onChange={setHiddenRegions} />
-          </Stack>
-        )}
+        {regions.toggles && <Stack mt="3">{regions.toggles}</Stack>}
         <Text fontSize="xs" color="fg.muted" mt="3">
           Members upload the group’s constraint regions on the <AppLink to={paths.group.getHref(scan.groupId)}>group page</AppLink>.
         </Text>
@@ -86,7 +79,7 @@ export function ScanPlaneView({ scan, spec }: { scan: ScanDetail; spec: StoredSc
             limits={limits}
             rScale={settings.rScale}
             references={settings.references}
-            regions={shownRegions}
+            regions={regions.shown}
             onPointClick={({ pointIndex }) => navigate(paths.point.getHref(scan.id, pointIndex))}
           />
           <Text fontSize="xs" color="fg.muted" mt="1">

@@ -1,6 +1,7 @@
 import { DataList, Text } from '@chakra-ui/react';
 import { ScanGrid, variedInputs, type ScanPoints, type StoredScanSpec } from '@sixtyfold/shared';
-import { formatValue, inputLabel } from '../../utils/point-columns';
+import { formatNumber } from '@/lib/format-number';
+import { inputLabel } from '../../utils/point-columns';
 import { isPivotAxis } from '../../utils/scan-spec';
 
 interface PointInputsProps {
@@ -27,7 +28,7 @@ export function PointInputs({ spec, points, pointIndex, phiInitUsed }: PointInpu
         <DataList.Item key={name}>
           <DataList.ItemLabel>{inputLabel(name)}</DataList.ItemLabel>
           <DataList.ItemValue {...mono}>
-            {formatValue(values[name])}
+            {formatNumber(values[name])}
             <Text as="span" color="fg.muted" fontFamily="body" ms="2">
               {grid && indices ? `axis value ${indices[a] + 1} of ${grid.lengths[a]}` : `point ${pointIndex + 1} of ${points.size} in the list`}
             </Text>
@@ -40,7 +41,7 @@ export function PointInputs({ spec, points, pointIndex, phiInitUsed }: PointInpu
           <DataList.Item key={name}>
             <DataList.ItemLabel>{name}</DataList.ItemLabel>
             <DataList.ItemValue {...mono}>
-              {formatValue(value)}
+              {formatNumber(value)}
               <Text as="span" color="fg.muted" fontFamily="body" ms="2">
                 fixed
               </Text>
@@ -50,7 +51,7 @@ export function PointInputs({ spec, points, pointIndex, phiInitUsed }: PointInpu
       {pivot.kind === 'fixed' && pivot.nStar !== undefined && (
         <DataList.Item>
           <DataList.ItemLabel>N_*</DataList.ItemLabel>
-          <DataList.ItemValue {...mono}>{formatValue(pivot.nStar)}</DataList.ItemValue>
+          <DataList.ItemValue {...mono}>{formatNumber(pivot.nStar)}</DataList.ItemValue>
         </DataList.Item>
       )}
       {pivot.kind === 'reheating' && (
@@ -58,15 +59,15 @@ export function PointInputs({ spec, points, pointIndex, phiInitUsed }: PointInpu
           <DataList.ItemLabel>N_*</DataList.ItemLabel>
           <DataList.ItemValue>
             from reheating
-            {!onAxes.has('reheatingW') && ` with w_reh = ${formatValue(pivot.w)}`}
-            {!onAxes.has('reheatingEnergyGeV') && `, ρ_reh^1/4 = ${formatValue(pivot.energyGeV)} GeV`}
+            {!onAxes.has('reheatingW') && ` with w_reh = ${formatNumber(pivot.w)}`}
+            {!onAxes.has('reheatingEnergyGeV') && `, ρ_reh^1/4 = ${formatNumber(pivot.energyGeV)} GeV`}
           </DataList.ItemValue>
         </DataList.Item>
       )}
       <DataList.Item>
         <DataList.ItemLabel>φ_init</DataList.ItemLabel>
         <DataList.ItemValue {...mono}>
-          {spec.phiInit !== undefined ? formatValue(spec.phiInit) : phiInitUsed != null ? formatValue(phiInitUsed) : 'the family’s own start'}
+          {spec.phiInit !== undefined ? formatNumber(spec.phiInit) : phiInitUsed != null ? formatNumber(phiInitUsed) : 'the family’s own start'}
           {spec.phiInit === undefined && phiInitUsed != null && (
             <Text as="span" color="fg.muted" fontFamily="body" ms="2">
               the family’s start for these parameters

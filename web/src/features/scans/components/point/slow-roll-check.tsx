@@ -1,5 +1,6 @@
 import { Table, Text } from '@chakra-ui/react';
 import type { EvaluateResponse } from '@sixtyfold/shared';
+import { formatNumber } from '@/lib/format-number';
 
 interface SlowRollCheckProps {
   slowRoll: EvaluateResponse;
@@ -12,8 +13,6 @@ const ROWS = [
   { key: 'r', label: 'r', relative: true },
   { key: 'As', label: 'A_s (V as given)', relative: true },
 ] as const;
-
-const number = (value: number | null) => (value === null ? '—' : Number(value.toPrecision(6)).toString());
 
 /** How far first-order slow roll is from the mode equations at this one point. */
 export function SlowRollCheck({ slowRoll, modes }: SlowRollCheckProps) {
@@ -45,8 +44,8 @@ export function SlowRollCheck({ slowRoll, modes }: SlowRollCheckProps) {
           {ROWS.map((row) => (
             <Table.Row key={row.key}>
               <Table.Cell>{row.label}</Table.Cell>
-              <Table.Cell fontFamily="mono">{number(slowRoll[row.key])}</Table.Cell>
-              <Table.Cell fontFamily="mono">{number(modes[row.key])}</Table.Cell>
+              <Table.Cell fontFamily="mono">{formatNumber(slowRoll[row.key])}</Table.Cell>
+              <Table.Cell fontFamily="mono">{formatNumber(modes[row.key])}</Table.Cell>
               <Table.Cell fontFamily="mono">{gap(row.key, row.relative)}</Table.Cell>
             </Table.Row>
           ))}

@@ -2,7 +2,8 @@ import { Field, Fieldset, HStack, Input, NativeSelect, SimpleGrid, Stack, Text, 
 import type { ModelParameter } from '@sixtyfold/shared';
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
 import { RemoveButton } from '@/components/ui/remove-button';
-import { firstMessage, PIVOT_AXIS_INFO, toNumber, type AxisDraft, type ScanFormValues } from './scan-form-values';
+import { PIVOT_AXIS_INFO } from './scan-form-edits';
+import { firstMessage, toNumber, type AxisDraft, type ScanFormValues } from './scan-form-values';
 
 interface AxisFieldsProps {
   index: number;

@@ -1,6 +1,7 @@
 import { Alert, Heading, Stack, Text } from '@chakra-ui/react';
 import { DEFAULT_POINT_LIMIT, pointLimitProblem } from '@sixtyfold/shared';
 import { formatDuration } from '@/lib/format-duration';
+import { formatNumber } from '@/lib/format-number';
 import type { RunEstimate } from './use-run-estimate';
 
 export type WorkerSlots = number | 'loading' | 'unavailable';
@@ -13,7 +14,7 @@ interface LaunchSummaryProps {
   workerSlots: WorkerSlots;
 }
 
-const ms = (value: number) => `${Number(value.toPrecision(2))} ms`;
+const ms = (value: number) => `${formatNumber(value, 2)} ms`;
 
 export function LaunchSummary({ points, estimate, workerSlots }: LaunchSummaryProps) {
   const tooLarge = points === null ? null : pointLimitProblem(points, DEFAULT_POINT_LIMIT, "the site's usual");

@@ -1,8 +1,6 @@
 import { createScanSchema, findFamily, type PotentialModel } from '@sixtyfold/shared';
-import {
-  blankValues, countPoints, familyModelKey, groupModelKey, parseNumberList, syncFixedValues, toNumber, toScanInput, withAxisParameter,
-  withGroup, withModel,
-} from './scan-form-values';
+import { blankValues, syncFixedValues, withAxisParameter, withGroup, withModel } from './scan-form-edits';
+import { countPoints, familyModelKey, groupModelKey, parseNumberList, toNumber, toScanInput } from './scan-form-values';
 
 const monomial = findFamily('monomial')!.parameters;
 

@@ -1,20 +1,19 @@
-import { Box, Button, Code, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Text, Textarea } from '@chakra-ui/react';
-import { createScanSchema, POINTS_CSV_MAX_BYTES, POTENTIAL_FAMILIES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
-import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { Button, Field, Fieldset, Input, NativeSelect, SegmentGroup, SimpleGrid, Stack, Textarea } from '@chakra-ui/react';
+import { createScanSchema, POINTS_CSV_MAX_BYTES, type CreateScan, type PointList, type PotentialModel, type ScanDetail } from '@sixtyfold/shared';
+import { useMemo, useRef, useState } from 'react';
 import { useFieldArray, useForm, useWatch } from 'react-hook-form';
 import { errorAdvice } from '@/components/ui/error-state';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { applyFieldErrors, isFieldRefusal } from '@/lib/form-errors';
 import { useCreateScan } from '../../api/create-scan';
 import { useUploadScan } from '../../api/upload-scan';
-import { pointsFileOf, readPointsFile } from '../../utils/read-points-file';
-import { methodLabels } from '../../utils/scan-labels';
+import { pointsFileOf, readPointsFile, type PointsFileRead } from '../../utils/read-points-file';
 import { AxisFields } from './axis-fields';
 import { LaunchSummary, type WorkerSlots } from './launch-summary';
-import {
-  chosenModel, countPoints, familyModelKey, fileColumns, firstMessage, groupModelKey, MAX_AXES, nextAxis, scanFormResolver, syncFixedValues,
-  toNumber, toScanInput, withAxisParameter, withGroup, withModel, type ScanFormContext, type ScanFormValues,
-} from './scan-form-values';
+import { PivotMethodFields } from './pivot-method-fields';
+import { PotentialFields } from './potential-fields';
+import { chosenModel, nextAxis, syncFixedValues, withAxisParameter, withGroup, withModel } from './scan-form-edits';
+import { countPoints, fileColumns, firstMessage, MAX_AXES, scanFormResolver, toNumber, toScanInput, type ScanFormContext, type ScanFormValues } from './scan-form-values';
 import { useRunEstimate } from './use-run-estimate';
 
 export interface LaunchGroup {
@@ -36,6 +35,15 @@ interface ScanFormProps {
 }
 
 const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b);
+
+type ChosenFile = { file: File; text: string };
+
+/** The chosen file read with the API's own reader, against the model's parameters (its allowed columns). */
+const readChosenFile = (chosen: ChosenFile | null, parameters: { name: string }[]) => (chosen ? readPointsFile(chosen.text, parameters.map((p) => p.name)) : null);
+
+/** What the scan varies: the points file's columns, or the grid's axes. */
+const variedBy = (values: Pick<ScanFormValues, 'points' | 'axes'>, pointsFile: PointsFileRead | null) =>
+  values.points === 'file' ? fileColumns(pointsFile) : values.axes.map((axis) => axis.parameter);
 
 export function ScanForm({ groups, models, initialValues, initialPoints, workerSlots, onLaunched }: ScanFormProps) {
   // One object for the form's lifetime, so the resolver always sees the file read last.
@@ -62,34 +70,15 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   const model = chosenModel(values.model, models);
   const parameters = model?.parameters ?? [];
   // The file is read here with the API's own reader, again when the model (its allowed columns) changes.
-  const [chosenFile, setChosenFile] = useState<{ file: File; text: string } | null>(() =>
+  const [chosenFile, setChosenFile] = useState<ChosenFile | null>(() =>
     initialPoints ? pointsFileOf(initialPoints, initialValues.pointsFile) : null,
   );
   const parameterNames = parameters.map((p) => p.name).join(',');
-  const pointsFile = useMemo(() => (chosenFile ? readPointsFile(chosenFile.text, parameterNames.split(',')) : null), [chosenFile, parameterNames]);
+  const pointsFile = useMemo(() => readChosenFile(chosenFile, parameters), [chosenFile, parameterNames]);
   context.current.pointsFile = pointsFile;
-  const onAxis = new Set(fromFile ? fileColumns(pointsFile) : values.axes.map((a) => a.parameter));
+  const onAxis = new Set(variedBy(values, pointsFile));
   const fixedParameters = parameters.filter((p) => !onAxis.has(p.name));
   const variedNote = (what: string) => (onAxis.has(what) ? (fromFile ? 'from the points file.' : 'on an axis.') : null);
-  // A newly read file re-validates after a failed launch, as any edit does (not on the launch itself:
-  // that would clear the server's errors).
-  const lastRead = useRef(pointsFile);
-  useEffect(() => {
-    if (lastRead.current === pointsFile) return;
-    lastRead.current = pointsFile;
-    if (isSubmitted) void trigger();
-  }, [pointsFile, isSubmitted, trigger]);
-  // Switching between grid and file, or reading another file, changes what is varied: what a
-  // column now sets is no longer fixed, and what left the columns gets its default back.
-  const varied = [...onAxis].join(',');
-  const previousVaried = useRef(varied);
-  useEffect(() => {
-    const before = previousVaried.current.split(',').filter(Boolean);
-    previousVaried.current = varied;
-    if (before.join(',') === varied) return;
-    const now = varied.split(',').filter(Boolean).map((parameter) => ({ parameter }));
-    apply({ ...getValues(), ...syncFixedValues({ ...getValues(), axes: now }, before, parameters) });
-  }, [varied]);
 
   // The same check as the submit button, on every edit, so the summary only times a valid scan.
   const { input, problems } = toScanInput(values, pointsFile);
@@ -97,9 +86,20 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   const spec = parsed.success && model && Object.keys(problems).length === 0 ? { ...parsed.data, phiInit: parsed.data.phiInit ?? model.phiInit ?? undefined } : null;
   const estimate = useRunEstimate(spec, model?.source ?? null);
 
-  /** Writes back what a change implies elsewhere (fixed values, axes), field by field so no input remounts. */
-  const apply = (next: ScanFormValues) => {
+  /**
+   * Writes back what a change implies elsewhere (fixed values, axes), field by field so no input
+   * remounts. A change of what is varied (grid or file, another file, a model that reads the file
+   * otherwise) frees what left the axes or columns, with its default back, and fixes nothing varied.
+   */
+  const apply = (edited: ScanFormValues, nextChosenFile = chosenFile) => {
     const current = getValues();
+    const nextParameters = chosenModel(edited.model, models)?.parameters ?? [];
+    const nextFile = nextChosenFile === chosenFile && edited.model === current.model ? pointsFile : readChosenFile(nextChosenFile, nextParameters);
+    const before = variedBy(current, pointsFile);
+    const after = variedBy(edited, nextFile);
+    const next = same(before, after) ? edited : { ...edited, ...syncFixedValues({ ...edited, axes: after.map((parameter) => ({ parameter })) }, before, nextParameters) };
+    // The resolver reads the file from the context: the new one before any check below.
+    context.current.pointsFile = nextFile;
     for (const key of Object.keys(next) as (keyof ScanFormValues)[]) {
       if (key === 'axes') {
         next.axes.forEach((axis, i) => !same(axis, current.axes[i]) && setValue(`axes.${i}`, axis));
@@ -139,8 +139,9 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
   );
 
   const chooseFile = async (file: File | undefined) => {
-    setChosenFile(file ? { file, text: await file.text() } : null);
-    setValue('pointsFile', file?.name ?? '');
+    const chosen = file ? { file, text: await file.text() } : null;
+    setChosenFile(chosen);
+    apply({ ...getValues(), pointsFile: file?.name ?? '' }, chosen);
   };
 
   const refused = isFieldRefusal(submission.error);
@@ -195,85 +196,16 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
           </Stack>
         </Fieldset.Root>
 
-        <Fieldset.Root>
-          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
-            Potential
-          </Fieldset.Legend>
-          <Stack gap="4">
-            <Field.Root invalid={!!errors.model || !model}>
-              <Field.Label>Model</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field
-                  bg="bg.panel"
-                  {...register('model')}
-                  // Controlled: its options depend on the group, and a changing option list must keep the choice.
-                  value={values.model}
-                  onChange={(event) => apply(withModel(getValues(), event.target.value, models))}
-                >
-                  <optgroup label="Built-in families">
-                    {POTENTIAL_FAMILIES.map((family) => (
-                      <option key={family.key} value={familyModelKey(family.key)}>
-                        {family.name}
-                      </option>
-                    ))}
-                  </optgroup>
-                  {groupModels.length > 0 && (
-                    <optgroup label={`Models of ${groups.find((g) => g.id === values.groupId)?.name ?? 'this group'}`}>
-                      {groupModels.map((m) => (
-                        <option key={m.id} value={groupModelKey(m.id)}>
-                          {m.name}
-                        </option>
-                      ))}
-                    </optgroup>
-                  )}
-                  {!model && <option value={values.model}>A model that is no longer available</option>}
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              {model ? (
-                <Field.HelperText>
-                  V(φ) ={' '}
-                  <Code fontFamily="mono" fontSize="xs" bg="ink.subtle" color="ink.fg" whiteSpace="normal" wordBreak="break-word">
-                    {model.expression}
-                  </Code>
-                  {model.reference && <> · {model.reference}</>}
-                </Field.HelperText>
-              ) : (
-                <Field.ErrorText>This model is not in the chosen group any more; choose another.</Field.ErrorText>
-              )}
-              <Field.ErrorText>{firstMessage(errors.model)}</Field.ErrorText>
-            </Field.Root>
-
-            {fixedParameters.length > 0 && (
-              <Box>
-                <Text fontSize="sm" fontWeight="500" mb="2">
-                  Fixed parameters
-                </Text>
-                <SimpleGrid columns={{ base: 1, sm: 2, lg: 3 }} gap="4">
-                  {fixedParameters.map((p) => (
-                    <Field.Root key={p.name} invalid={!!errors.params?.[p.name]}>
-                      <Field.Label fontFamily="mono">{p.name}</Field.Label>
-                      <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register(`params.${p.name}`, { setValueAs: toNumber })} />
-                      {p.description && <Field.HelperText>{p.description}</Field.HelperText>}
-                      <Field.ErrorText>{errors.params?.[p.name]?.message}</Field.ErrorText>
-                    </Field.Root>
-                  ))}
-                </SimpleGrid>
-              </Box>
-            )}
-
-            <Field.Root invalid={!!errors.phiInit} maxW={{ md: 'xs' }}>
-              <Field.Label>φ_init</Field.Label>
-              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('phiInit', { setValueAs: toNumber })} />
-              <Field.HelperText>
-                {values.model.startsWith('family:')
-                  ? 'Optional: a built-in family starts about 75 e-folds before the end of inflation.'
-                  : 'Where the field starts rolling, from the model unless you change it.'}
-              </Field.HelperText>
-              <Field.ErrorText>{errors.phiInit?.message}</Field.ErrorText>
-            </Field.Root>
-          </Stack>
-        </Fieldset.Root>
+        <PotentialFields
+          register={register}
+          errors={errors}
+          modelKey={values.model}
+          model={model}
+          groupModels={groupModels}
+          groupName={groups.find((g) => g.id === values.groupId)?.name ?? 'this group'}
+          fixedParameters={fixedParameters}
+          onModelChange={(modelKey) => apply(withModel(getValues(), modelKey, models))}
+        />
 
         <Fieldset.Root invalid={fromFile ? !!fileProblem : !!axesError}>
           <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900">
@@ -283,7 +215,7 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
             size="sm"
             my="3"
             value={values.points}
-            onValueChange={(details) => setValue('points', details.value === 'file' ? 'file' : 'grid')}
+            onValueChange={(details) => apply({ ...getValues(), points: details.value === 'file' ? 'file' : 'grid' })}
             aria-label="Where the points come from"
           >
             <SegmentGroup.Indicator />
@@ -335,67 +267,7 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
           )}
         </Fieldset.Root>
 
-        <Fieldset.Root>
-          <Fieldset.Legend fontSize="md" fontWeight="600" color="ink.900" mb="3">
-            Pivot and method
-          </Fieldset.Legend>
-          <SimpleGrid columns={{ base: 1, md: 2 }} gap="4">
-            <Field.Root>
-              <Field.Label>Pivot</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field bg="bg.panel" {...register('pivot.kind')}>
-                  <option value="fixed">Fixed N_*</option>
-                  <option value="reheating">N_* from reheating</option>
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              <Field.HelperText>
-                {values.pivot.kind === 'fixed'
-                  ? 'The pivot leaves the horizon N_* e-folds before the end of inflation.'
-                  : 'N_* follows from the reheating history: its equation of state and the energy where radiation takes over.'}
-              </Field.HelperText>
-            </Field.Root>
-            {values.pivot.kind === 'fixed' ? (
-              <PivotValue label="N_*" onAxisNote={variedNote('nStar') && `N_* varies ${variedNote('nStar')}`} error={errors.pivot?.nStar?.message}>
-                <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.nStar', { setValueAs: toNumber })} />
-              </PivotValue>
-            ) : (
-              <>
-                <PivotValue label="w_reh" onAxisNote={variedNote('reheatingW') && `w_reh varies ${variedNote('reheatingW')}`} error={errors.pivot?.w?.message}>
-                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.w', { setValueAs: toNumber })} />
-                </PivotValue>
-                <PivotValue
-                  label="ρ_reh^1/4 (GeV)"
-                  onAxisNote={variedNote('reheatingEnergyGeV') && `The reheating energy varies ${variedNote('reheatingEnergyGeV')}`}
-                  error={errors.pivot?.energyGeV?.message}
-                >
-                  <Input type="number" step="any" bg="bg.panel" fontFamily="mono" {...register('pivot.energyGeV', { setValueAs: toNumber })} />
-                </PivotValue>
-              </>
-            )}
-            <Field.Root>
-              <Field.Label>Method</Field.Label>
-              <NativeSelect.Root>
-                <NativeSelect.Field bg="bg.panel" {...register('method')}>
-                  <option value="slowroll">{methodLabels.slowroll}</option>
-                  <option value="exact">{methodLabels.exact}</option>
-                </NativeSelect.Field>
-                <NativeSelect.Indicator />
-              </NativeSelect.Root>
-              <Field.HelperText>
-                {values.method === 'slowroll'
-                  ? 'Observables from the slow-roll parameters at the pivot: fast.'
-                  : 'Solves the mode equation for the spectra near the pivot: slower, exact.'}
-              </Field.HelperText>
-            </Field.Root>
-            <Field.Root invalid={!!errors.tolerance}>
-              <Field.Label>Tolerance</Field.Label>
-              <Input type="number" step="any" bg="bg.panel" fontFamily="mono" placeholder="engine default" {...register('tolerance', { setValueAs: toNumber })} />
-              <Field.HelperText>Optional relative tolerance of the integrator, between 1e-14 and 1e-4.</Field.HelperText>
-              <Field.ErrorText>{errors.tolerance?.message}</Field.ErrorText>
-            </Field.Root>
-          </SimpleGrid>
-        </Fieldset.Root>
+        <PivotMethodFields register={register} errors={errors} pivotKind={values.pivot.kind} method={values.method} variedNote={variedNote} />
 
         <LaunchSummary points={fromFile ? (pointsFile?.ok ? pointsFile.pointList.rows.length : null) : countPoints(values.axes)} estimate={estimate} workerSlots={workerSlots} />
 
@@ -411,36 +283,5 @@ export function ScanForm({ groups, models, initialValues, initialPoints, workerS
         </Button>
       </Stack>
     </form>
-  );
-}
-
-interface PivotValueProps {
-  label: string;
-  /** Set when an axis varies this value, which then has no fixed value. */
-  onAxisNote: string | null;
-  error: string | undefined;
-  children: ReactNode;
-}
-
-function PivotValue({ label, onAxisNote, error, children }: PivotValueProps) {
-  if (onAxisNote) {
-    return (
-      <Stack gap="1.5" justify="center">
-        <Text fontSize="sm" fontWeight="500">
-          {label}
-        </Text>
-        <Text fontSize="sm" color="fg.muted">
-          {onAxisNote}
-        </Text>
-        {error && <Text fontSize="sm" color="fg.error">{error}</Text>}
-      </Stack>
-    );
-  }
-  return (
-    <Field.Root invalid={!!error}>
-      <Field.Label>{label}</Field.Label>
-      {children}
-      <Field.ErrorText>{error}</Field.ErrorText>
-    </Field.Root>
   );
 }

@@ -1,7 +1,7 @@
 import { Text } from '@chakra-ui/react';
 import type { ConstraintRegion } from '@sixtyfold/shared';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { useDeleteConstraintRegion } from '../../api/delete-constraint-region';
+import { useDeleteConstraintRegion } from '../api/delete-constraint-region';
 
 interface DeleteRegionDialogProps {
   /** The region to confirm; the dialog is open while there is one. */

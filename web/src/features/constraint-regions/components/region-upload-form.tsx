@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { ApiRequestError } from '@/lib/api-client';
 import { applyFieldErrors } from '@/lib/form-errors';
-import { useUploadConstraintRegion } from '../../api/upload-constraint-region';
+import { useUploadConstraintRegion } from '../api/upload-constraint-region';
 
 type UploadInput = z.input<typeof constraintRegionUploadSchema>;
 

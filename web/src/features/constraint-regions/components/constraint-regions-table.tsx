@@ -2,7 +2,7 @@ import { Table, Text } from '@chakra-ui/react';
 import type { ConstraintRegion } from '@sixtyfold/shared';
 import { DateTime } from '@/components/ui/date-time';
 import { RemoveButton } from '@/components/ui/remove-button';
-import { confidenceLabel } from '../../utils/plane-figure';
+import { confidenceLabel } from '@/lib/region-labels';
 
 interface ConstraintRegionsTableProps {
   regions: ConstraintRegion[];

@@ -1,6 +1,6 @@
 import { Checkbox, Fieldset, Stack } from '@chakra-ui/react';
 import type { ConstraintRegion } from '@sixtyfold/shared';
-import { regionLabel } from '../../utils/plane-figure';
+import { regionLabel } from '@/lib/region-labels';
 
 interface RegionTogglesProps {
   regions: ConstraintRegion[];
