@@ -10,6 +10,7 @@ export * from './queue/worker-pool.js';
 export * from './schemas/evaluate.schema.js';
 export * from './engine/index.js';
 export * from './schemas/scan.schema.js';
+export * from './schemas/scan-detail.schema.js';
 export * from './scans/scan-grid.js';
 export * from './scans/scan-point.js';
 export * from './queue/scan-queue.js';

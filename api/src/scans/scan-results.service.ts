@@ -69,7 +69,7 @@ export class ScanResultsService {
 
   /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
   private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
-    const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
+    const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
     const bad: Record<string, string[]> = {};
     const noAxis = (name: string) => [`the scan has no axis ${name}; its axes are ${axes.join(', ')}`];
@@ -129,7 +129,7 @@ export class ScanResultsService {
    */
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json', res: Response): Promise<void> {
     const scan = await this.readable(user, id);
-    const axes = variedInputs(scan.spec as unknown as StoredScanSpec);
+    const axes = variedInputs(scan.spec);
     const [sql, parameters] = this.filtered(scan, q).getQueryAndParameters();
     const download = {
       headers: {
@@ -180,7 +180,7 @@ export class ScanResultsService {
    */
   async plane(user: SessionUser, id: number, q: ScanPlaneQuery): Promise<ScanPlane> {
     const scan = await this.readable(user, id);
-    const parameters = variedInputs(scan.spec as unknown as Partial<StoredScanSpec>);
+    const parameters = variedInputs(scan.spec);
     const columns = 'p.point_index, p.ns, p.r, p.alpha_s, p.n_star, p.inputs';
     const { okPoints, stride, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
       const [{ n }]: { n: string | number }[] = await tx.query("SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? AND status = 'ok'", [id]);
@@ -230,7 +230,7 @@ export class ScanResultsService {
   /** Two axes as x and y, every other axis at the chosen index: z[iy][ix] of one output. */
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
-    const spec = scan.spec as unknown as StoredScanSpec;
+    const spec = scan.spec;
     // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
     if (!spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
     const grid = new ScanGrid(spec.axes);

@@ -63,7 +63,7 @@ export class ScansService {
         name: spec.name,
         method: spec.method,
         status: 'queued',
-        spec: stored as unknown as Record<string, unknown>,
+        spec: stored,
         note: spec.note,
         totalPoints: total,
         queuedAt: new Date(),

@@ -41,15 +41,6 @@ export const scanProgressSchema = z.object({
 });
 export type ScanProgress = z.infer<typeof scanProgressSchema>;
 
-/** One scan with its specification and progress (`GET /api/scans/:id`). */
-export const scanDetailSchema = scanSummarySchema.extend({
-  note: z.string(),
-  spec: z.record(z.string(), z.unknown()),
-  startedAt: z.string().nullable(),
-  progress: scanProgressSchema,
-});
-export type ScanDetail = z.infer<typeof scanDetailSchema>;
-
 /** Filters of `GET /api/scans`. */
 export const scanListQuerySchema = z.object({
   page: z.coerce.number().int().min(1, 'page starts at 1').default(1),

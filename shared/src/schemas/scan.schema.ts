@@ -147,8 +147,16 @@ export const createScanSchema = z
 export type CreateScan = z.infer<typeof createScanSchema>;
 export type CreateScanInput = z.input<typeof createScanSchema>;
 
-/** A scan specification as stored: completed with defaults, and its potential frozen. */
-export type StoredScanSpec = CreateScan & {
-  /** Family key or expression, copied at submission so a later model edit changes nothing. */
-  potentialSource: string;
-};
+/**
+ * A scan specification as stored: the submitted spec completed with defaults, and its potential
+ * frozen. The one reading of the `scans.spec` column (the API's column transformer), of the scan
+ * detail the web receives, and of the worker's job.
+ */
+export const storedScanSpecSchema = z.intersection(
+  createScanSchema,
+  z.object({
+    /** Family key or expression, copied at submission so a later model edit changes nothing. */
+    potentialSource: z.string().min(1),
+  }),
+);
+export type StoredScanSpec = z.infer<typeof storedScanSpecSchema>;

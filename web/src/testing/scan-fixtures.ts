@@ -36,7 +36,7 @@ export function scanDetail(overrides: Partial<ScanDetail> = {}, spec: StoredScan
     createdAt: '2026-11-30T09:15:00.000Z',
     finishedAt: '2026-11-30T09:20:00.000Z',
     note: spec.note,
-    spec: spec as unknown as Record<string, unknown>,
+    spec,
     startedAt: '2026-11-30T09:15:05.000Z',
     progress: { total, done: total, failed: 0, running: 0, queued: 0, elapsedSeconds: 295, remainingSeconds: 0 },
     ...overrides,

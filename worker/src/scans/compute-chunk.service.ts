@@ -71,7 +71,7 @@ export class ComputeChunkService {
       .where('id = :id AND status = :queued', { id: scan.id, queued: 'queued' })
       .execute();
 
-    const spec = scan.spec as unknown as StoredScanSpec;
+    const spec = scan.spec;
     const points = scanPoints(spec);
     const rows: PointRow[] = [];
     const now = new Date();
@@ -133,7 +133,7 @@ export class ComputeChunkService {
     // The inputs, when the stored spec can be read at all (it may be what made the chunk fail).
     let inputs: (i: number) => Record<string, number> = () => ({});
     try {
-      const points = scanPoints(scan.spec as unknown as StoredScanSpec);
+      const points = scanPoints(scan.spec);
       inputs = (i) => points.point(i);
     } catch {
       // Stored without inputs; the reason says what went wrong.

@@ -1,11 +1,22 @@
 import {
-  Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn,
+  Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn, type ValueTransformer,
 } from 'typeorm';
-import { SCAN_METHODS, SCAN_STATUSES, type ScanMethod, type ScanStatus } from '@sixtyfold/shared';
+import { SCAN_METHODS, SCAN_STATUSES, storedScanSpecSchema, type ScanMethod, type ScanStatus, type StoredScanSpec } from '@sixtyfold/shared';
 import { Group } from '../../groups/entities/group.entity';
 import { PotentialModel } from '../../models/entities/potential-model.entity';
 import { User } from '../../users/entities/user.entity';
 import type { ScanTag } from './scan-tag.entity';
+
+/** Every read of `scans.spec` goes through the one schema that wrote it; a row that does not read is an error, never a cast. */
+const STORED_SPEC: ValueTransformer = {
+  to: (spec: StoredScanSpec | undefined) => spec,
+  from: (value: unknown) => {
+    if (value === null || value === undefined) return value;
+    const parsed = storedScanSpecSchema.safeParse(value);
+    if (!parsed.success) throw new Error(`scans.spec does not read as a stored scan spec: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
+    return parsed.data;
+  },
+};
 
 /**
  * One submitted grid. MariaDB is the record: the counters and status here, with the
@@ -42,9 +53,9 @@ export class Scan {
   @Column({ type: 'enum', enum: SCAN_STATUSES, default: 'draft' })
   status: ScanStatus;
 
-  /** The full specification as submitted (validated by the shared scan schema). */
-  @Column({ type: 'json' })
-  spec: Record<string, unknown>;
+  /** The full specification as submitted, read back through the shared stored-spec schema. */
+  @Column({ type: 'json', transformer: STORED_SPEC })
+  spec: StoredScanSpec;
 
   @Column({ type: 'text' })
   note: string;

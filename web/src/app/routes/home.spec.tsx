@@ -1,6 +1,7 @@
 import { screen, waitFor, within } from '@testing-library/react';
 import type { CurrentUser, ScanDetail, ScanSummary, WorkerPool } from '@sixtyfold/shared';
 import { memberUser, scan } from '@/testing/fixtures';
+import { naturalSpec } from '@/testing/scan-fixtures';
 import { apiError, json, mockApi, type MockRequest } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render';
 
@@ -16,7 +17,7 @@ function detailOf(summary: ScanSummary, progress: Partial<ScanDetail['progress']
   return {
     ...summary,
     note: '',
-    spec: {},
+    spec: naturalSpec,
     startedAt: '2026-11-30T09:16:00.000Z',
     progress: {
       total: summary.totalPoints,

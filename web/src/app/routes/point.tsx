@@ -15,7 +15,6 @@ import { useGroup } from '@/features/groups/api/get-group';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanPointView } from '@/features/scans/components/point/scan-point-view';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
-import { storedSpecOf } from '@/features/scans/utils/scan-spec';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 
 export function PointRoute() {
@@ -34,19 +33,19 @@ export function PointRoute() {
   if (scan.isPending) return <LoadingState label="Loading the scan…" />;
   if (scan.isError && !scan.data) return <ErrorState title={`Could not load scan ${scanId}`} error={scan.error} onRetry={() => scan.refetch()} />;
 
-  const spec = storedSpecOf(scan.data);
-  const size = spec ? pointCount(spec) : scan.data.totalPoints;
+  const spec = scan.data.spec;
+  const size = pointCount(spec);
   const back = (
     <AppLink to={paths.scan.getHref(scanId)} color="ink.fg">
       Back to the scan
     </AppLink>
   );
-  if (!spec || pointIndex >= size) {
+  if (pointIndex >= size) {
     return (
       <EmptyState
         icon={<ScanGridIcon />}
-        title={spec ? `Point ${pointIndex} is outside this scan` : 'This scan cannot be read by this version of Sixtyfold'}
-        description={spec ? `“${scan.data.name}” has ${size.toLocaleString('en-US')} points, numbered 0 to ${(size - 1).toLocaleString('en-US')}.` : 'Reload the page to get the latest version of the app.'}
+        title={`Point ${pointIndex} is outside this scan`}
+        description={`“${scan.data.name}” has ${size.toLocaleString('en-US')} points, numbered 0 to ${(size - 1).toLocaleString('en-US')}.`}
       >
         {back}
       </EmptyState>

@@ -1,5 +1,5 @@
 import { screen, waitFor, within } from '@testing-library/react';
-import { createScanSchema, type CurrentUser, type PotentialModel, type ScanDetail, type StoredScanSpec, type WorkerPool } from '@sixtyfold/shared';
+import { createScanSchema, type CreateScan, type CurrentUser, type PotentialModel, type ScanDetail, type StoredScanSpec, type WorkerPool } from '@sixtyfold/shared';
 import { adminUser, memberUser, scan } from '@/testing/fixtures';
 import { apiError, json, mockApi, type MockRequest } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render';
@@ -39,9 +39,11 @@ const pool = (concurrencies: number[]): WorkerPool => ({
   queue: { waiting: 0, active: 0, delayed: 0, failed: 0 },
 });
 
+/** What the API answers to a posted spec: it stored it, with its potential frozen (here: a family, so its key). */
 function created(body: unknown): ScanDetail {
-  const spec = body as StoredScanSpec;
-  return { ...scan({ id: 321, name: spec.name, status: 'queued', donePoints: 0 }), note: '', spec: { ...spec }, startedAt: null, progress: { total: 10, done: 0, failed: 0, running: 0, queued: 10, elapsedSeconds: null, remainingSeconds: null } };
+  const posted = body as CreateScan;
+  const spec: StoredScanSpec = { ...posted, potentialSource: posted.model.kind === 'family' ? posted.model.family : 'phi^2' };
+  return { ...scan({ id: 321, name: spec.name, status: 'queued', donePoints: 0 }), note: '', spec, startedAt: null, progress: { total: 10, done: 0, failed: 0, running: 0, queued: 10, elapsedSeconds: null, remainingSeconds: null } };
 }
 
 function mockForm(overrides: Record<string, (request: MockRequest) => Response> = {}, user: CurrentUser = memberUser) {
@@ -160,7 +162,11 @@ describe('New scan page', { timeout: 30_000 }, () => {
 
   it('takes the points from a file instead: read here with its line on a refusal, then sent as multipart', async () => {
     const { requests } = mockForm({
-      'POST /api/scans/upload': (request) => json(201, created(JSON.parse(String((request.body as FormData).get('spec'))))),
+      // The API reads the points file into the stored spec's point list (the three points of picked.csv below).
+      'POST /api/scans/upload': (request) => json(201, created({
+        ...JSON.parse(String((request.body as FormData).get('spec'))),
+        pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] },
+      })),
     });
     const { user, router } = renderApp('/scans/new');
     await formReady();
@@ -303,7 +309,11 @@ describe('New scan page', { timeout: 30_000 }, () => {
     const { requests } = mockForm({
       'GET /api/scans/56': () =>
         json(200, { ...scan({ id: 56, name: 'Picked points', status: 'completed' }), note: '', spec, startedAt: null, progress: { total: 3, done: 3, failed: 0, running: 0, queued: 0, elapsedSeconds: 1, remainingSeconds: 0 } }),
-      'POST /api/scans/upload': (request) => json(201, created(JSON.parse(String((request.body as FormData).get('spec'))))),
+      // The API reads the points file into the stored spec's point list (the three points of picked.csv below).
+      'POST /api/scans/upload': (request) => json(201, created({
+        ...JSON.parse(String((request.body as FormData).get('spec'))),
+        pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] },
+      })),
     });
     const { user } = renderApp('/scans/new?from=56');
     await formReady();

@@ -1,4 +1,4 @@
-import { Alert, Stack } from '@chakra-ui/react';
+import { Stack } from '@chakra-ui/react';
 import type { CurrentUser, ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import { useNavigate, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
@@ -19,7 +19,6 @@ import { ScanHeader } from '@/features/scans/components/scan-header';
 import { ScanViews } from '@/features/scans/components/scan-views';
 import { useRefreshWhenFinished } from '@/features/scans/hooks/use-refresh-when-finished';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
-import { storedSpecOf } from '@/features/scans/utils/scan-spec';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { groupNamesOf } from '@/lib/group-names';
 
@@ -30,7 +29,7 @@ export function ScanRoute() {
   const scan = useScan(scanId ?? 0);
   useDocumentTitle(scan.data?.name ?? 'Scan');
   useRefreshWhenFinished(scan.data);
-  const spec = scan.data ? storedSpecOf(scan.data) : null;
+  const spec = scan.data?.spec;
   const model = useModel(spec?.model.kind === 'group' ? spec.model.modelId : null);
 
   if (scanId === null) {
@@ -43,26 +42,14 @@ export function ScanRoute() {
   return (
     <Stack gap="0">
       {scan.isError && <ErrorState title="Could not refresh the scan; showing what was loaded last" error={scan.error} onRetry={() => scan.refetch()} />}
-      {spec ? (
-        <>
-          <ScanHeader
-            scan={scan.data}
-            spec={spec}
-            groupName={groupName}
-            model={model}
-            actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
-          />
-          <ScanResults scan={scan.data} spec={spec} user={user} />
-        </>
-      ) : (
-        <Alert.Root status="error" variant="subtle" borderRadius="lg" role="alert">
-          <Alert.Indicator />
-          <Alert.Content>
-            <Alert.Title>Scan {scan.data.id}, “{scan.data.name}”, has a specification this version of Sixtyfold cannot read</Alert.Title>
-            <Alert.Description>Reload the page to get the latest version of the app; if it stays, tell your site administrator.</Alert.Description>
-          </Alert.Content>
-        </Alert.Root>
-      )}
+      <ScanHeader
+        scan={scan.data}
+        spec={scan.data.spec}
+        groupName={groupName}
+        model={model}
+        actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
+      />
+      <ScanResults scan={scan.data} spec={scan.data.spec} user={user} />
     </Stack>
   );
 }

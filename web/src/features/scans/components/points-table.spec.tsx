@@ -2,6 +2,7 @@ import type { ScanDetail, ScanPointDto } from '@sixtyfold/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { Route, Routes, useLocation } from 'react-router-dom';
 import { scan } from '@/testing/fixtures';
+import { naturalSpec } from '@/testing/scan-fixtures';
 import { json, mockApi } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render';
 import { ScanPointsTable } from './points-table';
@@ -10,10 +11,7 @@ const detail: ScanDetail = {
   ...scan({ status: 'completed', totalPoints: 4, donePoints: 3, failedPoints: 1 }),
   note: '',
   startedAt: null,
-  spec: {
-    axes: [{ kind: 'list', parameter: 'f', values: [5, 7] }, { kind: 'list', parameter: 'nStar', values: [50, 60] }],
-    pivot: { kind: 'fixed' },
-  },
+  spec: { ...naturalSpec, axes: [{ kind: 'list', parameter: 'f', values: [5, 7] }, { kind: 'list', parameter: 'nStar', values: [50, 60] }] },
   progress: { total: 4, done: 3, failed: 1, running: 0, queued: 0, elapsedSeconds: 2, remainingSeconds: null },
 };
 

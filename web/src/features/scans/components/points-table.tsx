@@ -50,7 +50,7 @@ function columnsOf(spec: StoredScanSpec): Column[] {
  * address so a filtered view can be shared, and the downloads use the same filters.
  */
 export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
-  const spec = scan.spec as unknown as StoredScanSpec;
+  const spec = scan.spec;
   const columns = columnsOf(spec);
   const [params, setParams] = useSearchParams();
   const query: PointsQuery = { ...readPointsQuery(params), pageSize: String(PAGE_SIZE) };

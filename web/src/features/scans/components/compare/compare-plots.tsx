@@ -57,7 +57,7 @@ export function ComparePlots({ scanIds, useRegionOverlay }: { scanIds: number[];
 
 function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRegionOverlay: UseRegionOverlay }) {
   const navigate = useNavigate();
-  const specs = scans.map((scan) => scan.spec as unknown as StoredScanSpec);
+  const specs = scans.map((scan) => scan.spec);
   const axes = commonAxes(specs);
   const [params, update] = useViewParams();
 
