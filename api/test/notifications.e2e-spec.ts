@@ -3,7 +3,7 @@ import type request from 'supertest';
 import { Group } from '../src/groups/entities/group.entity';
 import { Notification } from '../src/notifications/entities/notification.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
-import { completeIfAllStored } from '../src/scans/scan-completion';
+import { scanLifecycle } from '../src/database/scan-lifecycle';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
@@ -36,7 +36,7 @@ describe('notifications and their e-mails', () => {
       groupId: plateauId, ownerId: ids.get(ownerEmail)!, name, method: 'slowroll', status: 'running', spec: {}, note: '',
       totalPoints: done + failed, donePoints: done, failedPoints: failed, queuedAt: new Date(), startedAt: new Date(),
     });
-    await completeIfAllStored(t.db, scan.id);
+    await scanLifecycle.finishIfAllStored(t.db, scan.id);
     return scan.id;
   };
 

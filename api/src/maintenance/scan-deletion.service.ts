@@ -2,7 +2,8 @@ import { ConflictException, Injectable } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import { AuditService } from '../audit/audit.service';
-import { Scan } from '../scans/entities/scan.entity';
+import type { ScanStatus } from '@sixtyfold/shared';
+import { scanLifecycle } from '../database/scan-lifecycle';
 import { ScanArchivesService } from './scan-archives.service';
 
 export type DeletionReason = 'manual' | 'prune' | 'retention';
@@ -29,21 +30,19 @@ export class ScanDeletionService {
   async delete(scanId: number, actorId: number | null, reason: DeletionReason, onlyFinished: boolean): Promise<DeletedScan> {
     const archive = await this.archives.write(scanId, actorId);
     await this.db.transaction(async (tx) => {
-      const [locked]: { status: string; group_id: number; name: string; owner_id: number; total_points: number }[] = await tx.query(
+      const [locked]: { status: ScanStatus; group_id: number; name: string; owner_id: number; total_points: number }[] = await tx.query(
         'SELECT status, group_id, name, owner_id, total_points FROM scans WHERE id = ? FOR UPDATE', [scanId],
       );
       if (!locked) throw new ConflictException(`Scan ${scanId} was already deleted`);
       if (onlyFinished && (locked.status === 'queued' || locked.status === 'running')) {
         throw new ConflictException(`Scan ${scanId} is ${locked.status} again; a queued or running scan is never pruned`);
       }
-      // A worker that still holds a chunk stops at the cancelled status instead of writing points.
-      await tx.getRepository(Scan).update({ id: scanId }, { status: 'cancelled' });
       await this.audit.record({
         action: 'scan.delete', actorId, groupId: locked.group_id, targetType: 'scan', targetId: scanId,
         // points: the scan's grid size, as before; archivedPoints: the rows the archive holds.
         details: { reason, archiveId: archive.id, points: Number(locked.total_points), archivedPoints: archive.points, name: locked.name, owner: locked.owner_id },
       }, tx);
-      await tx.getRepository(Scan).delete({ id: scanId });
+      await scanLifecycle.remove(tx, scanId, locked.status, reason === 'manual' ? 'lead' : 'maintenance');
     });
     return { scanId, archiveId: archive.id, points: archive.points };
   }

@@ -74,7 +74,7 @@ export class ScanFinishNotifierService {
   }
 }
 
-/** The notice follows the status the scan finished with (see scan-completion.ts). */
+/** The notice follows the status the scan finished with (see `scanLifecycle.finishIfAllStored`). */
 function finishKind(scan: FinishedScan): NotificationKind {
   if (scan.status === 'cancelled') return 'scan_cancelled';
   if (scan.status === 'failed') return 'scan_failed';

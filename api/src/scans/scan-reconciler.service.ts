@@ -6,7 +6,7 @@ import { chunkSize, scanChunks } from '@sixtyfold/shared';
 import type { AppConfig } from '../config/app.config';
 import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { Scan } from './entities/scan.entity';
-import { completeIfAllStored } from './scan-completion';
+import { scanLifecycle } from '../database/scan-lifecycle';
 import { ScanQueueService } from './scan-queue.service';
 
 /**
@@ -69,7 +69,7 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
     const stored = new Map(rows.map((r) => [Number(r.chunk), Number(r.stored)]));
     const incomplete = scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start);
     if (incomplete.length === 0) {
-      await completeIfAllStored(this.db, scan.id);
+      await scanLifecycle.finishIfAllStored(this.db, scan.id);
       return 0;
     }
     // A chunk whose job or continuation is on the queue is on its way; one without is computed

@@ -9,6 +9,7 @@ import {
 import { z } from 'zod';
 import { AuditService } from '../audit/audit.service';
 import { zodBadRequest } from '../common/pipes/zod-validation.pipe';
+import { checkTransition, scanLifecycle } from '../database/scan-lifecycle';
 import type { SessionUser } from '../common/session-user';
 import { readCsvUpload, uploadBadRequest } from '../common/uploads/read-csv-upload';
 import type { AppConfig } from '../config/app.config';
@@ -55,19 +56,18 @@ export class ScansService {
     if (tooLarge) throw new BadRequestException({ message: tooLarge, fieldErrors: { [spec.pointList ? 'pointList' : 'axes']: [tooLarge] } });
 
     const scanId = await this.db.transaction(async (tx) => {
-      const saved = await tx.getRepository(Scan).save({
+      const saved = await scanLifecycle.create(tx, {
         groupId: spec.groupId,
         ownerId: user.id,
         modelId: spec.model.kind === 'group' ? spec.model.modelId : null,
         family: spec.model.kind === 'family' ? spec.model.family : null,
         name: spec.name,
         method: spec.method,
-        status: 'queued',
         spec: stored,
         note: spec.note,
         totalPoints: total,
         queuedAt: new Date(),
-      });
+      }, 'submit', 'member');
       const tags = [...new Set(spec.tags)];
       if (tags.length) await tx.getRepository(ScanTag).insert(tags.map((tag) => ({ scanId: saved.id, tag })));
       await this.audit.record({ action: 'scan.create', actorId: user.id, groupId: spec.groupId, targetType: 'scan', targetId: saved.id, details: { points: total } }, tx);
@@ -171,15 +171,7 @@ export class ScansService {
   async cancel(user: SessionUser, id: number): Promise<ScanDetail> {
     const scan = await this.load(user, id);
     await this.requireOwnerOrLead(user, scan, 'cancel');
-    if (scan.status !== 'queued' && scan.status !== 'running') {
-      throw new ConflictException(`The scan is ${scan.status}; only queued or running scans can be cancelled`);
-    }
-    await this.scans
-      .createQueryBuilder()
-      .update(Scan)
-      .set({ status: 'cancelled', finishedAt: () => 'CURRENT_TIMESTAMP(3)' })
-      .where('id = :id AND status IN (:...live)', { id, live: ['queued', 'running'] })
-      .execute();
+    await scanLifecycle.cancel(this.db, id, scan.status, 'owner or lead');
     await this.queue.remove(id);
     await this.audit.record({ action: 'scan.cancel', actorId: user.id, groupId: scan.groupId, targetType: 'scan', targetId: id });
     return this.get(user, id);
@@ -189,7 +181,7 @@ export class ScansService {
   async retryFailed(user: SessionUser, id: number): Promise<ScanDetail> {
     const scan = await this.load(user, id);
     await this.requireOwnerOrLead(user, scan, 'retry');
-    if (scan.status === 'queued' || scan.status === 'running') throw new ConflictException('The scan is still running; retry its failed points when it has finished');
+    checkTransition('reopen', scan.status, 'owner or lead');
     const size = chunkSize(scan.totalPoints, scan.method);
     // The failed rows are deleted, so the points are missing again: the scan completes exactly
     // when the last of them is stored anew, and reconciliation re-queues them if jobs vanish.
@@ -201,7 +193,7 @@ export class ScansService {
       );
       if (rows.length === 0) return [];
       const removed: { affectedRows: number } = await tx.query("DELETE FROM scan_points WHERE scan_id = ? AND status <> 'ok'", [id]);
-      await tx.query("UPDATE scans SET status = 'running', finished_at = NULL, finish_notified_at = NULL, failed_points = failed_points - ? WHERE id = ?", [removed.affectedRows, id]);
+      await scanLifecycle.reopen(tx, id, scan.status, 'owner or lead', removed.affectedRows);
       return rows.map((r) => Number(r.chunk));
     });
     if (chunks.length === 0) throw new ConflictException('The scan has no failed points');
@@ -215,11 +207,11 @@ export class ScansService {
     const scan = await this.load(user, id);
     await this.access.require(user, scan.groupId, 'member', 'scan');
     const copy = await this.db.transaction(async (tx) => {
-      const saved = await tx.getRepository(Scan).save({
+      const saved = await scanLifecycle.create(tx, {
         groupId: scan.groupId, ownerId: user.id, modelId: scan.modelId, family: scan.family,
-        name: `Copy of ${scan.name}`.slice(0, 200), method: scan.method, status: 'draft', spec: scan.spec,
+        name: `Copy of ${scan.name}`.slice(0, 200), method: scan.method, spec: scan.spec,
         note: scan.note, totalPoints: scan.totalPoints,
-      });
+      }, 'draft', 'member');
       const tags = (scan.tags ?? []).map((t) => ({ scanId: saved.id, tag: t.tag }));
       if (tags.length) await tx.getRepository(ScanTag).insert(tags);
       return saved;

@@ -2,7 +2,7 @@ import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { completeIfAllStored, Scan, ScanPoint } from '@sixtyfold/api/database';
+import { Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
 import { continuationOf, pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
 
@@ -64,12 +64,7 @@ export class ComputeChunkService {
     const scan = await this.db.getRepository(Scan).findOneBy({ id: job.scanId });
     if (!scan) return skipped('missing');
     if (scan.status === 'cancelled') return skipped('cancelled');
-    await this.db
-      .createQueryBuilder()
-      .update(Scan)
-      .set({ status: 'running', startedAt: () => 'CURRENT_TIMESTAMP(3)' })
-      .where('id = :id AND status = :queued', { id: scan.id, queued: 'queued' })
-      .execute();
+    await scanLifecycle.start(this.db, scan.id);
 
     const spec = scan.spec;
     const points = scanPoints(spec);
@@ -140,7 +135,7 @@ export class ComputeChunkService {
     }
     const now = new Date();
     return this.db.transaction(async (tx) => {
-      if (!(await this.lockLiveScan(tx, scan.id))) return 0;
+      if (!(await scanLifecycle.lockForStore(tx, scan.id))) return 0;
       const present: { point_index: number }[] = await tx.query(
         'SELECT point_index FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE',
         [scan.id, job.start, job.end],
@@ -155,7 +150,6 @@ export class ComputeChunkService {
         await this.write(tx, scan.id, { start: rows[0].pointIndex, end: i }, rows);
         written += rows.length;
       }
-      await completeIfAllStored(tx, scan.id);
       return written;
     });
   }
@@ -167,23 +161,12 @@ export class ComputeChunkService {
 
   /** Writes the points of `range` (exactly `rows`) unless the scan was cancelled or deleted meanwhile; false when skipped. */
   private async store(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<boolean> {
-    if (!(await this.lockLiveScan(tx, scanId))) return false;
+    if (!(await scanLifecycle.lockForStore(tx, scanId))) return false;
     await this.write(tx, scanId, range, rows);
-    await completeIfAllStored(tx, scanId);
     return true;
   }
 
-  /**
-   * Locks the scan row; false when the scan is gone or cancelled. Every store of a scan takes
-   * this lock first, in the same order, and a cancel (which updates this row) is either before
-   * this check or after the store's commit.
-   */
-  private async lockLiveScan(tx: EntityManager, scanId: number): Promise<boolean> {
-    const [scanRow] = await tx.query('SELECT status FROM scans WHERE id = ? FOR UPDATE', [scanId]);
-    return Boolean(scanRow) && scanRow.status !== 'cancelled';
-  }
-
-  /** Upserts `rows`, which are exactly the points of `range`, and moves the counters by the difference they make. Under the scan's lock. */
+  /** Upserts `rows`, which are exactly the points of `range`, and moves the counters by the difference they make (finishing the scan with its last point). Under the scan's lock. */
   private async write(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<void> {
     // What an earlier attempt stored in this range; after the write the range holds exactly `rows`.
     const [before] = await tx.query(
@@ -194,10 +177,7 @@ export class ComputeChunkService {
     const { sql, parameters } = this.upsert(rows);
     await tx.query(sql, parameters);
     const ok = rows.filter((r) => r.status === 'ok').length;
-    await tx.query(
-      `UPDATE scans SET done_points = done_points + ?, failed_points = failed_points + ? WHERE id = ?`,
-      [ok - Number(before.ok), rows.length - ok - Number(before.bad), scanId],
-    );
+    await scanLifecycle.store(tx, scanId, { ok: ok - Number(before.ok), failed: rows.length - ok - Number(before.bad) });
   }
 
   /**
