@@ -15,6 +15,7 @@ import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { storedSpec } from './support/stored-spec';
 
 type Role = 'anonymous' | 'admin' | 'lead' | 'member' | 'viewer' | 'outsider';
 const ROLES: Role[] = ['anonymous', 'admin', 'lead', 'member', 'viewer', 'outsider'];
@@ -195,7 +196,7 @@ describe('every route against every role', () => {
     const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
     const scan = await t.db.getRepository(Scan).save({
       groupId: plateauId, ownerId: owner.id, name: 'access-table draft', method: 'slowroll', status: 'draft',
-      spec: { axes: [{ kind: 'list', parameter: 'f', values: [5, 7] }, { kind: 'list', parameter: 'nStar', values: [50, 60] }] },
+      spec: storedSpec(plateauId),
       note: '', totalPoints: 4,
     });
     plateauScanId = scan.id;
@@ -207,7 +208,7 @@ describe('every route against every role', () => {
     for (const role of ROLES) {
       const own = await t.db.getRepository(Scan).save({
         groupId: plateauId, ownerId: owner.id, name: `access-table queued (${role})`, method: 'slowroll', status: 'queued',
-        spec: {}, note: '', totalPoints: 1,
+        spec: storedSpec(plateauId), note: '', totalPoints: 1,
       });
       ownScan.set(role, own.id);
     }
@@ -241,7 +242,7 @@ describe('every route against every role', () => {
       userId: owner.id, kind: 'mentioned', payload: { title: 'access table', link: null }, eventKey: `access-table-${Date.now()}`, emailedAt: new Date(),
     })).id;
     // A deleted scan's archive, for the download row.
-    const archived = await t.db.getRepository(Scan).save({ groupId: plateauId, ownerId: owner.id, name: 'access-table archived', method: 'slowroll', status: 'completed', spec: {}, note: '', totalPoints: 0 });
+    const archived = await t.db.getRepository(Scan).save({ groupId: plateauId, ownerId: owner.id, name: 'access-table archived', method: 'slowroll', status: 'completed', spec: storedSpec(plateauId), note: '', totalPoints: 0 });
     await agents.get('admin')!.delete(`/api/scans/${archived.id}`).set('content-type', 'application/json').send('{}');
     plateauArchiveId = (await agents.get('admin')!.get(`/api/maintenance/archives?groupId=${plateauId}`)).body[0].id;
     const models = t.db.getRepository(PotentialModel);
@@ -305,7 +306,7 @@ describe('group isolation', () => {
     const plateau = await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' });
     const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
     const scan = await t.db.getRepository(Scan).save({
-      groupId: plateau.id, ownerId: owner.id, name: 'isolation draft', method: 'exact', status: 'draft', spec: {}, note: '',
+      groupId: plateau.id, ownerId: owner.id, name: 'isolation draft', method: 'exact', status: 'draft', spec: storedSpec(plateau.id), note: '',
     });
     try {
       const agent = await t.signIn(DEMO.tensorMember);

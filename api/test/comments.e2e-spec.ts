@@ -5,6 +5,7 @@ import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { storedSpec } from './support/stored-spec';
 
 describe('comments on scans and points', () => {
   let t: TestApp;
@@ -14,7 +15,7 @@ describe('comments on scans and points', () => {
     const plateau = await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' });
     const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
     scanId = (await t.db.getRepository(Scan).save({
-      groupId: plateau.id, ownerId: owner.id, name: 'comments draft', method: 'slowroll', status: 'draft', spec: {}, note: '', totalPoints: 4,
+      groupId: plateau.id, ownerId: owner.id, name: 'comments draft', method: 'slowroll', status: 'draft', spec: storedSpec(plateau.id), note: '', totalPoints: 4,
     })).id;
   });
   afterAll(async () => {

@@ -8,6 +8,7 @@ import { Scan } from '../src/scans/entities/scan.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { createUser, runTag } from './support/users';
+import { storedSpec } from './support/stored-spec';
 
 // The counts are per user, so the authors and leads here are new accounts: nothing another
 // suite did with the demo users counts against them.
@@ -26,7 +27,7 @@ describe('hourly limits on the e-mails one user causes', () => {
     plateauId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
     const owner = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
     scanId = (await t.db.getRepository(Scan).save({
-      groupId: plateauId, ownerId: owner.id, name: `mail limits ${tag}`, method: 'slowroll', status: 'draft', spec: {}, note: '', totalPoints: 4,
+      groupId: plateauId, ownerId: owner.id, name: `mail limits ${tag}`, method: 'slowroll', status: 'draft', spec: storedSpec(plateauId), note: '', totalPoints: 4,
     })).id;
   });
   afterAll(async () => {

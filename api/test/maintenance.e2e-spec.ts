@@ -15,6 +15,7 @@ import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { ScanTag } from '../src/scans/entities/scan-tag.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
+import { storedSpec } from './support/stored-spec';
 
 type Status = Scan['status'];
 
@@ -86,7 +87,7 @@ describe('storage, pruning, archives and retention', () => {
     const points = o.points ?? 4;
     const scan = await t.db.getRepository(Scan).save({
       groupId: o.groupId, ownerId: o.ownerId, name: o.name, method: 'slowroll', status, note: `seeded for ${o.tag}`,
-      spec: { model: { kind: 'family', family: 'starobinsky' }, axes: [{ kind: 'list', parameter: 'nStar', values: [50, 55, 60] }], seed: o.name },
+      spec: storedSpec(o.groupId, { name: o.name, model: { kind: 'family', family: 'starobinsky' }, potentialSource: 'starobinsky', axes: [{ kind: 'list', parameter: 'nStar', values: [50, 55, 60] }] }),
       totalPoints: points, donePoints: points, failedPoints: points > 0 ? 1 : 0,
     });
     await t.db.getRepository(ScanTag).save({ scanId: scan.id, tag: o.tag });

@@ -7,6 +7,7 @@ import { scanLifecycle } from '../src/database/scan-lifecycle';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
+import { storedSpec } from './support/stored-spec';
 
 type Agent = ReturnType<typeof request.agent>;
 
@@ -33,7 +34,7 @@ describe('notifications and their e-mails', () => {
   /** A scan whose points are all stored, finished by the same SQL the worker runs. */
   const finishScan = async (ownerEmail: string, name: string, done: number, failed: number) => {
     const scan = await t.db.getRepository(Scan).save({
-      groupId: plateauId, ownerId: ids.get(ownerEmail)!, name, method: 'slowroll', status: 'running', spec: {}, note: '',
+      groupId: plateauId, ownerId: ids.get(ownerEmail)!, name, method: 'slowroll', status: 'running', spec: storedSpec(plateauId), note: '',
       totalPoints: done + failed, donePoints: done, failedPoints: failed, queuedAt: new Date(), startedAt: new Date(),
     });
     await scanLifecycle.finishIfAllStored(t.db, scan.id);
@@ -83,7 +84,7 @@ describe('notifications and their e-mails', () => {
     const failedId = await finishScan(DEMO.plateauMember, failedName, 0, 2);
     const cancelledName = `Cancel check ${stamp}`;
     const live = await t.db.getRepository(Scan).save({
-      groupId: plateauId, ownerId: ids.get(DEMO.plateauMember)!, name: cancelledName, method: 'slowroll', status: 'queued', spec: {}, note: '', totalPoints: 1,
+      groupId: plateauId, ownerId: ids.get(DEMO.plateauMember)!, name: cancelledName, method: 'slowroll', status: 'queued', spec: storedSpec(plateauId), note: '', totalPoints: 1,
     });
     const lead = await t.signIn(DEMO.plateauLead);
     expect((await lead.post(`/api/scans/${live.id}/cancel`).send({})).status).toBe(200);

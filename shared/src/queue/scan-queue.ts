@@ -76,14 +76,12 @@ export function scanChunks(scanId: number, total: number, method: ScanMethod): C
 }
 
 /**
- * Bull priority of a chunk (1 is first). Interactive previews get 1; the k-th chunk of a scan
- * gets 2 + k, so the first chunks of a colleague's small scan go ahead of the thousandth chunk
+ * Bull priority of a chunk (1 is first, kept free). The k-th chunk of a scan gets 2 + k, so the first chunks of a colleague's small scan go ahead of the thousandth chunk
  * of an overnight one: every scan advances, none starves.
  */
 export function chunkPriority(chunk: number): number {
   return Math.min(2 + chunk, 2_000_000);
 }
-export const PREVIEW_PRIORITY = 1;
 
 /**
  * What one time slice of a chunk counts as, in chunks: a slice (30 s by default) is the work of

@@ -123,12 +123,13 @@ export class ComputeChunkService {
    * scan completes when they were its last. Returns the number of points written.
    */
   async storeGivenUp(job: ComputeChunkJob, reason: string): Promise<number> {
-    const scan = await this.db.getRepository(Scan).findOneBy({ id: job.scanId });
+    const scans = this.db.getRepository(Scan);
+    const scan = await scans.findOne({ where: { id: job.scanId }, select: { id: true, status: true } });
     if (!scan || scan.status === 'cancelled') return 0;
     // The inputs, when the stored spec can be read at all (it may be what made the chunk fail).
     let inputs: (i: number) => Record<string, number> = () => ({});
     try {
-      const points = scanPoints(scan.spec);
+      const points = scanPoints((await scans.findOneByOrFail({ id: job.scanId })).spec);
       inputs = (i) => points.point(i);
     } catch {
       // Stored without inputs; the reason says what went wrong.
