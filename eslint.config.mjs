@@ -4,23 +4,27 @@
 // DEVELOPERS.md describes ("Boundaries"), so that the build refuses a change that breaks it.
 import { readdirSync } from 'node:fs';
 import { builtinModules } from 'node:module';
+import { fileURLToPath } from 'node:url';
 import js from '@eslint/js';
 import { defineConfig, globalIgnores } from 'eslint/config';
 import tseslint from 'typescript-eslint';
 
 const SOURCES = '**/*.{ts,tsx,mts,cts,js,mjs,cjs}';
 const FEATURES_DIR = 'web/src/features';
-// Deepest folder below a feature's root that the relative-import rule covers (components/scan-form/parts is 2).
-const MAX_FEATURE_DEPTH = 6;
+// Read beside this file, whichever folder ESLint was started in.
+const featuresPath = fileURLToPath(new URL(FEATURES_DIR, import.meta.url));
 
 /** One no-restricted-imports pattern: a regular expression on the import source, and why it is refused. */
 const refuse = (regex, message) => ({ regex, message });
 
 /** Web: a feature reaches another feature only through the routes that compose them. */
 function featureBlocks() {
-  const features = readdirSync(FEATURES_DIR, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name);
+  const features = readdirSync(featuresPath, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name);
+  // Folders between a feature's root and its deepest file (features/scans/components/plane/x.tsx: 2), read
+  // from the tree each time the config loads, so every file has a block that knows its depth.
+  const deepest = Math.max(...readdirSync(featuresPath, { recursive: true }).map((file) => String(file).split('/').length - 2));
   return features.flatMap((feature) =>
-    Array.from({ length: MAX_FEATURE_DEPTH + 1 }, (_, depth) => ({
+    Array.from({ length: deepest + 1 }, (_, depth) => ({
       name: `boundaries/web-feature-${feature}-depth-${depth}`,
       files: [`${FEATURES_DIR}/${feature}/${'*/'.repeat(depth)}*.{ts,tsx}`],
       rules: {
@@ -50,8 +54,6 @@ export default defineConfig([
     '**/.data/',
     '**/coverage/',
     'web/test-results/',
-    // Emitted by tsc beside the sources when someone runs it without -p.
-    '**/*.d.ts',
   ]),
   {
     files: [SOURCES],
