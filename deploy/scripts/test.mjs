@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // `npm test`: the same set-up as `npm start`, against a separate test database and Redis
-// (.data/test, their own ports), then every suite: vitest (shared, web), jest (api, worker)
-// and the browser tests against a running API. Exits non-zero if any suite fails.
+// (.data/test, their own ports), then every suite: the lint first (ESLint and the file checks, no
+// services needed), vitest (shared, web), jest (api, worker) and the browser tests against a running
+// API. Exits non-zero if any suite fails.
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
@@ -13,9 +14,11 @@ import { ensureDebianPackages, profilePackages, startProfileServices } from './l
 
 // Tests never read .env: a developer's settings must not point the suites at real data.
 const profile = resolveProfile('test');
-// `npm test -- api worker` runs only the named suites (shared, web, api, worker, browser);
+// `npm test -- api worker` runs only the named suites (lint, shared, web, api, worker, browser);
 // `npm test -- api:invitations api:mail` runs only the api test files whose path matches one of them.
-const SUITES = ['shared', 'web', 'api', 'worker', 'browser'];
+const SUITES = ['lint', 'shared', 'web', 'api', 'worker', 'browser'];
+// The lint suite's files, run by node's own test runner (they read files only).
+const LINT_SPECS = ['deploy/scripts/lint.spec.mjs', 'deploy/scripts/env-example.spec.mjs'];
 const filters = new Map();
 for (const arg of process.argv.slice(2)) {
   const [name, pattern] = arg.split(':');
@@ -36,6 +39,11 @@ rmSync(reports, { recursive: true, force: true });
 mkdirSync(reports, { recursive: true });
 
 ensureNodePackages();
+const results = [];
+if (wanted('lint')) results.push(runLintSuite());
+// A lint error fails the run at once, before minutes of set-up; a run of the lint alone needs no services either.
+if (results.some((r) => !r.ok) || !SUITES.some((name) => name !== 'lint' && wanted(name))) finish();
+
 ensureDebianPackages({
   ...profilePackages(profile),
   chromium: 'chromium',
@@ -109,7 +117,6 @@ function runSuite(name, args, extraEnv = {}) {
 const vitestJson = (ws, suite, script = 'test') =>
   ['run', script, '-w', ws, '--', ...filterArgs(suite, 'vitest'), '--reporter=default', '--reporter=json', '--outputFile.json'];
 const jestJson = (ws) => ['run', 'test', '-w', ws, '--', ...filterArgs(ws, 'jest'), '--json', '--outputFile'];
-const results = [];
 if (wanted('shared')) results.push(runSuite('shared', vitestJson('shared', 'shared')));
 if (wanted('web')) results.push(runSuite('web', vitestJson('web', 'web')));
 if (wanted('api')) results.push(runSuite('api', jestJson('api')));
@@ -128,12 +135,32 @@ if (wanted('browser')) {
   }
 }
 await cleanUp();
+finish();
 
-const passed = results.reduce((n, r) => n + r.passed, 0);
-const failed = results.reduce((n, r) => n + r.failed, 0);
-process.stdout.write('\n');
-for (const r of results) process.stdout.write(`  ${r.ok ? 'ok  ' : 'FAIL'}  ${r.name.padEnd(8)} ${r.passed} passed, ${r.failed} failed\n`);
-const failedSuites = results.filter((r) => !r.ok).map((r) => r.name);
-if (failedSuites.length) process.stdout.write(`\n[sixtyfold] failed suites: ${failedSuites.join(', ')}\n`);
-process.stdout.write(`\ntests: ${passed} passed, ${failed} failed\n`);
-process.exit(failedSuites.length ? 1 : 0);
+/** The lint suite: node's test runner over LINT_SPECS (`lint:env` picks the files whose path contains `env`). */
+function runLintSuite() {
+  log('suite lint');
+  const patterns = filters.get('lint');
+  const files = LINT_SPECS.filter((file) => !patterns || patterns.some((p) => file.includes(p)));
+  const tap = path.join(reports, 'lint.tap');
+  const result = spawnSync(process.execPath, [
+    '--test', '--test-reporter=spec', '--test-reporter-destination=stdout', '--test-reporter=tap', `--test-reporter-destination=${tap}`, ...files,
+  ], { cwd: ROOT, stdio: 'inherit', env: { ...process.env, FORCE_COLOR: '0' } });
+  const summary = existsSync(tap) ? readFileSync(tap, 'utf8') : '';
+  const count = (word) => Number(summary.match(new RegExp(`^# ${word} (\\d+)$`, 'm'))?.[1] ?? 0);
+  const ok = result.status === 0 && files.length > 0;
+  // As in runSuite: a runner that failed without saying what counts as one failure.
+  return { name: 'lint', ok, passed: count('pass'), failed: ok ? 0 : Math.max(count('fail'), 1) };
+}
+
+/** Prints each suite's counts and ends the run, non-zero if any suite failed. */
+function finish() {
+  const passed = results.reduce((n, r) => n + r.passed, 0);
+  const failed = results.reduce((n, r) => n + r.failed, 0);
+  process.stdout.write('\n');
+  for (const r of results) process.stdout.write(`  ${r.ok ? 'ok  ' : 'FAIL'}  ${r.name.padEnd(8)} ${r.passed} passed, ${r.failed} failed\n`);
+  const failedSuites = results.filter((r) => !r.ok).map((r) => r.name);
+  if (failedSuites.length) process.stdout.write(`\n[sixtyfold] failed suites: ${failedSuites.join(', ')}\n`);
+  process.stdout.write(`\ntests: ${passed} passed, ${failed} failed\n`);
+  process.exit(failedSuites.length ? 1 : 0);
+}

@@ -15,13 +15,13 @@ const isClientError = (error: unknown) =>
  * out, a poll that lands after the session ended is ignored: the sign-out itself leaves the page.
  */
 export function createQueryClient(): QueryClient {
-  let queryClient: QueryClient;
   const onError = (error: unknown) => {
     if (!(error instanceof ApiRequestError) || error.status !== 401) return;
     if (queryClient.isMutating({ mutationKey: logoutMutationKey }) > 0) return;
     queryClient.setQueryData(meQueryKey, null);
   };
-  queryClient = new QueryClient({
+  // onError runs only after construction, when queryClient is set.
+  const queryClient = new QueryClient({
     queryCache: new QueryCache({ onError }),
     mutationCache: new MutationCache({ onError }),
     defaultOptions: {

@@ -1,3 +1,4 @@
+import type { MigrationInterface } from 'typeorm';
 import { InitialSchema1796163989801 } from './1796163989801-InitialSchema';
 import { ApiTokens1796182651904 } from './1796182651904-ApiTokens';
 import { ScanModelSetNull1796193248504 } from './1796193248504-ScanModelSetNull';
@@ -9,7 +10,7 @@ import { AuditActionNames1796300000005 } from './1796300000005-AuditActionNames'
 import { AccountControls1796300000010 } from './1796300000010-AccountControls';
 
 // Migrations in the order they run; a new migration file is listed here too.
-export const MIGRATIONS: Function[] = [
+export const MIGRATIONS: (new () => MigrationInterface)[] = [
   InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Uploads1796300000001,
   Maintenance1796300000002, Invitations1796300000003, CommentsAndNotifications1796300000004,
   AuditActionNames1796300000005, AccountControls1796300000010,

@@ -1,4 +1,4 @@
-import type { CurrentUser, ScanGridSlice } from '@sixtyfold/shared';
+import type { ConstraintRegion, CurrentUser, ScanGridSlice } from '@sixtyfold/shared';
 import { act, screen, waitFor, within } from '@testing-library/react';
 import { adminUser, memberUser } from '@/testing/fixtures';
 import { plotIn } from '@/testing/plotly-chart-mock';
@@ -415,6 +415,25 @@ describe('scan n_s–r plane', () => {
 
     act(() => plotIn(chart).onClick!({ points: [{ customdata: [0, 4], curveNumber: 9 }] }));
     await waitFor(() => expect(router.state.location.pathname).toBe('/scans/42/points/4'), slow);
+  });
+
+  it('draws the group’s constraint regions until switched off, and links to where they are uploaded', async () => {
+    const survey: ConstraintRegion = {
+      id: 1, groupId: 10, name: 'Survey A', source: 'Invented survey DR2', confidenceLevel: 0.95,
+      vertices: [{ ns: 0.955, r: 0 }, { ns: 0.975, r: 0 }, { ns: 0.965, r: 0.04 }], createdById: 2, createdAt: '2026-12-01T10:00:00.000Z',
+    };
+    api(memberUser, scanDetail(), {
+      'GET /api/scans/42/plane': () => json(200, plane),
+      'GET /api/constraint-regions': () => json(200, [survey]),
+    });
+    const { user } = renderApp('/scans/42?view=plane');
+    const chart = await screen.findByRole('img', { name: /^n_s–r plane of/ }, slow);
+    const names = () => plotIn(chart).data.map((trace) => trace.name);
+
+    await waitFor(() => expect(names()).toContain('Survey A (95% CL, Invented survey DR2)'), slow);
+    await user.click(screen.getByRole('checkbox', { name: 'Survey A (95% CL, Invented survey DR2)' }));
+    await waitFor(() => expect(names()).not.toContain('Survey A (95% CL, Invented survey DR2)'), slow);
+    expect(screen.getByRole('link', { name: 'group page' })).toHaveAttribute('href', '/groups/10');
   });
 
   it('explains an empty plane', async () => {

@@ -1,7 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import { meQueryKey } from '@/lib/query-client';
-import { getGroupQueryOptions } from './get-group';
 
 /** Removes a member; with my own user id this is leaving the group. */
 export const removeMember = (groupId: number, userId: number): Promise<undefined> => api.delete(`/groups/${groupId}/members/${userId}`);
