@@ -6,7 +6,7 @@ import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
   POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
-  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery, type StoredScanSpec,
+  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { ExportsService } from '../exports/exports.service';

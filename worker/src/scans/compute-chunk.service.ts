@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
 import { Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { continuationOf, pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
+import { continuationOf, pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
 
 export interface ChunkOutcome {
