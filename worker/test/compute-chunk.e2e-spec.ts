@@ -1,16 +1,21 @@
-import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
-import { ConfigService } from '@nestjs/config';
-import { DataSource } from 'typeorm';
-import { buildDataSourceOptions, readDatabaseConfig, Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { chunkSize, pointCount, scanChunks, storedScanSpecSchema, type StoredScanSpec } from '@sixtyfold/shared';
-import { readWorkerConfig } from '../src/config/worker.config';
-import { ComputeChunkService } from '../src/scans/compute-chunk.service';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from '@jest/globals';
+import Queue from 'bull';
+import mysql from 'mysql2/promise';
+import { spawn, type ChildProcess } from 'node:child_process';
+import path from 'node:path';
+import {
+  chunkJobOptions, COMPUTE_CHUNK_JOB, pointCount, SCAN_QUEUE, scanChunks, storedScanSpecSchema, type ComputeChunkJob,
+} from '@sixtyfold/shared';
 
-// The worker's own work, without the API: a chunk computed and stored in the real MariaDB,
-// stored again (a retry), refused for a cancelled scan, and given up as failures.
+// The worker's own work, without the API: scans written straight into the test MariaDB, their
+// chunks put on the queue as the API would, and a real worker process from the build computing
+// them. Each chunk's points are stored once, a chunk stored again leaves the counters as they
+// were, the last chunk finishes the scan, and a cancelled scan gets nothing written.
+
+const WORKER_MAIN = path.resolve('dist/main.js');
 
 /** Starobinsky slow roll over μ and N_*: 4 × 10 points, milliseconds each. */
-const spec = (groupId: number, name: string): StoredScanSpec =>
+const spec = (groupId: number, name: string) =>
   storedScanSpecSchema.parse({
     groupId, name, tags: [], note: '', model: { kind: 'family', family: 'starobinsky' }, params: {},
     axes: [
@@ -20,74 +25,105 @@ const spec = (groupId: number, name: string): StoredScanSpec =>
     pivot: { kind: 'fixed' }, method: 'slowroll', potentialSource: 'starobinsky',
   });
 
-describe('computing and storing a chunk', () => {
-  let db: DataSource;
-  let chunks: ComputeChunkService;
-  let owner: { groupId: number; ownerId: number };
+interface ScanRow {
+  status: string;
+  done_points: number;
+  failed_points: number;
+}
+
+async function eventually<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 30_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const value = await probe();
+    if (value !== undefined) return value;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+describe('a worker computing chunks from the queue', () => {
+  let db: mysql.Connection;
+  let queue: Queue.Queue<ComputeChunkJob>;
+  let worker: ChildProcess | null = null;
+  let owner: { groupId: number; userId: number };
 
   beforeAll(async () => {
-    db = await new DataSource(buildDataSourceOptions(readDatabaseConfig())).initialize();
-    chunks = new ComputeChunkService(db, new ConfigService({ worker: readWorkerConfig({}) }));
-    // Any seeded group and one of its members own the test scans.
-    const [row]: { group_id: number; user_id: number }[] = await db.query('SELECT group_id, user_id FROM memberships ORDER BY group_id LIMIT 1');
-    owner = { groupId: row.group_id, ownerId: row.user_id };
+    db = await mysql.createConnection(process.env.DATABASE_URL!);
+    queue = new Queue<ComputeChunkJob>(SCAN_QUEUE, process.env.REDIS_URL!);
+    const [rows] = await db.query<mysql.RowDataPacket[]>('SELECT group_id, user_id FROM memberships ORDER BY group_id, user_id LIMIT 1');
+    owner = { groupId: rows[0].group_id, userId: rows[0].user_id };
+  });
+  afterEach(async () => {
+    if (worker && worker.exitCode === null) {
+      const exited = new Promise((resolve) => worker!.once('exit', resolve));
+      worker.kill('SIGTERM');
+      await exited;
+    }
+    worker = null;
   });
   afterAll(async () => {
     await db.query("DELETE FROM scans WHERE name LIKE 'worker test:%'");
-    await db.destroy();
+    await queue.close();
+    await db.end();
   });
 
-  const submit = async (name: string): Promise<Scan> => {
+  /** A queued scan row, as the API stores one. */
+  const insertScan = async (name: string, status = 'queued'): Promise<{ id: number; total: number }> => {
     const stored = spec(owner.groupId, `worker test: ${name}`);
-    return db.transaction((tx) =>
-      scanLifecycle.create(tx, { ...owner, modelId: null, family: 'starobinsky', name: stored.name, method: 'slowroll', spec: stored, note: '', totalPoints: pointCount(stored), queuedAt: new Date() }, 'submit', 'member'),
+    const total = pointCount(stored);
+    const [result] = await db.query<mysql.ResultSetHeader>(
+      `INSERT INTO scans (group_id, owner_id, family, name, method, status, spec, note, total_points, queued_at)
+       VALUES (?, ?, 'starobinsky', ?, 'slowroll', ?, ?, '', ?, CURRENT_TIMESTAMP(3))`,
+      [owner.groupId, owner.userId, stored.name, status, JSON.stringify(stored), total],
     );
+    return { id: result.insertId, total };
   };
-  const reload = (id: number) => db.getRepository(Scan).findOneByOrFail({ id });
+  const enqueue = (jobs: ComputeChunkJob[]) => queue.addBulk(jobs.map((data) => ({ name: COMPUTE_CHUNK_JOB, data, opts: chunkJobOptions(data) })));
+  const scanRow = async (id: number): Promise<ScanRow> => {
+    const [rows] = await db.query<mysql.RowDataPacket[]>('SELECT status, done_points, failed_points FROM scans WHERE id = ?', [id]);
+    return rows[0] as ScanRow;
+  };
+  const storedPoints = async (id: number): Promise<number> => {
+    const [rows] = await db.query<mysql.RowDataPacket[]>('SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ?', [id]);
+    return Number(rows[0].n);
+  };
+  const queueEmpty = () =>
+    eventually(async () => {
+      const counts = await queue.getJobCounts();
+      return counts.active + counts.waiting + counts.delayed === 0 ? true : undefined;
+    }, 'the queue to empty');
+  const startWorker = () => {
+    worker = spawn(process.execPath, [WORKER_MAIN], { env: process.env, stdio: 'ignore' });
+  };
 
-  it('stores every point of each chunk once, moves the counters, and finishes the scan with its last chunk', async () => {
-    const scan = await submit('two chunks');
-    const [first, second] = scanChunks(scan.id, scan.totalPoints, 'slowroll');
-    expect(second).toBeDefined();
-    expect(first.end - first.start).toBe(chunkSize(scan.totalPoints, 'slowroll'));
+  it('stores every point once, finishes the scan with its last chunk, and a chunk stored again changes no counter', async () => {
+    const { id, total } = await insertScan('two chunks');
+    const chunks = scanChunks(id, total, 'slowroll');
+    expect(chunks.length).toBeGreaterThan(1);
+    startWorker();
+    await enqueue(chunks);
+    const finished = await eventually(async () => {
+      const row = await scanRow(id);
+      return row.status === 'completed' ? row : undefined;
+    }, 'the scan to complete');
+    expect({ done: finished.done_points, failed: finished.failed_points }).toEqual({ done: 40, failed: 0 });
+    expect(await storedPoints(id)).toBe(40);
 
-    const outcome = await chunks.run(first);
-    expect(outcome.computed + outcome.failed).toBe(first.end - first.start);
-    let stored = await reload(scan.id);
-    expect(stored.status).toBe('running');
-    expect(stored.donePoints + stored.failedPoints).toBe(first.end - first.start);
-
-    // The same chunk again (a retry after a lost acknowledgement): rows overwritten, counters unchanged.
-    await chunks.run(first);
-    expect((await reload(scan.id)).donePoints + (await reload(scan.id)).failedPoints).toBe(first.end - first.start);
-
-    for (const chunk of scanChunks(scan.id, scan.totalPoints, 'slowroll').slice(1)) await chunks.run(chunk);
-    stored = await reload(scan.id);
-    expect(stored.status).toBe('completed');
-    expect(stored.donePoints).toBe(40);
-    expect(await db.getRepository(ScanPoint).countBy({ scanId: scan.id })).toBe(40);
+    // The first chunk once more (a retry after a lost acknowledgement): rows overwritten, counters unchanged.
+    await queueEmpty();
+    await enqueue([chunks[0]]);
+    await queueEmpty();
+    const again = await scanRow(id);
+    expect({ status: again.status, done: again.done_points, failed: again.failed_points }).toEqual({ status: 'completed', done: 40, failed: 0 });
+    expect(await storedPoints(id)).toBe(40);
   });
 
   it('writes nothing for a cancelled scan', async () => {
-    const scan = await submit('cancelled');
-    await scanLifecycle.cancel(db, scan.id, 'queued', 'owner or lead');
-    const [first] = scanChunks(scan.id, scan.totalPoints, 'slowroll');
-    expect((await chunks.run(first)).skipped).toBe('cancelled');
-    expect(await db.getRepository(ScanPoint).countBy({ scanId: scan.id })).toBe(0);
-    expect((await reload(scan.id)).status).toBe('cancelled');
-  });
-
-  it('stores a given-up chunk as chunk_failed, and a scan of nothing but failures ends failed', async () => {
-    const scan = await submit('given up');
-    const all = scanChunks(scan.id, scan.totalPoints, 'slowroll');
-    for (const chunk of all) {
-      expect(await chunks.storeGivenUp(chunk, `the workers could not compute points ${chunk.start}–${chunk.end - 1}: test`)).toBe(chunk.end - chunk.start);
-    }
-    const stored = await reload(scan.id);
-    expect(stored.failedPoints).toBe(40);
-    expect(stored.status).toBe('failed');
-    const row = await db.getRepository(ScanPoint).findOneByOrFail({ scanId: scan.id, pointIndex: 0 });
-    expect(row.status).toBe('chunk_failed');
-    expect(row.inputs).toEqual({ mu: 1e-6, nStar: 50 });
+    const { id, total } = await insertScan('cancelled', 'cancelled');
+    startWorker();
+    await enqueue(scanChunks(id, total, 'slowroll'));
+    await queueEmpty();
+    expect(await storedPoints(id)).toBe(0);
+    expect(await scanRow(id)).toMatchObject({ status: 'cancelled', done_points: 0, failed_points: 0 });
   });
 });
