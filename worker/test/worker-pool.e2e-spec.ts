@@ -26,7 +26,8 @@ async function eventually<T>(probe: () => Promise<T | undefined>, what: string, 
 }
 
 describe('worker pool membership', () => {
-  // The test profile's Redis, as the workers see it (their factory lives in the API, whose build jest cannot load).
+  // The test profile's Redis. Not through createRedisClient: the API's build requires Nest packages,
+  // which are ES modules that jest cannot require on Node 20.
   const redis = new Redis(process.env.REDIS_URL!, { lazyConnect: true });
   const workers: ChildProcess[] = [];
 

@@ -1,6 +1,5 @@
-// What the worker takes from the API for Redis: the one config reader, the one client factory and
-// module, and the scan queue's registration, so both processes connect and queue the same way.
-export { readRedisConfig, redisConfig, type RedisConfig } from '../config/redis.config';
-export { createRedisClient, type RedisClient } from '../redis/redis-client';
-export { REDIS_CLIENT, RedisModule } from '../redis/redis.module';
+// What the worker takes from the API for Redis: the config factory, the connection module and the
+// scan queue's registration, so both processes connect and queue the same way.
+export { redisConfig } from '../config/redis.config';
+export { REDIS_CLIENT, RedisModule, type RedisClient } from '../redis/redis.module';
 export { ScanQueueModule, type ScanQueueOptions } from './scan-queue.module';
