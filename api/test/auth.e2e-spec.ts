@@ -1,9 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
-import { createClient } from 'redis';
 import { AuditEvent } from '../src/audit/entities/audit-event.entity';
+import { readRedisConfig } from '../src/config/redis.config';
+import { createRedisClient, type RedisClient } from '../src/redis/redis-client';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 
-const sessionKeys = async (redis: ReturnType<typeof createClient>) => redis.keys('sixtyfold:sess:*');
+const sessionKeys = async (redis: RedisClient) => redis.keys('sixtyfold:sess:*');
 
 function sessionCookie(res: { headers: Record<string, unknown> }): string {
   const cookies = (res.headers['set-cookie'] as string[] | undefined) ?? [];
@@ -14,15 +15,14 @@ function sessionCookie(res: { headers: Record<string, unknown> }): string {
 
 describe('sign-in, sign-out and sessions', () => {
   let t: TestApp;
-  let redis: ReturnType<typeof createClient>;
+  let redis: RedisClient;
 
   beforeAll(async () => {
     t = await createTestApp();
-    redis = createClient({ url: process.env.REDIS_URL });
-    await redis.connect();
+    redis = await createRedisClient(readRedisConfig());
   });
   afterAll(async () => {
-    await redis.close();
+    await redis.quit();
     await t.close();
   });
 

@@ -8,6 +8,7 @@ import {
 import { readRedisConfig } from '../src/config/redis.config';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
+import { redisOptions } from '../src/redis/redis-client';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
@@ -64,8 +65,7 @@ describe('chunks on the queue', () => {
     const model = await member.post('/api/models').send(SLOW_MODEL(plateauId));
     expect(model.status).toBe(201);
     slowModelId = model.body.id;
-    const { host, port, db, password } = readRedisConfig();
-    queue = new Queue<ComputeChunkJob>(SCAN_QUEUE, { redis: { host, port, db, password } });
+    queue = new Queue<ComputeChunkJob>(SCAN_QUEUE, { redis: redisOptions(readRedisConfig()) });
     const registered = Promise.all(['active', 'stalled'].map((e) => new Promise((r) => queue.once(`registered:global:${e}`, r))));
     queue.on('global:active', (id: string) => taken.push(id));
     queue.on('global:stalled', (id: string) => stalled.push(id));

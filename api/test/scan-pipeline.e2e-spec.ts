@@ -1,7 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, type ChildProcess } from 'node:child_process';
 import { chunkSize, pointRequest, RequestEvaluator, ScanGrid, scanChunks, type StoredScanSpec } from '@sixtyfold/shared';
+import { readRedisConfig } from '../src/config/redis.config';
 import { Group } from '../src/groups/entities/group.entity';
+import { createRedisClient } from '../src/redis/redis-client';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
@@ -317,11 +319,9 @@ describe('cancelling, deleting and recovering scans', () => {
     expect(created.status).toBe(201);
     const id = created.body.id as number;
     // Redis loses everything (as after a crash without persistence).
-    const { createClient } = await import('redis');
-    const redis = createClient({ url: process.env.REDIS_URL });
-    await redis.connect();
-    await redis.flushDb();
-    await redis.close();
+    const redis = await createRedisClient(readRedisConfig());
+    await redis.flushdb();
+    await redis.quit();
     // A restarted API reconciles MariaDB against the (empty) queue and re-queues the chunks.
     await t.close();
     t = await createTestApp({ RECONCILE_INTERVAL_SECONDS: '0' });

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { CronJob } from 'cron';
 import { readRedisConfig } from '../src/config/redis.config';
-import { connectRedis, type RedisClient } from '../src/redis/redis-connection';
+import { createRedisClient, type RedisClient } from '../src/redis/redis-client';
 import { cronOccurrence } from '../src/scheduling/cron-occurrence';
 import { RUN_CLAIM_PREFIX, ScheduledRunsService } from '../src/scheduling/scheduled-runs.service';
 
@@ -11,13 +11,13 @@ describe('scheduled runs across API processes', () => {
   let processes: ScheduledRunsService[];
 
   beforeAll(async () => {
-    clients = await Promise.all([connectRedis(readRedisConfig()), connectRedis(readRedisConfig())]);
+    clients = await Promise.all([createRedisClient(readRedisConfig()), createRedisClient(readRedisConfig())]);
     processes = clients.map((c) => new ScheduledRunsService(c));
   });
 
   afterAll(async () => {
-    for await (const keys of clients[0].scanIterator({ MATCH: `${RUN_CLAIM_PREFIX}test-*` })) if (keys.length) await clients[0].del(keys);
-    await Promise.all(clients.map((c) => c.close()));
+    for await (const keys of clients[0].scanStream({ match: `${RUN_CLAIM_PREFIX}test-*` })) if (keys.length) await clients[0].del(keys as string[]);
+    await Promise.all(clients.map((c) => c.quit()));
   });
 
   it('gives each occurrence of a task to exactly one process', async () => {

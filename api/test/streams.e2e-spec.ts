@@ -5,6 +5,7 @@ import { chunkSize, SCAN_QUEUE, type ComputeChunkJob } from '@sixtyfold/shared';
 import { readRedisConfig } from '../src/config/redis.config';
 import { DEMO_PASSWORD } from '../src/database/seeds/demo-scenario';
 import { Group } from '../src/groups/entities/group.entity';
+import { redisOptions } from '../src/redis/redis-client';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
 import { until } from './support/until';
@@ -243,8 +244,7 @@ describe('progress while chunks start and finish', () => {
   beforeAll(async () => {
     t = await createTestApp();
     scanId = await createScanWithPoints(t, await t.signIn(DEMO.plateauMember), true);
-    const { host, port, db, password } = readRedisConfig();
-    queue = new Queue<ComputeChunkJob>(SCAN_QUEUE, { redis: { host, port, db, password } });
+    queue = new Queue<ComputeChunkJob>(SCAN_QUEUE, { redis: redisOptions(readRedisConfig()) });
   }, 120_000);
   afterAll(async () => {
     await queue.obliterate({ force: true });

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, type ChildProcess } from 'node:child_process';
 import os from 'node:os';
 import path from 'node:path';
-import { createClient } from 'redis';
+import { Redis } from 'ioredis';
 import { WORKER_HEARTBEAT_PREFIX, workerHeartbeatSchema } from '@sixtyfold/shared';
 
 // Real worker processes from the build (`npm test` builds first), on the test Redis and MariaDB.
@@ -26,7 +26,9 @@ async function eventually<T>(probe: () => Promise<T | undefined>, what: string, 
 }
 
 describe('worker pool membership', () => {
-  const redis = createClient({ url: process.env.REDIS_URL });
+  // The test profile's Redis. Not through createRedisClient: the API's build requires Nest packages,
+  // which are ES modules that jest cannot require on Node 20.
+  const redis = new Redis(process.env.REDIS_URL!, { lazyConnect: true });
   const workers: ChildProcess[] = [];
 
   beforeAll(async () => {
@@ -34,14 +36,14 @@ describe('worker pool membership', () => {
   });
   afterAll(async () => {
     for (const w of workers) if (w.exitCode === null) w.kill('SIGKILL');
-    await redis.close();
+    await redis.quit();
   });
 
   it('two processes join the pool with their settings, and a clean stop leaves it', async () => {
     workers.push(startWorker(2), startWorker(3));
     const keys = workers.map((w) => `${WORKER_HEARTBEAT_PREFIX}${os.hostname()}:${w.pid}`);
     const beats = await eventually(async () => {
-      const values = await redis.mGet(keys);
+      const values = await redis.mget(keys);
       return values.every(Boolean) ? values.map((v) => workerHeartbeatSchema.parse(JSON.parse(v!))) : undefined;
     }, 'both heartbeats');
     expect(beats.map((b) => [b.pid, b.concurrency])).toEqual([[workers[0].pid, 2], [workers[1].pid, 3]]);

@@ -2,14 +2,14 @@ import { Module, type OnModuleInit } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { PassportModule } from '@nestjs/passport';
 import { ThrottlerModule } from '@nestjs/throttler';
-import { RedisThrottlerStorage } from '@nestjs-redis/throttler-storage';
+import { ThrottlerStorageRedisService } from '@nest-lab/throttler-storage-redis';
 import { AuditModule } from '../audit/audit.module';
 import type { AppConfig } from '../config/app.config';
 import { REDIS_CLIENT, type RedisClient } from '../redis/redis.module';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
-import { loginThrottlers, RetryAfterSeconds } from './guards/login-throttler.guard';
+import { loginThrottlers } from './guards/login-throttler.guard';
 import { LocalStrategy } from './local.strategy';
 import { limitPasswordChecks } from './passwords';
 import { SessionSerializer } from './session.serializer';
@@ -23,8 +23,8 @@ import { SessionSerializer } from './session.serializer';
       inject: [ConfigService, REDIS_CLIENT],
       useFactory: (config: ConfigService, redis: RedisClient) => ({
         throttlers: loginThrottlers(config.getOrThrow<AppConfig>('app').loginThrottle),
-        // The API's own connection; the storage does not open or close it.
-        storage: new RetryAfterSeconds(new RedisThrottlerStorage(redis as ConstructorParameters<typeof RedisThrottlerStorage>[0])),
+        // The API's own connection: given a client, the storage neither opens nor closes it.
+        storage: new ThrottlerStorageRedisService(redis),
       }),
     }),
   ],

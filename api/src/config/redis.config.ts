@@ -14,7 +14,6 @@ const schema = z.object({
 });
 
 export interface RedisConfig {
-  url: string;
   host: string;
   port: number;
   db: number;
@@ -42,7 +41,6 @@ export function readRedisConfig(env: NodeJS.ProcessEnv = process.env): RedisConf
   const username = url.username ? decodeURIComponent(url.username) : undefined;
   const port = Number(url.port || 6379);
   return {
-    url: e.REDIS_URL,
     host: url.hostname,
     port,
     db,

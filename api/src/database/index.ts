@@ -1,9 +1,8 @@
 // What the worker takes from the API's database layer: the entities, the TypeORM options, the
-// scan lifecycle (the one owner of a scan's status and counters) and the configuration readers
-// and the Redis connection helpers, so both processes see one schema and connect the same way.
+// configuration reader and the scan lifecycle (the one owner of a scan's status and counters),
+// so both processes see one schema and one set of rules for a scan's life (Redis and the scan
+// queue: `@sixtyfold/api/queue`).
 export * from './entities';
 export { buildDataSourceOptions } from './typeorm-options';
 export { readDatabaseConfig, type DatabaseConfig } from '../config/database.config';
-export { readRedisConfig, type RedisConfig } from '../config/redis.config';
 export * from './scan-lifecycle';
-export { connectRedis, bullRedisOptions, type RedisClient } from '../redis/redis-connection';

@@ -50,10 +50,8 @@ export class MailQuotaService {
   async take(userId: number, kind: MailQuotaKind, count: number): Promise<void> {
     if (count <= 0) return;
     const limit = this.limits[kind];
-    const [taken, used, ttlMs] = (await this.redis.eval(TAKE_SCRIPT, {
-      keys: [`sixtyfold:mail-quota:${kind}:${userId}`],
-      arguments: [String(count), String(limit), String(HOUR_MS)],
-    })) as [number, number, number];
+    const key = `sixtyfold:mail-quota:${kind}:${userId}`;
+    const [taken, used, ttlMs] = (await this.redis.eval(TAKE_SCRIPT, 1, key, count, limit, HOUR_MS)) as [number, number, number];
     if (taken === 1) return;
     const retryAfter = ttlMs > 0 ? Math.ceil(ttlMs / 1000) : HOUR_MS / 1000;
     const wait = formatWait(retryAfter);

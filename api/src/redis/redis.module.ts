@@ -1,19 +1,24 @@
 import { Global, Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { RedisConfig } from '../config/redis.config';
-import { connectRedis, type RedisClient } from './redis-connection';
+import { createRedisClient, type RedisClient } from './redis-client';
 
 export const REDIS_CLIENT = Symbol('REDIS_CLIENT');
 export type { RedisClient };
 
-/** One node-redis connection for sessions, health checks and scheduled-run claims (bull keeps its own). */
+/**
+ * The process's one ioredis connection, signed in at boot: in the API for sessions, sign-in
+ * limits, e-mail quotas, scheduled-run claims, the worker pool and health; in the worker for its
+ * heartbeat. Bull opens its own connections with the same settings (ScanQueueModule). Needs the
+ * `redis` config (redisConfig) loaded.
+ */
 @Global()
 @Module({
   providers: [
     {
       provide: REDIS_CLIENT,
       inject: [ConfigService],
-      useFactory: (config: ConfigService): Promise<RedisClient> => connectRedis(config.getOrThrow<RedisConfig>('redis')),
+      useFactory: (config: ConfigService): Promise<RedisClient> => createRedisClient(config.getOrThrow<RedisConfig>('redis')),
     },
   ],
   exports: [REDIS_CLIENT],
@@ -21,7 +26,8 @@ export type { RedisClient };
 export class RedisModule implements OnApplicationShutdown {
   constructor(@Inject(REDIS_CLIENT) private readonly client: RedisClient) {}
 
+  // A global module shuts down after the modules that use it (the worker's heartbeat removes its key first).
   async onApplicationShutdown(): Promise<void> {
-    if (this.client.isOpen) await this.client.close();
+    if (this.client.status !== 'end') await this.client.quit().catch(() => this.client.disconnect());
   }
 }

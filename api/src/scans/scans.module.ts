@@ -4,7 +4,7 @@ import { AuditModule } from '../audit/audit.module';
 import { ExportsModule } from '../exports/exports.module';
 import { GroupsModule } from '../groups/groups.module';
 import { MaintenanceModule } from '../maintenance/maintenance.module';
-import { QueueModule } from '../queue/queue.module';
+import { ScanQueueModule } from '../queue/scan-queue.module';
 import { SchedulingModule } from '../scheduling/scheduling.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
@@ -16,7 +16,7 @@ import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, QueueModule, MaintenanceModule, SchedulingModule, ExportsModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, ScanQueueModule.register(), MaintenanceModule, SchedulingModule, ExportsModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })

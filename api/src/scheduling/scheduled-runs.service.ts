@@ -21,10 +21,7 @@ export class ScheduledRunsService {
 
   /** True for exactly one of the processes that claim the same task and occurrence. */
   async claim(task: string, occurrence: number, ttlMs: number): Promise<boolean> {
-    const answer = await this.redis.set(`${RUN_CLAIM_PREFIX}${task}:${occurrence}`, this.owner, {
-      condition: 'NX',
-      expiration: { type: 'PX', value: Math.max(1, Math.round(ttlMs)) },
-    });
+    const answer = await this.redis.set(`${RUN_CLAIM_PREFIX}${task}:${occurrence}`, this.owner, 'PX', Math.max(1, Math.round(ttlMs)), 'NX');
     return answer === 'OK';
   }
 

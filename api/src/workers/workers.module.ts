@@ -1,7 +1,7 @@
 import { Module } from '@nestjs/common';
-import { QueueModule } from '../queue/queue.module';
 import { WorkersController } from './workers.controller';
 import { WorkersService } from './workers.service';
 
-@Module({ imports: [QueueModule], controllers: [WorkersController], providers: [WorkersService] })
+// The scan queue comes from the global ScanQueueModule (registered by ScansModule).
+@Module({ controllers: [WorkersController], providers: [WorkersService] })
 export class WorkersModule {}

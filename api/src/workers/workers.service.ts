@@ -16,11 +16,11 @@ export class WorkersService {
   /** Worker processes whose heartbeat has not expired, on any machine sharing this Redis. */
   async alive(): Promise<WorkerHeartbeat[]> {
     const keys: string[] = [];
-    for await (const batch of this.redis.scanIterator({ MATCH: `${WORKER_HEARTBEAT_PREFIX}*`, COUNT: 200 })) {
-      keys.push(...batch);
+    for await (const batch of this.redis.scanStream({ match: `${WORKER_HEARTBEAT_PREFIX}*`, count: 200 })) {
+      keys.push(...(batch as string[]));
     }
     if (keys.length === 0) return [];
-    const values = await this.redis.mGet(keys);
+    const values = await this.redis.mget(keys);
     return values
       .flatMap((raw) => {
         const parsed = raw ? workerHeartbeatSchema.safeParse(JSON.parse(raw)) : null;

@@ -1,15 +1,9 @@
-import { Inject, Module, type OnApplicationShutdown } from '@nestjs/common';
+import { Module } from '@nestjs/common';
 import { HeartbeatService } from './heartbeat.service';
-import { REDIS_CLIENT, redisClientProvider, type RedisClient } from './redis-client.provider';
 
+/** The heartbeat on the process's Redis connection (the global RedisModule). */
 @Module({
-  providers: [redisClientProvider, HeartbeatService],
-  exports: [HeartbeatService, REDIS_CLIENT],
+  providers: [HeartbeatService],
+  exports: [HeartbeatService],
 })
-export class HeartbeatModule implements OnApplicationShutdown {
-  constructor(@Inject(REDIS_CLIENT) private readonly redis: RedisClient) {}
-
-  async onApplicationShutdown(): Promise<void> {
-    if (this.redis.isOpen) await this.redis.close();
-  }
-}
+export class HeartbeatModule {}

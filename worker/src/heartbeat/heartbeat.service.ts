@@ -5,7 +5,7 @@ import {
   WORKER_HEARTBEAT_INTERVAL_MS, WORKER_HEARTBEAT_PREFIX, WORKER_HEARTBEAT_TTL_SECONDS, type WorkerHeartbeat,
 } from '@sixtyfold/shared';
 import type { WorkerConfig } from '../config/worker.config';
-import { REDIS_CLIENT, type RedisClient } from './redis-client.provider';
+import { REDIS_CLIENT, type RedisClient } from '@sixtyfold/api/queue';
 
 /** Announces this process to the pool while it runs, and withdraws it on a clean stop. */
 @Injectable()
@@ -36,7 +36,8 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
 
   async onApplicationShutdown(): Promise<void> {
     clearInterval(this.timer);
-    if (this.redis.isOpen) await this.redis.del(this.key).catch(() => undefined);
+    // RedisModule is global, so its connection closes after this.
+    await this.redis.del(this.key).catch(() => undefined);
   }
 
   /** Counts a finished chunk; the pool view shows how the work spreads over processes. */
@@ -59,6 +60,6 @@ export class HeartbeatService implements OnApplicationBootstrap, OnApplicationSh
     };
     // One point blocks the timer for up to its time limit, which the lock duration bounds: the key outlives that.
     const ttl = Math.max(WORKER_HEARTBEAT_TTL_SECONDS, Math.ceil(lockDurationMs / 1000) + 5);
-    await this.redis.set(this.key, JSON.stringify(beat), { expiration: { type: 'EX', value: ttl } });
+    await this.redis.set(this.key, JSON.stringify(beat), 'EX', ttl);
   }
 }

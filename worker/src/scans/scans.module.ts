@@ -1,10 +1,7 @@
-import { BullModule } from '@nestjs/bull';
 import { Module } from '@nestjs/common';
-import { bullRedisOptions, readRedisConfig } from '@sixtyfold/api/database';
-import { SCAN_QUEUE } from '@sixtyfold/shared';
+import { ScanQueueModule } from '@sixtyfold/api/queue';
 import { readWorkerConfig } from '../config/worker.config';
 import { HeartbeatModule } from '../heartbeat/heartbeat.module';
-import { REDIS_CLIENT } from '../heartbeat/redis-client.provider';
 import { ComputeChunkService } from './compute-chunk.service';
 import { ScanChunkProcessor } from './scan-chunk.processor';
 
@@ -13,15 +10,7 @@ const { lockDurationMs } = readWorkerConfig();
 
 @Module({
   imports: [
-    BullModule.forRootAsync({
-      // Waits for the heartbeat client, which has signed in with the same credentials: a refused
-      // password stops the worker at boot instead of leaving bull retrying in the background.
-      imports: [HeartbeatModule],
-      inject: [REDIS_CLIENT],
-      useFactory: () => ({ redis: bullRedisOptions(readRedisConfig()) }),
-    }),
-    BullModule.registerQueue({
-      name: SCAN_QUEUE,
+    ScanQueueModule.register({
       // A running chunk renews its lock between points (ComputeChunkService), so the lock lapses
       // only when its worker is gone or hung: another worker's stall check, every stalledInterval,
       // then takes the chunk back, at most lockDuration + stalledInterval (35 s by default) after

@@ -1,5 +1,5 @@
 import { HttpException, HttpStatus, Injectable, type ExecutionContext } from '@nestjs/common';
-import { ThrottlerGuard, type ThrottlerLimitDetail, type ThrottlerOptions, type ThrottlerStorage } from '@nestjs/throttler';
+import { ThrottlerGuard, type ThrottlerLimitDetail, type ThrottlerOptions } from '@nestjs/throttler';
 import type { Request } from 'express';
 import type { AppConfig } from '../../config/app.config';
 
@@ -23,25 +23,6 @@ export function loginThrottlers(config: AppConfig['loginThrottle']): ThrottlerOp
   ];
 }
 
-/**
- * @nestjs-redis/throttler-storage 1.0.0 reports `timeToBlockExpire` as (block time left in ms)
- * minus (Unix time in s) instead of seconds; this turns that back into seconds, and leaves a
- * value that is already plausible as it is. The counting itself is unaffected.
- */
-export class RetryAfterSeconds implements ThrottlerStorage {
-  constructor(private readonly storage: ThrottlerStorage) {}
-
-  async increment(key: string, ttl: number, limit: number, blockDuration: number, throttlerName: string) {
-    const record = await this.storage.increment(key, ttl, limit, blockDuration, throttlerName);
-    if (!record.isBlocked) return record;
-    const reported = record.timeToBlockExpire;
-    const longest = Math.ceil(blockDuration / 1000);
-    // Adding the Unix time back gives the milliseconds left to within one.
-    const seconds = reported > 0 && reported <= longest ? reported : Math.ceil((reported + Date.now() / 1000 - 1) / 1000);
-    return { ...record, timeToBlockExpire: Math.min(longest, Math.max(1, seconds)) };
-  }
-}
-
 @Injectable()
 export class LoginThrottlerGuard extends ThrottlerGuard {
   protected override async getTracker(req: Record<string, unknown>): Promise<string> {
@@ -49,6 +30,7 @@ export class LoginThrottlerGuard extends ThrottlerGuard {
   }
 
   protected override async throwThrottlingException(_context: ExecutionContext, detail: ThrottlerLimitDetail): Promise<void> {
+    // Whole seconds: @nest-lab/throttler-storage-redis rounds the block key's PTTL up (1 s at least while blocked).
     const retryAfter = detail.timeToBlockExpire;
     const window = `${Math.round(detail.ttl / 1000)} s`;
     const which = detail.tracker.startsWith('account:')
