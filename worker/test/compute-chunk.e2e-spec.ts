@@ -6,6 +6,7 @@ import path from 'node:path';
 import {
   chunkJobOptions, COMPUTE_CHUNK_JOB, pointCount, SCAN_QUEUE, scanChunks, storedScanSpecSchema, type ComputeChunkJob,
 } from '@sixtyfold/shared';
+import { eventually } from './support/eventually';
 
 // The worker's own work, without the API: scans written straight into the test MariaDB, their
 // chunks put on the queue as the API would, and a real worker process from the build computing
@@ -14,13 +15,13 @@ import {
 
 const WORKER_MAIN = path.resolve('dist/main.js');
 
-/** Starobinsky slow roll over μ and N_*: 4 × 10 points, milliseconds each. */
+/** Starobinsky slow roll over μ and N_*: 4 × 100 points, two chunks of at most 250 (`chunkSize`), under a millisecond each. */
 const spec = (groupId: number, name: string) =>
   storedScanSpecSchema.parse({
     groupId, name, tags: [], note: '', model: { kind: 'family', family: 'starobinsky' }, params: {},
     axes: [
       { kind: 'range', parameter: 'mu', min: 1e-6, max: 1e-4, count: 4, spacing: 'log' },
-      { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 10, spacing: 'linear' },
+      { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 100, spacing: 'linear' },
     ],
     pivot: { kind: 'fixed' }, method: 'slowroll', potentialSource: 'starobinsky',
   });
@@ -31,15 +32,6 @@ interface ScanRow {
   failed_points: number;
 }
 
-async function eventually<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 30_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const value = await probe();
-    if (value !== undefined) return value;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`timed out waiting for ${what}`);
-}
 
 describe('a worker computing chunks from the queue', () => {
   let db: mysql.Connection;
@@ -106,16 +98,16 @@ describe('a worker computing chunks from the queue', () => {
       const row = await scanRow(id);
       return row.status === 'completed' ? row : undefined;
     }, 'the scan to complete');
-    expect({ done: finished.done_points, failed: finished.failed_points }).toEqual({ done: 40, failed: 0 });
-    expect(await storedPoints(id)).toBe(40);
+    expect({ done: finished.done_points, failed: finished.failed_points }).toEqual({ done: 400, failed: 0 });
+    expect(await storedPoints(id)).toBe(400);
 
     // The first chunk once more (a retry after a lost acknowledgement): rows overwritten, counters unchanged.
     await queueEmpty();
     await enqueue([chunks[0]]);
     await queueEmpty();
     const again = await scanRow(id);
-    expect({ status: again.status, done: again.done_points, failed: again.failed_points }).toEqual({ status: 'completed', done: 40, failed: 0 });
-    expect(await storedPoints(id)).toBe(40);
+    expect({ status: again.status, done: again.done_points, failed: again.failed_points }).toEqual({ status: 'completed', done: 400, failed: 0 });
+    expect(await storedPoints(id)).toBe(400);
   });
 
   it('writes nothing for a cancelled scan', async () => {

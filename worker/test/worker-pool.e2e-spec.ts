@@ -4,6 +4,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { Redis } from 'ioredis';
 import { WORKER_HEARTBEAT_PREFIX, workerHeartbeatSchema } from '@sixtyfold/shared';
+import { eventually } from './support/eventually';
 
 // Real worker processes from the build (`npm test` builds first), on the test Redis and MariaDB.
 const WORKER_MAIN = path.resolve('dist/main.js');
@@ -15,15 +16,6 @@ function startWorker(concurrency: number): ChildProcess {
   });
 }
 
-async function eventually<T>(probe: () => Promise<T | undefined>, what: string, timeoutMs = 20_000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const value = await probe();
-    if (value !== undefined) return value;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`timed out waiting for ${what}`);
-}
 
 describe('worker pool membership', () => {
   // The test profile's Redis. Not through createRedisClient: the API's build requires Nest packages,

@@ -1,12 +1,11 @@
 import { Box, Button, Field, Flex, Heading, Input, NativeSelect, Stack, Text } from '@chakra-ui/react';
-import { SCAN_METHODS, scanMethodSchema, type CompiledPotential, type EvaluateRequest, type PotentialFamily, type PotentialModel, type ScanMethod } from '@sixtyfold/shared';
+import { scanMethodSchema, type CompiledPotential, type EvaluateRequest, type PotentialFamily, type PotentialModel, type ScanMethod } from '@sixtyfold/shared';
 import { useMutation } from '@tanstack/react-query';
 import { useDeferredValue, useEffect, useMemo, useRef, useState, type FormEvent } from 'react';
 import { FailureAlert } from '@/components/ui/failure-alert';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { runEnginePoint } from '@/lib/engine/run-engine';
-import { methodLabels } from '@/lib/method-labels';
 import { formatNumber } from '@/lib/format-number';
 import { defaultValueTexts, readNumber, readValues } from '../utils/parameter-values';
 import { parsePotentialOnce } from '../utils/parse-cache';
@@ -14,6 +13,7 @@ import { defaultPhiRange } from '../utils/slow-roll-curves';
 import { ParameterFields } from './parameter-fields';
 import { PotentialPlot } from './potential-plot';
 import { TrialResults } from './trial-results';
+import { MethodOptions } from '@/components/ui/method-options';
 
 /** A built-in family (the engine picks its start) or a group's model (the start is φ_init). */
 export type ExplorerSubject = { kind: 'family'; family: PotentialFamily } | { kind: 'model'; model: PotentialModel };
@@ -271,11 +271,7 @@ export function PotentialExplorer({ subject }: { subject: ExplorerSubject }) {
                   <Field.Label>Method</Field.Label>
                   <NativeSelect.Root>
                     <NativeSelect.Field value={method} onChange={(event) => setMethod(scanMethodSchema.parse(event.target.value))} bg="bg.panel">
-                      {SCAN_METHODS.map((m) => (
-                        <option key={m} value={m}>
-                          {methodLabels[m]}
-                        </option>
-                      ))}
+                      <MethodOptions />
                     </NativeSelect.Field>
                     <NativeSelect.Indicator />
                   </NativeSelect.Root>

@@ -1,9 +1,8 @@
 import { Field, Fieldset, Input, NativeSelect, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { SCAN_METHODS } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
 import type { FieldErrors, UseFormRegister } from 'react-hook-form';
-import { methodLabels } from '@/lib/method-labels';
 import { toNumber, type ScanFormValues } from './scan-form-values';
+import { MethodOptions } from '@/components/ui/method-options';
 
 interface PivotMethodFieldsProps {
   register: UseFormRegister<ScanFormValues>;
@@ -59,11 +58,7 @@ export function PivotMethodFields({ register, errors, pivotKind, method, variedN
           <Field.Label>Method</Field.Label>
           <NativeSelect.Root>
             <NativeSelect.Field bg="bg.panel" {...register('method')}>
-              {SCAN_METHODS.map((m) => (
-                <option key={m} value={m}>
-                  {methodLabels[m]}
-                </option>
-              ))}
+              <MethodOptions />
             </NativeSelect.Field>
             <NativeSelect.Indicator />
           </NativeSelect.Root>
