@@ -1,5 +1,5 @@
 import { BudgetMeter, type EngineOptions } from './budget.js';
-import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundSolution } from './background/background.js';
+import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundOptions, type BackgroundSolution } from './background/background.js';
 import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
 import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
 import { FEATURE_RESIDUAL } from './observables/spectrum-shape.js';
@@ -76,6 +76,7 @@ export class PointEvaluator {
   private readonly modes: ModeSolver;
   private readonly pivot = new Float64Array(2);
   private readonly budget: BudgetMeter;
+  private lastBackground: { potential: PotentialFunctions; phiInit: number; tolerance: number; solution: BackgroundSolution | Failure } | null = null;
 
   /** `engine` sets the per-point budgets (defaults `DEFAULT_POINT_BUDGET`) and the clock for the wall-time one. */
   constructor(modeOptions: Partial<ModeOptions> = {}, engine: EngineOptions = {}) {
@@ -88,12 +89,7 @@ export class PointEvaluator {
     if (invalid) return invalid;
     const options = { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: spec.tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
     this.budget.start();
-    let bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget);
-    // Inflation that pauses (ε_H = 1 on a steep stretch) and resumes ends at its last end.
-    for (let pauses = 1; bg.status === 'ok' && pauses <= MAX_PAUSES && this.background.resumesAfterEnd(bg, this.budget); pauses++) {
-      this.budget.spent += bg.evaluations;
-      bg = this.background.solve(spec.potential, spec.phiInit, options, this.budget, pauses);
-    }
+    const bg = this.backgroundFor(spec.potential, spec.phiInit, options);
     if (bg.status !== 'ok') return bg;
     this.budget.spent += bg.evaluations;
     const modes = spec.modes ? new ModeSolver({ ...DEFAULT_MODE_OPTIONS, ...spec.modes }) : this.modes;
@@ -111,6 +107,27 @@ export class PointEvaluator {
       }
     }
     return result;
+  }
+
+  /**
+   * The background from φ_init, shared with the previous point when it had the same potential
+   * (the same bound object), start and tolerance: N_* and the reheating history only move the
+   * pivot along it. The solution lives in the solver's table until the next solve, and every
+   * solve goes through here, so the remembered one is always the table's. Its evaluations count
+   * for every point that uses it, so the numbers and budgets are those of a point computed alone.
+   */
+  private backgroundFor(potential: PotentialFunctions, phiInit: number, options: BackgroundOptions): BackgroundSolution | Failure {
+    const last = this.lastBackground;
+    if (last && last.potential === potential && last.phiInit === phiInit && last.tolerance === options.tolerance) return last.solution;
+    let bg = this.background.solve(potential, phiInit, options, this.budget);
+    // Inflation that pauses (ε_H = 1 on a steep stretch) and resumes ends at its last end.
+    for (let pauses = 1; bg.status === 'ok' && pauses <= MAX_PAUSES && this.background.resumesAfterEnd(bg, this.budget); pauses++) {
+      this.budget.spent += bg.evaluations;
+      bg = this.background.solve(potential, phiInit, options, this.budget, pauses);
+    }
+    // A budget failure depends on what the point had spent; it is not shared.
+    this.lastBackground = bg.status === 'budget_exceeded' ? null : { potential, phiInit, tolerance: options.tolerance, solution: bg };
+    return bg;
   }
 
   private nStarFor(reh: Reheating, potential: PotentialFunctions, point: PointResult, bg: BackgroundSolution): number | Failure {

@@ -44,6 +44,7 @@ const NULL_OUTPUTS = {
  */
 export class RequestEvaluator {
   private readonly parsed = new Map<string, ParsedPotential | Failure>();
+  private readonly bound = new Map<string, ReturnType<ParsedPotential['bind']>>();
   /** Default starts of families by the parameters they depend on: a scan over N_* or a scale finds one once. */
   private readonly starts = new Map<string, number>();
   private readonly point: PointEvaluator;
@@ -65,7 +66,7 @@ export class RequestEvaluator {
     const params = family ? { ...Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue])), ...req.params } : req.params;
     const parsed = this.parse(source, Object.keys(params));
     if ('status' in parsed) return respond(parsed, null);
-    const bound = parsed.bind(params);
+    const bound = this.bind(source, parsed, params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
     const potential = bound.potential;
     if (req.phiInit === undefined && !family) {
@@ -116,6 +117,20 @@ export class RequestEvaluator {
       remember(this.starts, key, start);
     }
     return start;
+  }
+
+  /**
+   * The bound potential for these parameters, the same object for the same values: points that
+   * differ only in N_* or the reheating history then share one background (`PointEvaluator`).
+   */
+  private bind(source: string, parsed: ParsedPotential, params: Record<string, number>): ReturnType<ParsedPotential['bind']> {
+    const key = `${source}|${Object.keys(params).sort().map((name) => `${name}=${params[name]}`).join(',')}`;
+    let bound = this.bound.get(key);
+    if (!bound) {
+      bound = parsed.bind(params);
+      remember(this.bound, key, bound, 16);
+    }
+    return bound;
   }
 
   private parse(source: string, names: string[]): ParsedPotential | Failure {
