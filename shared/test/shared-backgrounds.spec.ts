@@ -10,6 +10,8 @@ const grid = (method: 'slowroll' | 'exact') => [
   ...[1, 2, 3].flatMap((p) => [50, 55, 60].map((nStar) => ({ potential: 'monomial', params: { p }, nStar, method }))),
   // A reheating axis: w_reh and the reheating energy vary, the potential does not.
   ...[0, 1 / 3, 0.8].flatMap((w) => [1e9, 1e13].map((energyGeV) => ({ potential: 'starobinsky', reheating: { w, energyGeV }, method }))),
+  // A scale axis: λ only multiplies V.
+  ...[1e-12, 3e-11, 1e-10, 2e-9].map((lambda) => ({ potential: 'monomial', params: { p: 2, lambda }, nStar: 55, method })),
   // An expression with a start of its own.
   ...[45, 50, 58].map((nStar) => ({ potential: 'V0*(1-(phi/mu)^4)', params: { V0: 1e-10, mu: 10 }, phiInit: 2, nStar, method })),
 ];
@@ -31,8 +33,22 @@ describe('shared backgrounds', () => {
     const solve = vi.spyOn(BackgroundSolver.prototype, 'solve');
     const engine = new RequestEvaluator();
     for (const request of grid('slowroll')) engine.evaluate(request);
-    // 3 monomials, 1 Starobinsky, 1 hilltop: 5 backgrounds for 18 points (the attractor check's
-    // second path for pivots near the start is a separate solver and not counted here).
-    expect(solve).toHaveBeenCalledTimes(5);
+    // One background is kept, the last: 3 monomials, 1 Starobinsky, p = 2 again for the scale axis
+    // (its four points share it), 1 hilltop: 6 backgrounds for 22 points (the attractor check's
+    // second path is a separate solver and not counted here).
+    expect(solve).toHaveBeenCalledTimes(6);
+  });
+
+  it('the scale only moves the amplitude: A_s ∝ λ, the normalisation ∝ 1/λ, the rest unchanged (closed form: V → cV)', () => {
+    const engine = new RequestEvaluator();
+    const base = engine.evaluate({ potential: 'monomial', params: { p: 2, lambda: 1e-10 }, nStar: 55, method: 'exact' });
+    const twice = engine.evaluate({ potential: 'monomial', params: { p: 2, lambda: 2e-10 }, nStar: 55, method: 'exact' });
+    expect(twice.As! / base.As!).toBeCloseTo(2, 12);
+    expect(base.amplitudeScale! / twice.amplitudeScale!).toBeCloseTo(2, 12);
+    expect(twice.ns).toBe(base.ns);
+    expect(twice.r).toBe(base.r);
+    expect(twice.energyScaleGeV).toBe(base.energyScaleGeV);
+    // A scale that is not positive is computed as given (and refused there).
+    expect(engine.evaluate({ potential: 'monomial', params: { p: 2, lambda: -1e-10 }, nStar: 55, method: 'slowroll' }).status).toBe('negative_potential');
   });
 });

@@ -217,7 +217,7 @@ export class PointEvaluator {
       if (exact.featureResidual > FEATURE_RESIDUAL) {
         return failure(
           'spectrum_feature',
-          `the spectrum is not a power law at the pivot: across ln(k/k_*) = ±${fmt(2 * modes.stencil)} P_R departs from a power law with running by up to ${fmt(exact.featureResidual * 100)} % (a step or oscillation there), so n_s and α_s from the stencil would describe the feature, not a tilt; A_s = ${fmt(exact.As)} and r = ${fmt(exact.r)} at k_* itself`,
+          `the spectrum is not a power law at the pivot: across ln(k/k_*) = ±${fmt(2 * modes.stencil)} P_R departs from a power law with running by up to ${fmt(exact.featureResidual * 100)} % (a step or oscillation there), so n_s and α_s from the stencil would describe the feature, not a tilt; r = ${fmt(exact.r)} at k_* itself`,
           { nTotal: bg.nEnd, phi: phiStar, observables: { ns: exact.ns, r: exact.r, alphaS: exact.alphaS, As: exact.As } },
         );
       }

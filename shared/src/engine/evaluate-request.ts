@@ -66,6 +66,15 @@ export class RequestEvaluator {
     const params = family ? { ...Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue])), ...req.params } : req.params;
     const parsed = this.parse(source, Object.keys(params));
     if ('status' in parsed) return respond(parsed, null);
+    // The overall scale: computed at the family's reference value and scaled after, so that points
+    // differing only in it share one background and are the same numbers as each computed alone.
+    const scale = family?.scale;
+    const value = scale ? params[scale.parameter] : NaN;
+    const reference = scale ? family!.parameters.find((q) => q.name === scale.parameter)!.defaultValue : NaN;
+    if (scale && value > 0 && Number.isFinite(value) && value !== reference) {
+      const response = this.evaluate({ ...req, params: { ...req.params, [scale.parameter]: reference } });
+      return rescaled(response, (value / reference) ** scale.power);
+    }
     const bound = this.bind(source, parsed, params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
     const potential = bound.potential;
@@ -149,6 +158,21 @@ export class RequestEvaluator {
 function remember<V>(cache: Map<string, V>, key: string, value: V, limit = 256): void {
   if (cache.size >= limit) cache.delete(cache.keys().next().value as string);
   cache.set(key, value);
+}
+
+/** An answer computed at the reference scale, for V multiplied by `factor`: only the amplitudes change. */
+function rescaled(response: EvaluateResponse, factor: number): EvaluateResponse {
+  if (response.status !== 'ok') return response;
+  const scaled: EvaluateResponse = {
+    ...response,
+    As: response.As! * factor,
+    amplitudeScale: response.amplitudeScale! / factor,
+    secondOrder: response.secondOrder && { ...response.secondOrder, As: response.secondOrder.As * factor },
+  };
+  if (response.spectrum) {
+    scaled.spectrum = { ...response.spectrum, scalar: response.spectrum.scalar.map((x) => x * factor), tensor: response.spectrum.tensor.map((x) => x * factor) };
+  }
+  return scaled;
 }
 
 function respond(outcome: PointOutcome, phiInit: number | null): EvaluateResponse {

@@ -255,12 +255,12 @@ export class BackgroundSolver {
       if (eps >= 1) return null;
       maxEps = Math.max(maxEps, eps);
       const a = Math.abs(v1);
-      if (a === 0) return `V'/V is zero to double precision from φ = ${fmt(next)} on, ahead of the field (V = ${fmt(V)} > 0); the field slows down approaching that flat stretch and never gets past`;
+      if (a === 0) return `V'/V is zero to double precision from φ = ${fmt(next)} on, ahead of the field (V > 0 there); the field slows down approaching that flat stretch and never gets past`;
       if (prev < prevPrev && prev <= a) {
         // |V'/V| had a local minimum near x: refine it; zero there is a stationary point the field cannot pass.
         const at = this.smallestSlope(x - direction * h, next);
         if (Math.abs(slope(at)) < 1e-12) {
-          return `V' vanishes at φ = ${fmt(at)} ahead of the field (V = ${fmt(p.V(at))} > 0) without changing sign; the field slows down approaching it and never gets past`;
+          return `V' vanishes at φ = ${fmt(at)} ahead of the field (V > 0 there) without changing sign; the field slows down approaching it and never gets past`;
         }
       }
       prevPrev = prev;
@@ -463,7 +463,7 @@ export class BackgroundSolver {
         const phiMin = this.minimumBetween(basin[0], basin[1]);
         return failure(
           'trapped',
-          `inflation stops briefly after ${fmt(solution.nEnd)} e-folds (ε_H = 1 at φ = ${fmt(solution.phiEnd)}), but the field then settles into the local minimum at φ = ${fmt(phiMin)} (V = ${fmt(this.potential.V(phiMin))} > 0), where inflation resumes and never ends`,
+          `inflation stops briefly after ${fmt(solution.nEnd)} e-folds (ε_H = 1 at φ = ${fmt(solution.phiEnd)}), but the field then settles into the local minimum at φ = ${fmt(phiMin)} (V > 0 there), where inflation resumes and never ends`,
           { phi: phiMin, nTotal: Infinity },
         );
       }
@@ -539,7 +539,7 @@ export class BackgroundSolver {
     const n = this.stepper.t;
     return failure(
       'trapped',
-      `the field settled into the local minimum at φ = ${fmt(phiMin)} (V = ${fmt(this.potential.V(phiMin))} > 0) while still inflating, after ${fmt(n)} e-folds; inflation never ends there`,
+      `the field settled into the local minimum at φ = ${fmt(phiMin)} (V > 0 there) while still inflating, after ${fmt(n)} e-folds; inflation never ends there`,
       { phi: phiMin, nTotal: n },
     );
   }

@@ -19,6 +19,11 @@ export interface PotentialFamily {
   phiInit(params: Record<string, number>, potential: PotentialFunctions, efolds?: number): number;
   /** The parameters that start depends on (the overall scale never matters), so it can be reused. */
   startDependsOn: string[];
+  /**
+   * The parameter that only scales V, as V ∝ parameter^power: in e-folds the background does not
+   * see it, so points that differ only in it share one computation (`RequestEvaluator`).
+   */
+  scale?: { parameter: string; power: number };
 }
 
 /** Slow-roll e-folds of a family's default start; the engine moves further up when a point needs more. */
@@ -30,6 +35,7 @@ const p = (name: string, defaultValue: number, min: number, max: number, descrip
 export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   {
     key: 'monomial',
+    scale: { parameter: 'lambda', power: 1 },
     startDependsOn: ['p'],
     name: 'Monomial (chaotic) inflation',
     expression: 'lambda * phi^p',
@@ -54,6 +60,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'starobinsky',
+    scale: { parameter: 'mu', power: 2 },
     startDependsOn: [],
     name: 'Starobinsky R² (Einstein frame)',
     expression: '0.75 * mu^2 * (1 - exp(-sqrt(2/3) * phi))^2',
@@ -65,6 +72,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'natural',
+    scale: { parameter: 'Lambda', power: 4 },
     startDependsOn: ['f'],
     name: 'Natural inflation',
     expression: 'Lambda^4 * (1 + cos(phi / f))',
@@ -80,6 +88,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'hilltop-quadratic',
+    scale: { parameter: 'V0', power: 1 },
     startDependsOn: ['mu'],
     name: 'Hilltop, quadratic',
     expression: 'V0 * (1 - phi^2 / mu^2)',
@@ -91,6 +100,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'hilltop-quartic',
+    scale: { parameter: 'V0', power: 1 },
     startDependsOn: ['mu'],
     name: 'Hilltop, quartic',
     expression: 'V0 * (1 - phi^4 / mu^4)',
@@ -102,6 +112,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'alpha-t',
+    scale: { parameter: 'V0', power: 1 },
     startDependsOn: ['alpha', 'n'],
     name: 'α-attractor, T-model',
     expression: 'V0 * tanh(phi / sqrt(6 * alpha))^(2 * n)',
@@ -113,6 +124,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'alpha-e',
+    scale: { parameter: 'V0', power: 1 },
     startDependsOn: ['alpha', 'n'],
     name: 'α-attractor, E-model',
     expression: 'V0 * (1 - exp(-sqrt(2 / (3 * alpha)) * phi))^(2 * n)',
@@ -124,6 +136,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'double-well',
+    scale: { parameter: 'lambda', power: 1 },
     startDependsOn: ['v'],
     name: 'Double well (symmetry breaking)',
     expression: 'lambda / 4 * (phi^2 - v^2)^2',
@@ -135,6 +148,7 @@ export const POTENTIAL_FAMILIES: PotentialFamily[] = [
   },
   {
     key: 'power-law',
+    scale: { parameter: 'V0', power: 1 },
     startDependsOn: [],
     name: 'Power-law (exponential potential)',
     expression: 'V0 * exp(-lambda * phi)',
