@@ -53,6 +53,12 @@ export function FamilyRoute() {
             { label: 'Where it inflates', value: family.region },
             { label: 'Paper', value: family.reference },
             { label: 'Engine key', value: family.key },
+            {
+              label: 'Overall scale',
+              value: family.scale
+                ? `${family.scale.parameter} only scales V (V ∝ ${family.scale.parameter}${family.scale.power === 1 ? '' : `^${family.scale.power}`}): points that differ in it share one computation, and A_s fixes it`
+                : 'no single parameter scales V: each value is computed on its own',
+            },
           ]}
         />
         <Suspense fallback={<LoadingState label="Loading the plot and the engine…" />}>

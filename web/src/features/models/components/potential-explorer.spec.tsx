@@ -65,6 +65,11 @@ describe('trial errors', () => {
     expect(screen.queryByRole('region', { name: 'Trial results' })).not.toBeInTheDocument();
   });
 
+  it('says which parameter only scales V, or that none does', async () => {
+    renderApp('/models/families/starobinsky');
+    expect(await screen.findByText(/^mu only scales V \(V ∝ mu\^2\)/)).toBeInTheDocument();
+  });
+
   it('asks for a number instead of plotting or running with an empty parameter', async () => {
     const { user } = renderApp('/models/families/natural');
     const f = await screen.findByLabelText('f');
