@@ -80,10 +80,10 @@ describe('a scan through queue and workers', () => {
     const inRange = await agent.get(`/api/scans/${id}/points?ns_min=0.96&ns_max=0.965`);
     expect(inRange.body.total).toBe(rows.filter((r) => r.ns! >= 0.96 && r.ns! <= 0.965).length);
     expect((await agent.get(`/api/scans/${id}/points?ns_min=abc`)).status).toBe(400);
-    // Any column: sorted by an axis input (f descending, then point index) and filtered on another.
+    // Any column: sorted by an axis input (f descending, ties by point index descending too) and filtered on another.
     const byInput = await agent.get(`/api/scans/${id}/points?sort=input.f&order=desc&input.nStar_min=55&pageSize=10`);
     expect(byInput.status).toBe(200);
-    expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([7, 8, 4, 5, 1, 2]);
+    expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([8, 7, 5, 4, 2, 1]);
     expect(byInput.body.total).toBe(6);
     const csvFiltered = await agent.get(`/api/scans/${id}/points?format=csv&input.f_max=5&sort=r`);
     const filteredRows = csvFiltered.text.trim().split('\n').slice(1).map((l) => l.split(','));

@@ -5,7 +5,7 @@ import type { Response } from 'express';
 import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
+  POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -13,7 +13,7 @@ import { ExportsService } from '../exports/exports.service';
 import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
-import { ScanPoint } from './entities/scan-point.entity';
+import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -24,16 +24,20 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 type RawPoint = Record<string, unknown>;
 
 /**
- * An axis input as a number. Inputs are one JSON object per point; the name was checked against
- * the scan's axes and matches [A-Za-z][A-Za-z0-9_]*, so it is safe inside the JSON path.
+ * An axis input as a number: its own indexed column `axis_k` for the first AXIS_COLUMNS varied
+ * inputs, else (a point list's later columns) from the JSON inputs. The name was checked against
+ * the scan's inputs and matches [A-Za-z][A-Za-z0-9_]*, so it is safe inside the JSON path.
  */
-function inputExpression(name: string): string {
-  return `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
+function inputExpression(parameters: string[], name: string): string {
+  const k = parameters.indexOf(name);
+  return k >= 0 && k < AXIS_COLUMNS ? `p.axis_${k}` : `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
 }
 
-function sortExpression(sort: PointSortKey): string {
-  const input = sortedInput(sort);
-  return input ? inputExpression(input) : `p.${COLUMN[sort as PointOutput | 'pointIndex']}`;
+/** The column (or expression) a page sorts by, and the direction of it and of the point-index tie-break. */
+function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'>): { expression: string; direction: 'ASC' | 'DESC' } {
+  const input = sortedInput(q.sort);
+  const expression = input ? inputExpression(parameters, input) : `p.${COLUMN[q.sort as PointOutput | 'pointIndex']}`;
+  return { expression, direction: q.order === 'asc' ? 'ASC' : 'DESC' };
 }
 
 /** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
@@ -67,7 +71,10 @@ export class ScanResultsService {
     return scan;
   }
 
-  /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
+  /**
+   * The matching points in the asked order, ties by point index in the same direction (so each
+   * order is one walk of a (scan_id, column) index, whose entries end in the point index).
+   */
   private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
@@ -83,7 +90,6 @@ export class ScanResultsService {
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
       .select('p.*')
-      .addSelect(sortExpression(q.sort), 'sort_key')
       .where('p.scan_id = :scanId', { scanId: scan.id });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
@@ -92,24 +98,42 @@ export class ScanResultsService {
       if (range.max !== undefined) qb.andWhere(`p.${COLUMN[range.output]} <= :max${i}`, { [`max${i}`]: range.max });
     });
     q.inputRanges.forEach((range, i) => {
-      const value = inputExpression(range.name);
+      const value = inputExpression(axes, range.name);
       if (range.min !== undefined) qb.andWhere(`${value} >= :inMin${i}`, { [`inMin${i}`]: range.min });
       if (range.max !== undefined) qb.andWhere(`${value} <= :inMax${i}`, { [`inMax${i}`]: range.max });
     });
-    return qb
-      .orderBy('sort_key', q.order === 'asc' ? 'ASC' : 'DESC')
-      .addOrderBy('p.point_index', 'ASC');
+    const { expression, direction } = orderOf(axes, q);
+    return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
   }
 
+  /**
+   * One page by a deferred join: the inner query walks the sort column's index for the page's
+   * point indices alone (the offset skips index entries, not rows), and only the page's rows are
+   * then read by primary key. Without filters the total is the scan's own counters.
+   */
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
     const scan = await this.readable(user, id);
-    const qb = this.filtered(scan, q);
-    const total = await qb.clone().orderBy().getCount();
-    const rows = await qb
-      .offset((q.page - 1) * q.pageSize)
-      .limit(q.pageSize)
-      .getRawMany<RawPoint>();
+    const unfiltered = !q.ranges.length && !q.inputRanges.length;
+    let total: number;
+    if (unfiltered && !q.status) total = scan.donePoints + scan.failedPoints;
+    else if (unfiltered && q.status === 'ok') total = scan.donePoints;
+    else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
+    else {
+      const [matching, parameters] = this.filtered(scan, q).select('1').orderBy().getQueryAndParameters();
+      const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${matching}) matching`, parameters);
+      total = Number(n);
+    }
+    const rows: RawPoint[] = await this.db.query(...this.pageQuery(scan, q));
     return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
+  }
+
+  /** The SQL of one page (see `page`), and its parameters. */
+  pageQuery(scan: Scan, q: ScanPointsQuery): [string, unknown[]] {
+    const [inner, parameters] = this.filtered(scan, q).select('p.point_index', 'point_index').offset((q.page - 1) * q.pageSize).limit(q.pageSize).getQueryAndParameters();
+    const { expression, direction } = orderOf(variedInputs(scan.spec), q);
+    const sql = `SELECT p.* FROM (${inner}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
+      ORDER BY ${expression} ${direction}, p.point_index ${direction}`;
+    return [sql, [...parameters, scan.id]];
   }
 
   /** One point by index; 404 says whether the index is outside the grid or not computed yet. */
