@@ -5,7 +5,7 @@ import type { Response } from 'express';
 import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -195,42 +195,41 @@ export class ScanResultsService {
   }
 
   /**
-   * The OK points as columns for an n_s–r plot, at most `limit` of them. When there are more,
-   * the OK points are numbered in point-index order (ROW_NUMBER over the (scan, status) index,
-   * which holds the point index, so this reads no row) and every stride-th is kept with MOD;
-   * the sample spreads evenly over the grid and only the kept rows are read in full, by primary
-   * key. Count and sample come from one snapshot (a REPEATABLE READ transaction), so they agree
-   * while a scan is still storing points.
+   * The OK points as columns for an n_s–r plot, from at most `limit` points of the scan. When
+   * the scan has more, it is sampled evenly as a sub-grid (`planeSample`: every s-th value of each
+   * axis, or of a point list's order) and only the sampled points are read, by primary key; the
+   * answer states the steps. The OK count and the sample come from one snapshot (a REPEATABLE
+   * READ transaction), so they agree while a scan is still storing points.
    */
   async plane(user: SessionUser, id: number, q: ScanPlaneQuery): Promise<ScanPlane> {
     const scan = await this.readable(user, id);
     const parameters = variedInputs(scan.spec);
-    const columns = 'p.point_index, p.ns, p.r, p.alpha_s, p.n_star, p.inputs';
-    const { okPoints, stride, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
-      const [{ n }]: { n: string | number }[] = await tx.query("SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? AND status = 'ok'", [id]);
-      const okPoints = Number(n);
-      const stride = Math.max(1, Math.ceil(okPoints / q.limit));
-      let rows: RawPoint[] = [];
-      if (okPoints > 0 && stride === 1) {
-        rows = await tx.query(`SELECT ${columns} FROM scan_points p WHERE p.scan_id = ? AND p.status = 'ok' ORDER BY p.point_index`, [id]);
-      } else if (okPoints > 0) {
-        rows = await tx.query(
-          `SELECT ${columns}
-             FROM (SELECT point_index, ROW_NUMBER() OVER (ORDER BY point_index) AS k
-                     FROM scan_points FORCE INDEX (ix_scan_points_scan_status)
-                    WHERE scan_id = ? AND status = 'ok') ranked
-             STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = ranked.point_index
-            WHERE MOD(ranked.k - 1, ?) = 0
-            ORDER BY ranked.point_index`,
-          [id, id, stride],
-        );
+    const lengths = scan.spec.axes ? new ScanGrid(scan.spec.axes).lengths : [scanPoints(scan.spec).size];
+    const { axisStrides, pointIndices } = planeSample(lengths, q.limit);
+    const stride = axisStrides.reduce((product, step) => product * step, 1);
+    const columns = 'point_index, ns, r, alpha_s, n_star, inputs';
+    const { okPoints, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
+      // The scan's counter of OK points, which the worker moves in the transaction that stores them.
+      const [{ done }]: { done: string | number }[] = await tx.query('SELECT done_points AS done FROM scans WHERE id = ?', [id]);
+      const rows: RawPoint[] = [];
+      if (stride === 1) {
+        rows.push(...(await tx.query(`SELECT ${columns} FROM scan_points WHERE scan_id = ? AND status = 'ok' ORDER BY point_index`, [id])));
+      } else {
+        for (let i = 0; i < pointIndices.length; i += 5000) {
+          const batch = pointIndices.slice(i, i + 5000);
+          rows.push(...(await tx.query(
+            `SELECT ${columns} FROM scan_points WHERE scan_id = ? AND point_index IN (${batch.map(() => '?').join(',')}) AND status = 'ok' ORDER BY point_index`,
+            [id, ...batch],
+          )));
+        }
       }
-      return { okPoints, stride, rows };
+      return { okPoints: Number(done), rows };
     });
     // An OK point always has all four outputs: the worker stores them with the status.
     const plane: ScanPlane = {
       okPoints,
       stride,
+      axisStrides,
       parameters,
       pointIndex: new Array(rows.length),
       ns: new Array(rows.length),
