@@ -108,6 +108,9 @@ describe('axis inputs as indexed columns of scan_points', () => {
         expect(res.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual(await byJson(c.order, c.where, page, 100));
       }
     }
+    // Past the last page: no points, the same total.
+    const past = await member.get(`/api/scans/${scan.id}/points?sort=input.nStar&pageSize=100&page=${POINTS / 100 + 1}`);
+    expect({ status: past.status, items: past.body.items, total: past.body.total }).toEqual({ status: 200, items: [], total: POINTS });
     // Unfiltered, the total is the scan's stored count.
     expect((await member.get(`/api/scans/${scan.id}/points?sort=input.f&pageSize=1`)).body.total).toBe(POINTS);
   });
@@ -115,7 +118,7 @@ describe('axis inputs as indexed columns of scan_points', () => {
   it('reads a page sorted by an axis or an output through that column\'s index', async () => {
     const service = new ScanResultsService(t.db, undefined as never, undefined as never);
     const explain = async (query: Record<string, string>) => {
-      const [sql, parameters] = service.pageQuery(scan, scanPointsQuerySchema.parse(query));
+      const [sql, parameters] = service.pageQuery(scan, scanPointsQuerySchema.parse(query), POINTS);
       return (await t.db.query(`EXPLAIN ${sql}`, parameters)) as { select_type: string; key: string | null; Extra: string | null }[];
     };
     for (const [query, key] of [

@@ -123,15 +123,25 @@ export class ScanResultsService {
       const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${matching}) matching`, parameters);
       total = Number(n);
     }
-    const rows: RawPoint[] = await this.db.query(...this.pageQuery(scan, q));
+    // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
+    const rows: RawPoint[] = (q.page - 1) * q.pageSize >= total ? [] : await this.db.query(...this.pageQuery(scan, q, total));
     return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
   }
 
-  /** The SQL of one page (see `page`), and its parameters. */
-  pageQuery(scan: Scan, q: ScanPointsQuery): [string, unknown[]] {
-    const [inner, parameters] = this.filtered(scan, q).select('p.point_index', 'point_index').offset((q.page - 1) * q.pageSize).limit(q.pageSize).getQueryAndParameters();
+  /**
+   * The SQL of one page (see `page`) of `total` matching points, and its parameters. A page past
+   * the middle is taken from the far end (the order reversed, the offset counted from the end),
+   * so the index walk covers at most half of the matching points.
+   */
+  pageQuery(scan: Scan, q: ScanPointsQuery, total: number): [string, unknown[]] {
+    const offset = (q.page - 1) * q.pageSize;
+    const fromEnd = offset > total / 2;
+    const inner = fromEnd
+      ? this.filtered(scan, { ...q, order: q.order === 'asc' ? 'desc' : 'asc' }).offset(Math.max(0, total - offset - q.pageSize)).limit(Math.max(0, Math.min(q.pageSize, total - offset)))
+      : this.filtered(scan, q).offset(offset).limit(q.pageSize);
+    const [innerSql, parameters] = inner.select('p.point_index', 'point_index').getQueryAndParameters();
     const { expression, direction } = orderOf(variedInputs(scan.spec), q);
-    const sql = `SELECT p.* FROM (${inner}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
+    const sql = `SELECT p.* FROM (${innerSql}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
       ORDER BY ${expression} ${direction}, p.point_index ${direction}`;
     return [sql, [...parameters, scan.id]];
   }
