@@ -113,14 +113,16 @@ export class ScanResultsService {
    */
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
     const scan = await this.readable(user, id);
+    // Built first: it refuses an input the scan does not vary, whatever the page.
+    const matching = this.filtered(scan, q);
     const unfiltered = !q.ranges.length && !q.inputRanges.length;
     let total: number;
     if (unfiltered && !q.status) total = scan.donePoints + scan.failedPoints;
     else if (unfiltered && q.status === 'ok') total = scan.donePoints;
     else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
     else {
-      const [matching, parameters] = this.filtered(scan, q).select('1').orderBy().getQueryAndParameters();
-      const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${matching}) matching`, parameters);
+      const [sql, parameters] = matching.select('1').orderBy().getQueryAndParameters();
+      const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
       total = Number(n);
     }
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
