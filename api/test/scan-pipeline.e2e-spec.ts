@@ -58,6 +58,8 @@ describe('a scan through queue and workers', () => {
 
     const rows = await t.db.getRepository(ScanPoint).find({ where: { scanId: id }, order: { pointIndex: 'ASC' } });
     expect(rows.map((r) => r.pointIndex)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
+    // The worker sets the axis columns from the varied inputs, in axis order (f, then N_*).
+    expect(rows.map((r) => [r.axis0, r.axis1, r.axis2, r.axis3])).toEqual(rows.map((r) => [r.inputs.f, r.inputs.nStar, null, null]));
     const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
     expect(stored.params).toEqual({ Lambda: 5e-3 }); // the family default filled in
     const grid = new ScanGrid(stored.axes!);
