@@ -58,6 +58,8 @@ describe('a scan through queue and workers', () => {
 
     const rows = await t.db.getRepository(ScanPoint).find({ where: { scanId: id }, order: { pointIndex: 'ASC' } });
     expect(rows.map((r) => r.pointIndex)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
+    // The worker sets the axis columns from the varied inputs, in axis order (f, then N_*).
+    expect(rows.map((r) => [r.axis0, r.axis1, r.axis2, r.axis3])).toEqual(rows.map((r) => [r.inputs.f, r.inputs.nStar, null, null]));
     const stored = (await t.db.getRepository(Scan).findOneByOrFail({ id })).spec as unknown as StoredScanSpec;
     expect(stored.params).toEqual({ Lambda: 5e-3 }); // the family default filled in
     const grid = new ScanGrid(stored.axes!);
@@ -80,10 +82,10 @@ describe('a scan through queue and workers', () => {
     const inRange = await agent.get(`/api/scans/${id}/points?ns_min=0.96&ns_max=0.965`);
     expect(inRange.body.total).toBe(rows.filter((r) => r.ns! >= 0.96 && r.ns! <= 0.965).length);
     expect((await agent.get(`/api/scans/${id}/points?ns_min=abc`)).status).toBe(400);
-    // Any column: sorted by an axis input (f descending, then point index) and filtered on another.
+    // Any column: sorted by an axis input (f descending, ties by point index descending too) and filtered on another.
     const byInput = await agent.get(`/api/scans/${id}/points?sort=input.f&order=desc&input.nStar_min=55&pageSize=10`);
     expect(byInput.status).toBe(200);
-    expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([7, 8, 4, 5, 1, 2]);
+    expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([8, 7, 5, 4, 2, 1]);
     expect(byInput.body.total).toBe(6);
     const csvFiltered = await agent.get(`/api/scans/${id}/points?format=csv&input.f_max=5&sort=r`);
     const filteredRows = csvFiltered.text.trim().split('\n').slice(1).map((l) => l.split(','));

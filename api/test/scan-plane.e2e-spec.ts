@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
-import { scanChunks, scanPlaneSchema, workerPoolSchema, type ScanPlane, type ScanPointDto, type WorkerPool } from '@sixtyfold/shared';
+import { scanChunks, scanPlaneSchema, workerPoolSchema, type ScanPointDto, type WorkerPool } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
@@ -63,6 +63,7 @@ describe('the n_s–r plane of a scan and the worker pool', () => {
     expect(plane.okPoints).toBe(okPoints.length);
     expect(plane.okPoints).toBeLessThan(30);
     expect(plane.stride).toBe(1);
+    expect(plane.axisStrides).toEqual([1, 1]);
     expect(plane.parameters).toEqual(['p', 'nStar']);
     expect(plane.pointIndex).toEqual(okPoints.map((p) => p.pointIndex));
     expect(plane.ns).toEqual(okPoints.map((p) => p.ns));
@@ -75,22 +76,20 @@ describe('the n_s–r plane of a scan and the worker pool', () => {
     expect(plane.inputs.p.filter((p) => p === 1)).toHaveLength(10);
   });
 
-  it('samples every stride-th OK point in point-index order down to the limit', async () => {
-    const limit = 4;
-    const res = await member.get(`/api/scans/${scanId}/plane?limit=${limit}`);
+  it('samples the grid evenly as a sub-grid down to the limit, and returns the OK points among the sampled', async () => {
+    // 3 values of p × 10 of N_* down to 4 points: every 2nd p and every 5th N_*.
+    const res = await member.get(`/api/scans/${scanId}/plane?limit=4`);
     expect(res.status).toBe(200);
-    const plane = res.body as ScanPlane;
-    const stride = Math.ceil(okPoints.length / limit);
-    expect(stride).toBeGreaterThan(1);
-    expect(plane).toMatchObject({ okPoints: okPoints.length, stride });
-    const kept = okPoints.filter((_, k) => k % stride === 0);
-    expect(plane.pointIndex.length).toBeLessThanOrEqual(limit);
+    const plane = scanPlaneSchema.parse(res.body);
+    expect(plane).toMatchObject({ okPoints: okPoints.length, stride: 10, axisStrides: [2, 5] });
+    const kept = okPoints.filter((p) => Math.floor(p.pointIndex / 10) % 2 === 0 && (p.pointIndex % 10) % 5 === 0);
+    expect(kept.length).toBeGreaterThan(0);
     expect(plane.pointIndex).toEqual(kept.map((p) => p.pointIndex));
     expect(plane.ns).toEqual(kept.map((p) => p.ns));
     expect(plane.r).toEqual(kept.map((p) => p.r));
     expect(plane.inputs.nStar).toEqual(kept.map((p) => p.inputs.nStar));
-    const one = (await member.get(`/api/scans/${scanId}/plane?limit=1`)).body as ScanPlane;
-    expect(one).toMatchObject({ okPoints: okPoints.length, stride: okPoints.length, pointIndex: [okPoints[0].pointIndex] });
+    const one = scanPlaneSchema.parse((await member.get(`/api/scans/${scanId}/plane?limit=1`)).body);
+    expect(one).toMatchObject({ okPoints: okPoints.length, stride: 30, axisStrides: [3, 10], pointIndex: [0] });
   });
 
   it('refuses a bad limit, and hides the scan from other groups', async () => {

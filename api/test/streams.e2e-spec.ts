@@ -78,10 +78,10 @@ async function createScanWithPoints(t: TestApp, member: Awaited<ReturnType<TestA
   // No worker may compute it: its chunks leave the queue, and the points are written here.
   expect((await member.post(`/api/scans/${id}/cancel`).send({})).status).toBe(200);
   await t.db.query(
-    `INSERT INTO scan_points (scan_id, point_index, inputs, status, ns, r, alpha_s, a_s, n_star, computed_at)
-     SELECT ?, seq, JSON_OBJECT('p', 1 + (seq DIV ${N_COUNT}) * 2 / ${P_COUNT - 1}, 'nStar', 50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1}),
-            'ok', 0.96 + seq * 1e-9, 0.01, -0.0006, 2.1e-9, 50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1}, NOW(3)
-       FROM seq_0_to_${TOTAL - 1}`,
+    `INSERT INTO scan_points (scan_id, point_index, inputs, axis_0, axis_1, status, ns, r, alpha_s, a_s, n_star, computed_at)
+     SELECT ?, seq, JSON_OBJECT('p', p, 'nStar', nStar), p, nStar, 'ok', 0.96 + seq * 1e-9, 0.01, -0.0006, 2.1e-9, nStar, NOW(3)
+       FROM (SELECT seq, 1 + (seq DIV ${N_COUNT}) * 2 / ${P_COUNT - 1} AS p, 50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1} AS nStar
+               FROM seq_0_to_${TOTAL - 1}) grid`,
     [id],
   );
   return id;

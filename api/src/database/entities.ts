@@ -20,6 +20,7 @@ export const ENTITIES = [
   Invitation, ScanArchive, ConstraintRegion,
 ];
 
+export { axisColumnValues, AXIS_COLUMNS } from '../scans/entities/scan-point.entity';
 export {
   ApiToken, AuditEvent, Comment, CommentMention, ConstraintRegion, Group, Invitation, Membership, Notification, PotentialModel, Scan,
   ScanArchive, ScanPoint, ScanTag, User,

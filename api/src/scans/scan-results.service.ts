@@ -5,7 +5,7 @@ import type { Response } from 'express';
 import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  POINT_OUTPUTS, ScanGrid, sortedInput, variedInputs, type Page, type PointOutput, type PointSortKey, type ScanGridQuery, type ScanGridSlice,
+  planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -13,7 +13,7 @@ import { ExportsService } from '../exports/exports.service';
 import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
-import { ScanPoint } from './entities/scan-point.entity';
+import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -24,16 +24,20 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 type RawPoint = Record<string, unknown>;
 
 /**
- * An axis input as a number. Inputs are one JSON object per point; the name was checked against
- * the scan's axes and matches [A-Za-z][A-Za-z0-9_]*, so it is safe inside the JSON path.
+ * An axis input as a number: its own indexed column `axis_k` for the first AXIS_COLUMNS varied
+ * inputs, else (a point list's later columns) from the JSON inputs. The name was checked against
+ * the scan's inputs and matches [A-Za-z][A-Za-z0-9_]*, so it is safe inside the JSON path.
  */
-function inputExpression(name: string): string {
-  return `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
+function inputExpression(parameters: string[], name: string): string {
+  const k = parameters.indexOf(name);
+  return k >= 0 && k < AXIS_COLUMNS ? `p.axis_${k}` : `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
 }
 
-function sortExpression(sort: PointSortKey): string {
-  const input = sortedInput(sort);
-  return input ? inputExpression(input) : `p.${COLUMN[sort as PointOutput | 'pointIndex']}`;
+/** The column (or expression) a page sorts by, and the direction of it and of the point-index tie-break. */
+function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'>): { expression: string; direction: 'ASC' | 'DESC' } {
+  const input = sortedInput(q.sort);
+  const expression = input ? inputExpression(parameters, input) : `p.${COLUMN[q.sort as PointOutput | 'pointIndex']}`;
+  return { expression, direction: q.order === 'asc' ? 'ASC' : 'DESC' };
 }
 
 /** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
@@ -67,7 +71,10 @@ export class ScanResultsService {
     return scan;
   }
 
-  /** The matching points, with `sort_key` selected so that any column (outputs or inputs) can order them. */
+  /**
+   * The matching points in the asked order, ties by point index in the same direction (so each
+   * order is one walk of a (scan_id, column) index, whose entries end in the point index).
+   */
   private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
@@ -83,7 +90,6 @@ export class ScanResultsService {
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
       .select('p.*')
-      .addSelect(sortExpression(q.sort), 'sort_key')
       .where('p.scan_id = :scanId', { scanId: scan.id });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
@@ -92,24 +98,54 @@ export class ScanResultsService {
       if (range.max !== undefined) qb.andWhere(`p.${COLUMN[range.output]} <= :max${i}`, { [`max${i}`]: range.max });
     });
     q.inputRanges.forEach((range, i) => {
-      const value = inputExpression(range.name);
+      const value = inputExpression(axes, range.name);
       if (range.min !== undefined) qb.andWhere(`${value} >= :inMin${i}`, { [`inMin${i}`]: range.min });
       if (range.max !== undefined) qb.andWhere(`${value} <= :inMax${i}`, { [`inMax${i}`]: range.max });
     });
-    return qb
-      .orderBy('sort_key', q.order === 'asc' ? 'ASC' : 'DESC')
-      .addOrderBy('p.point_index', 'ASC');
+    const { expression, direction } = orderOf(axes, q);
+    return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
   }
 
+  /**
+   * One page by a deferred join: the inner query walks the sort column's index for the page's
+   * point indices alone (the offset skips index entries, not rows), and only the page's rows are
+   * then read by primary key. Without filters the total is the scan's own counters.
+   */
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
     const scan = await this.readable(user, id);
-    const qb = this.filtered(scan, q);
-    const total = await qb.clone().orderBy().getCount();
-    const rows = await qb
-      .offset((q.page - 1) * q.pageSize)
-      .limit(q.pageSize)
-      .getRawMany<RawPoint>();
+    // Built first: it refuses an input the scan does not vary, whatever the page.
+    const matching = this.filtered(scan, q);
+    const unfiltered = !q.ranges.length && !q.inputRanges.length;
+    let total: number;
+    if (unfiltered && !q.status) total = scan.donePoints + scan.failedPoints;
+    else if (unfiltered && q.status === 'ok') total = scan.donePoints;
+    else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
+    else {
+      const [sql, parameters] = matching.select('1').orderBy().getQueryAndParameters();
+      const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
+      total = Number(n);
+    }
+    // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
+    const rows: RawPoint[] = (q.page - 1) * q.pageSize >= total ? [] : await this.db.query(...this.pageQuery(scan, q, total));
     return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
+  }
+
+  /**
+   * The SQL of one page (see `page`) of `total` matching points, and its parameters. A page past
+   * the middle is taken from the far end (the order reversed, the offset counted from the end),
+   * so the index walk covers at most half of the matching points.
+   */
+  pageQuery(scan: Scan, q: ScanPointsQuery, total: number): [string, unknown[]] {
+    const offset = (q.page - 1) * q.pageSize;
+    const fromEnd = offset > total / 2;
+    const inner = fromEnd
+      ? this.filtered(scan, { ...q, order: q.order === 'asc' ? 'desc' : 'asc' }).offset(Math.max(0, total - offset - q.pageSize)).limit(Math.max(0, Math.min(q.pageSize, total - offset)))
+      : this.filtered(scan, q).offset(offset).limit(q.pageSize);
+    const [innerSql, parameters] = inner.select('p.point_index', 'point_index').getQueryAndParameters();
+    const { expression, direction } = orderOf(variedInputs(scan.spec), q);
+    const sql = `SELECT p.* FROM (${innerSql}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
+      ORDER BY ${expression} ${direction}, p.point_index ${direction}`;
+    return [sql, [...parameters, scan.id]];
   }
 
   /** One point by index; 404 says whether the index is outside the grid or not computed yet. */
@@ -171,42 +207,41 @@ export class ScanResultsService {
   }
 
   /**
-   * The OK points as columns for an n_s–r plot, at most `limit` of them. When there are more,
-   * the OK points are numbered in point-index order (ROW_NUMBER over the (scan, status) index,
-   * which holds the point index, so this reads no row) and every stride-th is kept with MOD;
-   * the sample spreads evenly over the grid and only the kept rows are read in full, by primary
-   * key. Count and sample come from one snapshot (a REPEATABLE READ transaction), so they agree
-   * while a scan is still storing points.
+   * The OK points as columns for an n_s–r plot, from at most `limit` points of the scan. When
+   * the scan has more, it is sampled evenly as a sub-grid (`planeSample`: every s-th value of each
+   * axis, or of a point list's order) and only the sampled points are read, by primary key; the
+   * answer states the steps. The OK count and the sample come from one snapshot (a REPEATABLE
+   * READ transaction), so they agree while a scan is still storing points.
    */
   async plane(user: SessionUser, id: number, q: ScanPlaneQuery): Promise<ScanPlane> {
     const scan = await this.readable(user, id);
     const parameters = variedInputs(scan.spec);
-    const columns = 'p.point_index, p.ns, p.r, p.alpha_s, p.n_star, p.inputs';
-    const { okPoints, stride, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
-      const [{ n }]: { n: string | number }[] = await tx.query("SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? AND status = 'ok'", [id]);
-      const okPoints = Number(n);
-      const stride = Math.max(1, Math.ceil(okPoints / q.limit));
-      let rows: RawPoint[] = [];
-      if (okPoints > 0 && stride === 1) {
-        rows = await tx.query(`SELECT ${columns} FROM scan_points p WHERE p.scan_id = ? AND p.status = 'ok' ORDER BY p.point_index`, [id]);
-      } else if (okPoints > 0) {
-        rows = await tx.query(
-          `SELECT ${columns}
-             FROM (SELECT point_index, ROW_NUMBER() OVER (ORDER BY point_index) AS k
-                     FROM scan_points FORCE INDEX (ix_scan_points_scan_status)
-                    WHERE scan_id = ? AND status = 'ok') ranked
-             STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = ranked.point_index
-            WHERE MOD(ranked.k - 1, ?) = 0
-            ORDER BY ranked.point_index`,
-          [id, id, stride],
-        );
+    const lengths = scan.spec.axes ? new ScanGrid(scan.spec.axes).lengths : [scanPoints(scan.spec).size];
+    const { axisStrides, pointIndices } = planeSample(lengths, q.limit);
+    const stride = axisStrides.reduce((product, step) => product * step, 1);
+    const columns = 'point_index, ns, r, alpha_s, n_star, inputs';
+    const { okPoints, rows } = await this.db.transaction('REPEATABLE READ', async (tx) => {
+      // The scan's counter of OK points, which the worker moves in the transaction that stores them.
+      const [{ done }]: { done: string | number }[] = await tx.query('SELECT done_points AS done FROM scans WHERE id = ?', [id]);
+      const rows: RawPoint[] = [];
+      if (stride === 1) {
+        rows.push(...(await tx.query(`SELECT ${columns} FROM scan_points WHERE scan_id = ? AND status = 'ok' ORDER BY point_index`, [id])));
+      } else {
+        for (let i = 0; i < pointIndices.length; i += 5000) {
+          const batch = pointIndices.slice(i, i + 5000);
+          rows.push(...(await tx.query(
+            `SELECT ${columns} FROM scan_points WHERE scan_id = ? AND point_index IN (${batch.map(() => '?').join(',')}) AND status = 'ok' ORDER BY point_index`,
+            [id, ...batch],
+          )));
+        }
       }
-      return { okPoints, stride, rows };
+      return { okPoints: Number(done), rows };
     });
     // An OK point always has all four outputs: the worker stores them with the status.
     const plane: ScanPlane = {
       okPoints,
       stride,
+      axisStrides,
       parameters,
       pointIndex: new Array(rows.length),
       ns: new Array(rows.length),

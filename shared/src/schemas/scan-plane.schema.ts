@@ -8,14 +8,17 @@ export type ScanPlaneQuery = z.infer<typeof scanPlaneQuerySchema>;
 
 /**
  * A scan's OK points as columns, for an n_s–r scatter plot: element i of every array is the
- * same point. With more OK points than `limit`, every `stride`-th one (counted in point-index
- * order among the OK points, starting with the first) is returned.
+ * same point. With more points than `limit`, the scan is sampled evenly as a sub-grid (every
+ * `axisStrides[a]`-th value of axis a, from the first; a point list is one axis, its order) and
+ * the OK points among the sampled ones are returned.
  */
 export const scanPlaneSchema = z.object({
   /** OK points stored so far. */
   okPoints: z.number().int(),
-  /** Every stride-th OK point (by point index order) is returned; 1 = all. */
+  /** 1 in `stride` points of the scan is sampled (the product of `axisStrides`); 1 = all. */
   stride: z.number().int(),
+  /** The sampling step along each grid axis, in the order of `parameters`; for a point list, one step along the list. */
+  axisStrides: z.array(z.number().int()),
   /** The scan's axis parameters, in axis order. */
   parameters: z.array(z.string()),
   pointIndex: z.array(z.number().int()),

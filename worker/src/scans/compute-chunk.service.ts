@@ -2,8 +2,8 @@ import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource, EntityManager } from 'typeorm';
-import { Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { continuationOf, pointRequest, RequestEvaluator, scanPoints, type ComputeChunkJob } from '@sixtyfold/shared';
+import { axisColumnValues, Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
+import { continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
 
 export interface ChunkOutcome {
@@ -68,6 +68,7 @@ export class ComputeChunkService {
 
     const spec = scan.spec;
     const points = scanPoints(spec);
+    const parameters = variedInputs(spec);
     const rows: PointRow[] = [];
     const now = new Date();
     const startedAt = performance.now();
@@ -81,6 +82,7 @@ export class ComputeChunkService {
         scanId: scan.id,
         pointIndex: i,
         inputs,
+        ...axisColumnValues(parameters, inputs),
         status: result.status,
         failureReason: ok ? null : result.message.slice(0, 500),
         ns: result.ns,
@@ -128,9 +130,12 @@ export class ComputeChunkService {
     if (!scan || scan.status === 'cancelled') return 0;
     // The inputs, when the stored spec can be read at all (it may be what made the chunk fail).
     let inputs: (i: number) => Record<string, number> = () => ({});
+    let parameters: string[] = [];
     try {
-      const points = scanPoints((await scans.findOneByOrFail({ id: job.scanId })).spec);
+      const spec = (await scans.findOneByOrFail({ id: job.scanId })).spec;
+      const points = scanPoints(spec);
       inputs = (i) => points.point(i);
+      parameters = variedInputs(spec);
     } catch {
       // Stored without inputs; the reason says what went wrong.
     }
@@ -147,7 +152,7 @@ export class ComputeChunkService {
       for (let i = job.start; i < job.end; ) {
         if (stored.has(i)) { i++; continue; }
         const rows: PointRow[] = [];
-        for (; i < job.end && !stored.has(i); i++) rows.push(failedRow(scan.id, i, inputs(i), reason, now));
+        for (; i < job.end && !stored.has(i); i++) rows.push(failedRow(scan.id, i, parameters, inputs(i), reason, now));
         await this.write(tx, scan.id, { start: rows[0].pointIndex, end: i }, rows);
         written += rows.length;
       }
@@ -199,9 +204,9 @@ export class ComputeChunkService {
 }
 
 /** The record of a point the workers could not compute. */
-function failedRow(scanId: number, pointIndex: number, inputs: Record<string, number>, reason: string, computedAt: Date): PointRow {
+function failedRow(scanId: number, pointIndex: number, parameters: string[], inputs: Record<string, number>, reason: string, computedAt: Date): PointRow {
   return {
-    scanId, pointIndex, inputs, status: 'chunk_failed', failureReason: reason.slice(0, 500),
+    scanId, pointIndex, inputs, ...axisColumnValues(parameters, inputs), status: 'chunk_failed', failureReason: reason.slice(0, 500),
     ns: null, r: null, alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar: null, phiStar: null, phiEnd: null, energyScaleGeV: null,
     computedAt,
   };

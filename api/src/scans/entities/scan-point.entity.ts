@@ -1,6 +1,19 @@
 import { Column, Entity, Index, JoinColumn, ManyToOne, PrimaryColumn } from 'typeorm';
 import { Scan } from './scan.entity';
 
+/** How many varied inputs get a numeric, indexed column of their own (a grid has at most 4 axes). */
+export const AXIS_COLUMNS = 4;
+
+/**
+ * The axis columns of a point: the i-th varied input (`variedInputs(spec)` order) in `axis_i`,
+ * null past the inputs. Sorts and filters by an input read these through their indexes instead of
+ * the JSON `inputs`; a point list's columns past the fourth have none and are read from `inputs`.
+ */
+export function axisColumnValues(parameters: readonly string[], inputs: Record<string, number>): Pick<ScanPoint, 'axis0' | 'axis1' | 'axis2' | 'axis3'> {
+  const at = (k: number) => (k < parameters.length ? inputs[parameters[k]] ?? null : null);
+  return { axis0: at(0), axis1: at(1), axis2: at(2), axis3: at(3) };
+}
+
 /**
  * One computed grid point. The primary key (scan, point index) makes a retried chunk
  * overwrite its rows instead of adding new ones.
@@ -9,6 +22,19 @@ import { Scan } from './scan.entity';
 @Index('ix_scan_points_scan_status', ['scanId', 'status'])
 @Index('ix_scan_points_scan_ns', ['scanId', 'ns'])
 @Index('ix_scan_points_scan_r', ['scanId', 'r'])
+// Every other output a points page sorts by, and the axis columns: any page is an index walk.
+@Index('ix_scan_points_scan_alpha_s', ['scanId', 'alphaS'])
+@Index('ix_scan_points_scan_a_s', ['scanId', 'As'])
+@Index('ix_scan_points_scan_amplitude_scale', ['scanId', 'amplitudeScale'])
+@Index('ix_scan_points_scan_n_total', ['scanId', 'nTotal'])
+@Index('ix_scan_points_scan_n_star', ['scanId', 'nStar'])
+@Index('ix_scan_points_scan_phi_star', ['scanId', 'phiStar'])
+@Index('ix_scan_points_scan_phi_end', ['scanId', 'phiEnd'])
+@Index('ix_scan_points_scan_energy_scale_gev', ['scanId', 'energyScaleGeV'])
+@Index('ix_scan_points_scan_axis_0', ['scanId', 'axis0'])
+@Index('ix_scan_points_scan_axis_1', ['scanId', 'axis1'])
+@Index('ix_scan_points_scan_axis_2', ['scanId', 'axis2'])
+@Index('ix_scan_points_scan_axis_3', ['scanId', 'axis3'])
 export class ScanPoint {
   @PrimaryColumn({ name: 'scan_id', type: 'int', unsigned: true })
   scanId: number;
@@ -23,6 +49,12 @@ export class ScanPoint {
   /** `ok` or an engine failure code (no_end, insufficient_efolds, ...). */
   @Column({ type: 'varchar', length: 32 })
   status: string;
+
+  /** The varied inputs as numbers, in the scan's order (see `axisColumnValues`). */
+  @Column({ name: 'axis_0', type: 'double', nullable: true }) axis0: number | null;
+  @Column({ name: 'axis_1', type: 'double', nullable: true }) axis1: number | null;
+  @Column({ name: 'axis_2', type: 'double', nullable: true }) axis2: number | null;
+  @Column({ name: 'axis_3', type: 'double', nullable: true }) axis3: number | null;
 
   /** The engine's plain-language reason when status is not ok. */
   @Column({ name: 'failure_reason', type: 'varchar', length: 500, nullable: true })

@@ -21,7 +21,7 @@ const slices: Record<string, ScanGridSlice> = {
   r: slice('r', [[0.09, 0.05, 0.04], [0.08, 0.03, 0.02], [0.07, 0.02, 0.01]], status, axes),
 };
 const plane = {
-  okPoints: 2, stride: 1, parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
+  okPoints: 2, stride: 1, axisStrides: [1, 1], parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
   inputs: { f: [5, 7], nStar: [50, 55] },
 };
 

@@ -358,7 +358,7 @@ describe('scan over a list of points', () => {
   const { axes: _, ...settings } = naturalSpec;
   const listSpec = { ...settings, name: 'Natural inflation, picked points', pointList: { columns: ['f', 'nStar'], rows: [[5, 50], [7.5, 55], [10, 60]] } };
   const plane = {
-    okPoints: 3, stride: 1, parameters: ['f', 'nStar'], pointIndex: [0, 1, 2], ns: [0.955, 0.961, 0.966], r: [0.09, 0.05, 0.02], alphaS: [-7e-4, -6e-4, -5e-4],
+    okPoints: 3, stride: 1, axisStrides: [1, 1], parameters: ['f', 'nStar'], pointIndex: [0, 1, 2], ns: [0.955, 0.961, 0.966], r: [0.09, 0.05, 0.02], alphaS: [-7e-4, -6e-4, -5e-4],
     nStar: [50, 55, 60], inputs: { f: [5, 7.5, 10], nStar: [50, 55, 60] },
   };
   const stored = (pointIndex: number, f: number, nStar: number) => ({
@@ -391,7 +391,7 @@ describe('scan over a list of points', () => {
 
 describe('scan n_s–r plane', () => {
   const plane = {
-    okPoints: 12_000, stride: 3, parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
+    okPoints: 12_000, stride: 3, axisStrides: [3, 1], parameters: ['f', 'nStar'], pointIndex: [0, 4], ns: [0.958, 0.9649], r: [0.05, 0.03], alphaS: [-6e-4, -5e-4], nStar: [50, 55],
     inputs: { f: [5, 7], nStar: [50, 55] },
   };
 
@@ -403,7 +403,7 @@ describe('scan n_s–r plane', () => {
     await waitFor(() => expect(router.state.location.search).toBe('?view=plane'), slow);
     const chart = await screen.findByRole('img', { name: 'n_s–r plane of Natural inflation, f against N_* with the Planck 2018 + BICEP/Keck 2018 limits' }, slow);
     expect(requests.find((r) => r.url.pathname === '/api/scans/42/plane')?.url.searchParams.get('limit')).toBe('5000');
-    expect(screen.getByText(/sampled, 1 in 3 of its 12,000 ok points shown \(2\)/)).toBeInTheDocument();
+    expect(screen.getByText(/sampled evenly, 1 in 3 of its points \(steps of 3 × 1 along f × nStar\): 2 of its 12,000 ok points shown/)).toBeInTheDocument();
     expect(screen.getByText(/^Shaded: n_s interval × r bound/)).toHaveTextContent('BICEP/Keck Collaboration 2021');
 
     await user.selectOptions(screen.getByLabelText('Observational limits'), 'Planck 2018 alone');

@@ -4,7 +4,7 @@ import { api } from '@/lib/api-client';
 import { LIVE_REFRESH_MS } from './get-scan';
 import { scanResultsKey } from './scan-results-key';
 
-/** More points than this are sampled by the API (it says by which stride): a plot shows no more apart. */
+/** More points than this are sampled by the API (it says by which steps): a plot shows no more apart. */
 export const PLANE_POINT_LIMIT = 5_000;
 
 export const getScanPlane = (scanId: number, signal?: AbortSignal) =>

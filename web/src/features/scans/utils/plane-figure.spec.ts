@@ -7,6 +7,7 @@ type Trace = { name: string; x: number[]; y: number[]; customdata?: unknown[]; m
 const plane = (overrides: Partial<ScanPlane> = {}): ScanPlane => ({
   okPoints: 3,
   stride: 1,
+  axisStrides: [1, 1],
   parameters: ['f', 'nStar'],
   pointIndex: [0, 4, 8],
   ns: [0.955, 0.963, 0.968],

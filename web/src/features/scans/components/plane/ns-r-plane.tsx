@@ -48,7 +48,9 @@ export function NsRPlane({ series, colorBy, limits, rScale = 'linear', reference
       <Stack gap="1" fontSize="xs" color="fg.muted">
         {sampled.map((s) => (
           <Text key={s.label} color="fg.warning">
-            {s.label}: sampled, 1 in {n(s.plane.stride)} of its {n(s.plane.okPoints)} ok points shown ({n(s.plane.ns.length)}).
+            {s.label}: sampled evenly, 1 in {n(s.plane.stride)} of its points (steps of {s.plane.axisStrides.join(' × ')} along{' '}
+            {s.plane.axisStrides.length === s.plane.parameters.length ? s.plane.parameters.join(' × ') : 'the list'}): {n(s.plane.ns.length)} of its{' '}
+            {n(s.plane.okPoints)} ok points shown.
           </Text>
         ))}
         <Text>
