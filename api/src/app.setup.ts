@@ -1,12 +1,14 @@
 import type { INestApplication } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { NestExpressApplication } from '@nestjs/platform-express';
+import compression from 'compression';
 import { RedisStore } from 'connect-redis';
 import express, { type NextFunction, type Request, type Response } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
+import zlib from 'node:zlib';
 import passport from 'passport';
 import { SESSION_COOKIE } from './auth/session.constants';
 import { readBearerToken } from './common/bearer-token';
@@ -19,7 +21,7 @@ import { REDIS_CLIENT, type RedisClient } from './redis/redis.module';
 
 /**
  * Everything around the routes, in one place so that main.ts and the end-to-end tests run
- * the same stack: the Host and Origin check, security headers, JSON bodies, sessions in Redis,
+ * the same stack: the Host and Origin check, security headers, compressed answers, JSON bodies, sessions in Redis,
  * passport, CSRF, the `/api` prefix, the OpenAPI document and the built web app with its
  * client-side routes.
  */
@@ -51,6 +53,7 @@ export function configureApp(nestApp: INestApplication): void {
       },
     }),
   );
+  app.use(compressedAnswers());
   app.useBodyParser('json', { limit: '2mb' });
   const sessions = session({
     name: SESSION_COOKIE,
@@ -79,6 +82,19 @@ export function configureApp(nestApp: INestApplication): void {
   app.setGlobalPrefix('api');
   setupOpenApi(app);
   serveWebApp(app, config.webDistDir);
+}
+
+/**
+ * gzip or brotli, as the client's Accept-Encoding prefers, for answers of 1 kB and more whose type
+ * compresses (JSON, CSV, text; `compressible` knows archives and images are compressed already).
+ * Every write is flushed through the compressor: a streamed export writes batches of about 64 kB, and
+ * each leaves at once rather than waiting in zlib, so a download starts as soon as its first rows are read.
+ */
+function compressedAnswers(): express.RequestHandler {
+  return compression({
+    flush: zlib.constants.Z_SYNC_FLUSH,
+    brotli: { flush: zlib.constants.BROTLI_OPERATION_FLUSH },
+  });
 }
 
 function serveWebApp(app: NestExpressApplication, distDir: string): void {

@@ -43,7 +43,8 @@ describe('the OpenAPI document and its UI', () => {
     expect(status).toMatchObject({ in: 'query', required: false, schema: { enum: ['draft', 'queued', 'running', 'completed', 'failed', 'cancelled'] } });
     const points = doc.paths['/api/scans/{id}/points'].get;
     expect(points.parameters!.map((p) => p.name)).toEqual(expect.arrayContaining(['id', 'format', 'page', 'ns_min']));
-    expect(Object.keys(points.responses['200'].content!).sort()).toEqual(['application/json', 'text/csv']);
+    expect(Object.keys(points.responses['200'].content!).sort()).toEqual(['application/json', 'application/vnd.apache.arrow.stream', 'text/csv']);
+    expect(points.parameters!.find((p) => p.name === 'format')?.schema).toMatchObject({ enum: ['csv', 'json', 'arrow'] });
     expect(doc.paths['/api/scans/{id}'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
   });
 

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import Queue from 'bull';
 import http from 'node:http';
+import zlib from 'node:zlib';
 import { chunkSize, SCAN_QUEUE, type ComputeChunkJob } from '@sixtyfold/shared';
 import { readRedisConfig } from '../src/config/redis.config';
 import { DEMO_PASSWORD } from '../src/database/seeds/demo-scenario';
@@ -43,11 +44,17 @@ interface HeldDownload {
   hangUp: () => void;
 }
 
-/** Starts a download, reads its first bytes (or its whole answer when it is an error), then stops reading. */
-function holdDownload(t: TestApp, path: string, cookie: string): Promise<HeldDownload> {
+/**
+ * Starts a download, reads its first bytes (or its whole answer when it is an error), then stops reading.
+ * With `acceptEncoding`, the answer may come compressed: `body` is then those first bytes decoded.
+ */
+function holdDownload(t: TestApp, path: string, cookie: string, acceptEncoding = 'identity'): Promise<HeldDownload> {
   return new Promise((resolve, reject) => {
-    const req = http.get(`${t.url}${path}`, { headers: { cookie }, agent: false }, (res) => {
+    const req = http.get(`${t.url}${path}`, { headers: { cookie, 'accept-encoding': acceptEncoding }, agent: false }, (res) => {
       const held = { status: res.statusCode ?? 0, hangUp: () => req.destroy() };
+      // The start of a stream: decode what came, without waiting for an end.
+      const text = (chunk: Buffer) =>
+        res.headers['content-encoding'] === 'gzip' ? zlib.gunzipSync(chunk, { finishFlush: zlib.constants.Z_SYNC_FLUSH }).toString('utf8') : chunk.toString('utf8');
       if (res.statusCode !== 200) {
         let body = '';
         res.setEncoding('utf8').on('data', (d: string) => (body += d)).on('end', () => resolve({ ...held, body }));
@@ -55,7 +62,7 @@ function holdDownload(t: TestApp, path: string, cookie: string): Promise<HeldDow
       }
       res.once('data', (chunk: Buffer) => {
         res.pause();
-        resolve({ ...held, body: chunk.toString('utf8') });
+        resolve({ ...held, body: text(chunk) });
       });
     });
     req.on('error', (err) => (req.destroyed ? undefined : reject(err)));
@@ -133,6 +140,19 @@ describe('streamed exports that always let go', () => {
     await until(async () => ((await health(t)).pool.inUse === 0 ? true : undefined), 'the pool to get its connection back', 10_000);
     await until(async () => ((await pointQueriesRunning(t)) === 0 ? true : undefined), 'MariaDB to drop the query', 10_000);
     download.hangUp();
+  });
+
+  it('sends a gzip export\'s first rows at once, and lets go when its client hangs up', async () => {
+    const download = await holdDownload(t, `/api/scans/${scanId}/points?format=csv&sort=ns&order=desc`, cookie, 'gzip');
+    expect(download.status).toBe(200);
+    // The first piece the client got already decodes to the header and rows: compression flushes as it goes.
+    const lines = download.body.split('\n');
+    expect(lines[0]).toBe('pointIndex,p,nStar,status,failureReason,ns,r,alphaS,As,amplitudeScale,nTotal,phiStar,phiEnd,energyScaleGeV');
+    expect(lines.length).toBeGreaterThan(2);
+    expect(lines[1]).toMatch(new RegExp(`^${TOTAL - 1},3,60,ok,,`));
+    download.hangUp();
+    await until(async () => ((await health(t)).pool.inUse === 0 ? true : undefined), 'the pool to get its connection back', 10_000);
+    await until(async () => ((await pointQueriesRunning(t)) === 0 ? true : undefined), 'MariaDB to drop the query', 10_000);
   });
 
   it('still signs people in and reads scans after thirty cancelled exports in a row', async () => {

@@ -11,7 +11,7 @@ export interface ExportSource {
 /** The mysql2 pool connection under TypeORM's query runner. */
 interface StreamingConnection {
   threadId: number;
-  query(sql: string, parameters: unknown[]): { stream(): Readable };
+  query(options: { sql: string; rowsAsArray?: boolean }, parameters: unknown[]): { stream(): Readable };
   destroy(): void;
 }
 
@@ -22,11 +22,13 @@ interface StreamingConnection {
  * A query abandoned mid-way here destroys its connection instead, and the pool opens a fresh one for
  * the next request; the server thread is killed too, because MariaDB notices a closed socket only
  * when it next writes to it (a sort of every matching row may run long before that).
+ * `rowsAsArray`: each row an array in the order of the SELECT, which the driver builds far faster
+ * than an object per row (exports of a million rows).
  */
-export async function openQueryStream(db: DataSource, sql: string, parameters: unknown[]): Promise<ExportSource> {
+export async function openQueryStream(db: DataSource, sql: string, parameters: unknown[], options: { rowsAsArray?: boolean } = {}): Promise<ExportSource> {
   const runner = db.createQueryRunner();
   const connection = (await runner.connect()) as StreamingConnection;
-  const readable = connection.query(sql, parameters).stream();
+  const readable = connection.query({ sql, rowsAsArray: options.rowsAsArray }, parameters).stream();
   return {
     readable,
     async close(completed) {

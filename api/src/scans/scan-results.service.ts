@@ -1,11 +1,9 @@
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { stringify } from 'csv-stringify';
 import type { Response } from 'express';
-import { Transform } from 'node:stream';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -14,6 +12,7 @@ import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
+import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -73,9 +72,11 @@ export class ScanResultsService {
 
   /**
    * The matching points in the asked order, ties by point index in the same direction (so each
-   * order is one walk of a (scan_id, column) index, whose entries end in the point index).
+   * order is one walk of a (scan_id, column) index, whose entries end in the point index). The
+   * sort key is selected first, on purpose: TypeORM would move a sort expression that names an
+   * entity column (`p.ns`) ahead of the others, and exports read their rows by position.
    */
-  private filtered(scan: Scan, q: ScanPointsQuery): SelectQueryBuilder<ScanPoint> {
+  private filtered(scan: Scan, q: ScanPointsQuery, select = 'p.*'): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
     const bad: Record<string, string[]> = {};
@@ -89,7 +90,7 @@ export class ScanResultsService {
     const qb = this.db
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
-      .select('p.*')
+      .select(`${orderOf(variedInputs(scan.spec), q).expression} AS sort_key, ${select}`)
       .where('p.scan_id = :scanId', { scanId: scan.id });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
@@ -160,50 +161,22 @@ export class ScanResultsService {
   }
 
   /**
-   * Every matching point as CSV or JSON into `res`, streamed from MariaDB row by row, so that a
-   * million points never sit in memory. Columns: point index, one per axis, status, reason, outputs.
+   * Every matching point as CSV, JSON or Apache Arrow (IPC stream) into `res`, streamed from MariaDB
+   * as row arrays, so that a million points never sit in memory. Columns: point index, one per axis,
+   * status, reason, outputs (see `point-export-formats.ts`).
    */
-  async export(user: SessionUser, id: number, q: ScanPointsQuery, format: 'csv' | 'json', res: Response): Promise<void> {
+  async export(user: SessionUser, id: number, q: ScanPointsQuery, format: PointExportFormat, res: Response): Promise<void> {
     const scan = await this.readable(user, id);
-    const axes = variedInputs(scan.spec);
-    const [sql, parameters] = this.filtered(scan, q).getQueryAndParameters();
-    const download = {
+    const columns = new ExportColumns(variedInputs(scan.spec));
+    const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN)).getQueryAndParameters();
+    return this.exports.send(user, res, {
       headers: {
-        'Content-Type': format === 'csv' ? 'text/csv; charset=utf-8' : 'application/json; charset=utf-8',
+        'Content-Type': EXPORT_CONTENT_TYPES[format],
         'Content-Disposition': `attachment; filename="scan-${id}-points.${format}"`,
       },
-      open: () => openQueryStream(this.db, sql, parameters),
-    };
-    const toPoint = new Transform({
-      objectMode: true,
-      transform(raw: RawPoint, _enc, done) {
-        done(null, toDto(raw));
-      },
+      open: () => openQueryStream(this.db, sql, parameters, { rowsAsArray: true }),
+      stages: exportStages(format, columns),
     });
-    if (format === 'csv') {
-      // An output that is also an axis (N_* on an axis) is the same number: one column for it.
-      const outputs = POINT_OUTPUTS.filter((o) => !axes.includes(o));
-      const columns = ['pointIndex', ...axes, 'status', 'failureReason', ...outputs];
-      const flatten = new Transform({
-        objectMode: true,
-        transform(p: ScanPointDto, _enc, done) {
-          done(null, [p.pointIndex, ...axes.map((a) => p.inputs[a]), p.status, p.failureReason ?? '', ...outputs.map((o) => p[o] ?? '')]);
-        },
-      });
-      return this.exports.send(user, res, { ...download, stages: [toPoint, flatten, stringify({ header: true, columns })] });
-    }
-    let first = true;
-    const json = new Transform({
-      writableObjectMode: true,
-      transform(p: ScanPointDto, _enc, done) {
-        done(null, `${first ? '[' : ','}\n${JSON.stringify(p)}`);
-        first = false;
-      },
-      flush(done) {
-        done(null, first ? '[]\n' : '\n]\n');
-      },
-    });
-    return this.exports.send(user, res, { ...download, stages: [toPoint, json] });
   }
 
   /**

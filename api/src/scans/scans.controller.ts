@@ -69,20 +69,21 @@ export class ScansController {
     return this.scans.get(user, id);
   }
 
-  /** A page of points as JSON, or with `format=csv|json` every matching point, streamed as a download. */
+  /** A page of points as JSON, or with `format=csv|json|arrow` every matching point, streamed as a download. */
   @Get(':id/points')
   @ApiOperation({
-    summary: 'Points of a scan: a page as JSON, or with `format=csv|json` every matching point as a download',
+    summary: 'Points of a scan: a page as JSON, or with `format=csv|json|arrow` every matching point as a download',
     description: 'Sort by `pointIndex`, an output or `input.<axis parameter>`; filter outputs with `<output>_min`/`_max` and axis inputs with `input.<axis parameter>_min`/`_max`.',
   })
   @ApiZodQuery(scanPointsQueryFieldsSchema)
-  @ApiProduces('application/json', 'text/csv')
+  @ApiProduces('application/json', 'text/csv', 'application/vnd.apache.arrow.stream')
   @ApiResponse({
     status: 200,
-    description: 'A page of points; with `format`, a CSV (one row per point) or a JSON array of every matching point',
+    description: 'A page of points; with `format`, a CSV (one row per point), a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows)',
     content: {
       'application/json': { schema: openApiSchemaOf(pageOf(scanPointSchema), 'output') },
       'text/csv': { schema: { type: 'string' } },
+      'application/vnd.apache.arrow.stream': { schema: { type: 'string', format: 'binary' } },
     },
   })
   @ApiErrorResponses(400, 401, 404, 429, 503)

@@ -23,6 +23,10 @@ export const scanPointSchema = z.object({
 });
 export type ScanPointDto = z.infer<typeof scanPointSchema>;
 
+/** Download formats of the points: CSV, a JSON array, or an Apache Arrow IPC stream (columnar). */
+export const POINT_EXPORT_FORMATS = ['csv', 'json', 'arrow'] as const;
+export type PointExportFormat = (typeof POINT_EXPORT_FORMATS)[number];
+
 const optionalNumber = z.coerce.number({ error: 'must be a number' }).optional();
 
 /** A point column to sort or filter by: the index, an output, or an input as `input.<axis parameter>`. */
@@ -48,7 +52,7 @@ export const scanPointsQueryFieldsSchema = z.object({
   order: z.enum(['asc', 'desc']).default('asc'),
   /** `ok`, `failed` (any failure) or one failure code. */
   status: z.string().max(32).optional(),
-  format: z.enum(['csv', 'json']).optional(),
+  format: z.enum(POINT_EXPORT_FORMATS).optional(),
   ...Object.fromEntries(POINT_OUTPUTS.flatMap((k) => [[`${k}_min`, optionalNumber], [`${k}_max`, optionalNumber]])),
 });
 
@@ -72,7 +76,7 @@ function gatherInputRanges(raw: unknown): unknown {
 
 /**
  * `GET /api/scans/:id/points`: paged and sorted by any column, filtered by status and by ranges of
- * any output (`ns_min=0.96&ns_max=0.97`) or axis input (`input.lambda_min=1e-12`); `format=csv|json`
+ * any output (`ns_min=0.96&ns_max=0.97`) or axis input (`input.lambda_min=1e-12`); `format=csv|json|arrow`
  * streams every matching point instead.
  */
 export const scanPointsQuerySchema = z.preprocess(

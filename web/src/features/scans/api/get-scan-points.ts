@@ -1,4 +1,4 @@
-import { pageOf, scanPointSchema } from '@sixtyfold/shared';
+import { pageOf, scanPointSchema, type PointExportFormat } from '@sixtyfold/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { env } from '@/config/env';
 import { api } from '@/lib/api-client';
@@ -24,7 +24,7 @@ export const useScanPoints = (scanId: number, query: PointsQuery, live: boolean)
   useQuery(getScanPointsQueryOptions(scanId, query, live));
 
 /** The download address of every point matching the filters (sorting kept, paging dropped). */
-export function pointsExportHref(scanId: number, query: PointsQuery, format: 'csv' | 'json'): string {
+export function pointsExportHref(scanId: number, query: PointsQuery, format: PointExportFormat): string {
   const search = new URLSearchParams({ ...query, format });
   search.delete('page');
   search.delete('pageSize');

@@ -132,6 +132,11 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
               JSON
             </a>
           </Button>
+          <Button asChild size="sm" variant="outline">
+            <a href={pointsExportHref(scan.id, query, 'arrow')} download title="Apache Arrow IPC stream, for pandas (pyarrow) or polars">
+              Arrow
+            </a>
+          </Button>
         </HStack>
       </Stack>
 
