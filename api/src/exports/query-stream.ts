@@ -11,7 +11,7 @@ export interface ExportSource {
 /** The mysql2 pool connection under TypeORM's query runner. */
 interface StreamingConnection {
   threadId: number;
-  query(sql: string, parameters: unknown[]): { stream(): Readable };
+  query(options: { sql: string; values: unknown[]; rowsAsArray?: boolean }): { stream(): Readable };
   destroy(): void;
 }
 
@@ -23,10 +23,10 @@ interface StreamingConnection {
  * the next request; the server thread is killed too, because MariaDB notices a closed socket only
  * when it next writes to it (a sort of every matching row may run long before that).
  */
-export async function openQueryStream(db: DataSource, sql: string, parameters: unknown[]): Promise<ExportSource> {
+export async function openQueryStream(db: DataSource, sql: string, parameters: unknown[], { rowsAsArray = false } = {}): Promise<ExportSource> {
   const runner = db.createQueryRunner();
   const connection = (await runner.connect()) as StreamingConnection;
-  const readable = connection.query(sql, parameters).stream();
+  const readable = connection.query({ sql, values: parameters, rowsAsArray }).stream();
   return {
     readable,
     async close(completed) {

@@ -304,24 +304,24 @@ export class ScanResultsService {
     const ok = new Array<number>(cells).fill(0);
     const valued = new Uint32Array(cells);
     const failed = new Map<string, number[]>();
-    const source = await openQueryStream(this.db, sql, [id, first, last]);
+    // Rows as arrays: a million of them cost no object each.
+    const source = await openQueryStream(this.db, sql, [id, first, last], { rowsAsArray: true });
     let completed = false;
     try {
-      for await (const row of source.readable as AsyncIterable<{ point_index: number; status: string; value?: number | null }>) {
-        const index = Number(row.point_index);
+      for await (const [pointIndex, status, value] of source.readable as AsyncIterable<[number, string, (number | null)?]>) {
+        const index = Number(pointIndex);
         const ix = (Math.floor(index / stride[xi]) % x.length - x.from) / x.block;
         const iy = (Math.floor(index / stride[yi]) % y.length - y.from) / y.block;
         const c = Math.floor(iy) * nx + Math.floor(ix);
-        if (row.status !== 'ok') {
-          let counts = failed.get(row.status);
-          if (!counts) failed.set(row.status, (counts = new Array<number>(cells).fill(0)));
+        if (status !== 'ok') {
+          let counts = failed.get(status);
+          if (!counts) failed.set(status, (counts = new Array<number>(cells).fill(0)));
           counts[c]++;
           continue;
         }
         ok[c]++;
         // An OK point has its outputs stored with its status; one without (never expected) is not averaged.
-        if (row.value === null || row.value === undefined) continue;
-        const value = Number(row.value);
+        if (value === null || value === undefined) continue;
         valued[c]++;
         sum[c] += value;
         if (value < min[c]) min[c] = value;
