@@ -116,10 +116,10 @@ describe('a scan through queue and workers', () => {
 
     const heat = await agent.get(`/api/scans/${id}/grid?x=nStar&y=f&output=r`);
     expect(heat.status).toBe(200);
-    expect(heat.body.x).toEqual({ parameter: 'nStar', values: [50, 55, 60] });
-    expect(heat.body.y).toEqual({ parameter: 'f', values: [5, 7, 10] });
-    // z[iy][ix] is point (f index iy, nStar index ix) = iy*3 + ix.
-    expect(heat.body.z[2][1]).toBe(rows[7].r);
+    expect(heat.body.x).toEqual({ parameter: 'nStar', length: 3, from: 0, to: 2, block: 1, values: [50, 55, 60] });
+    expect(heat.body.y).toEqual({ parameter: 'f', length: 3, from: 0, to: 2, block: 1, values: [5, 7, 10] });
+    // Cell (ix, iy), row-major at iy*3 + ix, is point (f index iy, nStar index ix) = iy*3 + ix.
+    expect(heat.body.mean[2 * 3 + 1]).toBe(rows[7].r);
     expect((await agent.get(`/api/scans/${id}/grid?x=nStar&y=g`)).body.fieldErrors.y[0]).toMatch(/no axis g; it has f, nStar/);
   });
 

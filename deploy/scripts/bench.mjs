@@ -1,18 +1,19 @@
 #!/usr/bin/env node
 // `npm run bench`: the engine's own speed, then a 10,000-point slow-roll scan through the API,
 // the queue, the workers and MariaDB, against the engine alone on the same cores; then the API
-// under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped).
+// under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped) and
+// the heatmap slices of a stored 10^6-point scan (`heatmap`).
 // Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import path from 'node:path';
-import { benchExports, benchPoll } from './lib/load-bench.mjs';
+import { benchExports, benchHeatmap, benchPoll } from './lib/load-bench.mjs';
 import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
 import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
-const PARTS = ['engine', 'pipeline', 'poll', 'exports'];
+const PARTS = ['engine', 'pipeline', 'poll', 'exports', 'heatmap'];
 const asked = process.argv.slice(2);
 const unknownPart = asked.find((p) => !PARTS.includes(p));
 if (unknownPart) fail(`no bench part '${unknownPart}'; the parts are ${PARTS.join(', ')}`);
@@ -112,6 +113,7 @@ try {
   const load = { base, headers, workers, databaseUrl: profile.databaseUrl, email: 'lucia.marin@halvorsen.example', password: DEMO_PASSWORD };
   if (runs('poll')) await benchPoll(load);
   if (runs('exports')) await benchExports(load);
+  if (runs('heatmap')) await benchHeatmap(load);
 } catch (err) {
   process.stderr.write(`benchmark failed: ${err.message}\n`);
   exitCode = 1;

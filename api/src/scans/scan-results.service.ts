@@ -235,7 +235,13 @@ export class ScanResultsService {
     return plane;
   }
 
-  /** Two axes as x and y, every other axis at the chosen index: z[iy][ix] of one output. */
+  /**
+   * Two axes as x and y, every other axis at the chosen index, as at most `maxCells` cells along
+   * each axis: past that, blocks of points per cell (see scanGridSliceSchema). The window's points
+   * lie between its first and last point index, so they come in one range read of the primary key
+   * (contiguous rows when x and y are the scan's last two axes; otherwise the axis digits filter
+   * the range), and are aggregated while they stream, so a million points never sit in memory.
+   */
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
     const spec = scan.spec;
@@ -254,36 +260,94 @@ export class ScanResultsService {
       if (a < 0) bad[`at.${name}`] = [`the scan has no axis ${name}`];
       else if (index >= grid.lengths[a]) bad[`at.${name}`] = [`${name} has ${grid.lengths[a]} values (index 0 to ${grid.lengths[a] - 1})`];
     }
+    for (const [axis, a] of [['x', xi], ['y', yi]] as const) {
+      for (const end of ['From', 'To'] as const) {
+        const index = q[`${axis}${end}`];
+        if (a >= 0 && index !== undefined && index >= grid.lengths[a]) bad[`${axis}${end}`] = [`${names[a]} has ${grid.lengths[a]} values (index 0 to ${grid.lengths[a] - 1})`];
+      }
+    }
     if (Object.keys(bad).length) {
       throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
     }
-    const nx = grid.lengths[xi];
-    const ny = grid.lengths[yi];
-    if (nx * ny > 1_000_000) throw new BadRequestException(`a slice of ${nx} × ${ny} cells is more than a heatmap can show (1,000,000)`);
     const cell = names.map((name) => q.at[name] ?? 0);
     const at: ScanGridSlice['at'] = {};
     names.forEach((name, a) => {
       if (a !== xi && a !== yi) at[name] = { index: cell[a], value: grid.values[a][cell[a]] };
     });
-    const z: (number | null)[][] = Array.from({ length: ny }, () => new Array<number | null>(nx).fill(null));
-    const status: (string | null)[][] = Array.from({ length: ny }, () => new Array<string | null>(nx).fill(null));
-    const cellOf = new Map<number, [number, number]>();
-    grid.sliceIndices(xi, yi, cell).forEach((row, iy) => row.forEach((pointIndex, ix) => cellOf.set(pointIndex, [iy, ix])));
-    const wanted = [...cellOf.keys()];
+    const sliceAxis = (a: number, from = 0, to = grid.lengths[a] - 1) => {
+      const block = Math.ceil((to - from + 1) / q.maxCells);
+      const cells = Math.ceil((to - from + 1) / block);
+      return { parameter: names[a], length: grid.lengths[a], from, to, block, values: Array.from({ length: cells }, (_, i) => grid.values[a][from + i * block]) };
+    };
+    const x = sliceAxis(xi, q.xFrom, q.xTo);
+    const y = sliceAxis(yi, q.yFrom, q.yTo);
+    if (x.from > x.to) throw new BadRequestException({ message: `xTo: must not be below xFrom (${x.from})`, fieldErrors: { xTo: [`must not be below xFrom (${x.from})`] } });
+    if (y.from > y.to) throw new BadRequestException({ message: `yTo: must not be below yFrom (${y.from})`, fieldErrors: { yTo: [`must not be below yFrom (${y.from})`] } });
+
+    // Point index = Σ digit[a] · stride[a] (last axis fastest).
+    const stride = grid.lengths.map((_, a) => grid.lengths.slice(a + 1).reduce((n, l) => n * l, 1));
+    const first = grid.indexOf(names.map((_, a) => (a === xi ? x.from : a === yi ? y.from : cell[a])));
+    const last = grid.indexOf(names.map((_, a) => (a === xi ? x.to : a === yi ? y.to : cell[a])));
+    // Inside [first, last] only digits faster than the slower of x and y can stray from the slice.
+    const slower = Math.max(stride[xi], stride[yi]);
+    const digit = (a: number) => `(point_index DIV ${stride[a]}) MOD ${grid.lengths[a]}`;
+    const conditions: string[] = [];
+    names.forEach((_, a) => {
+      if (stride[a] >= slower) return;
+      if (a === xi) {
+        if (x.from > 0 || x.to < x.length - 1) conditions.push(`${digit(a)} BETWEEN ${x.from} AND ${x.to}`);
+      } else if (a === yi) {
+        if (y.from > 0 || y.to < y.length - 1) conditions.push(`${digit(a)} BETWEEN ${y.from} AND ${y.to}`);
+      } else conditions.push(`${digit(a)} = ${cell[a]}`);
+    });
     const column = q.output === 'status' ? null : COLUMN[q.output];
-    for (let i = 0; i < wanted.length; i += 5000) {
-      const slice = wanted.slice(i, i + 5000);
-      const rows: RawPoint[] = await this.db.query(
-        `SELECT point_index, status${column ? `, ${column} AS value` : ''} FROM scan_points WHERE scan_id = ? AND point_index IN (${slice.map(() => '?').join(',')})`,
-        [id, ...slice],
-      );
-      for (const row of rows) {
-        const [iy, ix] = cellOf.get(Number(row.point_index))!;
-        status[iy][ix] = String(row.status);
-        // Failed points are marked by their status, never drawn as numbers.
-        z[iy][ix] = row.status === 'ok' && column && row.value !== null ? Number(row.value) : null;
+    const sql = `SELECT point_index, status${column ? `, ${column} AS value` : ''} FROM scan_points
+      WHERE scan_id = ? AND point_index BETWEEN ? AND ?${conditions.map((c) => ` AND ${c}`).join('')}`;
+
+    const nx = x.values.length;
+    const cells = nx * y.values.length;
+    const sum = new Float64Array(cells);
+    const min = new Float64Array(cells).fill(Infinity);
+    const max = new Float64Array(cells).fill(-Infinity);
+    const ok = new Array<number>(cells).fill(0);
+    const valued = new Uint32Array(cells);
+    const failed = new Map<string, number[]>();
+    // Rows as arrays: a million of them cost no object each.
+    const source = await openQueryStream(this.db, sql, [id, first, last], { rowsAsArray: true });
+    let completed = false;
+    try {
+      for await (const [pointIndex, status, value] of source.readable as AsyncIterable<[number, string, (number | null)?]>) {
+        const index = Number(pointIndex);
+        const ix = (Math.floor(index / stride[xi]) % x.length - x.from) / x.block;
+        const iy = (Math.floor(index / stride[yi]) % y.length - y.from) / y.block;
+        const c = Math.floor(iy) * nx + Math.floor(ix);
+        if (status !== 'ok') {
+          let counts = failed.get(status);
+          if (!counts) failed.set(status, (counts = new Array<number>(cells).fill(0)));
+          counts[c]++;
+          continue;
+        }
+        ok[c]++;
+        // An OK point has its outputs stored with its status; one without (never expected) is not averaged.
+        if (value === null || value === undefined) continue;
+        valued[c]++;
+        sum[c] += value;
+        if (value < min[c]) min[c] = value;
+        if (value > max[c]) max[c] = value;
+      }
+      completed = true;
+    } finally {
+      await source.close(completed);
+    }
+
+    const slice: ScanGridSlice = { x, y, output: q.output, ok, failed: Object.fromEntries(failed), at };
+    if (column) {
+      slice.mean = Array.from({ length: cells }, (_, c) => (valued[c] ? sum[c] / valued[c] : null));
+      if (x.block * y.block > 1) {
+        slice.min = Array.from({ length: cells }, (_, c) => (valued[c] ? min[c] : null));
+        slice.max = Array.from({ length: cells }, (_, c) => (valued[c] ? max[c] : null));
       }
     }
-    return { x: { parameter: q.x, values: grid.values[xi] }, y: { parameter: q.y, values: grid.values[yi] }, output: q.output, z, status, at };
+    return slice;
   }
 }

@@ -112,9 +112,11 @@ export class ScansController {
   @Get(':id/grid')
   @ApiOperation({
     summary: 'A 2-D slice of a scan over two axes, for a heatmap (`at.<parameter>=<index>` fixes the others)',
-    description: 'A scan over a list of points has no grid: 409 (use `/points` or `/plane`).',
+    description: 'At most `maxCells` (≤ 512) cells along each axis: a larger slice comes in blocks of points per cell. '
+      + '`xFrom`, `xTo`, `yFrom`, `yTo` (axis indices, inclusive) zoom into a window, at full resolution when it fits. '
+      + 'A scan over a list of points has no grid: 409 (use `/points` or `/plane`).',
   })
-  @ApiZodResponse(200, scanGridSliceSchema, 'Axis values of x and y, and z[iy][ix] with each point\'s status (null where not stored)')
+  @ApiZodResponse(200, scanGridSliceSchema, 'At most maxCells cells per axis as row-major columns: mean, min and max of the output per block, OK and failed counts by reason')
   @ApiErrorResponses(400, 401, 404, 409)
   grid(
     @CurrentUser() user: SessionUser,

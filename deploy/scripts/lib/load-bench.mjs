@@ -194,3 +194,41 @@ export async function benchExports(load) {
       `  two downloads left open while the API stops (its stop time follows)\n`,
   );
 }
+
+/**
+ * Heatmap slices of a stored 1,000 × 1,000 scan (one point in 97 failed): the whole slice in blocks at the
+ * API's most cells and at a panel's, the status slice, and a 300 × 300 zoom window at full resolution.
+ */
+export async function benchHeatmap(load) {
+  const scan = await submit(load, 'benchmark: 10^6 points, heatmaps');
+  await cancel(load, scan.id);
+  const { default: mysql } = await import('mysql2/promise');
+  const db = await mysql.createConnection(load.databaseUrl);
+  try {
+    log('heatmap: storing 10^6 points');
+    await db.query(
+      `INSERT IGNORE INTO scan_points (scan_id, point_index, inputs, status, ns, r, computed_at)
+       SELECT ?, seq, JSON_OBJECT('p', 1 + (seq DIV 1000) * 2 / 999, 'nStar', 50 + MOD(seq, 1000) * 10 / 999),
+              IF(MOD(seq, 97) = 0, 'no_end', 'ok'), IF(MOD(seq, 97) = 0, NULL, 0.96 + seq * 1e-9), IF(MOD(seq, 97) = 0, NULL, 0.01 + seq * 1e-9), NOW(3)
+         FROM seq_0_to_999999`,
+      [scan.id],
+    );
+  } finally {
+    await db.end();
+  }
+  const slices = [
+    ['whole slice, 512 cells per axis', 'output=ns'],
+    ['whole slice, 200 cells per axis', 'output=ns&maxCells=200'],
+    ['status slice, 512 cells per axis', 'output=status'],
+    ['zoom window 300 × 300', 'output=ns&xFrom=100&xTo=399&yFrom=500&yTo=799'],
+  ];
+  let report = '\nheatmap: GET /api/scans/:id/grid on a 1,000 × 1,000 slice (median of 3)\n';
+  for (const [label, query] of slices) {
+    const runs = [];
+    for (let i = 0; i < 3; i++) runs.push(await timed(`${load.base}/scans/${scan.id}/grid?x=nStar&y=p&${query}`, { headers: load.headers }, 60_000));
+    const median = runs.map((r) => r.ms).sort((a, b) => a - b)[1];
+    const bytes = Buffer.byteLength(runs[0].body);
+    report += `  ${label.padEnd(34)}${runs[0].status} in ${median.toFixed(0)} ms, ${(bytes / 1e6).toFixed(2)} MB\n`;
+  }
+  process.stdout.write(report);
+}

@@ -108,7 +108,15 @@ export const scanPointsQuerySchema = z.preprocess(
 );
 export type ScanPointsQuery = z.output<typeof scanPointsQuerySchema>;
 
-/** `GET /api/scans/:id/grid?x=f&y=nStar&output=ns&at.lambda=3`: a 2-D slice for a heatmap. */
+/** Most cells along each axis of a heatmap slice: a larger slice comes aggregated in blocks. */
+export const GRID_MAX_CELLS = 512;
+
+const windowEnd = z.coerce.number({ error: 'must be a whole number' }).int('must be a whole number').min(0, 'is an axis index, 0 or more').optional();
+
+/**
+ * `GET /api/scans/:id/grid?x=f&y=nStar&output=ns&at.lambda=3`: a 2-D slice for a heatmap, at most
+ * `maxCells` cells along each axis; `xFrom`..`xTo` and `yFrom`..`yTo` (axis indices, inclusive) zoom in.
+ */
 export const scanGridQuerySchema = z.preprocess(
   // A query string arrives flat: gather `at.<parameter>` keys into one record.
   (raw) => {
@@ -117,26 +125,64 @@ export const scanGridQuerySchema = z.preprocess(
     const at = Object.fromEntries(entries.filter(([k]) => k.startsWith('at.')).map(([k, v]) => [k.slice(3), v]));
     return { ...Object.fromEntries(entries.filter(([k]) => !k.startsWith('at.'))), at: { ...(raw as { at?: object }).at, ...at } };
   },
-  z.object({
-    x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
-    y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
-    output: z.enum([...POINT_OUTPUTS, 'status']).default('ns'),
-    /** Index along each other axis, from `at.<parameter>=<index>` (default 0). */
-    at: z.record(z.string(), z.coerce.number().int().min(0)).default({}),
-  }),
+  z
+    .object({
+      x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
+      y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
+      output: z.enum([...POINT_OUTPUTS, 'status']).default('ns'),
+      /** Index along each other axis, from `at.<parameter>=<index>` (default 0). */
+      at: z.record(z.string(), z.coerce.number().int().min(0)).default({}),
+      maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
+      xFrom: windowEnd,
+      xTo: windowEnd,
+      yFrom: windowEnd,
+      yTo: windowEnd,
+    })
+    .superRefine((q, ctx) => {
+      for (const axis of ['x', 'y'] as const) {
+        const from = q[`${axis}From`];
+        const to = q[`${axis}To`];
+        if (from !== undefined && to !== undefined && from > to) ctx.addIssue({ code: 'custom', path: [`${axis}To`], message: `must not be below ${axis}From` });
+      }
+    }),
 );
 export type ScanGridQuery = z.infer<typeof scanGridQuerySchema>;
 
-const sliceAxis = z.object({ parameter: z.string(), values: z.array(z.number()) });
+const sliceAxis = z.object({
+  parameter: z.string(),
+  /** Values of the whole axis in the scan. */
+  length: z.number().int(),
+  /** The window along the axis: axis indices `from` to `to`, inclusive. */
+  from: z.number().int(),
+  to: z.number().int(),
+  /** Axis indices per cell: cell i covers from + i·block up to block indices (fewer in the last cell). */
+  block: z.number().int(),
+  /** The axis value at each cell's first index. */
+  values: z.array(z.number()),
+});
+export type ScanGridSliceAxis = z.infer<typeof sliceAxis>;
 
-/** The slice: x and y axis values, and z[iy][ix] (null where the point failed or is not yet stored). */
+/** One number per cell, row-major (cell (ix, iy) at iy · x.values.length + ix), null where a cell has no OK point. */
+const cellColumn = z.array(z.number().nullable());
+const countColumn = z.array(z.number().int());
+
+/**
+ * A slice of at most GRID_MAX_CELLS² cells as columns. A cell is one point, or a block of
+ * x.block × y.block points: the mean, min and max of the output over its OK points, and its counts
+ * of OK points and of failed points by reason. Points neither counted are not stored yet.
+ */
 export const scanGridSliceSchema = z.object({
   x: sliceAxis,
   y: sliceAxis,
   output: z.enum([...POINT_OUTPUTS, 'status']),
-  z: z.array(z.array(z.number().nullable())),
-  /** Each cell's point status, null where no point is stored yet. */
-  status: z.array(z.array(z.string().nullable())),
+  /** Absent for the status output. */
+  mean: cellColumn.optional(),
+  /** Absent where they would repeat the mean: for the status output and when each cell is one point. */
+  min: cellColumn.optional(),
+  max: cellColumn.optional(),
+  ok: countColumn,
+  /** Failed points per cell, one column per failure code present in the slice. */
+  failed: z.record(z.string(), countColumn),
   /** Where the slice cuts every other axis: its index and value there. */
   at: z.record(z.string(), z.object({ index: z.number().int(), value: z.number() })),
 });

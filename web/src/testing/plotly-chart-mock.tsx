@@ -1,10 +1,11 @@
 import type { Data, Layout } from 'plotly.js';
 
-/** What a chart was given: its traces, its layout and the click handler Plotly would call. */
+/** What a chart was given: its traces, its layout and the click and relayout (zoom) handlers Plotly would call. */
 export interface RecordedPlot {
   data: Data[];
   layout: Partial<Layout>;
   onClick?: (event: { points: { x?: unknown; y?: unknown; customdata?: unknown; curveNumber: number }[] }) => void;
+  onRelayout?: (event: Record<string, unknown>) => void;
 }
 
 type WithPlot = HTMLElement & { plot?: RecordedPlot };

@@ -43,12 +43,33 @@ export function scanDetail(overrides: Partial<ScanDetail> = {}, spec: StoredScan
   };
 }
 
-/** A slice over x and y with z[iy][ix] and statuses; `at` as the API reports it. */
+/** The first n of some axis values, continued one apart past their end. */
+const firstValues = (values: number[], n: number) => Array.from({ length: n }, (_, i) => values[i] ?? values[values.length - 1] + i);
+
+/** A slice of one point per cell from z[iy][ix] and each point's status (null: not stored); `at` as the API reports it. */
 export function slice(
   output: ScanGridSlice['output'],
   z: (number | null)[][],
   status: (string | null)[][],
-  { x = { parameter: 'nStar', values: [50, 55, 60] }, y = { parameter: 'f', values: [5, 7, 10] }, at = {} }: Partial<Pick<ScanGridSlice, 'x' | 'y' | 'at'>> = {},
+  { x = { parameter: 'nStar', values: firstValues([50, 55, 60], status[0]?.length ?? 0) }, y = { parameter: 'f', values: firstValues([5, 7, 10], status.length) }, at = {} }: {
+    x?: { parameter: string; values: number[] };
+    y?: { parameter: string; values: number[] };
+    at?: ScanGridSlice['at'];
+  } = {},
 ): ScanGridSlice {
-  return { x, y, output, z: output === 'status' ? z.map((row) => row.map(() => null)) : z, status, at };
+  const axis = ({ parameter, values }: { parameter: string; values: number[] }) => ({ parameter, length: values.length, from: 0, to: values.length - 1, block: 1, values });
+  const cells = status.flat();
+  const failed: Record<string, number[]> = {};
+  cells.forEach((s, c) => {
+    if (s !== null && s !== 'ok') (failed[s] ??= new Array<number>(cells.length).fill(0))[c] = 1;
+  });
+  return {
+    x: axis(x),
+    y: axis(y),
+    output,
+    ...(output === 'status' ? {} : { mean: cells.map((s, c) => (s === 'ok' ? (z.flat()[c] ?? null) : null)) }),
+    ok: cells.map((s) => (s === 'ok' ? 1 : 0)),
+    failed,
+    at,
+  };
 }

@@ -20,12 +20,15 @@ const status = [
   ['ok', 'ok', null],
 ];
 const axes = { x: { parameter: 'f', values: [5, 7, 10] }, y: { parameter: 'nStar', values: [50, 55, 60] } };
-const slices: Record<string, ScanGridSlice> = {
-  ns: slice('ns', [[0.955, 0.958, null], [0.961, 0.9649, null], [0.966, 0.967, null]], status, axes),
-  r: slice('r', [[0.09, 0.05, null], [0.08, 0.03, null], [0.07, 0.02, null]], status, axes),
-  alphaS: slice('alphaS', [[-7e-4, -6e-4, null], [-6e-4, -5e-4, null], [-5e-4, -4e-4, null]], status, axes),
-  status: slice('status', [], status, axes),
+const values: Record<string, (number | null)[][]> = {
+  ns: [[0.955, 0.958, null], [0.961, 0.9649, null], [0.966, 0.967, null]],
+  r: [[0.09, 0.05, null], [0.08, 0.03, null], [0.07, 0.02, null]],
+  alphaS: [[-7e-4, -6e-4, null], [-6e-4, -5e-4, null], [-5e-4, -4e-4, null]],
+  status: [[null, null, null], [null, null, null], [null, null, null]],
 };
+const slices: Record<string, ScanGridSlice> = Object.fromEntries(
+  Object.entries(values).map(([output, z]) => [output, slice(output as ScanGridSlice['output'], z, status, axes)]),
+);
 
 function api(user: CurrentUser, detail = scanDetail(), extra: Record<string, (request: MockRequest) => Response> = {}) {
   return mockApi({
@@ -151,13 +154,14 @@ describe('scan heatmaps', () => {
     expect(screen.getByRole('img', { name: 'Heatmap of r over f and N_*' })).toBeInTheDocument();
     expect(screen.getByRole('img', { name: 'Heatmap of α_s over f and N_*' })).toBeInTheDocument();
     const grids = requests.filter((r) => r.url.pathname === '/api/scans/42/grid').map((r) => Object.fromEntries(r.url.searchParams));
-    expect(grids).toEqual(expect.arrayContaining([{ x: 'f', y: 'nStar', output: 'ns' }, { x: 'f', y: 'nStar', output: 'r' }, { x: 'f', y: 'nStar', output: 'alphaS' }]));
+    expect(grids).toEqual(expect.arrayContaining(['ns', 'r', 'alphaS'].map((output) => ({ x: 'f', y: 'nStar', output, maxCells: '200' }))));
 
     // Failed cells carry no value; the legend counts them by reason, and missing cells apart.
     expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('insufficient_efolds (2)');
     expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('not stored yet (1)');
     await waitFor(() => expect(plotIn(ns).data[0]).toMatchObject({ type: 'heatmap' }), slow);
-    expect((plotIn(ns).data[0] as { z: unknown }).z).toEqual(slices.ns.z);
+    expect((plotIn(ns).data[0] as { z: unknown }).z).toEqual(values.ns);
+    expect(plotIn(ns).layout.annotations).toEqual([expect.objectContaining({ text: 'one point per cell' })]);
     expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3);
 
     // Inside the 95% n_s interval and r ≤ 0.036: only (f = 7, N_* = 55) and (f = 7, N_* = 60).
@@ -228,12 +232,14 @@ describe('scan heatmaps', () => {
     const { requests } = api(memberUser, scanDetail({}, spec), {
       'GET /api/scans/42/grid': (request) => {
         const at = Number(request.url.searchParams.get('at.Lambda') ?? 0);
-        const base = slices[request.url.searchParams.get('output') ?? 'ns'];
+        const output = (request.url.searchParams.get('output') ?? 'ns') as ScanGridSlice['output'];
         // With x = N_* the slice is the transpose.
         const swapped = request.url.searchParams.get('x') === 'nStar';
         const flip = <T,>(rows: T[][]) => rows[0].map((_, i) => rows.map((row) => row[i]));
-        const cut = swapped ? { ...base, x: base.y, y: base.x, z: flip(base.z), status: flip(base.status) } : base;
-        return json(200, { ...cut, at: { Lambda: { index: at, value: [1e-3, 5e-3, 1e-2][at] } } });
+        const cutAt = { at: { Lambda: { index: at, value: [1e-3, 5e-3, 1e-2][at] } } };
+        return json(200, swapped
+          ? slice(output, flip(values[output]), flip(status), { x: axes.y, y: axes.x, ...cutAt })
+          : slice(output, values[output], status, { ...axes, ...cutAt }));
       },
     });
     const { user, router } = renderApp('/scans/42');
@@ -251,6 +257,58 @@ describe('scan heatmaps', () => {
     expect(await screen.findByRole('img', { name: 'Heatmap of n_s over N_* and f' }, slow)).toBeInTheDocument();
   });
 
+  it('zooms into a dragged window at finer resolution, says what a cell stands for, and returns on double-click', async () => {
+    // The whole 3 × 3 slice in blocks of 2 × 2 points, as the API aggregates it past maxCells.
+    const blocked = (output: ScanGridSlice['output']): ScanGridSlice => ({
+      x: { parameter: 'f', length: 3, from: 0, to: 2, block: 2, values: [5, 10] },
+      y: { parameter: 'nStar', length: 3, from: 0, to: 2, block: 2, values: [50, 60] },
+      output, at: {},
+      ...(output === 'status' ? {} : { mean: [0.96, null, 0.9665, null], min: [0.955, null, 0.966, null], max: [0.9649, null, 0.967, null] }),
+      ok: [4, 0, 2, 0],
+      failed: { insufficient_efolds: [0, 2, 0, 0] },
+    });
+    const { requests } = api(memberUser, scanDetail(), {
+      'GET /api/scans/42/grid': (request) => {
+        const query = request.url.searchParams;
+        const output = (query.get('output') ?? 'ns') as ScanGridSlice['output'];
+        if (query.get('xFrom') === null) return json(200, blocked(output));
+        // The window f index 2 × N_* indices 0–1 at one point per cell.
+        const window = slice(output, [[values[output][0][2]], [values[output][1][2]]], [[status[0][2]], [status[1][2]]]);
+        return json(200, { ...window, x: { ...window.x, parameter: 'f', length: 3, from: 2, to: 2, values: [10] }, y: { ...window.y, parameter: 'nStar', length: 3, from: 0, to: 1, values: [50, 55] } });
+      },
+    });
+    const { router } = renderApp('/scans/42');
+
+    const ns = await screen.findByRole('img', { name: 'Heatmap of n_s over f and N_*' }, slow);
+    await waitFor(() => expect(screen.getAllByText(/Cells: blocks of 2 × 2 points: mean\./)).toHaveLength(3), slow);
+    await waitFor(() => expect(plotIn(ns).layout.annotations).toEqual([expect.objectContaining({ text: 'blocks of 2 × 2 points: mean' })]), slow);
+    expect((plotIn(ns).data[0] as { z: unknown }).z).toEqual([[0.96, null], [0.9665, null]]);
+    // Failures count points, not cells: the block of f = 10 holds two.
+    expect(screen.getByRole('region', { name: 'Failed and missing cells' })).toHaveTextContent('insufficient_efolds (2)');
+
+    // A drag over the second column and the first row: f index 2, N_* indices 0 and 1.
+    act(() => plotIn(ns).onRelayout!({ 'xaxis.range[0]': 0.6, 'xaxis.range[1]': 1.4, 'yaxis.range[0]': -0.4, 'yaxis.range[1]': 0.3 }));
+    await waitFor(() => expect(router.state.location.search).toBe('?xFrom=2&xTo=2&yFrom=0&yTo=1'), slow);
+    await waitFor(() => expect(screen.getAllByText(/^Zoomed in \(double-click to return\); Cells: one point per cell\./)).toHaveLength(3), slow);
+    const zoomed = requests.filter((r) => r.url.searchParams.get('xFrom') === '2').map((r) => Object.fromEntries(r.url.searchParams));
+    expect(zoomed).toEqual(expect.arrayContaining([{ x: 'f', y: 'nStar', output: 'ns', maxCells: '200', xFrom: '2', xTo: '2', yFrom: '0', yTo: '1' }]));
+    await waitFor(() => expect((plotIn(ns).data[0] as { z: unknown }).z).toEqual([[null], [null]]), slow);
+
+    act(() => plotIn(ns).onRelayout!({ 'xaxis.autorange': true, 'yaxis.autorange': true }));
+    await waitFor(() => expect(router.state.location.search).toBe(''), slow);
+    await waitFor(() => expect(screen.getAllByText(/Cells: blocks of 2 × 2 points: mean\./)).toHaveLength(3), slow);
+  });
+
+  it('shows the n_s map full width on demand, asking for the finest cells', async () => {
+    const { requests } = api(memberUser);
+    const { user, router } = renderApp('/scans/42');
+    await screen.findByRole('img', { name: 'Heatmap of n_s over f and N_*' }, slow);
+    await user.click(screen.getByRole('button', { name: 'Full width' }));
+    await waitFor(() => expect(router.state.location.search).toBe('?wide=on'), slow);
+    await waitFor(() => expect(requests.some((r) => r.url.searchParams.get('maxCells') === '512')).toBe(true), slow);
+    expect(await screen.findByRole('button', { name: 'Back to three across' }, slow)).toHaveAttribute('aria-pressed', 'true');
+  });
+
   it('fills in while the scan runs', async () => {
     let calls = 0;
     api(memberUser, scanDetail({ status: 'running', finishedAt: null }), {
@@ -258,12 +316,12 @@ describe('scan heatmaps', () => {
         const output = request.url.searchParams.get('output') ?? 'ns';
         if (output === 'ns') calls++;
         const stored = calls > 1 ? status : status.map((row) => row.map(() => null));
-        return json(200, { ...slices[output], status: stored, z: slices[output].z.map((row, iy) => row.map((v, ix) => (stored[iy][ix] ? v : null))) });
+        return json(200, slice(output as ScanGridSlice['output'], values[output], stored, axes));
       },
     });
     renderApp('/scans/42');
 
-    expect(await screen.findAllByText(/^0 ok, 0 failed, 9 not stored yet$/)).toHaveLength(3);
+    expect(await screen.findAllByText(/ 0 ok, 0 failed, 9 not stored yet$/)).toHaveLength(3);
     await waitFor(() => expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3), { timeout: 8_000 });
   });
 

@@ -34,6 +34,10 @@ export interface PlotProps extends Omit<BoxProps, 'onClick'> {
   label: string;
   height?: number;
   onPointClick?: (point: { pointIndex?: number; x?: unknown; y?: unknown; customdata?: unknown; curveNumber: number }) => void;
+  /** Plotly's relayout event: a drag-zoom gives `xaxis.range[0]` and the like, a double-click `xaxis.autorange`. */
+  onRelayout?: (event: Record<string, unknown>) => void;
+  /** The name of saved images (PNG from the camera, SVG from the disk beside it). */
+  imageName?: string;
 }
 
 const BASE_CONFIG: Partial<Config> = {
@@ -44,7 +48,7 @@ const BASE_CONFIG: Partial<Config> = {
 };
 
 /** A Plotly chart with the app's look, loaded lazily and resizing with its container. */
-export function Plot({ data, layout, label, height = 420, onPointClick, ...boxProps }: PlotProps) {
+export function Plot({ data, layout, label, height = 420, onPointClick, onRelayout, imageName, ...boxProps }: PlotProps) {
   const fullLayout = useMemo<Partial<Layout>>(
     () => ({
       autosize: true,
@@ -66,7 +70,8 @@ export function Plot({ data, layout, label, height = 420, onPointClick, ...boxPr
         <PlotlyChart
           data={data}
           layout={fullLayout}
-          config={BASE_CONFIG}
+          config={imageName ? { ...BASE_CONFIG, toImageButtonOptions: { ...BASE_CONFIG.toImageButtonOptions, filename: imageName } } : BASE_CONFIG}
+          onRelayout={onRelayout}
           useResizeHandler
           style={{ width: '100%', height: `${height}px` }}
           onClick={

@@ -1,3 +1,4 @@
+import type { ScanGridSlice } from '@sixtyfold/shared';
 import { slice } from '@/testing/scan-fixtures';
 import { failureSlot } from './failure-colors';
 import { heatmapFigure, tickIndices } from './heatmap-figure';
@@ -58,6 +59,26 @@ describe('heatmap traces', () => {
     const traces = heatmapFigure({ slice: slice('status', [], status, { y: { parameter: 'f', values: [5, 7] } }) }).data as Trace[];
     expect(traces.map((t) => t.name)).toEqual(['ok', 'failed']);
     expect(traces[0].z).toEqual([[1, null, 1], [1, null, null]]);
+  });
+
+  it('states what a cell stands for on the plot, and hovers a block with its statistics and counts', () => {
+    expect(heatmapFigure({ slice: ns }).layout.annotations).toEqual([expect.objectContaining({ text: 'one point per cell' })]);
+    const blocks: ScanGridSlice = {
+      x: { parameter: 'nStar', length: 3, from: 0, to: 2, block: 2, values: [50, 60] },
+      y: { parameter: 'f', length: 2, from: 0, to: 1, block: 2, values: [5] },
+      output: 'ns', at: {},
+      mean: [0.9615, null], min: [0.961, null], max: [0.962, null],
+      ok: [2, 0],
+      failed: { insufficient_efolds: [1, 0], no_end: [0, 1] },
+    };
+    const { data, layout } = heatmapFigure({ slice: blocks });
+    expect(layout.annotations).toEqual([expect.objectContaining({ text: 'blocks of 2 × 2 points: mean' })]);
+    const [values, failed] = data as Trace[];
+    expect(values.z).toEqual([[0.9615, null]]);
+    // A block without OK points takes the colour of its failures.
+    expect(failed.z).toEqual([[null, failureSlot('no_end')]]);
+    expect(values.text![0][0]).toBe('N_* = 50 (first of 2 values)<br>f = 5 (first of 2 values)<br>2 of 4 points ok; failed: 1 insufficient_efolds<br>n_s mean 0.9615, 0.961 to 0.962');
+    expect(values.text![0][1]).toContain('0 of 2 points ok; failed: 1 no_end');
   });
 
   it('labels the axes with their values and says when one is log-spaced', () => {

@@ -3,12 +3,12 @@ import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
 import { failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
-import { isLogSpaced, outlineSegments } from './grid-cells';
+import { cellRows, cellSpan, cellStates, cellStatistic, isLogSpaced, outlineSegments } from './grid-cells';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
 import { inputLabel } from './point-columns';
 
 export interface HeatmapFigureInput {
-  /** The output drawn, with every cell's status. */
+  /** The output drawn, with each cell's counts of OK and failed points. */
   slice: ScanGridSlice;
   /** Colour range in the output's units, shared across panels or scans; from the data when absent. */
   zRange?: [number, number];
@@ -45,24 +45,40 @@ function axisLayout(axis: ScanGridSlice['x']): Partial<Layout['xaxis']> {
     tickvals: ticks,
     ticktext: ticks.map((i) => tickLabel(axis.values[i])),
     range: [-0.5, axis.values.length - 0.5],
+    // Dragging zooms: the page then asks for that window at finer resolution.
+    fixedrange: false,
     showgrid: false,
   };
 }
 
-/** What hovering a cell shows: where it is (every axis value) and what came out there. */
-function hoverTexts(slice: ScanGridSlice, others: ScanGridSlice[]): string[][] {
+/** What hovering a cell shows: where it is (every axis value) and what came out there, per block when cells hold several points. */
+function hoverTexts(slice: ScanGridSlice, states: (string | null)[], others: ScanGridSlice[]): string[][] {
   const fixed = Object.entries(slice.at).map(([name, { value }]) => `${inputLabel(name)} = ${formatNumber(value)}`);
   const shown = [...others, slice].filter((s, i, all) => s.output !== 'status' && all.findIndex((o) => o.output === s.output) === i);
-  return slice.y.values.map((yValue, iy) =>
-    slice.x.values.map((xValue, ix) => {
-      const lines = [`${inputLabel(slice.x.parameter)} = ${formatNumber(xValue)}`, `${inputLabel(slice.y.parameter)} = ${formatNumber(yValue)}`, ...fixed];
-      const status = slice.status[iy][ix];
-      if (status === null) lines.push('not stored yet');
-      else if (status !== 'ok') lines.push(`failed: ${status}`);
-      else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatNumber(s.z[iy]?.[ix])}`);
-      return lines.join('<br>');
-    }),
-  );
+  const nx = slice.x.values.length;
+  const where = (axis: ScanGridSlice['x'], i: number) => {
+    const count = cellSpan(axis, i).count;
+    return `${inputLabel(axis.parameter)} = ${formatNumber(axis.values[i])}${count > 1 ? ` (first of ${count} values)` : ''}`;
+  };
+  const reasons = Object.entries(slice.failed);
+  const texts = states.map((state, c) => {
+    const ix = c % nx;
+    const iy = Math.floor(c / nx);
+    const lines = [where(slice.x, ix), where(slice.y, iy), ...fixed];
+    const points = cellSpan(slice.x, ix).count * cellSpan(slice.y, iy).count;
+    if (points > 1) {
+      const failed = reasons.filter(([, counts]) => counts[c] > 0).map(([reason, counts]) => `${counts[c]} ${reason}`);
+      lines.push(`${slice.ok[c]} of ${points} points ok${failed.length ? `; failed: ${failed.join(', ')}` : ''}`);
+      for (const s of shown) {
+        if (s.mean?.[c] === null || s.mean?.[c] === undefined) continue;
+        lines.push(`${outputLabel(s.output)} mean ${formatNumber(s.mean[c])}${s.min && s.max ? `, ${formatNumber(s.min[c])} to ${formatNumber(s.max[c])}` : ''}`);
+      }
+    } else if (state === null) lines.push('not stored yet');
+    else if (state !== 'ok') lines.push(`failed: ${state}`);
+    else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatNumber(s.mean?.[c])}`);
+    return lines.join('<br>');
+  });
+  return cellRows(slice, texts);
 }
 
 /**
@@ -74,7 +90,8 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked
   const xs = slice.x.values.map((_, i) => i);
   const ys = slice.y.values.map((_, i) => i);
   const cells = xs.length * ys.length;
-  const text = cells <= MAX_HOVER_CELLS ? hoverTexts(slice, hoverSlices) : undefined;
+  const states = cellStates(slice);
+  const text = cells <= MAX_HOVER_CELLS ? hoverTexts(slice, states, hoverSlices) : undefined;
   const hover = text ? { text, hovertemplate: '%{text}<extra></extra>' } : { hoverinfo: 'z' as const };
   const label = outputLabel(slice.output);
   const logScale = LOG_OUTPUTS.has(slice.output);
@@ -83,7 +100,7 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked
   if (slice.output === 'status') {
     data.push({
       type: 'heatmap', name: 'ok', x: xs, y: ys, hoverongaps: false, showscale: false, ...hover,
-      z: slice.status.map((row) => row.map((s) => (s === 'ok' ? 1 : null))),
+      z: cellRows(slice, states.map((s) => (s === 'ok' ? 1 : null))),
       colorscale: [[0, OK_CELL_COLOR], [1, OK_CELL_COLOR]],
     } as Data);
   } else {
@@ -92,14 +109,14 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked
     const range = zRange ? zRange.map((v) => scale(v)) : [];
     data.push({
       type: 'heatmap', name: label, x: xs, y: ys, hoverongaps: false, ...hover,
-      z: slice.z.map((row) => row.map(scale)),
+      z: cellRows(slice, (slice.mean ?? states.map(() => null)).map(scale)),
       colorscale: PLOT_COLORSCALE,
       ...(range[0] !== null && range[0] !== undefined && range[1] !== null && range[1] !== undefined ? { zmin: range[0], zmax: range[1] } : {}),
       colorbar: { title: { text: log ? `log₁₀ ${label}` : label, side: 'right' }, thickness: 12, outlinewidth: 0, exponentformat: 'power' },
     } as Data);
   }
 
-  const failed = slice.status.map((row) => row.map((s) => (s !== null && s !== 'ok' ? failureSlot(s) : null)));
+  const failed = cellRows(slice, states.map((s) => (s !== null && s !== 'ok' ? failureSlot(s) : null)));
   if (failed.some((row) => row.some((v) => v !== null))) {
     data.push({
       type: 'heatmap', name: 'failed', x: xs, y: ys, z: failed, hoverongaps: false, showscale: false, ...hover,
@@ -130,11 +147,14 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked
     layout: {
       xaxis: axisLayout(slice.x),
       yaxis: axisLayout(slice.y),
-      margin: { l: 72, r: 16, t: 12, b: 60 },
+      margin: { l: 72, r: 16, t: 22, b: 60 },
       // Cells not stored yet show this through the gaps, apart from the light end of the scale.
       plot_bgcolor: NOT_STORED_COLOR,
       showlegend: false,
       hovermode: 'closest',
+      dragmode: 'zoom',
+      // What a cell stands for, on the plot itself (and in saved images).
+      annotations: [{ text: cellStatistic(slice), xref: 'paper', yref: 'paper', x: 1, y: 1, xanchor: 'right', yanchor: 'bottom', showarrow: false, font: { size: 11, color: PLOT_COLORS.muted } }],
     },
   };
 }

@@ -1,5 +1,5 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { findLimits, GRID_MAX_CELLS, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
@@ -8,9 +8,9 @@ import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
-import { useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
+import { PANEL_CELLS, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellCounts, cellPointIndex, failureGroups, insideLimitsMask, markedCells, sameCells } from '../../utils/grid-cells';
+import { cellCounts, cellPointIndex, failedByReason, failureGroups, insideLimitsMask, markedCells, sameCells, type SliceWindow } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
 import { axisOptions } from '../../utils/point-columns';
 import { LimitSetSelect } from '../limit-set-select';
@@ -33,6 +33,18 @@ const TITLES: Record<'ns' | 'r' | ThirdOutput, string> = {
   status: 'Status of each point',
 };
 
+const WINDOW_KEYS = ['xFrom', 'xTo', 'yFrom', 'yTo'] as const;
+/** Changing the axes or a cut leaves the zoom window behind. */
+const NO_WINDOW = Object.fromEntries(WINDOW_KEYS.map((key) => [key, null]));
+
+/** The zoom window kept in the address, when all four ends are whole numbers inside the axes. */
+function windowParam(params: URLSearchParams, xLength: number, yLength: number): SliceWindow | null {
+  const ends = WINDOW_KEYS.map((key) => Number(params.get(key) ?? NaN));
+  const [xFrom, xTo, yFrom, yTo] = ends;
+  if (!ends.every((end) => Number.isInteger(end) && end >= 0)) return null;
+  return xFrom <= xTo && xTo < xLength && yFrom <= yTo && yTo < yLength ? { xFrom, xTo, yFrom, yTo } : null;
+}
+
 interface ScanHeatmapsProps {
   scan: ScanDetail;
   spec: StoredScanSpec;
@@ -40,9 +52,9 @@ interface ScanHeatmapsProps {
 }
 
 /** A panel of one slice query: the heatmap once there is data, else loading or what went wrong. */
-function SlicePanel({ query, what, children }: { query: UseQueryResult<ScanGridSlice>; what: string; children: (slice: ScanGridSlice) => React.ReactNode }) {
+function SlicePanel({ query, what, wide = false, children }: { query: UseQueryResult<ScanGridSlice>; what: string; wide?: boolean; children: (slice: ScanGridSlice) => React.ReactNode }) {
   return (
-    <Panel p={{ base: '3', md: '4' }} minW="0">
+    <Panel p={{ base: '3', md: '4' }} minW="0" gridColumn={wide ? '1 / -1' : undefined}>
       {query.data ? (
         <Stack gap="2">
           {query.isError && <Text fontSize="xs" color="fg.error">Could not refresh {what}: {query.error.message}</Text>}
@@ -81,10 +93,18 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
     const index = Number(raw);
     at[name] = raw !== null && Number.isInteger(index) && index >= 0 && index < grid.lengths[a] ? index : Math.floor((grid.lengths[a] - 1) / 2);
   });
+  // A zoom window stays while a slider moves: the same region of another cut.
   const setAt = useCallback((name: string, index: number) => update({ [`at.${name}`]: String(index) }), [update]);
+  const window = windowParam(params, grid.lengths[names.indexOf(x)], grid.lengths[names.indexOf(y)]);
+  const onZoom = useCallback(
+    (next: SliceWindow | null) => update(next ? Object.fromEntries(WINDOW_KEYS.map((key) => [key, String(next[key])])) : NO_WINDOW),
+    [update],
+  );
+  const wide = params.get('wide') === 'on';
 
   const live = isLive(scan);
-  const base = { x, y, at };
+  // All three panels ask for the same cells, so that n_s and r combine on hover and in the outline.
+  const base = { x, y, at, window, maxCells: wide ? GRID_MAX_CELLS : PANEL_CELLS };
   const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
   const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
@@ -118,6 +138,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
     outline: outline && matched && sameCells(slice, matched.ns) ? outline : null,
     marked: marksOf(slice),
     onCellClick: openCell(slice),
+    onZoom,
   });
 
   const statusSource = ns.data ?? r.data;
@@ -133,10 +154,10 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
               value={x}
               options={axisOptions(names)}
               // Choosing the current y for x swaps the two.
-              onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })}
+              onChange={(next) => update(next === y ? { ...NO_WINDOW, x: next, y: x } : { ...NO_WINDOW, x: next })}
             />
-            <SelectField label="y axis" value={y} options={axisOptions(names.filter((name) => name !== x))} onChange={(next) => update({ y: next })} />
-            <Button size="sm" variant="outline" onClick={() => update({ x: y, y: x })}>
+            <SelectField label="y axis" value={y} options={axisOptions(names.filter((name) => name !== x))} onChange={(next) => update({ ...NO_WINDOW, y: next })} />
+            <Button size="sm" variant="outline" onClick={() => update({ ...NO_WINDOW, x: y, y: x })}>
               Swap axes
             </Button>
             <SelectField
@@ -166,8 +187,19 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
       </Panel>
 
       <SimpleGrid columns={{ base: 1, md: 2, xl: 3 }} gap="4">
-        <SlicePanel query={ns} what="n_s">
-          {(slice) => <ScanHeatmap title={TITLES.ns} {...panelProps(slice)} />}
+        <SlicePanel query={ns} what="n_s" wide={wide}>
+          {(slice) => (
+            <ScanHeatmap
+              title={TITLES.ns}
+              {...panelProps(slice)}
+              height={wide ? 560 : undefined}
+              actions={
+                <Button size="xs" variant="ghost" aria-pressed={wide} onClick={() => update({ wide: wide ? null : 'on' })}>
+                  {wide ? 'Back to three across' : 'Full width'}
+                </Button>
+              }
+            />
+          )}
         </SlicePanel>
         <SlicePanel query={r} what="r">
           {(slice) => <ScanHeatmap title={TITLES.r} {...panelProps(slice)} />}
@@ -178,7 +210,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
       </SimpleGrid>
 
       <Stack gap="2" fontSize="sm" color="fg.muted">
-        {statusSource && <FailureLegend groups={failureGroups(statusSource.status)} missing={cellCounts(statusSource.status).missing} />}
+        {statusSource && <FailureLegend groups={failureGroups(failedByReason(statusSource))} missing={cellCounts(statusSource).missing} />}
         {outlined && (
           <Text>
             Outlined{matched ? ` (${insideCount.toLocaleString('en-US')} cells)` : ''}: n_s in the 95% interval {formatNumber(nsLow)} to{' '}
@@ -187,7 +219,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
           </Text>
         )}
         <Text>
-          Click a cell for its point{pointDiscussion ? ' and its discussion; cells with a dot have comments' : ''}.
+          Click a cell for its point (a block: its first point){pointDiscussion ? ' and its discussion; cells with a dot have comments' : ''}. Drag
+          over a map to zoom in at finer resolution; double-click to return.
           {live ? ' The maps fill in as workers store points.' : ''}
         </Text>
       </Stack>

@@ -35,7 +35,9 @@ export function ScanLinePlots({ scan, spec, pointDiscussion }: { scan: ScanDetai
   if (line.isError && !line.data) return <ErrorState title="Could not load the points of this scan" error={line.error} onRetry={() => line.refetch()} />;
 
   const { points, stored } = line.data;
-  const groups = failureGroups([points.map((p) => p.status)]);
+  const failed: Record<string, number> = {};
+  for (const p of points) if (p.status !== 'ok') failed[p.status] = (failed[p.status] ?? 0) + 1;
+  const groups = failureGroups(failed);
   const missing = Math.max(0, values.length - stored);
   const outputs: PointOutput[] = ['ns', 'r', third];
 
