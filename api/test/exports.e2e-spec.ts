@@ -64,13 +64,19 @@ describe('exports: compression and the Arrow format', () => {
     scanId = created.body.id;
     expect((await member.post(`/api/scans/${scanId}/cancel`).send({})).status).toBe(200);
     await t.db.query(
-      `INSERT INTO scan_points (scan_id, point_index, inputs, status, failure_reason, ns, r, alpha_s, a_s, n_star, computed_at)
+      // The axis columns and the scan's counters as the worker would set them: pages and filters read them.
+      `INSERT INTO scan_points (scan_id, point_index, inputs, axis_0, axis_1, status, failure_reason, ns, r, alpha_s, a_s, n_star, computed_at)
        SELECT ?, seq, JSON_OBJECT('p', 1 + (seq DIV ${N_COUNT}) * 0.1, 'nStar', 50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1}),
+              1 + (seq DIV ${N_COUNT}) * 0.1, 50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1},
               IF(MOD(seq, 7) = 0, 'failed', 'ok'), IF(MOD(seq, 7) = 0, 'no_inflation_end', NULL),
               IF(MOD(seq, 7) = 0, NULL, 0.95 + seq * 1e-5), IF(MOD(seq, 7) = 0, NULL, 0.01), NULL, IF(MOD(seq, 7) = 0, NULL, 2.1e-9),
               50 + MOD(seq, ${N_COUNT}) * 10 / ${N_COUNT - 1}, NOW(3)
          FROM seq_0_to_${TOTAL - 1}`,
       [scanId],
+    );
+    await t.db.query(
+      "UPDATE scans SET done_points = (SELECT COUNT(*) FROM scan_points WHERE scan_id = ? AND status = 'ok'), failed_points = (SELECT COUNT(*) FROM scan_points WHERE scan_id = ? AND status <> 'ok') WHERE id = ?",
+      [scanId, scanId, scanId],
     );
     const login = await fetch(`${t.url}/api/auth/login`, {
       method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: DEMO.plateauMember, password: DEMO_PASSWORD }),
