@@ -292,7 +292,9 @@ export class ModeSolver {
     for (let guard = 0; s.t < nStop; guard++) {
       const result = s.step(nStop);
       if (result !== 'ok' || guard > 200_000) {
-        return failure('integration_failed', `a mode equation could not be integrated near N = ${fmt(s.t)} (${result})`, { nTotal: bg.nEnd });
+        // Say what stopped it: the step limit, or what the integrator reported.
+        const why = result === 'ok' ? 'it took more than 200,000 steps' : result === 'underflow' ? 'the step size underflowed' : 'it produced non-finite values';
+        return failure('integration_failed', `a mode equation (k = ${fmt(k)} k_*) could not be integrated near N = ${fmt(s.t)}: ${why}`, { nTotal: bg.nEnd });
       }
       const over = budget.exceeded(startEvaluations + s.evaluations, 0);
       if (over) return budget.failure(over, `in the mode equations (k = ${fmt(k)} k_*)`, { n: s.t, phi: s.y[0], pi: s.y[1] });
