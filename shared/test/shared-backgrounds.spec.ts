@@ -96,5 +96,9 @@ describe('shared backgrounds', () => {
     const negative = engine.evaluate({ potential: PLATEAU, params: { A: -1e-5 }, phiInit: 7, nStar: 55, method: 'exact' });
     const positive = engine.evaluate({ potential: PLATEAU, params: { A: 1e-5 }, phiInit: 7, nStar: 55, method: 'exact' });
     expect(Math.abs(negative.As! / positive.As! - 1)).toBeLessThan(1e-9);
+    // V refused at the start quotes the user's V, not the reference's: V(1) = A·(1 − 4) = −3e-10.
+    const below = engine.evaluate({ potential: 'A*(phi^2 - 4)', params: { A: 1e-10 }, phiInit: 1, nStar: 55 });
+    expect(below.status).toBe('negative_potential');
+    expect(below.message).toMatch(/^V\(φ_init\) = -3(\.0+)?e-10 is not positive/);
   });
 });

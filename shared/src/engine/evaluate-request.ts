@@ -76,7 +76,9 @@ export class RequestEvaluator {
       const reference = family ? family.parameters.find((q) => q.name === scale.parameter)!.defaultValue : 1;
       if (value > 0 && Number.isFinite(value) && value !== reference) {
         const response = this.evaluate({ ...req, params: { ...req.params, [scale.parameter]: reference } });
-        return rescaled(response, (value / reference) ** scale.power);
+        // A potential refused at its start quotes V there: that answer comes from the point as
+        // given (nothing was integrated), so the number is the user's V, not the reference's.
+        if (!refusedAtStart(response)) return rescaled(response, (value / reference) ** scale.power);
       }
     }
     const bound = this.bind(source, parsed, params);
@@ -162,6 +164,11 @@ export class RequestEvaluator {
 function remember<V>(cache: Map<string, V>, key: string, value: V, limit = 256): void {
   if (cache.size >= limit) cache.delete(cache.keys().next().value as string);
   cache.set(key, value);
+}
+
+/** V itself refused at φ_init (not finite, or not positive), before any integration. */
+function refusedAtStart(response: EvaluateResponse): boolean {
+  return (response.status === 'negative_potential' || response.status === 'invalid_potential') && response.nTotal === null;
 }
 
 /** An answer computed at the reference scale, for V multiplied by `factor`: only the amplitudes change. */
