@@ -8,7 +8,8 @@ const SUPERSCRIPTS: Readonly<Record<string, string>> = {
 /** `A`, `A²`, `A⁻¹` or `A^0.5`: the parameter to its power, as V is proportional to it. */
 export function scalePowerText({ parameter, power }: PotentialScale): string {
   if (power === 1) return parameter;
-  if (!Number.isInteger(power)) return `${parameter}^${power}`;
+  // Superscripts for short whole powers; a fraction or a power written with an exponent keeps the caret.
+  if (!Number.isInteger(power) || Math.abs(power) >= 1000) return `${parameter}^${power}`;
   return parameter + [...String(power)].map((ch) => SUPERSCRIPTS[ch]).join('');
 }
 
