@@ -66,14 +66,20 @@ export class RequestEvaluator {
     const params = family ? { ...Object.fromEntries(family.parameters.map((p) => [p.name, p.defaultValue])), ...req.params } : req.params;
     const parsed = this.parse(source, Object.keys(params));
     if ('status' in parsed) return respond(parsed, null);
-    // The overall scale: computed at the family's reference value and scaled after, so that points
-    // differing only in it share one background and are the same numbers as each computed alone.
-    const scale = family?.scale;
-    const value = scale ? params[scale.parameter] : NaN;
-    const reference = scale ? family!.parameters.find((q) => q.name === scale.parameter)!.defaultValue : NaN;
-    if (scale && value > 0 && Number.isFinite(value) && value !== reference) {
-      const response = this.evaluate({ ...req, params: { ...req.params, [scale.parameter]: reference } });
-      return rescaled(response, (value / reference) ** scale.power);
+    // The overall scale: computed at the reference value and scaled after, so that points differing
+    // only in it share one background and are the same numbers as each computed alone.
+    const scale = family ? family.scale : parsed.scale;
+    if (scale) {
+      const value = params[scale.parameter];
+      // A family's reference is its default; an expression's is 1, because the request alone must
+      // fix it (defaults live in the model, not the request) so that every point of a scan agrees.
+      const reference = family ? family.parameters.find((q) => q.name === scale.parameter)!.defaultValue : 1;
+      if (value > 0 && Number.isFinite(value) && value !== reference) {
+        const response = this.evaluate({ ...req, params: { ...req.params, [scale.parameter]: reference } });
+        // A potential refused at its start quotes V there: that answer comes from the point as
+        // given (nothing was integrated), so the number is the user's V, not the reference's.
+        if (!refusedAtStart(response)) return rescaled(response, (value / reference) ** scale.power);
+      }
     }
     const bound = this.bind(source, parsed, params);
     if (!bound.ok) return respond(failure('invalid_input', bound.problem.message), null);
@@ -158,6 +164,11 @@ export class RequestEvaluator {
 function remember<V>(cache: Map<string, V>, key: string, value: V, limit = 256): void {
   if (cache.size >= limit) cache.delete(cache.keys().next().value as string);
   cache.set(key, value);
+}
+
+/** V itself refused at φ_init (not finite, or not positive), before any integration. */
+function refusedAtStart(response: EvaluateResponse): boolean {
+  return (response.status === 'negative_potential' || response.status === 'invalid_potential') && response.nTotal === null;
 }
 
 /** An answer computed at the reference scale, for V multiplied by `factor`: only the amplitudes change. */

@@ -256,8 +256,9 @@ export class BackgroundSolver {
       maxEps = Math.max(maxEps, eps);
       const a = Math.abs(v1);
       if (a === 0) return `V'/V is zero to double precision from φ = ${fmt(next)} on, ahead of the field (V > 0 there); the field slows down approaching that flat stretch and never gets past`;
-      if (prev < prevPrev && prev <= a) {
+      if (prev < prevPrev && prev < a) {
         // |V'/V| had a local minimum near x: refine it; zero there is a stationary point the field cannot pass.
+        // Strictly: a slope fading through the subnormals repeats values, which is no minimum.
         const at = this.smallestSlope(x - direction * h, next);
         if (Math.abs(slope(at)) < 1e-12) {
           return `V' vanishes at φ = ${fmt(at)} ahead of the field (V > 0 there) without changing sign; the field slows down approaching it and never gets past`;

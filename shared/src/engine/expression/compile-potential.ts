@@ -1,5 +1,6 @@
 import type { MathNode } from 'mathjs/number';
 import { compileTree } from './compile-tree.js';
+import { detectScale, type PotentialScale } from './detect-scale.js';
 import { differentiateThreeTimes, MAX_DERIVATIVE_NODES, type DerivativeFailure } from './differentiate-potential.js';
 import {
   collectParameters,
@@ -50,6 +51,8 @@ export interface ParsedPotential {
   readonly parameterNames: readonly string[];
   /** dV, d2V and d3V as text, for display. */
   readonly derivatives: { readonly dV: string; readonly d2V: string; readonly d3V: string };
+  /** The parameter that only scales V (V ∝ parameter^power), when there is one (`detectScale`). */
+  readonly scale?: PotentialScale;
   /**
    * Closes the compiled functions over these parameter values. Cheap: no mathjs, only closure
    * creation and constant folding. Refuses missing, unknown or non-finite values.
@@ -144,12 +147,14 @@ export function parsePotential(source: string, parameterNames: readonly string[]
   const [first, second, third] = differentiated.derivatives;
   const trees = { V: tree, dV: first.tree, d2V: second.tree, d3V: third.tree };
   const derivatives = Object.freeze({ dV: first.text, d2V: second.text, d3V: third.text });
+  const scale = detectScale(tree, usedNames);
 
   const potential: ParsedPotential = {
     source,
     declaredParameterNames: declared,
     parameterNames: usedNames,
     derivatives,
+    ...(scale && { scale: Object.freeze(scale) }),
     bind(params) {
       const values = checkParameterValues(params, declared);
       if (!values.ok) return values;

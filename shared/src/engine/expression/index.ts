@@ -9,3 +9,4 @@ export {
   type PotentialParseResult,
 } from './compile-potential.js';
 export { POTENTIAL_FUNCTIONS, type PotentialFunctionName } from './expression-tree.js';
+export { detectScale, type PotentialScale } from './detect-scale.js';

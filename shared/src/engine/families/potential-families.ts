@@ -1,4 +1,5 @@
 import type { ModelParameter } from '../../schemas/potential-model.schema.js';
+import type { PotentialScale } from '../expression/detect-scale.js';
 import type { PotentialFunctions } from '../types.js';
 import { slowRollStart } from './start-point.js';
 
@@ -23,7 +24,7 @@ export interface PotentialFamily {
    * The parameter that only scales V, as V ∝ parameter^power: in e-folds the background does not
    * see it, so points that differ only in it share one computation (`RequestEvaluator`).
    */
-  scale?: { parameter: string; power: number };
+  scale?: PotentialScale;
 }
 
 /** Slow-roll e-folds of a family's default start; the engine moves further up when a point needs more. */

@@ -8,6 +8,7 @@ import { LoadingState } from '@/components/ui/loading-state';
 import { PageHeader } from '@/components/ui/page-header';
 import { paths } from '@/config/paths';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
+import { ScaleStatement } from '@/features/models/components/scale-statement';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 
 // The explorer brings the engine and symbolic differentiation; they load when a page needs them.
@@ -53,12 +54,7 @@ export function FamilyRoute() {
             { label: 'Where it inflates', value: family.region },
             { label: 'Paper', value: family.reference },
             { label: 'Engine key', value: family.key },
-            {
-              label: 'Overall scale',
-              value: family.scale
-                ? `${family.scale.parameter} only scales V (V ∝ ${family.scale.parameter}${family.scale.power === 1 ? '' : `^${family.scale.power}`}): points that differ in it share one computation, and A_s fixes it`
-                : 'no single parameter scales V: each value is computed on its own',
-            },
+            { label: 'Scale parameter', value: <ScaleStatement scale={family.scale} /> },
           ]}
         />
         <Suspense fallback={<LoadingState label="Loading the plot and the engine…" />}>

@@ -11,6 +11,7 @@ import { useModel } from '@/features/models/api/get-model';
 import { modelExportHref } from '@/features/models/api/model-files';
 import { DeleteModelDialog } from '@/features/models/components/delete-model-dialog';
 import { PotentialSummary } from '@/features/models/components/potential-summary';
+import { ScaleStatementPending } from '@/features/models/components/scale-statement';
 import { hasGroupRole } from '@/features/models/utils/model-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { groupNamesOf } from '@/lib/group-names';
@@ -19,6 +20,9 @@ import { NotFoundRoute } from './not-found';
 // The explorer brings the engine and symbolic differentiation; they load when a page needs them.
 const PotentialExplorer = lazy(() =>
   import('@/features/models/components/potential-explorer').then((module) => ({ default: module.PotentialExplorer })),
+);
+const DetectedScale = lazy(() =>
+  import('@/features/models/components/detected-scale').then((module) => ({ default: module.DetectedScale })),
 );
 
 export function ModelRoute() {
@@ -89,6 +93,14 @@ function ModelPage({ modelId }: { modelId: number }) {
                     {m.phiInit}
                   </Text>
                 ),
+            },
+            {
+              label: 'Scale parameter',
+              value: (
+                <Suspense fallback={<ScaleStatementPending />}>
+                  <DetectedScale expression={m.expression} parameters={m.parameters} />
+                </Suspense>
+              ),
             },
             {
               label: 'Last changed',

@@ -28,6 +28,22 @@ describe('model page', () => {
     expect(await screen.findByLabelText('φ_init')).toHaveValue('17');
   });
 
+  it('says which parameter only scales the expression, detected in the browser, or that none does', async () => {
+    // Closed form: 0.5 m² φ² (1 + c ln φ²) = m² · g(φ, c), so V ∝ m².
+    mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/models/7': () => json(200, logModel) });
+    const { unmount } = renderApp('/models/7');
+    expect(await screen.findByText('m (V ∝ m²): points that differ only in m, N_* or the reheating share one background integration')).toBeInTheDocument();
+    unmount();
+
+    // m and c sit in different terms of a sum: neither factors out of V.
+    const sum = { ...logModel, expression: '0.5 * m^2 * phi^2 + c * phi^4' };
+    mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/models/7': () => json(200, sum) });
+    renderApp('/models/7');
+    expect(
+      await screen.findByText('none: no parameter only scales V, so only points that differ in N_* or the reheating share one background integration'),
+    ).toBeInTheDocument();
+  });
+
   it('shows neither Edit nor Delete to a viewer', async () => {
     mockApi({ 'GET /api/auth/me': () => json(200, viewerUser), 'GET /api/models/7': () => json(200, logModel) });
     renderApp('/models/7');

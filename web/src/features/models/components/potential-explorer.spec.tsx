@@ -66,8 +66,13 @@ describe('trial errors', () => {
   });
 
   it('says which parameter only scales V, or that none does', async () => {
-    renderApp('/models/families/starobinsky');
-    expect(await screen.findByText(/^mu only scales V \(V ∝ mu\^2\)/)).toBeInTheDocument();
+    const { unmount } = renderApp('/models/families/starobinsky');
+    expect(await screen.findByText('mu (V ∝ mu²): points that differ only in mu, N_* or the reheating share one background integration')).toBeInTheDocument();
+    unmount();
+    renderApp('/models/families/quadratic-quartic');
+    expect(
+      await screen.findByText('none: no parameter only scales V, so only points that differ in N_* or the reheating share one background integration'),
+    ).toBeInTheDocument();
   });
 
   it('asks for a number instead of plotting or running with an empty parameter', async () => {
