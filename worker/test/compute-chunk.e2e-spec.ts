@@ -4,7 +4,7 @@ import mysql from 'mysql2/promise';
 import { spawn, type ChildProcess } from 'node:child_process';
 import path from 'node:path';
 import {
-  chunkJobOptions, COMPUTE_CHUNK_JOB, pointCount, SCAN_QUEUE, scanChunks, storedScanSpecSchema, type ComputeChunkJob,
+  chunkJobOptions, COMPUTE_CHUNK_JOB, pointCount, pointRequest, RequestEvaluator, SCAN_QUEUE, ScanGrid, scanChunks, storedScanSpecSchema, type ComputeChunkJob,
 } from '@sixtyfold/shared';
 import { eventually } from './support/eventually';
 
@@ -60,13 +60,12 @@ describe('a worker computing chunks from the queue', () => {
   });
 
   /** A queued scan row, as the API stores one. */
-  const insertScan = async (name: string, status = 'queued'): Promise<{ id: number; total: number }> => {
-    const stored = spec(owner.groupId, `worker test: ${name}`);
+  const insertScan = async (name: string, status = 'queued', stored = spec(owner.groupId, `worker test: ${name}`)): Promise<{ id: number; total: number }> => {
     const total = pointCount(stored);
     const [result] = await db.query<mysql.ResultSetHeader>(
       `INSERT INTO scans (group_id, owner_id, family, name, method, status, spec, note, total_points, queued_at)
-       VALUES (?, ?, 'starobinsky', ?, 'slowroll', ?, ?, '', ?, CURRENT_TIMESTAMP(3))`,
-      [owner.groupId, owner.userId, stored.name, status, JSON.stringify(stored), total],
+       VALUES (?, ?, ?, ?, 'slowroll', ?, ?, '', ?, CURRENT_TIMESTAMP(3))`,
+      [owner.groupId, owner.userId, stored.potentialSource, stored.name, status, JSON.stringify(stored), total],
     );
     return { id: result.insertId, total };
   };
@@ -108,6 +107,46 @@ describe('a worker computing chunks from the queue', () => {
     const again = await scanRow(id);
     expect({ status: again.status, done: again.done_points, failed: again.failed_points }).toEqual({ status: 'completed', done: 400, failed: 0 });
     expect(await storedPoints(id)).toBe(400);
+  });
+
+  it('computes a chunk in the compute order: an N_* axis given first still runs fastest, and each point is what it is alone', async () => {
+    // φ^p over N_* (first) × p: the points of one p share a background, so a chunk takes whole p columns.
+    const stored = storedScanSpecSchema.parse({
+      groupId: owner.groupId, name: 'worker test: N_* first', tags: [], note: '', model: { kind: 'family', family: 'monomial' }, params: { lambda: 1e-10 },
+      axes: [
+        { kind: 'range', parameter: 'nStar', min: 50, max: 60, count: 50, spacing: 'linear' },
+        { kind: 'range', parameter: 'p', min: 1, max: 3, count: 8, spacing: 'linear' },
+      ],
+      pivot: { kind: 'fixed' }, method: 'slowroll', potentialSource: 'monomial', sharedBackgroundAxes: ['nStar'],
+    });
+    const { id, total } = await insertScan('N_* first', 'queued', stored);
+    const chunks = scanChunks(id, total, 'slowroll');
+    expect(chunks.map((c) => [c.start, c.end])).toEqual([[0, 250], [250, 400]]);
+    startWorker();
+    await enqueue([chunks[0]]);
+    await queueEmpty();
+    // Positions 0–249 are p indices 0–4 at every N_* (index = 8·i_N + i_p).
+    const [first] = await db.query<mysql.RowDataPacket[]>('SELECT point_index FROM scan_points WHERE scan_id = ? ORDER BY point_index', [id]);
+    const expected = Array.from({ length: 400 }, (_, i) => i).filter((i) => i % 8 < 5);
+    expect(first.map((r) => Number(r.point_index))).toEqual(expected);
+
+    await enqueue([chunks[1]]);
+    const finished = await eventually(async () => {
+      const row = await scanRow(id);
+      return row.status === 'completed' ? row : undefined;
+    }, 'the scan to complete');
+    expect({ done: finished.done_points, failed: finished.failed_points }).toEqual({ done: 400, failed: 0 });
+    const [rows] = await db.query<mysql.RowDataPacket[]>('SELECT point_index, inputs, ns, r, a_s FROM scan_points WHERE scan_id = ? ORDER BY point_index', [id]);
+    const grid = new ScanGrid(stored.axes!);
+    for (const row of rows) {
+      const inputs = grid.point(Number(row.point_index));
+      expect(row.inputs).toEqual(inputs);
+      const alone = new RequestEvaluator().evaluate(pointRequest(stored, 'monomial', inputs));
+      // Through MariaDB's DOUBLE and back: the same number to its last digits.
+      for (const [stored, computed] of [[row.ns, alone.ns], [row.r, alone.r], [row.a_s, alone.As]]) {
+        expect(Math.abs(stored / computed! - 1)).toBeLessThanOrEqual(1e-15);
+      }
+    }
   });
 
   it('writes nothing for a cancelled scan', async () => {

@@ -2,7 +2,8 @@ import { Injectable, Logger, type OnApplicationBootstrap, type OnApplicationShut
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
-import { chunkSize, scanChunks } from '@sixtyfold/shared';
+import { scanChunks } from '@sixtyfold/shared';
+import { chunkOfPointSql } from './chunk-of-point';
 import type { AppConfig } from '../config/app.config';
 import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { Scan } from './entities/scan.entity';
@@ -49,7 +50,7 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
       // The queue first, then the points: a chunk with no job in this picture stores nothing
       // more, so whatever it has stored by now is in the reads that follow.
       const queued = new Set((await this.queue.liveJobs()).map((job) => `${job.scanId}/${job.chunk}`));
-      const live = await this.db.getRepository(Scan).find({ where: [{ status: 'queued' }, { status: 'running' }], select: { id: true, totalPoints: true, method: true } });
+      const live = await this.db.getRepository(Scan).find({ where: [{ status: 'queued' }, { status: 'running' }], select: { id: true, totalPoints: true, method: true, spec: true } });
       for (const scan of live) requeued += await this.reconcile(scan, (chunk) => queued.has(`${scan.id}/${chunk}`));
       if (requeued > 0) this.logger.log(`re-queued ${requeued} chunk(s) of ${live.length} live scan(s)`);
     } catch (err) {
@@ -60,11 +61,10 @@ export class ScanReconcilerService implements OnApplicationBootstrap, OnApplicat
     return requeued;
   }
 
-  private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method'>, queued: (chunk: number) => boolean): Promise<number> {
-    const size = chunkSize(scan.totalPoints, scan.method);
+  private async reconcile(scan: Pick<Scan, 'id' | 'totalPoints' | 'method' | 'spec'>, queued: (chunk: number) => boolean): Promise<number> {
     const rows: { chunk: string; stored: string }[] = await this.db.query(
-      'SELECT FLOOR(point_index / ?) AS chunk, COUNT(*) AS stored FROM scan_points WHERE scan_id = ? GROUP BY chunk',
-      [size, scan.id],
+      `SELECT ${chunkOfPointSql(scan.spec, scan.totalPoints, scan.method)} AS chunk, COUNT(*) AS stored FROM scan_points WHERE scan_id = ? GROUP BY chunk`,
+      [scan.id],
     );
     const stored = new Map(rows.map((r) => [Number(r.chunk), Number(r.stored)]));
     const incomplete = scanChunks(scan.id, scan.totalPoints, scan.method).filter((c) => (stored.get(c.chunk) ?? 0) < c.end - c.start);

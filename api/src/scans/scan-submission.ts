@@ -1,5 +1,5 @@
 import { BadRequestException } from '@nestjs/common';
-import { findFamily, PIVOT_AXES, variedInputs, type CreateScan, type ModelParameter, type StoredScanSpec } from '@sixtyfold/shared';
+import { findFamily, parsePotential, PIVOT_AXES, variedInputs, type CreateScan, type ModelParameter, type StoredScanSpec } from '@sixtyfold/shared';
 
 /**
  * Checks the specification against its model's parameters and completes it: every parameter
@@ -10,7 +10,7 @@ import { findFamily, PIVOT_AXES, variedInputs, type CreateScan, type ModelParame
  */
 export function completeSpec(
   spec: CreateScan,
-  model: { source: string; parameters: ModelParameter[]; phiInit: number | null; isFamily: boolean },
+  model: { source: string; parameters: ModelParameter[]; phiInit: number | null; isFamily: boolean; scaleParameter: string | null },
 ): StoredScanSpec {
   const names = new Set(model.parameters.map((p) => p.name));
   const problems: Record<string, string[]> = {};
@@ -32,10 +32,20 @@ export function completeSpec(
     const message = Object.entries(problems).map(([f, m]) => `${f}: ${m.join('; ')}`).join('. ');
     throw new BadRequestException({ message, fieldErrors: problems });
   }
-  return { ...spec, params, phiInit, potentialSource: model.source };
+  // Points that differ only along these axes share one background, so they are computed together.
+  const sharedBackgroundAxes = (spec.axes ?? [])
+    .map((axis) => axis.parameter)
+    .filter((name) => (PIVOT_AXES as readonly string[]).includes(name) || name === model.scaleParameter);
+  return { ...spec, params, phiInit, potentialSource: model.source, sharedBackgroundAxes };
 }
 
 export function familyModel(key: string) {
   const family = findFamily(key);
-  return family ? { source: family.key, parameters: family.parameters, phiInit: null, isFamily: true } : null;
+  return family ? { source: family.key, parameters: family.parameters, phiInit: null, isFamily: true, scaleParameter: family.scale?.parameter ?? null } : null;
+}
+
+/** The parameter that only scales a group's expression, as the engine detects it (null when none, or when V does not read). */
+export function scaleParameterOf(expression: string, parameters: ModelParameter[]): string | null {
+  const parsed = parsePotential(expression, parameters.map((p) => p.name), { simplify: false });
+  return parsed.ok ? (parsed.potential.scale?.parameter ?? null) : null;
 }

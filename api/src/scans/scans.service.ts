@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
 import {
-  chunkSize, createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery,
+  createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery,
   type ScanSummary,
 } from '@sixtyfold/shared';
 import { z } from 'zod';
@@ -20,7 +20,8 @@ import { PotentialModel } from '../models/entities/potential-model.entity';
 import { Scan } from './entities/scan.entity';
 import { ScanTag } from './entities/scan-tag.entity';
 import { ScanQueueService } from './scan-queue.service';
-import { completeSpec, familyModel } from './scan-submission';
+import { chunkOfPointSql } from './chunk-of-point';
+import { completeSpec, familyModel, scaleParameterOf } from './scan-submission';
 
 @Injectable()
 export class ScansService {
@@ -47,7 +48,7 @@ export class ScansService {
     } else {
       const row = await this.db.getRepository(PotentialModel).findOneBy({ id: spec.model.modelId });
       if (!row || row.groupId !== spec.groupId) throw new NotFoundException({ message: 'model.modelId: no such model in this group', fieldErrors: { 'model.modelId': ['no such model in this group'] } });
-      model = { source: row.expression, parameters: row.parameters, phiInit: row.phiInit, isFamily: false };
+      model = { source: row.expression, parameters: row.parameters, phiInit: row.phiInit, isFamily: false, scaleParameter: scaleParameterOf(row.expression, row.parameters) };
     }
     const stored = completeSpec(spec, model);
     const total = pointCount(spec);
@@ -182,14 +183,14 @@ export class ScansService {
     const scan = await this.load(user, id);
     await this.requireOwnerOrLead(user, scan, 'retry');
     checkTransition('reopen', scan.status, 'owner or lead');
-    const size = chunkSize(scan.totalPoints, scan.method);
+    const chunkOfPoint = chunkOfPointSql(scan.spec, scan.totalPoints, scan.method);
     // The failed rows are deleted, so the points are missing again: the scan completes exactly
     // when the last of them is stored anew, and reconciliation re-queues them if jobs vanish.
     const chunks = await this.db.transaction(async (tx) => {
       await tx.query('SELECT id FROM scans WHERE id = ? FOR UPDATE', [id]);
       const rows: { chunk: string }[] = await tx.query(
-        "SELECT DISTINCT FLOOR(point_index / ?) AS chunk FROM scan_points WHERE scan_id = ? AND status <> 'ok'",
-        [size, id],
+        `SELECT DISTINCT ${chunkOfPoint} AS chunk FROM scan_points WHERE scan_id = ? AND status <> 'ok'`,
+        [id],
       );
       if (rows.length === 0) return [];
       const removed: { affectedRows: number } = await tx.query("DELETE FROM scan_points WHERE scan_id = ? AND status <> 'ok'", [id]);

@@ -157,6 +157,11 @@ export const storedScanSpecSchema = z.intersection(
   z.object({
     /** Family key or expression, copied at submission so a later model edit changes nothing. */
     potentialSource: z.string().min(1),
+    /**
+     * Axes along which points share one background (N_*, the reheating history, the parameter that
+     * only scales V), decided at submission: they are computed fastest (`computeOrder`).
+     */
+    sharedBackgroundAxes: z.array(z.string()).optional(),
   }),
 );
 export type StoredScanSpec = z.infer<typeof storedScanSpecSchema>;

@@ -1,10 +1,13 @@
 import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
-import type { DataSource, EntityManager } from 'typeorm';
+import type { DataSource, QueryRunner } from 'typeorm';
 import { axisColumnValues, Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob } from '@sixtyfold/shared';
+import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
+
+/** How long a job waits for another job of the same chunk to finish storing it. */
+const CHUNK_LOCK_WAIT_SECONDS = 60;
 
 export interface ChunkOutcome {
   scanId: number;
@@ -18,14 +21,10 @@ export interface ChunkOutcome {
 
 type PointRow = Omit<ScanPoint, 'scan'>;
 
-/** Points [start, end) of a scan. */
-interface PointRange {
-  start: number;
-  end: number;
-}
-
 /**
- * Computes one chunk of a scan with the engine and stores it. The rows are written with one
+ * Computes one chunk of a scan with the engine and stores it. A chunk is a run of positions in
+ * the scan's compute order (`computeOrder`: points sharing a background together), each
+ * position one point index. The rows are written with one
  * INSERT … ON DUPLICATE KEY UPDATE on (scan_id, point_index), and the scan's counters move by
  * the difference the chunk made, in the same transaction: a retried or duplicated chunk
  * overwrites its rows and leaves the counters right.
@@ -68,13 +67,15 @@ export class ComputeChunkService {
 
     const spec = scan.spec;
     const points = scanPoints(spec);
+    const order = computeOrder(spec);
     const parameters = variedInputs(spec);
     const rows: PointRow[] = [];
     const now = new Date();
     const startedAt = performance.now();
     let renewedAt = startedAt;
     let end = job.end;
-    for (let i = job.start; i < job.end; i++) {
+    for (let position = job.start; position < job.end; position++) {
+      const i = order.pointAt(position);
       const inputs = points.point(i);
       const result = this.engine.evaluate(pointRequest(spec, spec.potentialSource, inputs));
       const ok = result.status === 'ok';
@@ -97,23 +98,22 @@ export class ComputeChunkService {
         energyScaleGeV: result.energyScaleGeV,
         computedAt: now,
       });
-      if (i + 1 === job.end) break;
+      if (position + 1 === job.end) break;
       const at = performance.now();
       if (at - startedAt >= this.sliceMs) {
-        end = i + 1;
+        end = position + 1;
         break;
       }
       if (at - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
-        await renew((i + 1 - job.start) / (job.end - job.start));
+        await renew((position + 1 - job.start) / (job.end - job.start));
         renewedAt = performance.now();
         // A cancelled scan stops between points, and nothing of this chunk is written.
         if (await this.cancelled(scan.id)) return skipped('cancelled');
       }
     }
-    const range = { start: job.start, end };
-    const stored = await this.db.transaction((tx) => this.store(tx, scan.id, range, rows));
+    const stored = await this.underChunkLock(scan.id, job.chunk, (tx) => this.write(tx, scan.id, rows));
     if (!stored) return skipped('cancelled');
-    this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: points ${range.start}–${range.end - 1} stored`);
+    this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: positions ${job.start}–${end - 1} stored`);
     const failed = rows.filter((r) => r.status !== 'ok').length;
     return { scanId: scan.id, chunk: job.chunk, computed: rows.length - failed, failed, rest: end < job.end ? continuationOf(job, end) : undefined };
   }
@@ -128,36 +128,30 @@ export class ComputeChunkService {
     const scans = this.db.getRepository(Scan);
     const scan = await scans.findOne({ where: { id: job.scanId }, select: { id: true, status: true } });
     if (!scan || scan.status === 'cancelled') return 0;
-    // The inputs, when the stored spec can be read at all (it may be what made the chunk fail).
+    // The inputs and the chunk's points, when the stored spec can be read at all (it may be what
+    // made the chunk fail; then the positions are taken as point indices).
     let inputs: (i: number) => Record<string, number> = () => ({});
     let parameters: string[] = [];
+    let pointAt = (position: number) => position;
     try {
       const spec = (await scans.findOneByOrFail({ id: job.scanId })).spec;
       const points = scanPoints(spec);
+      const order = computeOrder(spec);
       inputs = (i) => points.point(i);
       parameters = variedInputs(spec);
+      pointAt = (position) => order.pointAt(position);
     } catch {
       // Stored without inputs; the reason says what went wrong.
     }
+    const indices = Array.from({ length: job.end - job.start }, (_, k) => pointAt(job.start + k));
     const now = new Date();
-    return this.db.transaction(async (tx) => {
-      if (!(await scanLifecycle.lockForStore(tx, scan.id))) return 0;
-      const present: { point_index: number }[] = await tx.query(
-        'SELECT point_index FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE',
-        [scan.id, job.start, job.end],
-      );
+    const written = await this.underChunkLock(scan.id, job.chunk, async (tx) => {
+      const present: { point_index: number }[] = await tx.query(`SELECT point_index FROM scan_points WHERE scan_id = ? AND ${pointsCondition(indices)}`, [scan.id]);
       const stored = new Set(present.map((p) => Number(p.point_index)));
-      let written = 0;
-      // One write per run of missing points, each over exactly the range it fills.
-      for (let i = job.start; i < job.end; ) {
-        if (stored.has(i)) { i++; continue; }
-        const rows: PointRow[] = [];
-        for (; i < job.end && !stored.has(i); i++) rows.push(failedRow(scan.id, i, parameters, inputs(i), reason, now));
-        await this.write(tx, scan.id, { start: rows[0].pointIndex, end: i }, rows);
-        written += rows.length;
-      }
-      return written;
+      const rows = indices.filter((i) => !stored.has(i)).map((i) => failedRow(scan.id, i, parameters, inputs(i), reason, now));
+      return rows.length === 0 || (await this.write(tx, scan.id, rows)) ? rows.length : false;
     });
+    return written || 0;
   }
 
   private async cancelled(scanId: number): Promise<boolean> {
@@ -165,25 +159,54 @@ export class ComputeChunkService {
     return !row || row.status === 'cancelled';
   }
 
-  /** Writes the points of `range` (exactly `rows`) unless the scan was cancelled or deleted meanwhile; false when skipped. */
-  private async store(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<boolean> {
-    if (!(await scanLifecycle.lockForStore(tx, scanId))) return false;
-    await this.write(tx, scanId, range, rows);
-    return true;
+  /**
+   * Runs `work` in a READ COMMITTED transaction holding the chunk's named lock until after the
+   * commit: two jobs of one chunk (a stalled one and its retry, a chunk and its continuation) store
+   * one after the other and each sees what the other committed, while the chunks of a scan store
+   * side by side, each locking only its own rows. `work` answering false rolls back (the scan was
+   * cancelled or deleted meanwhile).
+   */
+  private async underChunkLock<T>(scanId: number, chunk: number, work: (tx: QueryRunner) => Promise<T | false>): Promise<T | false> {
+    const runner = this.db.createQueryRunner();
+    const lock = `sixtyfold-scan-${scanId}-chunk-${chunk}`;
+    try {
+      const [{ got }] = await runner.query('SELECT GET_LOCK(?, ?) AS got', [lock, CHUNK_LOCK_WAIT_SECONDS]);
+      if (Number(got) !== 1) throw new Error(`chunk ${chunk} of scan ${scanId}: another worker has been storing it for ${CHUNK_LOCK_WAIT_SECONDS} s`);
+      await runner.startTransaction('READ COMMITTED');
+      try {
+        const result = await work(runner);
+        if (result === false) await runner.rollbackTransaction();
+        else await runner.commitTransaction();
+        return result;
+      } catch (err) {
+        await runner.rollbackTransaction();
+        throw err;
+      }
+    } finally {
+      await runner.query('DO RELEASE_LOCK(?)', [lock]).catch(() => undefined); // a lost connection released it already
+      await runner.release();
+    }
   }
 
-  /** Upserts `rows`, which are exactly the points of `range`, and moves the counters by the difference they make (finishing the scan with its last point). Under the scan's lock. */
-  private async write(tx: EntityManager, scanId: number, range: PointRange, rows: PointRow[]): Promise<void> {
-    // What an earlier attempt stored in this range; after the write the range holds exactly `rows`.
+  /**
+   * Upserts `rows` and moves the counters by the difference they make (finishing the scan with
+   * its last point), under the chunk's lock; false when the scan was cancelled or deleted.
+   */
+  private async write(tx: QueryRunner, scanId: number, rows: PointRow[]): Promise<boolean> {
+    // What an earlier attempt stored of these points; after the write they hold exactly `rows`.
     const [before] = await tx.query(
       `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
-         FROM scan_points WHERE scan_id = ? AND point_index >= ? AND point_index < ? FOR UPDATE`,
-      [scanId, range.start, range.end],
+         FROM scan_points WHERE scan_id = ? AND ${pointsCondition(rows.map((r) => r.pointIndex))}`,
+      [scanId],
     );
     const { sql, parameters } = this.upsert(rows);
     await tx.query(sql, parameters);
+    // The scan's row is locked last and briefly, so chunks insert side by side; a scan deleted
+    // meanwhile is found here and the insert rolled back.
+    if (!(await scanLifecycle.lockForStore(tx, scanId))) return false;
     const ok = rows.filter((r) => r.status === 'ok').length;
     await scanLifecycle.store(tx, scanId, { ok: ok - Number(before.ok), failed: rows.length - ok - Number(before.bad) });
+    return true;
   }
 
   /**
@@ -194,13 +217,26 @@ export class ComputeChunkService {
   private upsert(rows: PointRow[]): { sql: string; parameters: unknown[] } {
     const columns = this.pointColumns;
     const tuple = `(${columns.map(() => '?').join(', ')})`;
+    // Without the foreign-key check, an insert takes no shared lock on the scan's row, which the
+    // counter update then needs exclusively: with it, two chunks storing at once deadlock. The scan
+    // is checked under its lock after the insert instead (\`write\`).
     const sql =
-      `INSERT INTO scan_points (${columns.map((c) => `\`${c.name}\``).join(', ')}) VALUES ${rows.map(() => tuple).join(', ')}` +
+      `SET STATEMENT foreign_key_checks = 0 FOR INSERT INTO scan_points (${columns.map((c) => `\`${c.name}\``).join(', ')}) VALUES ${rows.map(() => tuple).join(', ')}` +
       ` ON DUPLICATE KEY UPDATE ${columns.filter((c) => !c.primary).map((c) => `\`${c.name}\` = VALUES(\`${c.name}\`)`).join(', ')}`;
     const parameters = rows.flatMap((row) => columns.map((c) => (c.json ? JSON.stringify(row[c.property]) : row[c.property])));
     return { sql, parameters };
   }
 
+}
+
+/**
+ * The SQL condition on `point_index` for these points (integers, written into the statement): a
+ * range when they are consecutive, as in a scan computed in index order, else a list.
+ */
+function pointsCondition(indices: number[]): string {
+  const sorted = [...indices].sort((a, b) => a - b);
+  const [first, last] = [sorted[0], sorted[sorted.length - 1]];
+  return last - first === sorted.length - 1 ? `point_index BETWEEN ${first} AND ${last}` : `point_index IN (${sorted.join(', ')})`;
 }
 
 /** The record of a point the workers could not compute. */
