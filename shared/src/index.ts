@@ -12,6 +12,7 @@ export * from './engine/index.js';
 export * from './schemas/scan.schema.js';
 export * from './schemas/scan-detail.schema.js';
 export * from './scans/compute-order.js';
+export * from './scans/input-order.js';
 export * from './scans/plane-sample.js';
 export * from './scans/scan-grid.js';
 export * from './scans/scan-point.js';

@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  inputSortedOrder, planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -127,8 +127,31 @@ export class ScanResultsService {
       total = Number(n);
     }
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
-    const rows: RawPoint[] = (q.page - 1) * q.pageSize >= total ? [] : await this.db.query(...this.pageQuery(scan, q, total));
+    const rows: RawPoint[] =
+      (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total))));
     return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
+  }
+
+  /**
+   * A page of a complete grid sorted by an axis input and not filtered: its point indices follow
+   * from the axes (`inputSortedOrder`), so it is read by primary key with no sort at all. Null
+   * where that does not hold (a filter, a point list, missing points, an axis repeating a value):
+   * the SQL page serves those.
+   */
+  private async inputOrderedPage(scan: Scan, q: ScanPointsQuery): Promise<RawPoint[] | null> {
+    const input = sortedInput(q.sort);
+    const axes = scan.spec.axes;
+    const filtered = q.status || q.ranges.length || q.inputRanges.length;
+    if (!input || !axes || filtered || scan.donePoints + scan.failedPoints !== scan.totalPoints) return null;
+    const grid = new ScanGrid(axes);
+    const pointAt = inputSortedOrder(grid, axes.findIndex((a) => a.parameter === input));
+    if (!pointAt) return null;
+    const first = (q.page - 1) * q.pageSize;
+    const count = Math.min(q.pageSize, grid.size - first);
+    const indices = Array.from({ length: count }, (_, k) => (q.order === 'asc' ? pointAt(first + k) : pointAt(grid.size - 1 - first - k)));
+    const rows: RawPoint[] = await this.db.query('SELECT * FROM scan_points WHERE scan_id = ? AND point_index IN (?)', [scan.id, indices]);
+    const byIndex = new Map(rows.map((row) => [Number(row.point_index), row]));
+    return indices.map((i) => byIndex.get(i)).filter((row) => row !== undefined);
   }
 
   /**
