@@ -30,6 +30,17 @@ function residentBytes(pid) {
   }
 }
 
+/** CPU time a process has used, user and system, in seconds (0 once it is gone). */
+function cpuSeconds(pid) {
+  try {
+    // /proc/<pid>/stat: "pid (name) state …"; utime and stime are the 12th and 13th fields after the name, in ticks of 1/100 s.
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return 0;
+  }
+}
+
 /** Samples the resident memory of named processes every 250 ms; `stop()` returns each one's peak. */
 function samplePeaks(processes) {
   const peaks = new Map(processes.map(([name]) => [name, 0]));
@@ -123,8 +134,12 @@ export async function benchMillion(load, { apiPid, workerPids, databasePid, webU
   const endToEnd = (scan, seconds) => `${(scan.totalPoints / seconds).toFixed(0)} points/s (${seconds.toFixed(1)} s, ${scan.donePoints} ok, ${scan.failedPoints} failed)`;
 
   log('million: computing it with nobody watching');
+  const processes = [['API', apiPid], ...workerPids.map((pid, i) => [`worker ${i + 1}`, pid]), ['MariaDB', databasePid]];
+  const cpuBefore = processes.map(([, pid]) => cpuSeconds(pid));
   const alone = await submitAndWait(load, async () => null);
+  const cpu = processes.map(([name, pid], k) => `${name} ${(cpuSeconds(pid) - cpuBefore[k]).toFixed(1)} s`);
   report += `  end to end, nobody watching    ${endToEnd(alone.scan, alone.seconds)}\n`;
+  report += `    CPU time spent               ${cpu.join(', ')}\n`;
 
   // Again, with the scan page open in chromium from submission to the end, as a group watches.
   log('million: computing it again with the scan page open');
@@ -167,7 +182,7 @@ export async function benchMillion(load, { apiPid, workerPids, databasePid, webU
       const r = await median3(() => wireGet(`${base}/points?${query}&pageSize=100&page=${page}`, cookie));
       times.push(r.status === 200 ? ms(r.ms) : `${r.status}`);
     }
-    report += `    ${label.padEnd(29)}${times.join(' / ')}\n`;
+    report += `    ${label.padEnd(33)}${times.join(' / ')}\n`;
   }
 
   const plane = await median3(() => wireGet(`${base}/plane`, cookie));
