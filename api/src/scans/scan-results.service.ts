@@ -54,6 +54,20 @@ function toDto(raw: RawPoint): ScanPointDto {
   return dto;
 }
 
+/** Every point of the scan is stored (a point list or grid computed to its end). */
+function complete(scan: Scan): boolean {
+  return scan.donePoints + scan.failedPoints === scan.totalPoints;
+}
+
+/** How many points of a complete grid lie inside these input ranges: the product over the axes of the values inside. */
+function inputRangeCount(grid: ScanGrid, ranges: ScanPointsQuery['inputRanges']): number {
+  return grid.axes.reduce((n, axis, a) => {
+    const range = ranges.filter((r) => r.name === axis.parameter);
+    const inside = grid.values[a].filter((v) => range.every((r) => (r.min === undefined || v >= r.min) && (r.max === undefined || v <= r.max)));
+    return n * inside.length;
+  }, 1);
+}
+
 /** A scan's stored points: pages, streamed exports and heatmap slices. */
 @Injectable()
 export class ScanResultsService {
@@ -121,6 +135,7 @@ export class ScanResultsService {
     if (unfiltered && !q.status) total = scan.donePoints + scan.failedPoints;
     else if (unfiltered && q.status === 'ok') total = scan.donePoints;
     else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
+    else if (!q.status && !q.ranges.length && complete(scan) && scan.spec.axes) total = inputRangeCount(new ScanGrid(scan.spec.axes), q.inputRanges);
     else {
       const [sql, parameters] = matching.select('1').orderBy().getQueryAndParameters();
       const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
@@ -142,7 +157,7 @@ export class ScanResultsService {
     const input = sortedInput(q.sort);
     const axes = scan.spec.axes;
     const filtered = q.status || q.ranges.length || q.inputRanges.length;
-    if (!input || !axes || filtered || scan.donePoints + scan.failedPoints !== scan.totalPoints) return null;
+    if (!input || !axes || filtered || !complete(scan)) return null;
     const grid = new ScanGrid(axes);
     const pointAt = inputSortedOrder(grid, axes.findIndex((a) => a.parameter === input));
     if (!pointAt) return null;

@@ -17,11 +17,12 @@ describe('scan chunks', () => {
     }
   });
 
-  it('share a small scan over the pool and keep a large one at about a second per chunk', () => {
+  it('share a small scan over the pool and keep a large one in chunks of a second or a few', () => {
     expect(scanChunks(1, 10_000, 'slowroll')).toHaveLength(16); // 625 points each
-    expect(chunkSize(1_000_000, 'slowroll')).toBe(2000);
+    expect(chunkSize(1_000_000, 'slowroll')).toBe(10_000);
+    expect(chunkSize(100_000, 'slowroll')).toBe(6250);
     expect(chunkSize(1_000_000, 'exact')).toBe(200);
-    // Never below an eighth of the full size: tiny chunks would cost more in bookkeeping than they spread.
+    // Never below 250 (25 exact): tiny chunks would cost more in bookkeeping than they spread.
     expect(chunkSize(100, 'slowroll')).toBe(250);
     expect(chunkSize(100, 'exact')).toBe(25);
   });
