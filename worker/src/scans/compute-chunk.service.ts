@@ -4,11 +4,13 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import { escape } from 'mysql2';
 import type { DataSource, QueryRunner } from 'typeorm';
 import { axisColumnValues, Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob } from '@sixtyfold/shared';
+import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
 
 /** How long a job waits for another job of the same chunk to finish storing it. */
 const CHUNK_LOCK_WAIT_SECONDS = 60;
+/** Rows per insert while a chunk computes: large enough to cost MariaDB little per row, small enough to overlap the computing. */
+const STORE_BATCH_POINTS = 1000;
 
 export interface ChunkOutcome {
   scanId: number;
@@ -24,17 +26,18 @@ type PointRow = Omit<ScanPoint, 'scan'>;
 
 /**
  * Computes one chunk of a scan with the engine and stores it. A chunk is a run of positions in
- * the scan's compute order (`computeOrder`: points sharing a background together), each
- * position one point index. The rows are written with one
- * INSERT … ON DUPLICATE KEY UPDATE on (scan_id, point_index), and the scan's counters move by
- * the difference the chunk made, in the same transaction: a retried or duplicated chunk
- * overwrites its rows and leaves the counters right.
+ * the scan's compute order (`computeOrder`: points sharing a background together), each position
+ * one point index. The chunk is stored in one transaction under its own named lock
+ * (`underChunkLock`): its rows go to MariaDB in batches while it computes, as upserts on
+ * (scan_id, point_index), and at the end the scan's counters move by the difference the chunk made
+ * to what was stored before: a retried or duplicated chunk overwrites its rows and leaves the
+ * counters right.
  *
  * The engine is synchronous, so while a point computes nothing else in this process runs, bull's
  * lock renewal included. Between points the chunk calls `renew` (which extends its lock)
  * whenever LOCK_RENEWAL_SECONDS have passed; a point ends at its wall-time limit, so the lock is
  * never left unrenewed longer than one point's limit plus that interval, which the config keeps
- * below the lock duration. And after its time slice a chunk stores the points it has and returns
+ * below the lock duration. And after its time slice a chunk commits the points it has and returns
  * the rest as a continuation, so a scan of slow points shares the pool with the others.
  */
 @Injectable()
@@ -70,53 +73,82 @@ export class ComputeChunkService {
     const points = scanPoints(spec);
     const order = computeOrder(spec);
     const parameters = variedInputs(spec);
-    const rows: PointRow[] = [];
     const now = new Date();
     const startedAt = performance.now();
     let renewedAt = startedAt;
-    let end = job.end;
-    for (let position = job.start; position < job.end; position++) {
-      const i = order.pointAt(position);
-      const inputs = points.point(i);
-      const result = this.engine.evaluate(pointRequest(spec, spec.potentialSource, inputs));
-      const ok = result.status === 'ok';
-      rows.push({
-        scanId: scan.id,
-        pointIndex: i,
-        inputs,
-        ...axisColumnValues(parameters, inputs),
-        status: result.status,
-        failureReason: ok ? null : result.message.slice(0, 500),
-        ns: result.ns,
-        r: result.r,
-        alphaS: result.alphaS,
-        As: result.As,
-        amplitudeScale: result.amplitudeScale,
-        nTotal: Number.isFinite(result.nTotal) ? result.nTotal : null,
-        nStar: result.nStar,
-        phiStar: result.phiStar,
-        phiEnd: result.phiEnd,
-        energyScaleGeV: result.energyScaleGeV,
-        computedAt: now,
-      });
-      if (position + 1 === job.end) break;
-      const at = performance.now();
-      if (at - startedAt >= this.sliceMs) {
-        end = position + 1;
-        break;
+    const stored = await this.underChunkLock(scan.id, job.chunk, async (tx) => {
+      const indices = Array.from({ length: job.end - job.start }, (_, k) => order.pointAt(job.start + k));
+      const before = await this.storedStatuses(tx, scan.id, indices);
+      // The counters' change: each stored row counted, minus what an earlier attempt had stored for it.
+      const change = { ok: 0, failed: 0 };
+      const computed = { ok: 0, failed: 0 };
+      // Rows go to MariaDB in batches as they are computed, each insert running there while the
+      // next batch computes here; all in the chunk's transaction, counted at its end.
+      const inserts: Promise<unknown>[] = [];
+      let batch: PointRow[] = [];
+      const send = async () => {
+        const insert = tx.query(this.upsert(batch));
+        insert.catch(() => undefined); // awaited below; a failure rolls the chunk back there
+        inserts.push(insert);
+        batch = [];
+        await new Promise(setImmediate); // lets the driver put the statement on the wire before computing on
+      };
+      let end = job.end;
+      for (let position = job.start; position < job.end; position++) {
+        const i = order.pointAt(position);
+        const row = this.computeRow(scan.id, spec, parameters, i, points.point(i), now);
+        batch.push(row);
+        const outcome = row.status === 'ok' ? 'ok' : 'failed';
+        computed[outcome]++;
+        change[outcome]++;
+        const was = before.get(i);
+        if (was !== undefined) change[was ? 'ok' : 'failed']--;
+        if (batch.length >= STORE_BATCH_POINTS) await send();
+        if (position + 1 === job.end) break;
+        const at = performance.now();
+        if (at - startedAt >= this.sliceMs) {
+          end = position + 1;
+          break;
+        }
+        if (at - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
+          await renew((position + 1 - job.start) / (job.end - job.start));
+          renewedAt = performance.now();
+          // A cancelled scan stops between points, and nothing of this chunk is written.
+          if (await this.cancelled(scan.id)) return false;
+        }
       }
-      if (at - renewedAt >= LOCK_RENEWAL_SECONDS * 1000) {
-        await renew((position + 1 - job.start) / (job.end - job.start));
-        renewedAt = performance.now();
-        // A cancelled scan stops between points, and nothing of this chunk is written.
-        if (await this.cancelled(scan.id)) return skipped('cancelled');
-      }
-    }
-    const stored = await this.underChunkLock(scan.id, job.chunk, (tx) => this.write(tx, scan.id, rows));
+      if (batch.length > 0) await send();
+      await Promise.all(inserts);
+      return (await this.count(tx, scan.id, change)) ? { end, ...computed } : false;
+    });
     if (!stored) return skipped('cancelled');
-    this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: positions ${job.start}–${end - 1} stored`);
-    const failed = rows.filter((r) => r.status !== 'ok').length;
-    return { scanId: scan.id, chunk: job.chunk, computed: rows.length - failed, failed, rest: end < job.end ? continuationOf(job, end) : undefined };
+    this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: positions ${job.start}–${stored.end - 1} stored`);
+    return { scanId: scan.id, chunk: job.chunk, computed: stored.ok, failed: stored.failed, rest: stored.end < job.end ? continuationOf(job, stored.end) : undefined };
+  }
+
+  /** The stored row of point `i`, computed by the engine. */
+  private computeRow(scanId: number, spec: StoredScanSpec, parameters: string[], i: number, inputs: Record<string, number>, computedAt: Date): PointRow {
+    const result = this.engine.evaluate(pointRequest(spec, spec.potentialSource, inputs));
+    const ok = result.status === 'ok';
+    return {
+      scanId,
+      pointIndex: i,
+      inputs,
+      ...axisColumnValues(parameters, inputs),
+      status: result.status,
+      failureReason: ok ? null : result.message.slice(0, 500),
+      ns: result.ns,
+      r: result.r,
+      alphaS: result.alphaS,
+      As: result.As,
+      amplitudeScale: result.amplitudeScale,
+      nTotal: Number.isFinite(result.nTotal) ? result.nTotal : null,
+      nStar: result.nStar,
+      phiStar: result.phiStar,
+      phiEnd: result.phiEnd,
+      energyScaleGeV: result.energyScaleGeV,
+      computedAt,
+    };
   }
 
   /**
@@ -147,8 +179,7 @@ export class ComputeChunkService {
     const indices = Array.from({ length: job.end - job.start }, (_, k) => pointAt(job.start + k));
     const now = new Date();
     const written = await this.underChunkLock(scan.id, job.chunk, async (tx) => {
-      const present: { point_index: number }[] = await tx.query(`SELECT point_index FROM scan_points WHERE scan_id = ? AND ${pointsCondition(indices)}`, [scan.id]);
-      const stored = new Set(present.map((p) => Number(p.point_index)));
+      const stored = await this.storedStatuses(tx, scan.id, indices);
       const rows = indices.filter((i) => !stored.has(i)).map((i) => failedRow(scan.id, i, parameters, inputs(i), reason, now));
       return rows.length === 0 || (await this.write(tx, scan.id, rows)) ? rows.length : false;
     });
@@ -189,24 +220,31 @@ export class ComputeChunkService {
     }
   }
 
-  /**
-   * Upserts `rows` and moves the counters by the difference they make (finishing the scan with
-   * its last point), under the chunk's lock; false when the scan was cancelled or deleted.
-   */
-  private async write(tx: QueryRunner, scanId: number, rows: PointRow[]): Promise<boolean> {
-    // What an earlier attempt stored of these points; after the write they hold exactly `rows`.
-    const [before] = await tx.query(
-      `SELECT COALESCE(SUM(status = 'ok'), 0) AS ok, COALESCE(SUM(status <> 'ok'), 0) AS bad
-         FROM scan_points WHERE scan_id = ? AND ${pointsCondition(rows.map((r) => r.pointIndex))}`,
+  /** What is stored of these points already: true for an ok row, false for a failure record. */
+  private async storedStatuses(tx: QueryRunner, scanId: number, indices: number[]): Promise<Map<number, boolean>> {
+    const rows: { point_index: number; ok: number }[] = await tx.query(
+      `SELECT point_index, status = 'ok' AS ok FROM scan_points WHERE scan_id = ? AND ${pointsCondition(indices)}`,
       [scanId],
     );
-    await tx.query(this.upsert(rows));
-    // The scan's row is locked last and briefly, so chunks insert side by side; a scan deleted
-    // meanwhile is found here and the insert rolled back.
+    return new Map(rows.map((r) => [Number(r.point_index), Number(r.ok) === 1]));
+  }
+
+  /**
+   * Moves the scan's counters by `change` (finishing the scan with its last point), locking its
+   * row last and briefly so that chunks insert side by side; false when the scan was cancelled or
+   * deleted meanwhile, which rolls the chunk back.
+   */
+  private async count(tx: QueryRunner, scanId: number, change: { ok: number; failed: number }): Promise<boolean> {
     if (!(await scanLifecycle.lockForStore(tx, scanId))) return false;
-    const ok = rows.filter((r) => r.status === 'ok').length;
-    await scanLifecycle.store(tx, scanId, { ok: ok - Number(before.ok), failed: rows.length - ok - Number(before.bad) });
+    await scanLifecycle.store(tx, scanId, change);
     return true;
+  }
+
+  /** Upserts `rows` (failure records of points not stored yet) and counts them. */
+  private async write(tx: QueryRunner, scanId: number, rows: PointRow[]): Promise<boolean> {
+    await tx.query(this.upsert(rows));
+    const ok = rows.filter((r) => r.status === 'ok').length;
+    return this.count(tx, scanId, { ok, failed: rows.length - ok });
   }
 
   /**
