@@ -168,21 +168,23 @@ export async function benchMillion(load, { apiPid, workerPids, databasePid, webU
     report += `    ${label.padEnd(29)}${r.status} in ${ms(r.ms)}, ${mb(r.bytes)} (${r.encoding})\n`;
   }
 
-  const pages = Math.ceil(scan.totalPoints / 100);
-  report += '  points pages of 100 (median of 3): first / middle / last\n';
+  report += '  points pages of 100 (median of 3): first / middle / last of the matching points\n';
   for (const [label, query] of [
     ['sort by p', 'sort=input.p'],
     ['sort by n_s', 'sort=ns'],
     ['sort by r, descending', 'sort=r&order=desc'],
+    ['sort by φ_end (no index)', 'sort=phiEnd'],
     ['filter N_* ≥ 60, sort by n_s', 'sort=ns&input.nStar_min=60'],
     ['filter n_s 0.96–0.97, sort by p', 'sort=input.p&ns_min=0.96&ns_max=0.97'],
   ]) {
+    const { total } = await (await fetch(`${base}/points?${query}&pageSize=1`, { headers: load.headers })).json();
+    const pages = Math.max(1, Math.ceil(total / 100));
     const times = [];
     for (const page of [1, Math.ceil(pages / 2), pages]) {
       const r = await median3(() => wireGet(`${base}/points?${query}&pageSize=100&page=${page}`, cookie));
       times.push(r.status === 200 ? ms(r.ms) : `${r.status}`);
     }
-    report += `    ${label.padEnd(33)}${times.join(' / ')}\n`;
+    report += `    ${label.padEnd(33)}${times.join(' / ')} (${total.toLocaleString('en-US')} points)\n`;
   }
 
   const plane = await median3(() => wireGet(`${base}/plane`, cookie));
