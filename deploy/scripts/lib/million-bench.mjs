@@ -40,7 +40,7 @@ function samplePeaks(processes) {
 }
 
 /** GET with the encodings a browser offers; times the whole answer and counts the bytes on the wire. */
-function wireGet(url, cookie, encoding = 'br, gzip') {
+export function wireGet(url, cookie, encoding = 'br, gzip') {
   return new Promise((resolve, reject) => {
     const start = performance.now();
     const req = http.get(url, { headers: { cookie, 'accept-encoding': encoding } }, (res) => {
@@ -54,7 +54,7 @@ function wireGet(url, cookie, encoding = 'br, gzip') {
 }
 
 /** The median of three runs of `run`. */
-async function median3(run) {
+export async function median3(run) {
   const runs = [];
   for (let i = 0; i < 3; i++) runs.push(await run());
   return runs.sort((a, b) => a.ms - b.ms)[1];
@@ -97,7 +97,7 @@ async function watchLive(webUrl, cookie, scanId, done) {
 }
 
 /** Loads the finished scan's page in a fresh chromium tab: time until its heatmaps are drawn, and the JS heap then. */
-async function drawPage(webUrl, cookie, scanId) {
+export async function drawPage(webUrl, cookie, scanId) {
   const { openChromium } = await import('./chromium.mjs');
   const browser = await openChromium(webUrl, cookie);
   try {
