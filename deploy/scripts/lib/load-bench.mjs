@@ -213,7 +213,21 @@ export async function benchHeatmap(load, { webUrl }) {
   const db = await mysql.createConnection(load.databaseUrl);
   try {
     log('heatmap: storing 10^6 points');
-    // The cancel may have let a worker store a few real points first; those stay.
+    // A worker may still be storing the chunk it had when the cancel came (its points stay): a
+    // deadlock with it is tried again.
+    for (let attempt = 1; ; attempt++) {
+      try {
+        await storeSynthetic();
+        break;
+      } catch (err) {
+        if (err.code !== 'ER_LOCK_DEADLOCK' || attempt === 5) throw err;
+        await sleep(1000);
+      }
+    }
+  } finally {
+    await db.end();
+  }
+  async function storeSynthetic() {
     await db.query(
       `INSERT IGNORE INTO scan_points (scan_id, point_index, inputs, status, ns, r, alpha_s, n_star, computed_at)
        SELECT ?, seq, JSON_OBJECT('p', pp, 'nStar', nn), IF(failed, 'no_end', 'ok'),
@@ -222,8 +236,6 @@ export async function benchHeatmap(load, { webUrl }) {
          FROM (SELECT seq, ? + (seq DIV ?) * ? AS pp, ? + MOD(seq, ?) * ? AS nn, MOD(seq, 97) = 0 AS failed FROM seq_0_to_999999) AS points`,
       [scan.id, p.min, n.count, (p.max - p.min) / (p.count - 1), n.min, n.count, (n.max - n.min) / (n.count - 1)],
     );
-  } finally {
-    await db.end();
   }
   const cookie = load.headers.cookie;
   const url = (query) => `${load.base}/scans/${scan.id}/grid?x=nStar&y=p&${query}`;
