@@ -1,5 +1,5 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, GRID_MAX_CELLS, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
 import { useCallback, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
@@ -8,7 +8,7 @@ import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
-import { PANEL_CELLS, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
+import { panelCells, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellCounts, cellPointIndex, failedByReason, failureGroups, insideLimitsMask, markedCells, sameCells, type SliceWindow } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
@@ -104,7 +104,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
 
   const live = isLive(scan);
   // All three panels ask for the same cells, so that n_s and r combine on hover and in the outline.
-  const base = { x, y, at, window, maxCells: wide ? GRID_MAX_CELLS : PANEL_CELLS };
+  const base = { x, y, at, window, maxCells: panelCells({ wide, live }) };
   const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
   const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
