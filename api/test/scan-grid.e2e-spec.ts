@@ -221,6 +221,31 @@ describe('heatmap slices of finished scans: kept until a retry reopens the scan'
     return scanGridSliceSchema.parse(res.body);
   };
 
+  it('answers the outputs asked at once (read together) each as asked alone', async () => {
+    const outputs = ['ns', 'r', 'alphaS', 'status', 'nTotal'] as const;
+    const answers = await Promise.all(outputs.map((output) => owner.get(`/api/scans/${scanId}/grid?x=nStar&y=f&output=${output}&maxCells=2`)));
+    const [ns, r, alphaS, status, nTotal] = answers.map((res) => {
+      expect(res.status).toBe(200);
+      return scanGridSliceSchema.parse(res.body);
+    });
+    // N_* in blocks of 2 (50–55, 60), f one value per cell; the OK points of each cell, row by row.
+    const okPoints = [[0, 1], [2], [3], [5]];
+    for (const slice of [ns, r, alphaS, status, nTotal]) {
+      expect(slice.ok).toEqual([2, 1, 1, 1]);
+      expect(slice.failed).toEqual({ no_end: [0, 0, 1, 0] });
+    }
+    expect(ns.output).toBe('ns');
+    expect(ns.mean).toEqual(okPoints.map((points) => roundForSlice(points.reduce((sum, i) => sum + 0.95 + i / 100, 0) / points.length)));
+    expect(ns.min).toEqual(okPoints.map((points) => roundForSlice(0.95 + points[0] / 100)));
+    expect(ns.max).toEqual(okPoints.map((points) => roundForSlice(0.95 + points.at(-1)! / 100)));
+    const all = (value: number | null) => [value, value, value, value];
+    expect(r).toMatchObject({ output: 'r', mean: all(0.01), min: all(0.01), max: all(0.01) });
+    expect(alphaS).toMatchObject({ output: 'alphaS', mean: all(null), min: all(null), max: all(null) });
+    expect(nTotal).toMatchObject({ output: 'nTotal', mean: all(null) });
+    expect(status.output).toBe('status');
+    expect(status.mean).toBeUndefined();
+  });
+
   it('reads a finished scan once, and afresh after a retry reopens it and after it finishes again', async () => {
     const first = await slice();
     expect(first.failed).toEqual({ no_end: [0, 0, 0, 0, 1, 0] });

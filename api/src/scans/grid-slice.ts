@@ -3,21 +3,21 @@ import type { DataSource } from 'typeorm';
 import { FAILURE_CODES, roundForSlice, ScanGrid, type ScanAxis, type ScanGridQuery, type ScanGridSlice } from '@sixtyfold/shared';
 import { openQueryStream } from '../exports/query-stream';
 
+type SliceOutput = ScanGridQuery['output'];
 /** The scan_points column of each output a slice can average (API name → column). */
-export type SliceColumns = Record<Exclude<ScanGridQuery['output'], 'status'>, string>;
+export type SliceColumns = Record<Exclude<SliceOutput, 'status'>, string>;
 
 /**
- * What one slice reads and how it answers: the axes' windows and blocks (the answer's `x` and `y`),
- * where the other axes are cut (`at`), and the one aggregating SELECT that gives each cell's figures.
+ * Where a slice's cells lie, for every output alike: the axes' windows and blocks (the answer's `x`
+ * and `y`), where the other axes are cut (`at`), and the SQL of each point's group (its cell and
+ * status) and of the points the slice takes.
  */
 export interface SlicePlan {
   x: ScanGridSlice['x'];
   y: ScanGridSlice['y'];
   at: ScanGridSlice['at'];
-  output: ScanGridQuery['output'];
-  /** Whether the SELECT reads an output column (every output but status). */
-  valued: boolean;
-  sql: string;
+  group: string;
+  where: string;
   parameters: unknown[];
 }
 
@@ -27,8 +27,8 @@ const STATUS_KEYS = 16;
 /** Bytes of memory MariaDB may give one slice's grouping before it moves it to disk. */
 const GROUPING_MEMORY = 64 * 2 ** 20;
 
-/** Validates the query against the scan's axes (400 naming each bad field) and plans its one read. */
-export function planSlice(axes: ScanAxis[], q: ScanGridQuery, columns: SliceColumns): SlicePlan {
+/** Validates the query against the scan's axes (400 naming each bad field) and plans its cells. */
+export function planSlice(axes: ScanAxis[], q: ScanGridQuery): SlicePlan {
   const grid = new ScanGrid(axes);
   const names = axes.map((a) => a.parameter);
   const xi = names.indexOf(q.x);
@@ -90,69 +90,72 @@ export function planSlice(axes: ScanAxis[], q: ScanGridQuery, columns: SliceColu
     const offset = axis.from ? `(${digit(a)} - ${axis.from})` : digit(a);
     return axis.block > 1 ? `(${offset} DIV ${axis.block})` : offset;
   };
-  const column = q.output === 'status' ? null : columns[q.output];
-  const figures = column ? `, COUNT(${column}), SUM(${column}), MIN(${column}), MAX(${column})` : '';
-  // MariaDB adds the points up per cell and status, so only the blocks cross the wire, not a million
-  // rows. The group is one integer, cell · STATUS_KEYS + the status's place in POINT_STATUSES: a
-  // narrow key keeps the temporary table small, and in memory up to GROUPING_MEMORY (a 512 × 512
-  // slice with two statuses fits; past it MariaDB goes on on disk, slower, with the same answer).
-  const sql = `SET STATEMENT tmp_memory_table_size = ${GROUPING_MEMORY}, max_heap_table_size = ${GROUPING_MEMORY} FOR
-    SELECT (${cellOf(yi, y)} * ${x.values.length} + ${cellOf(xi, x)}) * ${STATUS_KEYS} + FIELD(status, ${POINT_STATUSES.map((s) => `'${s}'`).join(', ')}) AS k,
-      COUNT(*)${figures}
-    FROM scan_points WHERE scan_id = ? AND point_index BETWEEN ? AND ?${conditions.map((c) => ` AND ${c}`).join('')}
-    GROUP BY k ORDER BY NULL`;
-  return { x, y, at, output: q.output, valued: column !== null, sql, parameters: [first, last] };
+  // The group is one integer, cell · STATUS_KEYS + the status's place in POINT_STATUSES: a narrow
+  // key keeps MariaDB's temporary table small.
+  const group = `(${cellOf(yi, y)} * ${x.values.length} + ${cellOf(xi, x)}) * ${STATUS_KEYS} + FIELD(status, ${POINT_STATUSES.map((s) => `'${s}'`).join(', ')})`;
+  const where = `scan_id = ? AND point_index BETWEEN ? AND ?${conditions.map((c) => ` AND ${c}`).join('')}`;
+  return { x, y, at, group, where, parameters: [first, last] };
 }
 
 function badRequest(fieldErrors: Record<string, string[]>) {
   return new BadRequestException({ message: Object.entries(fieldErrors).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors });
 }
 
-/** One row of the aggregating SELECT: a cell's points of one status and, for an output, their figures. */
-type CellRow = [key: number | string, points: number | string, valued?: number | string, sum?: number | null, min?: number | null, max?: number | null];
+/**
+ * Reads a slice of each of `outputs` in one pass over the points: MariaDB adds them up per cell and
+ * status, so only the blocks cross the wire, not a million rows, and each further output costs
+ * its four aggregates, not another read. The grouping stays in memory up to GROUPING_MEMORY (a
+ * 512 × 512 slice with two statuses fits; past it MariaDB goes on on disk, slower, same answer).
+ */
+export async function readSlices(db: DataSource, scanId: number, plan: SlicePlan, outputs: SliceOutput[], columns: SliceColumns): Promise<Map<SliceOutput, ScanGridSlice>> {
+  const valued = outputs.filter((o): o is Exclude<SliceOutput, 'status'> => o !== 'status');
+  const figures = valued.map((o) => `, COUNT(${columns[o]}), SUM(${columns[o]}), MIN(${columns[o]}), MAX(${columns[o]})`).join('');
+  const sql = `SET STATEMENT tmp_memory_table_size = ${GROUPING_MEMORY}, max_heap_table_size = ${GROUPING_MEMORY} FOR
+    SELECT ${plan.group} AS k, COUNT(*)${figures} FROM scan_points WHERE ${plan.where} GROUP BY k ORDER BY NULL`;
 
-/** Runs the plan's SELECT for one scan and lays its rows out as the answer's columns. */
-export async function readSlice(db: DataSource, scanId: number, plan: SlicePlan): Promise<ScanGridSlice> {
   const cells = plan.x.values.length * plan.y.values.length;
   const ok = new Array<number>(cells).fill(0);
   const failed = new Map<string, number[]>();
-  const sum = new Float64Array(cells);
-  const valued = new Float64Array(cells);
-  const min: (number | null)[] = new Array(cells).fill(null);
-  const max: (number | null)[] = new Array(cells).fill(null);
-  const source = await openQueryStream(db, plan.sql, [scanId, ...plan.parameters], { rowsAsArray: true });
+  const figuresOf = valued.map(() => ({ count: new Float64Array(cells), sum: new Float64Array(cells), min: new Float64Array(cells), max: new Float64Array(cells) }));
+  const source = await openQueryStream(db, sql, [scanId, ...plan.parameters], { rowsAsArray: true });
   let completed = false;
   try {
-    for await (const [key, points, count, total, low, high] of source.readable as AsyncIterable<CellRow>) {
-      // Integers may come as strings (the driver's big-number setting); the doubles come as numbers.
-      const c = Math.floor(Number(key) / STATUS_KEYS);
-      const status = POINT_STATUSES[(Number(key) % STATUS_KEYS) - 1] ?? 'unknown';
+    // Integers may come as strings (the driver's big-number setting); the doubles come as numbers.
+    for await (const row of source.readable as AsyncIterable<(number | string | null)[]>) {
+      const key = Number(row[0]);
+      const c = Math.floor(key / STATUS_KEYS);
+      const status = POINT_STATUSES[(key % STATUS_KEYS) - 1] ?? 'unknown';
       if (status !== 'ok') {
         let counts = failed.get(status);
         if (!counts) failed.set(status, (counts = new Array<number>(cells).fill(0)));
-        counts[c] += Number(points);
+        counts[c] += Number(row[1]);
         continue;
       }
-      ok[c] += Number(points);
+      ok[c] += Number(row[1]);
       // An OK point has its outputs stored with its status; one without (never expected) is not averaged.
-      if (!count) continue;
-      valued[c] = Number(count);
-      sum[c] = Number(total);
-      min[c] = Number(low);
-      max[c] = Number(high);
+      figuresOf.forEach((f, i) => {
+        f.count[c] = Number(row[2 + 4 * i]);
+        f.sum[c] = Number(row[3 + 4 * i]);
+        f.min[c] = Number(row[4 + 4 * i]);
+        f.max[c] = Number(row[5 + 4 * i]);
+      });
     }
     completed = true;
   } finally {
     await source.close(completed);
   }
 
-  const slice: ScanGridSlice = { x: plan.x, y: plan.y, output: plan.output, ok, failed: Object.fromEntries(failed), at: plan.at };
-  if (plan.valued) {
-    slice.mean = Array.from({ length: cells }, (_, c) => (valued[c] ? roundForSlice(sum[c] / valued[c]) : null));
-    if (plan.x.block * plan.y.block > 1) {
-      slice.min = min.map((v) => (v === null ? null : roundForSlice(v)));
-      slice.max = max.map((v) => (v === null ? null : roundForSlice(v)));
-    }
-  }
-  return slice;
+  const counts = { x: plan.x, y: plan.y, ok, failed: Object.fromEntries(failed), at: plan.at };
+  const blocks = plan.x.block * plan.y.block > 1;
+  // In the order asked.
+  return new Map(outputs.map((output): [SliceOutput, ScanGridSlice] => {
+    if (output === 'status') return [output, { ...counts, output }];
+    const f = figuresOf[valued.indexOf(output)];
+    const column = (values: Float64Array) => Array.from(values, (v, c) => (f.count[c] ? roundForSlice(v) : null));
+    return [output, {
+      ...counts, output,
+      mean: Array.from(f.sum, (sum, c) => (f.count[c] ? roundForSlice(sum / f.count[c]) : null)),
+      ...(blocks && { min: column(f.min), max: column(f.max) }),
+    }];
+  }));
 }

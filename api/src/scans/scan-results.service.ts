@@ -13,7 +13,7 @@ import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
-import { planSlice, readSlice } from './grid-slice';
+import { planSlice, readSlices } from './grid-slice';
 import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
 
 /** API output name → scan_points column. */
@@ -28,9 +28,12 @@ type RawPoint = Record<string, unknown>;
 const FINISHED = new Set<ScanStatus>(['completed', 'failed', 'cancelled']);
 /**
  * Cells of finished scans' slices kept in this process: about 90 bytes each as answer objects, so
- * at most about 35 MB; three views of the page's three 200 × 200 panels, or one full-width 512 × 512.
+ * at most about 35 MB; two views of the page's 200 × 200 panels (n_s, r, α_s and the counts), or
+ * one full-width 512 × 512.
  */
 const KEPT_SLICE_CELLS = 400_000;
+/** Outputs read with any other of a finished scan, at the same cells: the page's first panels (n_s, r, α_s; the counts come with them). */
+const READ_TOGETHER: ScanGridQuery['output'][] = ['ns', 'r', 'alphaS', 'status'];
 
 /**
  * An axis input as a number: its own indexed column `axis_k` for the first AXIS_COLUMNS varied
@@ -74,6 +77,8 @@ export class ScanResultsService {
   ) {}
 
   private readonly slices = new GridSliceCache(KEPT_SLICE_CELLS);
+  /** Reads of finished scans' slices under way, by their cells: a request for an output one of them reads waits for it. */
+  private readonly reading = new Map<string, { outputs: ScanGridQuery['output'][]; slices: Promise<Map<ScanGridQuery['output'], ScanGridSlice>> }>();
 
   async readable(user: SessionUser, id: number): Promise<Scan> {
     const scan = await this.db.getRepository(Scan).findOneBy({ id });
@@ -251,20 +256,34 @@ export class ScanResultsService {
    * Two axes as x and y, every other axis at the chosen index, as at most `maxCells` cells along
    * each axis: past that, blocks of points per cell (see scanGridSliceSchema). The window's points
    * lie between its first and last point index, so MariaDB reads them in one range of the primary
-   * key and adds them up per cell (`planSlice`); a finished scan's slices are kept (`GridSliceCache`).
+   * key and adds them up per cell (`planSlice`, `readSlices`). A finished scan's slices are kept
+   * (`GridSliceCache`), and read together with those of READ_TOGETHER at the same cells: the page
+   * asks for n_s, r and a third output at once, and one read then answers all three.
    */
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
     // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
-    const plan = planSlice(scan.spec.axes, q, COLUMN);
+    const plan = planSlice(scan.spec.axes, q);
     // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
-    if (!FINISHED.has(scan.status)) return readSlice(this.db, scan.id, plan);
-    const key = JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, q]);
-    const kept = this.slices.get(key);
+    if (!FINISHED.has(scan.status)) return (await readSlices(this.db, scan.id, plan, [q.output], COLUMN)).get(q.output)!;
+    const keyOf = (output: ScanGridQuery['output']) => JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, { ...q, output }]);
+    const kept = this.slices.get(keyOf(q.output));
     if (kept) return kept;
-    const slice = await readSlice(this.db, scan.id, plan);
-    this.slices.set(key, slice);
-    return slice;
+    const cells = keyOf('status');
+    const pending = this.reading.get(cells);
+    if (pending?.outputs.includes(q.output)) return (await pending.slices).get(q.output)!;
+    // Companions only while all of them fit in the cache several times over (a full-width slice comes alone).
+    const together = plan.x.values.length * plan.y.values.length * READ_TOGETHER.length <= KEPT_SLICE_CELLS / 2;
+    // The asked output last, so that it is the most recent in the cache.
+    const outputs = [...(together ? READ_TOGETHER.filter((output) => output !== q.output) : []), q.output];
+    const slices = readSlices(this.db, scan.id, plan, outputs, COLUMN);
+    this.reading.set(cells, { outputs, slices });
+    try {
+      for (const [output, slice] of await slices) this.slices.set(keyOf(output), slice);
+    } finally {
+      if (this.reading.get(cells)?.slices === slices) this.reading.delete(cells);
+    }
+    return (await slices).get(q.output)!;
   }
 }
