@@ -32,7 +32,11 @@ const FINISHED = new Set<ScanStatus>(['completed', 'failed', 'cancelled']);
  * one full-width 512 × 512.
  */
 const KEPT_SLICE_CELLS = 400_000;
-/** Outputs read with any other of a finished scan, at the same cells: the page's first panels (n_s, r, α_s; the counts come with them). */
+/**
+ * Outputs read with any other at the same cells: the page's first panels (n_s, r, α_s; the counts
+ * come with them). Each adds its aggregates to the one read (about +25% each on 10^6 points) rather
+ * than a read of its own; a live page's panels, asked at the same moments, keep sharing reads.
+ */
 const READ_TOGETHER: ScanGridQuery['output'][] = ['ns', 'r', 'alphaS', 'status'];
 
 /**
@@ -77,7 +81,7 @@ export class ScanResultsService {
   ) {}
 
   private readonly slices = new GridSliceCache(KEPT_SLICE_CELLS);
-  /** Reads of finished scans' slices under way, by their cells: a request for an output one of them reads waits for it. */
+  /** Slice reads under way, by scan and cells: a request for an output one of them reads waits for it. */
   private readonly reading = new Map<string, { outputs: ScanGridQuery['output'][]; slices: Promise<Map<ScanGridQuery['output'], ScanGridSlice>> }>();
 
   async readable(user: SessionUser, id: number): Promise<Scan> {
@@ -256,9 +260,10 @@ export class ScanResultsService {
    * Two axes as x and y, every other axis at the chosen index, as at most `maxCells` cells along
    * each axis: past that, blocks of points per cell (see scanGridSliceSchema). The window's points
    * lie between its first and last point index, so MariaDB reads them in one range of the primary
-   * key and adds them up per cell (`planSlice`, `readSlices`). A finished scan's slices are kept
-   * (`GridSliceCache`), and read together with those of READ_TOGETHER at the same cells: the page
-   * asks for n_s, r and a third output at once, and one read then answers all three.
+   * key and adds them up per cell (`planSlice`, `readSlices`). The slices of READ_TOGETHER at the
+   * same cells come from the same read: the page asks for n_s, r and a third output at once, and a
+   * request for an output a read under way covers waits for it. A finished scan's slices are kept
+   * (`GridSliceCache`).
    */
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
@@ -266,9 +271,9 @@ export class ScanResultsService {
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
     const plan = planSlice(scan.spec.axes, q);
     // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
-    if (!FINISHED.has(scan.status)) return (await readSlices(this.db, scan.id, plan, [q.output], COLUMN)).get(q.output)!;
+    const finished = FINISHED.has(scan.status);
     const keyOf = (output: ScanGridQuery['output']) => JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, { ...q, output }]);
-    const kept = this.slices.get(keyOf(q.output));
+    const kept = finished ? this.slices.get(keyOf(q.output)) : undefined;
     if (kept) return kept;
     const cells = keyOf('status');
     const pending = this.reading.get(cells);
@@ -280,10 +285,11 @@ export class ScanResultsService {
     const slices = readSlices(this.db, scan.id, plan, outputs, COLUMN);
     this.reading.set(cells, { outputs, slices });
     try {
-      for (const [output, slice] of await slices) this.slices.set(keyOf(output), slice);
+      const read = await slices;
+      if (finished) for (const [output, slice] of read) this.slices.set(keyOf(output), slice);
+      return read.get(q.output)!;
     } finally {
       if (this.reading.get(cells)?.slices === slices) this.reading.delete(cells);
     }
-    return (await slices).get(q.output)!;
   }
 }

@@ -1,9 +1,10 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
 import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
-import { useCallback, useMemo } from 'react';
+import { useCallback, useEffect, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
+import { preloadPlot } from '@/components/plots/plot';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { formatNumber } from '@/lib/format-number';
@@ -75,6 +76,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const grid = useMemo(() => new ScanGrid(spec.axes ?? []), [spec]);
   const names = grid.axes.map((axis) => axis.parameter);
   const [params, update] = useViewParams();
+  // Plotly loads while the slices are read, not after them.
+  useEffect(preloadPlot, []);
 
   const xParam = params.get('x');
   const yParam = params.get('y');
