@@ -250,7 +250,7 @@ export async function benchHeatmap(load, { webUrl }) {
   // The page first (x = p, y = N_*, as it opens), so its first view finds nothing cached.
   for (const view of ['first', 'repeat']) {
     try {
-      const page = await drawPage(webUrl, cookie, scan.id);
+      const page = await drawPage(webUrl, cookie, scan.id, { panels: 3 });
       report += `  scan page in chromium (${view} view) ${page.panels} heatmaps drawn in ${page.ms.toFixed(0)} ms, JS heap ${(page.heap / 2 ** 20).toFixed(0)} MiB\n`;
     } catch (err) {
       report += `  scan page in chromium (${view} view) not drawn: ${err.message.split('\n')[0]}\n`;
@@ -269,4 +269,58 @@ export async function benchHeatmap(load, { webUrl }) {
   const answers = await Promise.all(panels.map((u) => wireGet(u, cookie)));
   report += `  the page's three panels at once   ${answers.map((a) => a.status).join('/')} in ${(performance.now() - started).toFixed(0)} ms, ${mb(answers.reduce((b, a) => b + a.bytes, 0))}\n`;
   process.stdout.write(report);
+  await benchWatching(load, webUrl);
+}
+
+/**
+ * What watching costs the compute: the workers compute the million scan for 20 s with nobody
+ * watching, then 20 s with its page open in chromium (on the same cores, as when the browser runs
+ * on the server); points stored in each, and the page's long tasks and slice requests meanwhile.
+ */
+async function benchWatching(load, webUrl) {
+  const { MILLION_SCAN } = await import('./million-bench.mjs');
+  const { openChromium } = await import('./chromium.mjs');
+  const res = await fetch(`${load.base}/scans`, { method: 'POST', headers: load.headers, body: JSON.stringify({ ...MILLION_SCAN, name: 'benchmark: 10^6 points, watched' }) });
+  const scan = await res.json();
+  if (res.status !== 201) throw new Error(`the scan was refused (${res.status}): ${JSON.stringify(scan)}`);
+  const stored = async () => {
+    const now = await (await fetch(`${load.base}/scans/${scan.id}`, { headers: load.headers })).json();
+    return { status: now.status, points: now.donePoints + now.failedPoints };
+  };
+  const SECONDS = 20;
+  try {
+    for (const deadline = Date.now() + 60_000; (await stored()).points === 0; await sleep(250)) {
+      if (Date.now() > deadline) throw new Error('the watched scan did not start in 60 s');
+    }
+    log(`heatmap: ${SECONDS} s of compute unwatched, then ${SECONDS} s with the page open`);
+    const before = await stored();
+    await sleep(SECONDS * 1000);
+    const unwatched = (await stored()).points - before.points;
+    const browser = await openChromium(webUrl, load.headers.cookie);
+    try {
+      const { page } = browser;
+      await page.addInitScript(() => {
+        globalThis.__longTasks = [];
+        new PerformanceObserver((list) => { for (const e of list.getEntries()) globalThis.__longTasks.push(e.duration); }).observe({ type: 'longtask', buffered: true });
+      });
+      let slices = 0;
+      page.on('request', (request) => { if (request.url().includes('/grid?')) slices++; });
+      const start = await stored();
+      await page.goto(`${webUrl}/scans/${scan.id}`);
+      await sleep(SECONDS * 1000);
+      const end = await stored();
+      const tasks = await page.evaluate(() => globalThis.__longTasks);
+      const watched = end.points - start.points;
+      process.stdout.write(
+        `\nheatmap: watching a live 10^6-point scan (${load.workers} worker(s), chromium on the same cores), ${SECONDS} s each\n` +
+          `  unwatched                       ${(unwatched / SECONDS).toFixed(0)} points/s\n` +
+          `  page open                       ${(watched / SECONDS).toFixed(0)} points/s (${((watched / unwatched) * 100).toFixed(0)}% of unwatched)${end.status === 'running' ? '' : `, scan ${end.status}`}\n` +
+          `  the page meanwhile              ${slices} slice requests, ${tasks.length} long tasks (> 50 ms), longest ${Math.round(Math.max(0, ...tasks))} ms, ${Math.round(tasks.reduce((a, b) => a + b, 0))} ms in all\n`,
+      );
+    } finally {
+      await browser.close();
+    }
+  } finally {
+    await cancel(load, scan.id);
+  }
 }

@@ -96,8 +96,11 @@ async function watchLive(webUrl, cookie, scanId, done) {
   }
 }
 
-/** Loads the finished scan's page in a fresh chromium tab: time until its heatmaps are drawn, and the JS heap then. */
-export async function drawPage(webUrl, cookie, scanId) {
+/**
+ * Loads the finished scan's page in a fresh chromium tab: time until its heatmaps are drawn (at
+ * least `panels` of them), and the JS heap then.
+ */
+export async function drawPage(webUrl, cookie, scanId, { panels = 1 } = {}) {
   const { openChromium } = await import('./chromium.mjs');
   const browser = await openChromium(webUrl, cookie);
   try {
@@ -105,7 +108,7 @@ export async function drawPage(webUrl, cookie, scanId) {
     const start = performance.now();
     await page.goto(`${webUrl}/scans/${scanId}`);
     const heatmaps = page.getByRole('img', { name: /^Heatmap of/ });
-    await heatmaps.first().waitFor({ timeout: 120_000 });
+    await heatmaps.nth(panels - 1).waitFor({ timeout: 120_000 });
     const count = await heatmaps.count();
     for (let i = 0; i < count; i++) await heatmaps.nth(i).locator('.main-svg').first().waitFor({ timeout: 120_000 });
     const drawn = performance.now() - start;
