@@ -119,7 +119,7 @@ describe('a scan through queue and workers', () => {
     expect(heat.body.x).toEqual({ parameter: 'nStar', length: 3, from: 0, to: 2, block: 1, values: [50, 55, 60] });
     expect(heat.body.y).toEqual({ parameter: 'f', length: 3, from: 0, to: 2, block: 1, values: [5, 7, 10] });
     // Cell (ix, iy), row-major at iy*3 + ix, is point (f index iy, nStar index ix) = iy*3 + ix; to 7 significant digits.
-    expect(heat.body.mean[2 * 3 + 1]).toBe(roundForSlice(rows[7].r));
+    expect(heat.body.mean[2 * 3 + 1]).toBe(roundForSlice(rows[7].r!));
     expect((await agent.get(`/api/scans/${id}/grid?x=nStar&y=g`)).body.fieldErrors.y[0]).toMatch(/no axis g; it has f, nStar/);
   });
 

@@ -23,6 +23,7 @@ export interface SlicePlan {
 
 /** What a stored point's status can be. FIELD() numbers them from 1 (0 would be a status not listed). */
 const POINT_STATUSES = ['ok', ...FAILURE_CODES] as const;
+/** Room for every status in a group key (POINT_STATUSES has 14). */
 const STATUS_KEYS = 16;
 /** Bytes of memory MariaDB may give one slice's grouping before it moves it to disk. */
 const GROUPING_MEMORY = 64 * 2 ** 20;
@@ -124,6 +125,7 @@ export async function readSlices(db: DataSource, scanId: number, plan: SlicePlan
     for await (const row of source.readable as AsyncIterable<(number | string | null)[]>) {
       const key = Number(row[0]);
       const c = Math.floor(key / STATUS_KEYS);
+      // A status not listed (FIELD gives 0) is counted as 'unknown' rather than lost.
       const status = POINT_STATUSES[(key % STATUS_KEYS) - 1] ?? 'unknown';
       if (status !== 'ok') {
         let counts = failed.get(status);
