@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
-import { ScanGrid, scanGridSliceSchema, type ScanGridSlice } from '@sixtyfold/shared';
+import { roundForSlice, ScanGrid, scanGridSliceSchema, type ScanGridSlice } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
@@ -62,12 +62,13 @@ function expectCellsToMatch(slice: ScanGridSlice, blocks: Block[][], aggregated:
       const c = cy * nx + cx;
       expect(slice.ok[c]).toBe(block.ok);
       for (const reason of ['no_end', 'insufficient_efolds']) expect(slice.failed[reason]?.[c] ?? 0).toBe(block.failed[reason] ?? 0);
+      // Means, minima and maxima travel to 7 significant digits; counts exactly.
       const mean = block.values.length ? block.values.reduce((s, v) => s + v, 0) / block.values.length : null;
       if (mean === null) expect(slice.mean![c]).toBeNull();
-      else expect(slice.mean![c]).toBeCloseTo(mean, 12);
+      else expect(slice.mean![c]).toBe(roundForSlice(mean));
       if (aggregated) {
-        expect(slice.min![c]).toBe(block.values.length ? Math.min(...block.values) : null);
-        expect(slice.max![c]).toBe(block.values.length ? Math.max(...block.values) : null);
+        expect(slice.min![c]).toBe(block.values.length ? roundForSlice(Math.min(...block.values)) : null);
+        expect(slice.max![c]).toBe(block.values.length ? roundForSlice(Math.max(...block.values)) : null);
       }
     });
   });
@@ -119,7 +120,7 @@ describe('heatmap slices: blocks, zoom windows and failure counts', () => {
     expect(s.max).toBeUndefined();
     // Cell (ix = 1, iy = 3) is the point f = 8, Λ index 1, N_* = 52.
     expect(statusOf(grid.indexOf([3, 1, 1]))).toBe('ok');
-    expect(s.mean![3 * 5 + 1]).toBe(nsOf(grid.indexOf([3, 1, 1])));
+    expect(s.mean![3 * 5 + 1]).toBe(roundForSlice(nsOf(grid.indexOf([3, 1, 1]))));
     expectCellsToMatch(s, expectedBlocks({ from: 0, to: 4, block: 1 }, { from: 0, to: 3, block: 1 }), false);
   });
 
@@ -175,5 +176,100 @@ describe('heatmap slices: blocks, zoom windows and failure counts', () => {
     const tooMany = await member.get(`/api/scans/${scanId}/grid?x=nStar&y=f&maxCells=513`);
     expect(tooMany.status).toBe(400);
     expect(tooMany.body.fieldErrors.maxCells[0]).toMatch(/at most 512/);
+  });
+});
+
+describe('heatmap slices of finished scans: kept until a retry reopens the scan', () => {
+  let t: TestApp;
+  let owner: Agent;
+  let scanId: number;
+  const axes = [
+    { kind: 'list' as const, parameter: 'f', values: [5, 6] },
+    { kind: 'list' as const, parameter: 'nStar', values: [50, 55, 60] },
+  ];
+  const small = new ScanGrid(axes);
+  /** Point 4 failed; every other point has n_s = 0.95 + index / 100. */
+  const FAILED = 4;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    const groupId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
+    const user = await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember });
+    const scan = await t.db.getRepository(Scan).save({
+      groupId, ownerId: user.id, name: 'kept heatmap', method: 'slowroll', status: 'completed', finishedAt: new Date(),
+      spec: storedSpec(groupId, { axes }), note: '', totalPoints: small.size, donePoints: small.size - 1, failedPoints: 1,
+    });
+    scanId = scan.id;
+    await t.db.getRepository(ScanPoint).insert(Array.from({ length: small.size }, (_, index) => {
+      const ok = index !== FAILED;
+      return {
+        scanId, pointIndex: index, inputs: small.point(index), status: ok ? 'ok' : 'no_end', failureReason: ok ? null : 'a failure for the test',
+        ns: ok ? 0.95 + index / 100 : null, r: ok ? 0.01 : null, alphaS: null, As: null, amplitudeScale: null, nTotal: null,
+        nStar: ok ? small.point(index).nStar : null, phiStar: null, phiEnd: null, energyScaleGeV: null, computedAt: new Date(),
+      };
+    }));
+    owner = await t.signIn(DEMO.plateauMember);
+  });
+  afterAll(async () => {
+    if (scanId) await t.db.getRepository(Scan).delete({ id: scanId });
+    await t.close();
+  });
+
+  const slice = async () => {
+    const res = await owner.get(`/api/scans/${scanId}/grid?x=nStar&y=f&output=ns`);
+    expect(res.status).toBe(200);
+    return scanGridSliceSchema.parse(res.body);
+  };
+
+  it('answers the outputs asked at once (read together) each as asked alone', async () => {
+    const outputs = ['ns', 'r', 'alphaS', 'status', 'nTotal'] as const;
+    const answers = await Promise.all(outputs.map((output) => owner.get(`/api/scans/${scanId}/grid?x=nStar&y=f&output=${output}&maxCells=2`)));
+    const [ns, r, alphaS, status, nTotal] = answers.map((res) => {
+      expect(res.status).toBe(200);
+      return scanGridSliceSchema.parse(res.body);
+    });
+    // N_* in blocks of 2 (50–55, 60), f one value per cell; the OK points of each cell, row by row.
+    const okPoints = [[0, 1], [2], [3], [5]];
+    for (const slice of [ns, r, alphaS, status, nTotal]) {
+      expect(slice.ok).toEqual([2, 1, 1, 1]);
+      expect(slice.failed).toEqual({ no_end: [0, 0, 1, 0] });
+    }
+    expect(ns.output).toBe('ns');
+    expect(ns.mean).toEqual(okPoints.map((points) => roundForSlice(points.reduce((sum, i) => sum + 0.95 + i / 100, 0) / points.length)));
+    expect(ns.min).toEqual(okPoints.map((points) => roundForSlice(0.95 + points[0] / 100)));
+    expect(ns.max).toEqual(okPoints.map((points) => roundForSlice(0.95 + points.at(-1)! / 100)));
+    const all = (value: number | null) => [value, value, value, value];
+    expect(r).toMatchObject({ output: 'r', mean: all(0.01), min: all(0.01), max: all(0.01) });
+    expect(alphaS).toMatchObject({ output: 'alphaS', mean: all(null), min: all(null), max: all(null) });
+    expect(nTotal).toMatchObject({ output: 'nTotal', mean: all(null) });
+    expect(status.output).toBe('status');
+    expect(status.mean).toBeUndefined();
+  });
+
+  it('reads a finished scan once, and afresh after a retry reopens it and after it finishes again', async () => {
+    const first = await slice();
+    expect(first.failed).toEqual({ no_end: [0, 0, 0, 0, 1, 0] });
+    expect(first.mean![0]).toBe(0.95);
+
+    // Written behind the API's back (a finished scan's points never change so): the kept slice still answers.
+    await t.db.getRepository(ScanPoint).update({ scanId, pointIndex: 0 }, { ns: 0.9 });
+    expect(await slice()).toEqual(first);
+
+    // A retry deletes the failed point and reopens the scan: its slice is read again.
+    const retried = await owner.post(`/api/scans/${scanId}/retry`).send({});
+    expect(retried.status).toBe(200);
+    expect(retried.body.status).toBe('running');
+    const reopened = await slice();
+    expect(reopened.failed).toEqual({});
+    expect(reopened.mean![0]).toBe(0.9);
+    expect(reopened.mean![FAILED]).toBeNull();
+
+    // Finished again (here by a cancel, which also removes the retry's queued chunk): read afresh, then kept.
+    expect((await owner.post(`/api/scans/${scanId}/cancel`).send({})).status).toBe(200);
+    await t.db.getRepository(ScanPoint).update({ scanId, pointIndex: 1 }, { ns: 0.9 });
+    const finished = await slice();
+    expect(finished.mean!.slice(0, 2)).toEqual([0.9, 0.9]);
+    await t.db.getRepository(ScanPoint).update({ scanId, pointIndex: 1 }, { ns: 0.8 });
+    expect(await slice()).toEqual(finished);
   });
 });

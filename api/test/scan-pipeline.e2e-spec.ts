@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { spawn, type ChildProcess } from 'node:child_process';
-import { chunkSize, pointRequest, RequestEvaluator, ScanGrid, scanChunks, type StoredScanSpec } from '@sixtyfold/shared';
+import { chunkSize, pointRequest, RequestEvaluator, roundForSlice, ScanGrid, scanChunks, type StoredScanSpec } from '@sixtyfold/shared';
 import { readRedisConfig } from '../src/config/redis.config';
 import { Group } from '../src/groups/entities/group.entity';
 import { createRedisClient } from '../src/redis/redis-client';
@@ -118,8 +118,8 @@ describe('a scan through queue and workers', () => {
     expect(heat.status).toBe(200);
     expect(heat.body.x).toEqual({ parameter: 'nStar', length: 3, from: 0, to: 2, block: 1, values: [50, 55, 60] });
     expect(heat.body.y).toEqual({ parameter: 'f', length: 3, from: 0, to: 2, block: 1, values: [5, 7, 10] });
-    // Cell (ix, iy), row-major at iy*3 + ix, is point (f index iy, nStar index ix) = iy*3 + ix.
-    expect(heat.body.mean[2 * 3 + 1]).toBe(rows[7].r);
+    // Cell (ix, iy), row-major at iy*3 + ix, is point (f index iy, nStar index ix) = iy*3 + ix; to 7 significant digits.
+    expect(heat.body.mean[2 * 3 + 1]).toBe(roundForSlice(rows[7].r!));
     expect((await agent.get(`/api/scans/${id}/grid?x=nStar&y=g`)).body.fieldErrors.y[0]).toMatch(/no axis g; it has f, nStar/);
   });
 

@@ -136,7 +136,7 @@ try {
   }
   if (runs('poll')) await benchPoll(load);
   if (runs('exports')) await benchExports(load);
-  if (runs('heatmap')) await benchHeatmap(load);
+  if (runs('heatmap')) await benchHeatmap(load, { webUrl: `http://127.0.0.1:${profile.apiPort}` });
 } catch (err) {
   process.stderr.write(`benchmark failed: ${err.message}\n`);
   exitCode = 1;

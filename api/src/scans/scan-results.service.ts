@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  inputSortedOrder, planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  inputSortedOrder, planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -12,6 +12,8 @@ import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
+import { GridSliceCache } from './grid-slice-cache';
+import { planSlice, readSlices } from './grid-slice';
 import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
 
 /** API output name → scan_points column. */
@@ -21,6 +23,21 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 };
 
 type RawPoint = Record<string, unknown>;
+
+/** Statuses whose points stay as they are until a retry reopens the scan. */
+const FINISHED = new Set<ScanStatus>(['completed', 'failed', 'cancelled']);
+/**
+ * Cells of finished scans' slices kept in this process: about 90 bytes each as answer objects, so
+ * at most about 35 MB; two views of the page's 200 × 200 panels (n_s, r, α_s and the counts), or
+ * one full-width 512 × 512.
+ */
+const KEPT_SLICE_CELLS = 400_000;
+/**
+ * Outputs read with any other at the same cells: the page's first panels (n_s, r, α_s; the counts
+ * come with them). Each adds its aggregates to the one read (about +25% each on 10^6 points) rather
+ * than a read of its own; a live page's panels, asked at the same moments, keep sharing reads.
+ */
+const READ_TOGETHER: ScanGridQuery['output'][] = ['ns', 'r', 'alphaS', 'status'];
 
 /**
  * An axis input as a number: its own indexed column `axis_k` for the first AXIS_COLUMNS varied
@@ -76,6 +93,10 @@ export class ScanResultsService {
     private readonly access: GroupAccessService,
     private readonly exports: ExportsService,
   ) {}
+
+  private readonly slices = new GridSliceCache(KEPT_SLICE_CELLS);
+  /** Slice reads under way, by scan and cells: a request for an output one of them reads waits for it. */
+  private readonly reading = new Map<string, { outputs: ScanGridQuery['output'][]; slices: Promise<Map<ScanGridQuery['output'], ScanGridSlice>> }>();
 
   async readable(user: SessionUser, id: number): Promise<Scan> {
     const scan = await this.db.getRepository(Scan).findOneBy({ id });
@@ -276,116 +297,37 @@ export class ScanResultsService {
   /**
    * Two axes as x and y, every other axis at the chosen index, as at most `maxCells` cells along
    * each axis: past that, blocks of points per cell (see scanGridSliceSchema). The window's points
-   * lie between its first and last point index, so they come in one range read of the primary key
-   * (contiguous rows when x and y are the scan's last two axes; otherwise the axis digits filter
-   * the range), and are aggregated while they stream, so a million points never sit in memory.
+   * lie between its first and last point index, so MariaDB reads them in one range of the primary
+   * key and adds them up per cell (`planSlice`, `readSlices`). The slices of READ_TOGETHER at the
+   * same cells come from the same read: the page asks for n_s, r and a third output at once, and a
+   * request for an output a read under way covers waits for it. A finished scan's slices are kept
+   * (`GridSliceCache`).
    */
   async grid(user: SessionUser, id: number, q: ScanGridQuery): Promise<ScanGridSlice> {
     const scan = await this.readable(user, id);
-    const spec = scan.spec;
     // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
-    if (!spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
-    const grid = new ScanGrid(spec.axes);
-    const names = spec.axes.map((a) => a.parameter);
-    const xi = names.indexOf(q.x);
-    const yi = names.indexOf(q.y);
-    const bad: Record<string, string[]> = {};
-    if (xi < 0) bad.x = [`the scan has no axis ${q.x}; it has ${names.join(', ')}`];
-    if (yi < 0) bad.y = [`the scan has no axis ${q.y}; it has ${names.join(', ')}`];
-    if (xi >= 0 && xi === yi) bad.y = ['x and y must be different axes'];
-    for (const [name, index] of Object.entries(q.at)) {
-      const a = names.indexOf(name);
-      if (a < 0) bad[`at.${name}`] = [`the scan has no axis ${name}`];
-      else if (index >= grid.lengths[a]) bad[`at.${name}`] = [`${name} has ${grid.lengths[a]} values (index 0 to ${grid.lengths[a] - 1})`];
-    }
-    for (const [axis, a] of [['x', xi], ['y', yi]] as const) {
-      for (const end of ['From', 'To'] as const) {
-        const index = q[`${axis}${end}`];
-        if (a >= 0 && index !== undefined && index >= grid.lengths[a]) bad[`${axis}${end}`] = [`${names[a]} has ${grid.lengths[a]} values (index 0 to ${grid.lengths[a] - 1})`];
-      }
-    }
-    if (Object.keys(bad).length) {
-      throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
-    }
-    const cell = names.map((name) => q.at[name] ?? 0);
-    const at: ScanGridSlice['at'] = {};
-    names.forEach((name, a) => {
-      if (a !== xi && a !== yi) at[name] = { index: cell[a], value: grid.values[a][cell[a]] };
-    });
-    const sliceAxis = (a: number, from = 0, to = grid.lengths[a] - 1) => {
-      const block = Math.ceil((to - from + 1) / q.maxCells);
-      const cells = Math.ceil((to - from + 1) / block);
-      return { parameter: names[a], length: grid.lengths[a], from, to, block, values: Array.from({ length: cells }, (_, i) => grid.values[a][from + i * block]) };
-    };
-    const x = sliceAxis(xi, q.xFrom, q.xTo);
-    const y = sliceAxis(yi, q.yFrom, q.yTo);
-    if (x.from > x.to) throw new BadRequestException({ message: `xTo: must not be below xFrom (${x.from})`, fieldErrors: { xTo: [`must not be below xFrom (${x.from})`] } });
-    if (y.from > y.to) throw new BadRequestException({ message: `yTo: must not be below yFrom (${y.from})`, fieldErrors: { yTo: [`must not be below yFrom (${y.from})`] } });
-
-    // Point index = Σ digit[a] · stride[a] (last axis fastest).
-    const stride = grid.lengths.map((_, a) => grid.lengths.slice(a + 1).reduce((n, l) => n * l, 1));
-    const first = grid.indexOf(names.map((_, a) => (a === xi ? x.from : a === yi ? y.from : cell[a])));
-    const last = grid.indexOf(names.map((_, a) => (a === xi ? x.to : a === yi ? y.to : cell[a])));
-    // Inside [first, last] only digits faster than the slower of x and y can stray from the slice.
-    const slower = Math.max(stride[xi], stride[yi]);
-    const digit = (a: number) => `(point_index DIV ${stride[a]}) MOD ${grid.lengths[a]}`;
-    const conditions: string[] = [];
-    names.forEach((_, a) => {
-      if (stride[a] >= slower) return;
-      if (a === xi) {
-        if (x.from > 0 || x.to < x.length - 1) conditions.push(`${digit(a)} BETWEEN ${x.from} AND ${x.to}`);
-      } else if (a === yi) {
-        if (y.from > 0 || y.to < y.length - 1) conditions.push(`${digit(a)} BETWEEN ${y.from} AND ${y.to}`);
-      } else conditions.push(`${digit(a)} = ${cell[a]}`);
-    });
-    const column = q.output === 'status' ? null : COLUMN[q.output];
-    const sql = `SELECT point_index, status${column ? `, ${column} AS value` : ''} FROM scan_points
-      WHERE scan_id = ? AND point_index BETWEEN ? AND ?${conditions.map((c) => ` AND ${c}`).join('')}`;
-
-    const nx = x.values.length;
-    const cells = nx * y.values.length;
-    const sum = new Float64Array(cells);
-    const min = new Float64Array(cells).fill(Infinity);
-    const max = new Float64Array(cells).fill(-Infinity);
-    const ok = new Array<number>(cells).fill(0);
-    const valued = new Uint32Array(cells);
-    const failed = new Map<string, number[]>();
-    // Rows as arrays: a million of them cost no object each.
-    const source = await openQueryStream(this.db, sql, [id, first, last], { rowsAsArray: true });
-    let completed = false;
+    if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
+    const plan = planSlice(scan.spec.axes, q);
+    // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
+    const finished = FINISHED.has(scan.status);
+    const keyOf = (output: ScanGridQuery['output']) => JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, { ...q, output }]);
+    const kept = finished ? this.slices.get(keyOf(q.output)) : undefined;
+    if (kept) return kept;
+    const cells = keyOf('status');
+    const pending = this.reading.get(cells);
+    if (pending?.outputs.includes(q.output)) return (await pending.slices).get(q.output)!;
+    // Companions only while all of them fit in the cache several times over (a full-width slice comes alone).
+    const together = plan.x.values.length * plan.y.values.length * READ_TOGETHER.length <= KEPT_SLICE_CELLS / 2;
+    // The asked output last, so that it is the most recent in the cache.
+    const outputs = [...(together ? READ_TOGETHER.filter((output) => output !== q.output) : []), q.output];
+    const slices = readSlices(this.db, scan.id, plan, outputs, COLUMN);
+    this.reading.set(cells, { outputs, slices });
     try {
-      for await (const [pointIndex, status, value] of source.readable as AsyncIterable<[number, string, (number | null)?]>) {
-        const index = Number(pointIndex);
-        const ix = (Math.floor(index / stride[xi]) % x.length - x.from) / x.block;
-        const iy = (Math.floor(index / stride[yi]) % y.length - y.from) / y.block;
-        const c = Math.floor(iy) * nx + Math.floor(ix);
-        if (status !== 'ok') {
-          let counts = failed.get(status);
-          if (!counts) failed.set(status, (counts = new Array<number>(cells).fill(0)));
-          counts[c]++;
-          continue;
-        }
-        ok[c]++;
-        // An OK point has its outputs stored with its status; one without (never expected) is not averaged.
-        if (value === null || value === undefined) continue;
-        valued[c]++;
-        sum[c] += value;
-        if (value < min[c]) min[c] = value;
-        if (value > max[c]) max[c] = value;
-      }
-      completed = true;
+      const read = await slices;
+      if (finished) for (const [output, slice] of read) this.slices.set(keyOf(output), slice);
+      return read.get(q.output)!;
     } finally {
-      await source.close(completed);
+      if (this.reading.get(cells)?.slices === slices) this.reading.delete(cells);
     }
-
-    const slice: ScanGridSlice = { x, y, output: q.output, ok, failed: Object.fromEntries(failed), at };
-    if (column) {
-      slice.mean = Array.from({ length: cells }, (_, c) => (valued[c] ? sum[c] / valued[c] : null));
-      if (x.block * y.block > 1) {
-        slice.min = Array.from({ length: cells }, (_, c) => (valued[c] ? min[c] : null));
-        slice.max = Array.from({ length: cells }, (_, c) => (valued[c] ? max[c] : null));
-      }
-    }
-    return slice;
   }
 }

@@ -196,39 +196,137 @@ export async function benchExports(load) {
 }
 
 /**
- * Heatmap slices of a stored 1,000 × 1,000 scan (one point in 97 failed): the whole slice in blocks at the
- * API's most cells and at a panel's, the status slice, and a 300 × 300 zoom window at full resolution.
+ * Heatmap slices of a stored 1,000 × 1,000 slow-roll scan (φ^p over p × N_*, the `million` part's
+ * axes), its points written straight into MariaDB with the slow-roll values n_s = 1 − (p+2)/(2N)
+ * − (p+2)(p+1)/(12N²), r = 4p/N, α_s = −(p+2)/(2N²), and every 97th point failed: each slice's
+ * first view (nothing cached) and repeat view, time and bytes on the wire (br, as a browser
+ * asks), the page's three panels asked at once, and the scan page drawn in chromium.
  */
-export async function benchHeatmap(load) {
-  const scan = await submit(load, 'benchmark: 10^6 points, heatmaps');
+export async function benchHeatmap(load, { webUrl }) {
+  const { MILLION_SCAN, drawPage, median3, wireGet } = await import('./million-bench.mjs');
+  const res = await fetch(`${load.base}/scans`, { method: 'POST', headers: load.headers, body: JSON.stringify({ ...MILLION_SCAN, name: 'benchmark: 10^6 points, heatmaps' }) });
+  const scan = await res.json();
+  if (res.status !== 201) throw new Error(`the scan was refused (${res.status}): ${JSON.stringify(scan)}`);
   await cancel(load, scan.id);
+  const [p, n] = MILLION_SCAN.axes;
   const { default: mysql } = await import('mysql2/promise');
   const db = await mysql.createConnection(load.databaseUrl);
   try {
     log('heatmap: storing 10^6 points');
-    await db.query(
-      `INSERT IGNORE INTO scan_points (scan_id, point_index, inputs, status, ns, r, computed_at)
-       SELECT ?, seq, JSON_OBJECT('p', 1 + (seq DIV 1000) * 2 / 999, 'nStar', 50 + MOD(seq, 1000) * 10 / 999),
-              IF(MOD(seq, 97) = 0, 'no_end', 'ok'), IF(MOD(seq, 97) = 0, NULL, 0.96 + seq * 1e-9), IF(MOD(seq, 97) = 0, NULL, 0.01 + seq * 1e-9), NOW(3)
-         FROM seq_0_to_999999`,
-      [scan.id],
-    );
+    // A worker may still be storing the chunk it had when the cancel came (its points stay): a
+    // deadlock with it is tried again.
+    for (let attempt = 1; ; attempt++) {
+      try {
+        await storeSynthetic();
+        break;
+      } catch (err) {
+        if (err.code !== 'ER_LOCK_DEADLOCK' || attempt === 5) throw err;
+        await sleep(1000);
+      }
+    }
   } finally {
     await db.end();
   }
+  async function storeSynthetic() {
+    await db.query(
+      `INSERT IGNORE INTO scan_points (scan_id, point_index, inputs, status, ns, r, alpha_s, n_star, computed_at)
+       SELECT ?, seq, JSON_OBJECT('p', pp, 'nStar', nn), IF(failed, 'no_end', 'ok'),
+              IF(failed, NULL, 1 - (pp + 2) / (2 * nn) - (pp + 2) * (pp + 1) / (12 * nn * nn)),
+              IF(failed, NULL, 4 * pp / nn), IF(failed, NULL, -(pp + 2) / (2 * nn * nn)), IF(failed, NULL, nn), NOW(3)
+         FROM (SELECT seq, ? + (seq DIV ?) * ? AS pp, ? + MOD(seq, ?) * ? AS nn, MOD(seq, 97) = 0 AS failed FROM seq_0_to_999999) AS points`,
+      [scan.id, p.min, n.count, (p.max - p.min) / (p.count - 1), n.min, n.count, (n.max - n.min) / (n.count - 1)],
+    );
+  }
+  const cookie = load.headers.cookie;
+  const url = (query) => `${load.base}/scans/${scan.id}/grid?x=nStar&y=p&${query}`;
+  const mb = (bytes) => `${(bytes / 1e6).toFixed(2)} MB`;
   const slices = [
     ['whole slice, 512 cells per axis', 'output=ns'],
     ['whole slice, 200 cells per axis', 'output=ns&maxCells=200'],
-    ['status slice, 512 cells per axis', 'output=status'],
+    ['status slice, 200 cells per axis', 'output=status&maxCells=200'],
     ['zoom window 300 × 300', 'output=ns&xFrom=100&xTo=399&yFrom=500&yTo=799'],
   ];
-  let report = '\nheatmap: GET /api/scans/:id/grid on a 1,000 × 1,000 slice (median of 3)\n';
-  for (const [label, query] of slices) {
-    const runs = [];
-    for (let i = 0; i < 3; i++) runs.push(await timed(`${load.base}/scans/${scan.id}/grid?x=nStar&y=p&${query}`, { headers: load.headers }, 60_000));
-    const median = runs.map((r) => r.ms).sort((a, b) => a - b)[1];
-    const bytes = Buffer.byteLength(runs[0].body);
-    report += `  ${label.padEnd(34)}${runs[0].status} in ${median.toFixed(0)} ms, ${(bytes / 1e6).toFixed(2)} MB\n`;
+  let report = '\nheatmap: GET /api/scans/:id/grid on a stored 1,000 × 1,000 slice, bytes on the wire with br\n';
+  // The page first (x = p, y = N_*, as it opens), so its first view finds nothing cached.
+  for (const view of ['first', 'repeat']) {
+    try {
+      const page = await drawPage(webUrl, cookie, scan.id, { panels: 3 });
+      report += `  scan page in chromium (${view} view) ${page.panels} heatmaps drawn in ${page.ms.toFixed(0)} ms, JS heap ${(page.heap / 2 ** 20).toFixed(0)} MiB\n`;
+    } catch (err) {
+      report += `  scan page in chromium (${view} view) not drawn: ${err.message.split('\n')[0]}\n`;
+    }
   }
+  report += `  ${''.padEnd(34)}first view                  repeat view (median of 3)\n`;
+  for (const [label, query] of slices) {
+    const first = await wireGet(url(query), cookie);
+    const repeat = await median3(() => wireGet(url(query), cookie));
+    report += `  ${label.padEnd(34)}${first.status} in ${first.ms.toFixed(0).padStart(5)} ms, ${mb(first.bytes)}     ${repeat.ms.toFixed(0).padStart(5)} ms\n`;
+  }
+  // What the page asks when it opens: three panels of 200 cells at once (n_s, r, α_s), first view
+  // (the whole window spelled out, so none of it is cached from the slices above).
+  const panels = ['ns', 'r', 'alphaS'].map((output) => url(`output=${output}&maxCells=200&xFrom=0&xTo=999`));
+  const started = performance.now();
+  const answers = await Promise.all(panels.map((u) => wireGet(u, cookie)));
+  report += `  the page's three panels at once   ${answers.map((a) => a.status).join('/')} in ${(performance.now() - started).toFixed(0)} ms, ${mb(answers.reduce((b, a) => b + a.bytes, 0))}\n`;
   process.stdout.write(report);
+  await benchWatching(load, webUrl);
+}
+
+/**
+ * What watching costs the compute: the workers compute the million scan for a few seconds with
+ * nobody watching, then as long with its page open in chromium (on the same cores, as when the
+ * browser runs on the server), counted once the page has drawn its panels; points stored in each,
+ * and the page's long tasks and slice requests meanwhile.
+ */
+async function benchWatching(load, webUrl) {
+  const { MILLION_SCAN } = await import('./million-bench.mjs');
+  const { openChromium } = await import('./chromium.mjs');
+  const res = await fetch(`${load.base}/scans`, { method: 'POST', headers: load.headers, body: JSON.stringify({ ...MILLION_SCAN, name: 'benchmark: 10^6 points, watched' }) });
+  const scan = await res.json();
+  if (res.status !== 201) throw new Error(`the scan was refused (${res.status}): ${JSON.stringify(scan)}`);
+  const stored = async () => {
+    const now = await (await fetch(`${load.base}/scans/${scan.id}`, { headers: load.headers })).json();
+    return { status: now.status, points: now.donePoints + now.failedPoints };
+  };
+  // The slow-roll million scan computes in about 30 s on two workers: two short windows fit in it.
+  const SECONDS = 8;
+  try {
+    for (const deadline = Date.now() + 60_000; (await stored()).points === 0; await sleep(250)) {
+      if (Date.now() > deadline) throw new Error('the watched scan did not start in 60 s');
+    }
+    log(`heatmap: ${SECONDS} s of compute unwatched, then ${SECONDS} s with the page open and drawn`);
+    const before = await stored();
+    await sleep(SECONDS * 1000);
+    const unwatched = (await stored()).points - before.points;
+    const browser = await openChromium(webUrl, load.headers.cookie);
+    try {
+      const { page } = browser;
+      await page.addInitScript(() => {
+        globalThis.__longTasks = [];
+        new PerformanceObserver((list) => { for (const e of list.getEntries()) globalThis.__longTasks.push(e.duration); }).observe({ type: 'longtask', buffered: true });
+      });
+      await page.goto(`${webUrl}/scans/${scan.id}`);
+      // Counted from the moment the page shows its three panels: what watching costs, not opening.
+      const heatmaps = page.getByRole('img', { name: /^Heatmap of/ });
+      for (let i = 0; i < 3; i++) await heatmaps.nth(i).locator('.main-svg').first().waitFor({ timeout: 60_000 });
+      const opened = await page.evaluate(() => globalThis.__longTasks.length);
+      let slices = 0;
+      page.on('request', (request) => { if (request.url().includes('/grid?')) slices++; });
+      const start = await stored();
+      await sleep(SECONDS * 1000);
+      const end = await stored();
+      const tasks = (await page.evaluate(() => globalThis.__longTasks)).slice(opened);
+      const watched = end.points - start.points;
+      process.stdout.write(
+        `\nheatmap: watching a live 10^6-point scan (${load.workers} worker(s), chromium on the same cores), ${SECONDS} s each, page counted once drawn\n` +
+          `  unwatched                       ${(unwatched / SECONDS).toFixed(0)} points/s\n` +
+          `  page open                       ${(watched / SECONDS).toFixed(0)} points/s (${((watched / unwatched) * 100).toFixed(0)}% of unwatched)${end.status === 'running' ? '' : `, scan ${end.status}`}\n` +
+          `  the page meanwhile              ${slices} slice requests, ${tasks.length} long tasks (> 50 ms), longest ${Math.round(Math.max(0, ...tasks))} ms, ${Math.round(tasks.reduce((a, b) => a + b, 0))} ms in all\n`,
+      );
+    } finally {
+      await browser.close();
+    }
+  } finally {
+    await cancel(load, scan.id);
+  }
 }

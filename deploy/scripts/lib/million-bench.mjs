@@ -51,7 +51,7 @@ function samplePeaks(processes) {
 }
 
 /** GET with the encodings a browser offers; times the whole answer and counts the bytes on the wire. */
-function wireGet(url, cookie, encoding = 'br, gzip') {
+export function wireGet(url, cookie, encoding = 'br, gzip') {
   return new Promise((resolve, reject) => {
     const start = performance.now();
     const req = http.get(url, { headers: { cookie, 'accept-encoding': encoding } }, (res) => {
@@ -65,7 +65,7 @@ function wireGet(url, cookie, encoding = 'br, gzip') {
 }
 
 /** The median of three runs of `run`. */
-async function median3(run) {
+export async function median3(run) {
   const runs = [];
   for (let i = 0; i < 3; i++) runs.push(await run());
   return runs.sort((a, b) => a.ms - b.ms)[1];
@@ -107,8 +107,11 @@ async function watchLive(webUrl, cookie, scanId, done) {
   }
 }
 
-/** Loads the finished scan's page in a fresh chromium tab: time until its heatmaps are drawn, and the JS heap then. */
-async function drawPage(webUrl, cookie, scanId) {
+/**
+ * Loads the finished scan's page in a fresh chromium tab: time until its heatmaps are drawn (at
+ * least `panels` of them), and the JS heap then.
+ */
+export async function drawPage(webUrl, cookie, scanId, { panels = 1 } = {}) {
   const { openChromium } = await import('./chromium.mjs');
   const browser = await openChromium(webUrl, cookie);
   try {
@@ -116,7 +119,7 @@ async function drawPage(webUrl, cookie, scanId) {
     const start = performance.now();
     await page.goto(`${webUrl}/scans/${scanId}`);
     const heatmaps = page.getByRole('img', { name: /^Heatmap of/ });
-    await heatmaps.first().waitFor({ timeout: 120_000 });
+    await heatmaps.nth(panels - 1).waitFor({ timeout: 120_000 });
     const count = await heatmaps.count();
     for (let i = 0; i < count; i++) await heatmaps.nth(i).locator('.main-svg').first().waitFor({ timeout: 120_000 });
     const drawn = performance.now() - start;

@@ -162,14 +162,25 @@ const sliceAxis = z.object({
 });
 export type ScanGridSliceAxis = z.infer<typeof sliceAxis>;
 
-/** One number per cell, row-major (cell (ix, iy) at iy · x.values.length + ix), null where a cell has no OK point. */
+/**
+ * Significant digits of a slice's means, minima and maxima: one more than the page shows (6), and
+ * far fewer bytes than a double's 17. Counts are exact.
+ */
+export const SLICE_SIGNIFICANT_DIGITS = 7;
+export const roundForSlice = (value: number) => Number(value.toPrecision(SLICE_SIGNIFICANT_DIGITS));
+
+/**
+ * One number per cell, row-major (cell (ix, iy) at iy · x.values.length + ix), null where a cell has
+ * no OK point; rounded to SLICE_SIGNIFICANT_DIGITS.
+ */
 const cellColumn = z.array(z.number().nullable());
 const countColumn = z.array(z.number().int());
 
 /**
  * A slice of at most GRID_MAX_CELLS² cells as columns. A cell is one point, or a block of
- * x.block × y.block points: the mean, min and max of the output over its OK points, and its counts
- * of OK points and of failed points by reason. Points neither counted are not stored yet.
+ * x.block × y.block points: the mean, min and max of the output over its OK points (to 7 significant
+ * digits, SLICE_SIGNIFICANT_DIGITS), and its exact counts of OK points and of failed points by
+ * reason. Points neither counted are not stored yet.
  */
 export const scanGridSliceSchema = z.object({
   x: sliceAxis,

@@ -309,9 +309,9 @@ describe('scan heatmaps', () => {
     expect(await screen.findByRole('button', { name: 'Back to three across' }, slow)).toHaveAttribute('aria-pressed', 'true');
   });
 
-  it('fills in while the scan runs', async () => {
+  it('fills in while the scan runs, at fewer cells per panel', async () => {
     let calls = 0;
-    api(memberUser, scanDetail({ status: 'running', finishedAt: null }), {
+    const { requests } = api(memberUser, scanDetail({ status: 'running', finishedAt: null }), {
       'GET /api/scans/42/grid': (request) => {
         const output = request.url.searchParams.get('output') ?? 'ns';
         if (output === 'ns') calls++;
@@ -323,6 +323,8 @@ describe('scan heatmaps', () => {
 
     expect(await screen.findAllByText(/ 0 ok, 0 failed, 9 not stored yet$/)).toHaveLength(3);
     await waitFor(() => expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3), { timeout: 8_000 });
+    const cells = requests.filter((r) => r.url.pathname.endsWith('/grid')).map((r) => r.url.searchParams.get('maxCells'));
+    expect(new Set(cells)).toEqual(new Set(['100']));
   });
 
   it('draws a one-axis scan as lines against its axis', async () => {

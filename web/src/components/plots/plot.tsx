@@ -3,7 +3,17 @@ import type { Config, Data, Layout } from 'plotly.js';
 import { lazy, Suspense, useMemo } from 'react';
 import { LoadingState } from '@/components/ui/loading-state';
 
-const PlotlyChart = lazy(() => import('./plotly-chart'));
+const loadPlotly = () => import('./plotly-chart');
+const PlotlyChart = lazy(loadPlotly);
+
+/**
+ * Starts loading Plotly (a large chunk) without drawing anything: a page whose charts wait for data
+ * calls it first, so the chunk arrives while the data does instead of after it.
+ */
+export const preloadPlot = () => {
+  // A failed load shows where the chart would be, when the chart itself asks again.
+  loadPlotly().catch(() => undefined);
+};
 
 /** Typography and colours shared by every chart, matching the app theme. */
 export const PLOT_FONT = "'IBM Plex Sans', system-ui, sans-serif";
@@ -64,13 +74,18 @@ export function Plot({ data, layout, label, height = 420, onPointClick, onRelayo
     }),
     [layout, height],
   );
+  // Kept between renders: a changed config redraws the whole chart.
+  const config = useMemo(
+    () => (imageName ? { ...BASE_CONFIG, toImageButtonOptions: { ...BASE_CONFIG.toImageButtonOptions, filename: imageName } } : BASE_CONFIG),
+    [imageName],
+  );
   return (
     <Box role="img" aria-label={label} minH={`${height}px`} w="full" {...boxProps}>
       <Suspense fallback={<LoadingState label="Loading the chart…" />}>
         <PlotlyChart
           data={data}
           layout={fullLayout}
-          config={imageName ? { ...BASE_CONFIG, toImageButtonOptions: { ...BASE_CONFIG.toImageButtonOptions, filename: imageName } } : BASE_CONFIG}
+          config={config}
           onRelayout={onRelayout}
           useResizeHandler
           style={{ width: '100%', height: `${height}px` }}

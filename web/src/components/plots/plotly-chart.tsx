@@ -1,4 +1,5 @@
 import Plotly, { type Config } from 'plotly.js';
+import { useMemo } from 'react';
 import type { PlotParams } from 'react-plotly.js';
 import createPlotlyComponent from 'react-plotly.js/factory';
 
@@ -17,5 +18,7 @@ function saveSvgButton(config: Partial<Config> | undefined) {
 
 export default function PlotlyChart(props: PlotParams) {
   const config = props.config as Partial<Config> | undefined;
-  return <Chart {...props} config={{ ...config, modeBarButtonsToAdd: [saveSvgButton(config)] }} />;
+  // A new config (its button's function included) makes Plotly draw the chart anew: keep it while the given one stays.
+  const withSvg = useMemo(() => ({ ...config, modeBarButtonsToAdd: [saveSvgButton(config)] }), [config]);
+  return <Chart {...props} config={withSvg} />;
 }

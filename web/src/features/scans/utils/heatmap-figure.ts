@@ -51,32 +51,46 @@ function axisLayout(axis: ScanGridSlice['x']): Partial<Layout['xaxis']> {
   };
 }
 
+/** Each value of a column as hovering shows it, worked out once per column however many panels list it. */
+const formattedColumns = new WeakMap<readonly (number | null)[], string[]>();
+function formatted(column: readonly (number | null)[]): string[] {
+  let texts = formattedColumns.get(column);
+  if (!texts) formattedColumns.set(column, (texts = column.map((value) => formatNumber(value))));
+  return texts;
+}
+
 /** What hovering a cell shows: where it is (every axis value) and what came out there, per block when cells hold several points. */
 function hoverTexts(slice: ScanGridSlice, states: (string | null)[], others: ScanGridSlice[]): string[][] {
-  const fixed = Object.entries(slice.at).map(([name, { value }]) => `${inputLabel(name)} = ${formatNumber(value)}`);
-  const shown = [...others, slice].filter((s, i, all) => s.output !== 'status' && all.findIndex((o) => o.output === s.output) === i);
+  const fixed = Object.entries(slice.at).map(([name, { value }]) => `<br>${inputLabel(name)} = ${formatNumber(value)}`).join('');
+  const shown = [...others, slice]
+    .filter((s, i, all) => s.output !== 'status' && all.findIndex((o) => o.output === s.output) === i)
+    .map((s) => ({ label: outputLabel(s.output), mean: formatted(s.mean ?? []), min: s.min && s.max ? formatted(s.min) : null, max: s.min && s.max ? formatted(s.max) : null }));
   const nx = slice.x.values.length;
-  const where = (axis: ScanGridSlice['x'], i: number) => {
-    const count = cellSpan(axis, i).count;
-    return `${inputLabel(axis.parameter)} = ${formatNumber(axis.values[i])}${count > 1 ? ` (first of ${count} values)` : ''}`;
-  };
+  // Per column and per row rather than per cell: a 200 × 200 slice has 40,000 cells but 400 of these.
+  const where = (axis: ScanGridSlice['x']) =>
+    axis.values.map((value, i) => {
+      const count = cellSpan(axis, i).count;
+      return { text: `${inputLabel(axis.parameter)} = ${formatNumber(value)}${count > 1 ? ` (first of ${count} values)` : ''}`, count };
+    });
+  const columns = where(slice.x);
+  const rows = where(slice.y);
   const reasons = Object.entries(slice.failed);
   const texts = states.map((state, c) => {
-    const ix = c % nx;
-    const iy = Math.floor(c / nx);
-    const lines = [where(slice.x, ix), where(slice.y, iy), ...fixed];
-    const points = cellSpan(slice.x, ix).count * cellSpan(slice.y, iy).count;
+    const column = columns[c % nx];
+    const row = rows[Math.floor(c / nx)];
+    let text = `${column.text}<br>${row.text}${fixed}`;
+    const points = column.count * row.count;
     if (points > 1) {
       const failed = reasons.filter(([, counts]) => counts[c] > 0).map(([reason, counts]) => `${counts[c]} ${reason}`);
-      lines.push(`${slice.ok[c]} of ${points} points ok${failed.length ? `; failed: ${failed.join(', ')}` : ''}`);
+      text += `<br>${slice.ok[c]} of ${points} points ok${failed.length ? `; failed: ${failed.join(', ')}` : ''}`;
       for (const s of shown) {
-        if (s.mean?.[c] === null || s.mean?.[c] === undefined) continue;
-        lines.push(`${outputLabel(s.output)} mean ${formatNumber(s.mean[c])}${s.min && s.max ? `, ${formatNumber(s.min[c])} to ${formatNumber(s.max[c])}` : ''}`);
+        if (s.mean[c] === undefined || s.mean[c] === '—') continue;
+        text += `<br>${s.label} mean ${s.mean[c]}${s.min && s.max ? `, ${s.min[c]} to ${s.max[c]}` : ''}`;
       }
-    } else if (state === null) lines.push('not stored yet');
-    else if (state !== 'ok') lines.push(`failed: ${state}`);
-    else for (const s of shown) lines.push(`${outputLabel(s.output)} = ${formatNumber(s.mean?.[c])}`);
-    return lines.join('<br>');
+    } else if (state === null) text += '<br>not stored yet';
+    else if (state !== 'ok') text += `<br>failed: ${state}`;
+    else for (const s of shown) text += `<br>${s.label} = ${s.mean[c] ?? '—'}`;
+    return text;
   });
   return cellRows(slice, texts);
 }

@@ -9,7 +9,7 @@ import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
-import { getScanGridQueryOptions, PANEL_CELLS } from '../../api/get-scan-grid';
+import { getScanGridQueryOptions, panelCells } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
@@ -77,7 +77,7 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
     queries: canMap
       ? scans.flatMap((scan, s) =>
           outputs.map((o) => ({
-            ...getScanGridQueryOptions(scan.id, { x, y, output: o, at: middleOfOtherAxes(specs[s], x, y), maxCells: PANEL_CELLS }, { live: isLive(scan) }),
+            ...getScanGridQueryOptions(scan.id, { x, y, output: o, at: middleOfOtherAxes(specs[s], x, y), maxCells: panelCells({ wide: false, live: isLive(scan) }) }, { live: isLive(scan) }),
           })),
         )
       : [],

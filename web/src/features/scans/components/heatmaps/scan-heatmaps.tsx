@@ -1,14 +1,15 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, GRID_MAX_CELLS, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
-import { useCallback, useMemo } from 'react';
+import { useCallback, useEffect, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
+import { preloadPlot } from '@/components/plots/plot';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
-import { PANEL_CELLS, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
+import { panelCells, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
 import { useViewParams } from '../../hooks/use-view-params';
 import { cellCounts, cellPointIndex, failedByReason, failureGroups, insideLimitsMask, markedCells, sameCells, type SliceWindow } from '../../utils/grid-cells';
 import { outputLabel } from '../../utils/output-labels';
@@ -75,6 +76,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const grid = useMemo(() => new ScanGrid(spec.axes ?? []), [spec]);
   const names = grid.axes.map((axis) => axis.parameter);
   const [params, update] = useViewParams();
+  // Plotly loads while the slices are read, not after them.
+  useEffect(preloadPlot, []);
 
   const xParam = params.get('x');
   const yParam = params.get('y');
@@ -104,7 +107,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
 
   const live = isLive(scan);
   // All three panels ask for the same cells, so that n_s and r combine on hover and in the outline.
-  const base = { x, y, at, window, maxCells: wide ? GRID_MAX_CELLS : PANEL_CELLS };
+  const base = { x, y, at, window, maxCells: panelCells({ wide, live }) };
   const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
   const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
