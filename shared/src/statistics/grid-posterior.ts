@@ -1,0 +1,262 @@
+import { axisCells, fromPriorVariable, gridSize, isJudged, type AxisCells, type AxisPrior, type GridLikelihood } from './grid-axes.js';
+
+export interface Marginal1D {
+  axis: string;
+  prior: AxisPrior;
+  /** The axis values, ascending. */
+  values: number[];
+  /** Posterior probability of each value's cell; sums to 1. */
+  mass: number[];
+  /** Posterior density per unit of the axis variable (mass over the cell's width in x). */
+  density: number[];
+}
+
+/**
+ * A credible interval from the 1-D marginal. `two-sided`: equal-tailed, cutting (1 − level)/2 from
+ * each side. `upper-limit` / `lower-limit`: one-sided, used when the marginal's highest density
+ * sits at the lowest / highest value of the axis (the mass piles at that end).
+ */
+export interface CredibleInterval {
+  level: number;
+  kind: 'two-sided' | 'upper-limit' | 'lower-limit';
+  lower: number;
+  upper: number;
+}
+
+export interface AxisConstraint {
+  axis: string;
+  intervals: CredibleInterval[];
+  /** Set when the widest interval reaches an end of the axis: the prior range cuts the posterior. */
+  edgeWarning: string | null;
+}
+
+export interface Marginal2D {
+  x: string;
+  y: string;
+  xValues: number[];
+  yValues: number[];
+  /** Posterior mass per cell, row-major: index iy · xValues.length + ix (values ascending). */
+  mass: Float64Array;
+  /** Posterior density per unit prior area (mass over the cell's prior widths), same layout. */
+  density: Float64Array;
+  /** The density bounding the highest-density region of each level (for contour lines), by level. */
+  contourDensity: { level: number; density: number }[];
+}
+
+export interface GridPosterior {
+  marginals: Marginal1D[];
+  constraints: AxisConstraint[];
+  pair: Marginal2D | null;
+  bestFit: { index: number; deltaChi2: number; point: Record<string, number> };
+  /** Points left out (null Δχ²: failed or flagged), never counted as L = 0. */
+  excluded: { count: number; priorFraction: number };
+  included: number;
+}
+
+export interface GridPosteriorOptions {
+  /** The two axes of the 2-D marginal, by position; default the first two. */
+  pair?: [number, number];
+  /** Credible levels, ascending; default 68% and 95%. */
+  levels?: number[];
+}
+
+/**
+ * The posterior over a grid scan: each point's weight is L · w, L = exp(−Δχ²/2) and w the product
+ * of its cells' widths in each axis's prior variable (see `axisCells`). Points with a null Δχ² are
+ * left out of numerator and denominator alike, and counted. Intervals come from the marginal CDF,
+ * each cell's mass spread evenly over the cell in the prior variable.
+ */
+export function gridPosterior(input: GridLikelihood, options: GridPosteriorOptions = {}): GridPosterior {
+  const size = gridSize(input);
+  const axes = input.axes;
+  const cells = axes.map((axis) => axisCells(axis));
+  const lengths = axes.map((axis) => axis.values.length);
+  const levels = options.levels ?? [0.68, 0.95];
+  const pair = options.pair ?? (axes.length >= 2 ? [0, 1] : null);
+  if (pair && (pair[0] === pair[1] || !axes[pair[0]] || !axes[pair[1]])) throw new RangeError('the 2-D marginal needs two different axes of the grid');
+
+  // Pass 1: the best point, so that the weights below are scaled to it and cannot all underflow.
+  const chi2 = input.deltaChi2;
+  let best = -1;
+  for (let p = 0; p < size; p++) {
+    const d = chi2[p];
+    if (isJudged(d) && (best < 0 || d < (chi2[best] as number))) best = p;
+  }
+  if (best < 0) throw new RangeError('no point of the scan has a Δχ²: every point failed or was flagged');
+  const bestChi2 = chi2[best] as number;
+  if (bestChi2 === Infinity) throw new RangeError('every judged point has zero likelihood under this set');
+
+  const dims = axes.length;
+  const marginalMass = lengths.map((n) => new Float64Array(n));
+  const [px, py] = pair ?? [0, 0];
+  const pairMass = pair ? new Float64Array(lengths[px] * lengths[py]) : null;
+  const idx = new Int32Array(dims);
+  let total = 0;
+  let excludedWeight = 0;
+  let allWeight = 0;
+  let excludedCount = 0;
+  for (let p = 0; p < size; p++) {
+    let w = 1;
+    for (let a = 0; a < dims; a++) w *= cells[a].widths[idx[a]];
+    allWeight += w;
+    const d = chi2[p];
+    if (isJudged(d)) {
+      const m = Math.exp(-(d - bestChi2) / 2) * w;
+      total += m;
+      for (let a = 0; a < dims; a++) marginalMass[a][idx[a]] += m;
+      if (pairMass) pairMass[idx[py] * lengths[px] + idx[px]] += m;
+    } else {
+      excludedCount++;
+      excludedWeight += w;
+    }
+    for (let a = dims - 1; a >= 0; a--) {
+      if (++idx[a] < lengths[a]) break;
+      idx[a] = 0;
+    }
+  }
+
+  const marginals = axes.map((axis, a) => marginal1D(axis.name, cells[a], axis.values, marginalMass[a], total));
+  const constraints = axes.map((axis, a) => axisConstraint(axis.name, cells[a], axis.values, marginalMass[a], total, levels));
+  const bestIdx = indicesOf(best, lengths);
+  const point: Record<string, number> = {};
+  axes.forEach((axis, a) => (point[axis.name] = axis.values[bestIdx[a]]));
+  return {
+    marginals,
+    constraints,
+    pair: pair && pairMass ? marginal2D(axes[px].name, axes[py].name, cells[px], cells[py], axes[px].values, axes[py].values, pairMass, total, levels) : null,
+    bestFit: { index: best, deltaChi2: bestChi2, point },
+    excluded: { count: excludedCount, priorFraction: allWeight > 0 ? excludedWeight / allWeight : 0 },
+    included: size - excludedCount,
+  };
+}
+
+function indicesOf(index: number, lengths: readonly number[]): number[] {
+  const out = new Array<number>(lengths.length);
+  let rest = index;
+  for (let a = lengths.length - 1; a >= 0; a--) {
+    out[a] = rest % lengths[a];
+    rest = Math.floor(rest / lengths[a]);
+  }
+  return out;
+}
+
+function marginal1D(name: string, cells: AxisCells, values: readonly number[], mass: Float64Array, total: number): Marginal1D {
+  const order = [...cells.order];
+  return {
+    axis: name,
+    prior: cells.prior,
+    values: order.map((i) => values[i]),
+    mass: order.map((i) => mass[i] / total),
+    density: order.map((i, k) => {
+      const width = fromPriorVariable(cells.prior, cells.edges[k + 1]) - fromPriorVariable(cells.prior, cells.edges[k]);
+      return width > 0 ? mass[i] / total / width : Number.NaN;
+    }),
+  };
+}
+
+function axisConstraint(name: string, cells: AxisCells, values: readonly number[], mass: Float64Array, total: number, levels: number[]): AxisConstraint {
+  const n = cells.order.length;
+  if (n === 1) {
+    const x = values[cells.order[0]];
+    return { axis: name, intervals: levels.map((level) => ({ level, kind: 'two-sided', lower: x, upper: x })), edgeWarning: null };
+  }
+  // Cumulative mass at each cell edge, ascending.
+  const cumulative = new Float64Array(n + 1);
+  let mode = 0;
+  let modeDensity = -1;
+  for (let k = 0; k < n; k++) {
+    const i = cells.order[k];
+    cumulative[k + 1] = cumulative[k] + mass[i] / total;
+    const density = mass[i] / cells.widths[i];
+    if (density > modeDensity) {
+      modeDensity = density;
+      mode = k;
+    }
+  }
+  cumulative[n] = 1;
+  const quantile = (q: number) => fromPriorVariable(cells.prior, inverseCdf(cells.edges, cumulative, q));
+  const kind: CredibleInterval['kind'] = mode === 0 ? 'upper-limit' : mode === n - 1 ? 'lower-limit' : 'two-sided';
+  const intervals = levels.map((level): CredibleInterval => {
+    if (kind === 'upper-limit') return { level, kind, lower: values[cells.order[0]], upper: quantile(level) };
+    if (kind === 'lower-limit') return { level, kind, lower: quantile(1 - level), upper: values[cells.order[n - 1]] };
+    return { level, kind, lower: quantile((1 - level) / 2), upper: quantile((1 + level) / 2) };
+  });
+  // The widest interval reaches an end when it is one-sided towards it or its bound falls in the end cell.
+  const widest = intervals[intervals.length - 1];
+  const lowEnd = values[cells.order[0]];
+  const highEnd = values[cells.order[n - 1]];
+  const firstCellTop = fromPriorVariable(cells.prior, cells.edges[1]);
+  const lastCellBottom = fromPriorVariable(cells.prior, cells.edges[n - 1]);
+  const ends: number[] = [];
+  if (widest.kind === 'upper-limit' || widest.lower < firstCellTop) ends.push(lowEnd);
+  if (widest.kind === 'lower-limit' || widest.upper > lastCellBottom) ends.push(highEnd);
+  const percent = `${Math.round(widest.level * 100)}%`;
+  const edgeWarning =
+    ends.length === 0
+      ? null
+      : `the ${percent} region reaches ${ends.map((x) => `${name} = ${formatValue(x)}`).join(' and ')}, the end of the axis: widen it`;
+  return { axis: name, intervals, edgeWarning };
+}
+
+/** The prior variable where the piecewise-linear CDF (values at `edges`) reaches q. */
+function inverseCdf(edges: Float64Array, cumulative: Float64Array, q: number): number {
+  const n = edges.length - 1;
+  for (let k = 0; k < n; k++) {
+    if (cumulative[k + 1] >= q) {
+      const cellMass = cumulative[k + 1] - cumulative[k];
+      const t = cellMass > 0 ? (q - cumulative[k]) / cellMass : 0;
+      return edges[k] + Math.min(1, Math.max(0, t)) * (edges[k + 1] - edges[k]);
+    }
+  }
+  return edges[n];
+}
+
+function marginal2D(
+  xName: string,
+  yName: string,
+  xCells: AxisCells,
+  yCells: AxisCells,
+  xAxisValues: readonly number[],
+  yAxisValues: readonly number[],
+  pairMass: Float64Array,
+  total: number,
+  levels: number[],
+): Marginal2D {
+  const nx = xCells.order.length;
+  const ny = yCells.order.length;
+  const width = xAxisValues.length;
+  const mass = new Float64Array(nx * ny);
+  const density = new Float64Array(nx * ny);
+  for (let ky = 0; ky < ny; ky++) {
+    const iy = yCells.order[ky];
+    for (let kx = 0; kx < nx; kx++) {
+      const ix = xCells.order[kx];
+      const m = pairMass[iy * width + ix] / total;
+      mass[ky * nx + kx] = m;
+      density[ky * nx + kx] = m / (xCells.widths[ix] * yCells.widths[iy]);
+    }
+  }
+  // Highest-density regions: add cells from the densest down until each level's mass is reached.
+  const byDensity = Array.from({ length: nx * ny }, (_, c) => c).sort((a, b) => density[b] - density[a]);
+  const contourDensity: { level: number; density: number }[] = [];
+  let sum = 0;
+  let next = 0;
+  for (const c of byDensity) {
+    sum += mass[c];
+    while (next < levels.length && sum >= levels[next]) contourDensity.push({ level: levels[next++], density: density[c] });
+    if (next === levels.length) break;
+  }
+  return {
+    x: xName,
+    y: yName,
+    xValues: [...xCells.order].map((i) => xAxisValues[i]),
+    yValues: [...yCells.order].map((i) => yAxisValues[i]),
+    mass,
+    density,
+    contourDensity,
+  };
+}
+
+function formatValue(x: number): string {
+  return Number(x.toPrecision(6)).toString();
+}
