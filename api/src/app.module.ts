@@ -8,6 +8,7 @@ import { AuditModule } from './audit/audit.module';
 import { AuthModule } from './auth/auth.module';
 import { CommentsModule } from './comments/comments.module';
 import { ConstraintRegionsModule } from './constraint-regions/constraint-regions.module';
+import { LikelihoodsModule } from './likelihoods/likelihoods.module';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
 import { appConfig } from './config/app.config';
@@ -53,6 +54,7 @@ import { WorkersModule } from './workers/workers.module';
     InvitationsModule,
     ModelsModule,
     ConstraintRegionsModule,
+    LikelihoodsModule,
     ScansModule,
     TokensModule,
     NotificationsModule,

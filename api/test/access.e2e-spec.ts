@@ -98,6 +98,9 @@ describe('every route against every role', () => {
     { method: 'post', route: '/api/constraint-regions', url: () => '/api/constraint-regions', expect: everyoneSignedIn(400) },
     // A region of its own per role, uploaded by the member: leads and admins delete any, members their own.
     { method: 'delete', route: '/api/constraint-regions/:id', url: (role) => `/api/constraint-regions/${ownRegion.get(role)}`, expect: { anonymous: 401, admin: 204, lead: 204, member: 204, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/likelihood-sets', url: () => '/api/likelihood-sets', expect: everyoneSignedIn(200) },
+    { method: 'get', route: '/api/likelihood-sets/:key', url: () => '/api/likelihood-sets/planck18-bk18', expect: everyoneSignedIn(200) },
+    { method: 'post', route: '/api/likelihood-sets', url: () => '/api/likelihood-sets', expect: { ...adminOnly, admin: 400 } },
     { method: 'get', route: '/api/scans', url: () => '/api/scans', expect: everyoneSignedIn(200) },
     { method: 'get', route: '/api/scans/:id', url: () => `/api/scans/${plateauScanId}`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/points', url: () => `/api/scans/${plateauScanId}/points`, expect: plateauOnly },

@@ -120,7 +120,7 @@ describe('axis inputs as indexed columns of scan_points', () => {
   });
 
   it('reads a page sorted by an observable through that column\'s index', async () => {
-    const service = new ScanResultsService(t.db, undefined as never, undefined as never);
+    const service = new ScanResultsService(t.db, undefined as never, undefined as never, undefined as never);
     const explain = async (query: Record<string, string>) => {
       const [sql, parameters] = service.pageQuery(scan, scanPointsQuerySchema.parse(query), POINTS);
       return (await t.db.query(`EXPLAIN ${sql}`, parameters)) as { select_type: string; key: string | null; Extra: string | null }[];

@@ -4,6 +4,7 @@ import { CommentMention } from '../comments/entities/comment-mention.entity';
 import { ConstraintRegion } from '../constraint-regions/entities/constraint-region.entity';
 import { Group } from '../groups/entities/group.entity';
 import { Invitation } from '../invitations/entities/invitation.entity';
+import { StoredLikelihoodSet } from '../likelihoods/entities/likelihood-set.entity';
 import { Membership } from '../groups/entities/membership.entity';
 import { ScanArchive } from '../maintenance/entities/scan-archive.entity';
 import { Notification } from '../notifications/entities/notification.entity';
@@ -17,11 +18,11 @@ import { User } from '../users/entities/user.entity';
 /** Every entity, once: the API, the worker and the migration CLI all load this list. */
 export const ENTITIES = [
   User, Group, Membership, PotentialModel, Scan, ScanTag, ScanPoint, Comment, CommentMention, Notification, AuditEvent, ApiToken,
-  Invitation, ScanArchive, ConstraintRegion,
+  Invitation, ScanArchive, ConstraintRegion, StoredLikelihoodSet,
 ];
 
 export { axisColumnValues, AXIS_COLUMNS } from '../scans/entities/scan-point.entity';
 export {
   ApiToken, AuditEvent, Comment, CommentMention, ConstraintRegion, Group, Invitation, Membership, Notification, PotentialModel, Scan,
-  ScanArchive, ScanPoint, ScanTag, User,
+  ScanArchive, ScanPoint, ScanTag, StoredLikelihoodSet, User,
 };

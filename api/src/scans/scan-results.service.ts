@@ -3,13 +3,14 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  inputSortedOrder, planeSample, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  confidenceOf, deltaChi2, inputSortedOrder, planeSample, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { ExportsService } from '../exports/exports.service';
 import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
+import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
@@ -50,10 +51,26 @@ function inputExpression(parameters: string[], name: string): string {
 }
 
 /** The column (or expression) a page sorts by, and the direction of it and of the point-index tie-break. */
-function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'>): { expression: string; direction: 'ASC' | 'DESC' } {
+function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'>, set?: LikelihoodSet): { expression: string; direction: 'ASC' | 'DESC' } {
   const input = sortedInput(q.sort);
-  const expression = input ? inputExpression(parameters, input) : `p.${COLUMN[q.sort as PointOutput | 'pointIndex']}`;
+  const expression = input
+    ? inputExpression(parameters, input)
+    : q.sort === 'deltaChi2'
+      ? deltaChi2Sql(set!)
+      : `p.${COLUMN[q.sort as PointOutput | 'pointIndex']}`;
   return { expression, direction: q.order === 'asc' ? 'ASC' : 'DESC' };
+}
+
+/**
+ * A point's Δχ² under `set` in SQL, for sorting and filtering: the same sum as the shared
+ * `deltaChi2` (a point with r < 0 sorts last, as +Infinity there; a failed point is NULL). The set's
+ * numbers were checked finite by its schema, so they are written in as literals.
+ */
+function deltaChi2Sql(set: LikelihoodSet): string {
+  const n = (x: number) => `(${x})`;
+  const terms = [`POW((p.ns - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(p.r < 0, 1e308, POW(p.r / ${n(rSigma(set))}, 2))`];
+  if (set.alphaS) terms.push(`IF(p.alpha_s IS NULL, 0, POW((p.alpha_s - ${n(set.alphaS.mean)}) / ${n(set.alphaS.sigma)}, 2))`);
+  return `(${terms.join(' + ')})`;
 }
 
 /** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
@@ -61,13 +78,14 @@ function inputsOf(raw: RawPoint): Record<string, number> {
   return typeof raw.inputs === 'string' ? JSON.parse(raw.inputs) : (raw.inputs as Record<string, number>);
 }
 
-function toDto(raw: RawPoint): ScanPointDto {
+function toDto(raw: RawPoint, set?: LikelihoodSet): ScanPointDto {
   const inputs = inputsOf(raw);
   const dto = { pointIndex: Number(raw.point_index), inputs, status: String(raw.status), failureReason: (raw.failure_reason as string) ?? null } as ScanPointDto;
   for (const o of POINT_OUTPUTS) {
     const v = raw[COLUMN[o]];
     dto[o] = v === null || v === undefined ? null : Number(v);
   }
+  if (set) Object.assign(dto, judged(set, dto));
   return dto;
 }
 
@@ -85,6 +103,12 @@ function inputRangeCount(grid: ScanGrid, ranges: ScanPointsQuery['inputRanges'])
   }, 1);
 }
 
+/** A point's Δχ² under a set and the confidence level it corresponds to (in as many parameters as terms were summed); null for a failed point. */
+function judged(set: LikelihoodSet, point: Pick<ScanPointDto, 'ns' | 'r' | 'alphaS'>): { deltaChi2: number | null; confidence: number | null } {
+  const judgement = point.ns === null || point.r === null ? null : deltaChi2(set, { ns: point.ns, r: point.r, alphaS: point.alphaS });
+  return judgement ? { deltaChi2: judgement.deltaChi2, confidence: confidenceOf(judgement.deltaChi2, judgement.terms) } : { deltaChi2: null, confidence: null };
+}
+
 /** A scan's stored points: pages, streamed exports and heatmap slices. */
 @Injectable()
 export class ScanResultsService {
@@ -92,6 +116,7 @@ export class ScanResultsService {
     @InjectDataSource() private readonly db: DataSource,
     private readonly access: GroupAccessService,
     private readonly exports: ExportsService,
+    private readonly sets: LikelihoodSetsService,
   ) {}
 
   private readonly slices = new GridSliceCache(KEPT_SLICE_CELLS);
@@ -111,7 +136,7 @@ export class ScanResultsService {
    * sort key is selected first, on purpose: TypeORM would move a sort expression that names an
    * entity column (`p.ns`) ahead of the others, and exports read their rows by position.
    */
-  private filtered(scan: Scan, q: ScanPointsQuery, select = 'p.*'): SelectQueryBuilder<ScanPoint> {
+  private filtered(scan: Scan, q: ScanPointsQuery, select = 'p.*', set?: LikelihoodSet): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
     const bad: Record<string, string[]> = {};
@@ -125,7 +150,7 @@ export class ScanResultsService {
     const qb = this.db
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
-      .select(`${orderOf(variedInputs(scan.spec), q).expression} AS sort_key, ${select}`)
+      .select(`${orderOf(variedInputs(scan.spec), q, set).expression} AS sort_key, ${select}`)
       .where('p.scan_id = :scanId', { scanId: scan.id });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
@@ -138,7 +163,8 @@ export class ScanResultsService {
       if (range.min !== undefined) qb.andWhere(`${value} >= :inMin${i}`, { [`inMin${i}`]: range.min });
       if (range.max !== undefined) qb.andWhere(`${value} <= :inMax${i}`, { [`inMax${i}`]: range.max });
     });
-    const { expression, direction } = orderOf(axes, q);
+    if (q.deltaChi2Max !== undefined) qb.andWhere(`${deltaChi2Sql(set!)} <= :deltaChi2Max`, { deltaChi2Max: q.deltaChi2Max });
+    const { expression, direction } = orderOf(axes, q, set);
     return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
   }
 
@@ -149,14 +175,15 @@ export class ScanResultsService {
    */
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
     const scan = await this.readable(user, id);
+    const set = await this.likelihoodSet(q);
     // Built first: it refuses an input the scan does not vary, whatever the page.
-    const matching = this.filtered(scan, q);
-    const unfiltered = !q.ranges.length && !q.inputRanges.length;
+    const matching = this.filtered(scan, q, 'p.*', set);
+    const unfiltered = !q.ranges.length && !q.inputRanges.length && q.deltaChi2Max === undefined;
     let total: number;
     if (unfiltered && !q.status) total = scan.donePoints + scan.failedPoints;
     else if (unfiltered && q.status === 'ok') total = scan.donePoints;
     else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
-    else if (!q.status && !q.ranges.length && complete(scan) && scan.spec.axes) total = inputRangeCount(new ScanGrid(scan.spec.axes), q.inputRanges);
+    else if (!q.status && !q.ranges.length && q.deltaChi2Max === undefined && complete(scan) && scan.spec.axes) total = inputRangeCount(new ScanGrid(scan.spec.axes), q.inputRanges);
     else {
       const [sql, parameters] = matching.select('1').orderBy().getQueryAndParameters();
       const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
@@ -164,8 +191,13 @@ export class ScanResultsService {
     }
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
     const rows: RawPoint[] =
-      (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total))));
-    return { items: rows.map(toDto), total, page: q.page, pageSize: q.pageSize };
+      (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total, set))));
+    return { items: rows.map((row) => toDto(row, set)), total, page: q.page, pageSize: q.pageSize };
+  }
+
+  /** The likelihood set a query names (404 when there is none such), or undefined. */
+  private async likelihoodSet(q: ScanPointsQuery): Promise<LikelihoodSet | undefined> {
+    return q.likelihood ? this.sets.find(q.likelihood.key, q.likelihood.version) : undefined;
   }
 
   /**
@@ -177,7 +209,7 @@ export class ScanResultsService {
   private async inputOrderedPage(scan: Scan, q: ScanPointsQuery): Promise<RawPoint[] | null> {
     const input = sortedInput(q.sort);
     const axes = scan.spec.axes;
-    const filtered = q.status || q.ranges.length || q.inputRanges.length;
+    const filtered = q.status || q.ranges.length || q.inputRanges.length || q.deltaChi2Max !== undefined;
     if (!input || !axes || filtered || !complete(scan)) return null;
     const grid = new ScanGrid(axes);
     const pointAt = inputSortedOrder(grid, axes.findIndex((a) => a.parameter === input));
@@ -195,14 +227,14 @@ export class ScanResultsService {
    * the middle is taken from the far end (the order reversed, the offset counted from the end),
    * so the index walk covers at most half of the matching points.
    */
-  pageQuery(scan: Scan, q: ScanPointsQuery, total: number): [string, unknown[]] {
+  pageQuery(scan: Scan, q: ScanPointsQuery, total: number, set?: LikelihoodSet): [string, unknown[]] {
     const offset = (q.page - 1) * q.pageSize;
     const fromEnd = offset > total / 2;
     const inner = fromEnd
-      ? this.filtered(scan, { ...q, order: q.order === 'asc' ? 'desc' : 'asc' }).offset(Math.max(0, total - offset - q.pageSize)).limit(Math.max(0, Math.min(q.pageSize, total - offset)))
-      : this.filtered(scan, q).offset(offset).limit(q.pageSize);
+      ? this.filtered(scan, { ...q, order: q.order === 'asc' ? 'desc' : 'asc' }, 'p.*', set).offset(Math.max(0, total - offset - q.pageSize)).limit(Math.max(0, Math.min(q.pageSize, total - offset)))
+      : this.filtered(scan, q, 'p.*', set).offset(offset).limit(q.pageSize);
     const [innerSql, parameters] = inner.select('p.point_index', 'point_index').getQueryAndParameters();
-    const { expression, direction } = orderOf(variedInputs(scan.spec), q);
+    const { expression, direction } = orderOf(variedInputs(scan.spec), q, set);
     const sql = `SELECT p.* FROM (${innerSql}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
       ORDER BY ${expression} ${direction}, p.point_index ${direction}`;
     return [sql, [...parameters, scan.id]];
@@ -227,7 +259,8 @@ export class ScanResultsService {
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: PointExportFormat, res: Response): Promise<void> {
     const scan = await this.readable(user, id);
     const columns = new ExportColumns(variedInputs(scan.spec));
-    const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN)).getQueryAndParameters();
+    const set = await this.likelihoodSet(q);
+    const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN), set).getQueryAndParameters();
     return this.exports.send(user, res, {
       headers: {
         'Content-Type': EXPORT_CONTENT_TYPES[format],

@@ -3,6 +3,7 @@ import { TypeOrmModule } from '@nestjs/typeorm';
 import { AuditModule } from '../audit/audit.module';
 import { ExportsModule } from '../exports/exports.module';
 import { GroupsModule } from '../groups/groups.module';
+import { LikelihoodsModule } from '../likelihoods/likelihoods.module';
 import { MaintenanceModule } from '../maintenance/maintenance.module';
 import { ScanQueueModule } from '../queue/scan-queue.module';
 import { SchedulingModule } from '../scheduling/scheduling.module';
@@ -16,7 +17,7 @@ import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
-  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, ScanQueueModule.register(), MaintenanceModule, SchedulingModule, ExportsModule],
+  imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, ScanQueueModule.register(), MaintenanceModule, SchedulingModule, ExportsModule, LikelihoodsModule],
   controllers: [ScansController],
   providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
 })

@@ -25,11 +25,12 @@ export const AUDIT_ACTIONS = [
   'scan.create', 'scan.cancel', 'scan.retry', 'scan.delete',
   'comment.delete',
   'token.create', 'token.revoke',
+  'likelihood_set.create',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 
 /** What an audit event's `targetId` names. */
-export const AUDIT_TARGET_TYPES = ['user', 'group', 'invitation', 'model', 'constraint-region', 'scan', 'comment', 'api_token'] as const;
+export const AUDIT_TARGET_TYPES = ['user', 'group', 'invitation', 'model', 'constraint-region', 'scan', 'comment', 'api_token', 'likelihood_set'] as const;
 export type AuditTargetType = (typeof AUDIT_TARGET_TYPES)[number];
 
 export const auditEventSchema = z.object({

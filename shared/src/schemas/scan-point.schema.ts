@@ -20,6 +20,9 @@ export const scanPointSchema = z.object({
   phiStar: output,
   phiEnd: output,
   energyScaleGeV: output,
+  /** With `likelihood=<set>`: −2 ln(L/L_max) under that set (null for a failed point), and the confidence level it corresponds to. */
+  deltaChi2: output.optional(),
+  confidence: output.optional(),
 });
 export type ScanPointDto = z.infer<typeof scanPointSchema>;
 
@@ -29,8 +32,10 @@ export type PointExportFormat = (typeof POINT_EXPORT_FORMATS)[number];
 
 const optionalNumber = z.coerce.number({ error: 'must be a number' }).optional();
 
-/** A point column to sort or filter by: the index, an output, or an input as `input.<axis parameter>`. */
-export type PointSortKey = 'pointIndex' | PointOutput | `input.${string}`;
+/** A point column to sort or filter by: the index, an output, Δχ² under the asked likelihood set, or an input as `input.<axis parameter>`. */
+export type PointSortKey = 'pointIndex' | PointOutput | 'deltaChi2' | `input.${string}`;
+/** A likelihood set named in a query: its key, and a version after `@` (the latest without). */
+const LIKELIHOOD_REF = /^([a-z0-9]+(?:-[a-z0-9]+)*)(?:@(\d+))?$/;
 const INPUT_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)$/;
 const INPUT_RANGE_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)_(min|max)$/;
 
@@ -46,15 +51,24 @@ export const scanPointsQueryFieldsSchema = z.object({
   sort: z
     .string()
     .default('pointIndex')
-    .refine((s) => s === 'pointIndex' || (POINT_OUTPUTS as readonly string[]).includes(s) || INPUT_KEY.test(s), {
-      message: `sort by pointIndex, an output (${POINT_OUTPUTS.join(', ')}) or input.<axis parameter>`,
+    .refine((s) => s === 'pointIndex' || s === 'deltaChi2' || (POINT_OUTPUTS as readonly string[]).includes(s) || INPUT_KEY.test(s), {
+      message: `sort by pointIndex, an output (${POINT_OUTPUTS.join(', ')}), deltaChi2 (with likelihood) or input.<axis parameter>`,
     }),
+  /** A likelihood set, `key` or `key@version`: each point then carries its Δχ² and confidence level under it. */
+  likelihood: z.string().regex(LIKELIHOOD_REF, 'name a likelihood set as key or key@version, e.g. planck18-bk18 or planck18-bk18@1').optional(),
+  deltaChi2_max: optionalNumber,
   order: z.enum(['asc', 'desc']).default('asc'),
   /** `ok`, `failed` (any failure) or one failure code. */
   status: z.string().max(32).optional(),
   format: z.enum(POINT_EXPORT_FORMATS).optional(),
   ...Object.fromEntries(POINT_OUTPUTS.flatMap((k) => [[`${k}_min`, optionalNumber], [`${k}_max`, optionalNumber]])),
 });
+
+/** The key and version (undefined: the latest) of a `likelihood` query value, already checked by the schema. */
+function likelihoodRef(value: string | undefined): { key: string; version?: number } | undefined {
+  const match = value === undefined ? null : LIKELIHOOD_REF.exec(value);
+  return match ? { key: match[1], version: match[2] === undefined ? undefined : Number(match[2]) } : undefined;
+}
 
 /** Gathers flat `input.<name>_min|max` keys of a query string into `inputRanges`. */
 function gatherInputRanges(raw: unknown): unknown {
@@ -85,6 +99,12 @@ export const scanPointsQuerySchema = z.preprocess(
     .extend({
       inputRanges: z.array(z.object({ name: z.string(), min: optionalNumber, max: optionalNumber })).max(8, 'at most 8 input filters').default([]),
     })
+    .superRefine((q, ctx) => {
+      if (q.likelihood) return;
+      const needs = 'name the likelihood set too, e.g. likelihood=planck18-bk18';
+      if (q.sort === 'deltaChi2') ctx.addIssue({ code: 'custom', path: ['sort'], message: `sorting by deltaChi2: ${needs}` });
+      if (q.deltaChi2_max !== undefined) ctx.addIssue({ code: 'custom', path: ['deltaChi2_max'], message: needs });
+    })
     .transform((q) => {
       const ranges: { output: PointOutput; min?: number; max?: number }[] = [];
       const raw = q as Record<string, unknown>;
@@ -103,6 +123,8 @@ export const scanPointsQuerySchema = z.preprocess(
         ranges,
         /** Ranges of axis parameters; the API checks the names against the scan's axes. */
         inputRanges: q.inputRanges as { name: string; min?: number; max?: number }[],
+        likelihood: likelihoodRef(q.likelihood),
+        deltaChi2Max: q.deltaChi2_max,
       };
     }),
 );

@@ -1,0 +1,104 @@
+import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import { deltaChi2, confidenceOf, findLikelihoodSet, ScanGrid } from '@sixtyfold/shared';
+import { Group } from '../src/groups/entities/group.entity';
+import { Scan } from '../src/scans/entities/scan.entity';
+import { User } from '../src/users/entities/user.entity';
+import { storedSpec } from './support/stored-spec';
+import { createTestApp, DEMO, type TestApp } from './support/test-app';
+
+// Each point judged under a likelihood set on demand, from its stored outputs (nothing is
+// recomputed): its Δχ² and confidence level in the page, and sorting and filtering by Δχ².
+
+const AXES = [
+  { kind: 'range' as const, parameter: 'f', min: 5, max: 10, count: 20, spacing: 'linear' as const },
+  { kind: 'range' as const, parameter: 'nStar', min: 45, max: 65, count: 20, spacing: 'linear' as const },
+];
+const POINTS = 400;
+const failed = (i: number) => i % 37 === 4;
+// Outputs spread over the plane around the Planck value: n_s from 0.95 to 0.98, r from 0 to 0.08, α_s small.
+const outputs = (i: number) => ({ ns: 0.95 + ((i * 7) % 400) * 0.000075, r: ((i * 13) % 400) * 0.0002, alphaS: -0.0005 - (i % 5) * 1e-4 });
+
+describe('points judged under a likelihood set', () => {
+  let t: TestApp;
+  let scan: Scan;
+
+  beforeAll(async () => {
+    t = await createTestApp();
+    const groupId = (await t.db.getRepository(Group).findOneByOrFail({ slug: 'plateau-models' })).id;
+    const ownerId = (await t.db.getRepository(User).findOneByOrFail({ email: DEMO.plateauMember })).id;
+    const bad = Array.from({ length: POINTS }, (_, i) => i).filter(failed).length;
+    scan = await t.db.getRepository(Scan).save({
+      groupId, ownerId, name: 'judged points', method: 'slowroll', status: 'completed', note: '',
+      spec: storedSpec(groupId, { axes: AXES }), totalPoints: POINTS, donePoints: POINTS - bad, failedPoints: bad,
+    });
+    const grid = new ScanGrid(AXES);
+    const rows = Array.from({ length: POINTS }, (_, i) => {
+      const inputs = grid.point(i);
+      const o = outputs(i);
+      return failed(i)
+        ? [scan.id, i, JSON.stringify(inputs), inputs.f, inputs.nStar, 'no_end', 'ends nowhere', null, null, null, new Date()]
+        : [scan.id, i, JSON.stringify(inputs), inputs.f, inputs.nStar, 'ok', null, o.ns, o.r, o.alphaS, new Date()];
+    });
+    await t.db.query(
+      `INSERT INTO scan_points (scan_id, point_index, inputs, axis_0, axis_1, status, failure_reason, ns, r, alpha_s, computed_at) VALUES ${rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`,
+      rows.flat(),
+    );
+  });
+  afterAll(async () => {
+    if (scan) await t.db.getRepository(Scan).delete({ id: scan.id });
+    await t.close();
+  });
+
+  /** Δχ² of point i under a set by the shared function, null for a failed point. */
+  const expected = (key: string, i: number) => (failed(i) ? null : deltaChi2(findLikelihoodSet(key)!, outputs(i)));
+
+  it('gives each point its Δχ² and confidence level, as the shared functions compute them', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    for (const key of ['planck18-bk18', 'planck18', 'pact-lb-bk18']) {
+      const res = await member.get(`/api/scans/${scan.id}/points?likelihood=${key}&pageSize=1000`);
+      expect(res.status).toBe(200);
+      for (const point of res.body.items) {
+        const want = expected(key, point.pointIndex);
+        if (!want) {
+          expect([point.deltaChi2, point.confidence]).toEqual([null, null]);
+          continue;
+        }
+        expect(point.deltaChi2).toBeCloseTo(want.deltaChi2, 10);
+        expect(point.confidence).toBeCloseTo(confidenceOf(want.deltaChi2, want.terms), 12);
+      }
+    }
+    // Without a set the points carry neither.
+    const plain = await member.get(`/api/scans/${scan.id}/points?pageSize=1`);
+    expect(plain.body.items[0].deltaChi2).toBeUndefined();
+  });
+
+  it('sorts by Δχ² (failed points first, ties by index) and keeps the points inside a Δχ² bound', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const key = 'planck18-bk18';
+    const order = Array.from({ length: POINTS }, (_, i) => i).sort((a, b) => {
+      const [x, y] = [expected(key, a), expected(key, b)];
+      if (!x || !y) return x ? 1 : y ? -1 : a - b;
+      return x.deltaChi2 - y.deltaChi2 || a - b;
+    });
+    const pages = [];
+    for (const page of [1, 2, 3, 4]) {
+      const res = await member.get(`/api/scans/${scan.id}/points?likelihood=${key}&sort=deltaChi2&pageSize=100&page=${page}`);
+      pages.push(...res.body.items.map((p: { pointIndex: number }) => p.pointIndex));
+    }
+    expect(pages).toEqual(order);
+
+    // Inside the 95.4 % region in two parameters (Δχ² ≤ 6.18).
+    const inside = Array.from({ length: POINTS }, (_, i) => i).filter((i) => (expected(key, i)?.deltaChi2 ?? Infinity) <= 6.18);
+    expect(inside.length).toBeGreaterThan(10);
+    const bounded = await member.get(`/api/scans/${scan.id}/points?likelihood=${key}&deltaChi2_max=6.18&pageSize=1000`);
+    expect([bounded.body.total, bounded.body.items.map((p: { pointIndex: number }) => p.pointIndex)]).toEqual([inside.length, inside]);
+  });
+
+  it('refuses Δχ² without a set, and names a set that does not exist', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const unnamed = await member.get(`/api/scans/${scan.id}/points?sort=deltaChi2`);
+    expect([unnamed.status, unnamed.body.fieldErrors?.sort]).toEqual([400, ['sorting by deltaChi2: name the likelihood set too, e.g. likelihood=planck18-bk18']]);
+    const unknown = await member.get(`/api/scans/${scan.id}/points?likelihood=no-such-set`);
+    expect([unknown.status, unknown.body.message]).toEqual([404, "No likelihood set 'no-such-set'"]);
+  });
+});
