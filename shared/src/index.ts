@@ -32,6 +32,7 @@ export * from './uploads/model-file.schema.js';
 export * from './uploads/points-file.schema.js';
 export * from './schemas/likelihood-set.schema.js';
 export * from './schemas/likelihood-set-entry.schema.js';
+export * from './schemas/scan-constraints.schema.js';
 export * from './statistics/likelihood-sets.js';
 export * from './statistics/delta-chi2.js';
 export * from './statistics/likelihood-outline.js';

@@ -2,6 +2,7 @@ import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Que
 import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import {
+  scanConstraintsQuerySchema, scanConstraintsSchema, type ScanConstraints, type ScanConstraintsQuery,
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
@@ -12,6 +13,7 @@ import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
 import type { SessionUser } from '../common/session-user';
 import { FileUpload } from '../common/uploads/file-upload.interceptor';
 import { ApiErrorResponses, ApiZodBody, ApiZodMultipart, ApiZodQuery, ApiZodResponse, openApiSchemaOf } from '../openapi/zod-openapi.decorators';
+import { ScanConstraintsService } from './scan-constraints.service';
 import { ScanResultsService } from './scan-results.service';
 import { ScansService } from './scans.service';
 
@@ -21,6 +23,7 @@ export class ScansController {
   constructor(
     private readonly scans: ScansService,
     private readonly results: ScanResultsService,
+    private readonly constraintsOf: ScanConstraintsService,
   ) {}
 
   @Get()
@@ -124,6 +127,33 @@ export class ScansController {
     @Query(new ZodValidationPipe(scanGridQuerySchema)) query: ScanGridQuery,
   ): Promise<ScanGridSlice> {
     return this.results.grid(user, id, query);
+  }
+
+  @Get(':id/constraints')
+  @ApiOperation({
+    summary: 'What the scan allows under a likelihood set: the posterior over its grid, 1-D and 2-D marginals, 68/95 % credible intervals, best fit, evidence',
+    description: '`likelihood=<key>` or `<key>@<version>` (see `/api/likelihood-sets`); `prior.<axis>=uniform|log` (default: log for a log-spaced axis); '
+      + '`x`, `y`: the pair of the 2-D marginal. Failed and flagged points are left out and counted. `format=csv`: the 1-D marginals as CSV.',
+  })
+  @ApiZodQuery(scanConstraintsQuerySchema)
+  @ApiProduces('application/json', 'text/csv')
+  @ApiResponse({
+    status: 200,
+    description: 'The constraints, naming the set and version judged with; with `format=csv`, rows axis,prior,value,mass,density',
+    content: { 'application/json': { schema: openApiSchemaOf(scanConstraintsSchema, 'output') }, 'text/csv': { schema: { type: 'string' } } },
+  })
+  @ApiErrorResponses(400, 401, 404, 409)
+  async constraints(
+    @CurrentUser() user: SessionUser,
+    @Param('id', ParseIntPipe) id: number,
+    @Query(new ZodValidationPipe(scanConstraintsQuerySchema)) query: ScanConstraintsQuery,
+    @Res({ passthrough: true }) res: Response,
+  ): Promise<ScanConstraints | string> {
+    const constraints = await this.constraintsOf.constraints(user, id, query);
+    if (query.format === 'json') return constraints;
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', `attachment; filename="scan-${id}-marginals-${constraints.likelihood.key}-v${constraints.likelihood.version}.csv"`);
+    return ScanConstraintsService.marginalsCsv(constraints);
   }
 
   @Get(':id/plane')

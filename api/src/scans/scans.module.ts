@@ -10,6 +10,7 @@ import { SchedulingModule } from '../scheduling/scheduling.module';
 import { Scan } from './entities/scan.entity';
 import { ScanPoint } from './entities/scan-point.entity';
 import { ScanTag } from './entities/scan-tag.entity';
+import { ScanConstraintsService } from './scan-constraints.service';
 import { ScanQueueService } from './scan-queue.service';
 import { ScanReconcilerService } from './scan-reconciler.service';
 import { ScanResultsService } from './scan-results.service';
@@ -19,6 +20,6 @@ import { ScansService } from './scans.service';
 @Module({
   imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, ScanQueueModule.register(), MaintenanceModule, SchedulingModule, ExportsModule, LikelihoodsModule],
   controllers: [ScansController],
-  providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService],
+  providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService, ScanConstraintsService],
 })
 export class ScansModule {}

@@ -16,3 +16,13 @@ export type LikelihoodSetInput = z.infer<typeof likelihoodSetInputSchema>;
 export const likelihoodSetQuerySchema = z.object({
   version: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'versions start at 1').optional(),
 });
+
+/** A likelihood set named in a query: `key`, or `key@version` (the latest without), read as { key, version }. */
+export const likelihoodRefSchema = z
+  .string({ error: 'name the likelihood set, e.g. likelihood=planck18-bk18' })
+  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*(?:@\d+)?$/, 'name a likelihood set as key or key@version, e.g. planck18-bk18 or planck18-bk18@1')
+  .transform((value) => {
+    const [key, version] = value.split('@');
+    return { key, version: version === undefined ? undefined : Number(version) };
+  });
+export type LikelihoodRef = z.output<typeof likelihoodRefSchema>;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { likelihoodRefSchema } from './likelihood-set-entry.schema.js';
 
 /** Outputs stored per point, by API name; each can sort, filter and colour a heatmap. */
 export const POINT_OUTPUTS = ['ns', 'r', 'alphaS', 'As', 'amplitudeScale', 'nTotal', 'nStar', 'phiStar', 'phiEnd', 'energyScaleGeV'] as const;
@@ -34,8 +35,7 @@ const optionalNumber = z.coerce.number({ error: 'must be a number' }).optional()
 
 /** A point column to sort or filter by: the index, an output, Δχ² under the asked likelihood set, or an input as `input.<axis parameter>`. */
 export type PointSortKey = 'pointIndex' | PointOutput | 'deltaChi2' | `input.${string}`;
-/** A likelihood set named in a query: its key, and a version after `@` (the latest without). */
-const LIKELIHOOD_REF = /^([a-z0-9]+(?:-[a-z0-9]+)*)(?:@(\d+))?$/;
+
 const INPUT_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)$/;
 const INPUT_RANGE_KEY = /^input\.([A-Za-z][A-Za-z0-9_]*)_(min|max)$/;
 
@@ -55,7 +55,7 @@ export const scanPointsQueryFieldsSchema = z.object({
       message: `sort by pointIndex, an output (${POINT_OUTPUTS.join(', ')}), deltaChi2 (with likelihood) or input.<axis parameter>`,
     }),
   /** A likelihood set, `key` or `key@version`: each point then carries its Δχ² and confidence level under it. */
-  likelihood: z.string().regex(LIKELIHOOD_REF, 'name a likelihood set as key or key@version, e.g. planck18-bk18 or planck18-bk18@1').optional(),
+  likelihood: likelihoodRefSchema.optional(),
   deltaChi2_max: optionalNumber,
   order: z.enum(['asc', 'desc']).default('asc'),
   /** `ok`, `failed` (any failure) or one failure code. */
@@ -63,12 +63,6 @@ export const scanPointsQueryFieldsSchema = z.object({
   format: z.enum(POINT_EXPORT_FORMATS).optional(),
   ...Object.fromEntries(POINT_OUTPUTS.flatMap((k) => [[`${k}_min`, optionalNumber], [`${k}_max`, optionalNumber]])),
 });
-
-/** The key and version (undefined: the latest) of a `likelihood` query value, already checked by the schema. */
-function likelihoodRef(value: string | undefined): { key: string; version?: number } | undefined {
-  const match = value === undefined ? null : LIKELIHOOD_REF.exec(value);
-  return match ? { key: match[1], version: match[2] === undefined ? undefined : Number(match[2]) } : undefined;
-}
 
 /** Gathers flat `input.<name>_min|max` keys of a query string into `inputRanges`. */
 function gatherInputRanges(raw: unknown): unknown {
@@ -123,7 +117,7 @@ export const scanPointsQuerySchema = z.preprocess(
         ranges,
         /** Ranges of axis parameters; the API checks the names against the scan's axes. */
         inputRanges: q.inputRanges as { name: string; min?: number; max?: number }[],
-        likelihood: likelihoodRef(q.likelihood),
+        likelihood: q.likelihood,
         deltaChi2Max: q.deltaChi2_max,
       };
     }),
