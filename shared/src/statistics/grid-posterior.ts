@@ -236,16 +236,8 @@ function marginal2D(
       density[ky * nx + kx] = m / (xCells.widths[ix] * yCells.widths[iy]);
     }
   }
-  // Highest-density regions: add cells from the densest down until each level's mass is reached.
-  const byDensity = Array.from({ length: nx * ny }, (_, c) => c).sort((a, b) => density[b] - density[a]);
-  const contourDensity: { level: number; density: number }[] = [];
-  let sum = 0;
-  let next = 0;
-  for (const c of byDensity) {
-    sum += mass[c];
-    while (next < levels.length && sum >= levels[next]) contourDensity.push({ level: levels[next++], density: density[c] });
-    if (next === levels.length) break;
-  }
+  const bounds = highestDensityBounds(mass, density, levels);
+  const contourDensity = levels.map((level, k) => ({ level, density: bounds[k] }));
   return {
     x: xName,
     y: yName,
@@ -255,6 +247,36 @@ function marginal2D(
     density,
     contourDensity,
   };
+}
+
+/**
+ * For each level, the density d such that the cells denser than d hold that much of the mass (the
+ * edge of the highest-density region). One pass bins the cells by ln(density / peak); only the
+ * cells of the bin where a level is crossed are sorted, so a million cells need no full sort.
+ */
+function highestDensityBounds(mass: Float64Array, density: Float64Array, levels: number[]): number[] {
+  const bins = 4096;
+  const depth = 80; // ln units below the peak; deeper cells share the last bin
+  let peak = 0;
+  for (let c = 0; c < density.length; c++) if (density[c] > peak) peak = density[c];
+  if (!(peak > 0)) return levels.map(() => 0);
+  const binOf = (d: number) => (d > 0 ? Math.min(bins - 1, Math.floor((-Math.log(d / peak) / depth) * bins)) : bins - 1);
+  const binMass = new Float64Array(bins);
+  for (let c = 0; c < density.length; c++) binMass[binOf(density[c])] += mass[c];
+  return levels.map((level) => {
+    let before = 0;
+    let bin = 0;
+    while (bin < bins - 1 && before + binMass[bin] < level) before += binMass[bin++];
+    const cells: number[] = [];
+    for (let c = 0; c < density.length; c++) if (binOf(density[c]) === bin) cells.push(c);
+    cells.sort((x, y) => density[y] - density[x]);
+    let sum = before;
+    for (const c of cells) {
+      sum += mass[c];
+      if (sum >= level) return density[c];
+    }
+    return cells.length > 0 ? density[cells[cells.length - 1]] : 0;
+  });
 }
 
 function formatValue(x: number): string {
