@@ -26,7 +26,10 @@ export interface CredibleInterval {
 export interface AxisConstraint {
   axis: string;
   intervals: CredibleInterval[];
-  /** Set when the widest interval reaches an end of the axis: the prior range cuts the posterior. */
+  /**
+   * Set when the widest level's highest-density region (in the prior variable) holds an end of the
+   * axis: the prior range, not the data, bounds the posterior there.
+   */
   edgeWarning: string | null;
 }
 
@@ -181,15 +184,21 @@ function axisConstraint(name: string, cells: AxisCells, values: readonly number[
     if (kind === 'lower-limit') return { level, kind, lower: quantile(1 - level), upper: values[cells.order[n - 1]] };
     return { level, kind, lower: quantile((1 - level) / 2), upper: quantile((1 + level) / 2) };
   });
-  // The widest interval reaches an end when it is one-sided towards it or its bound falls in the end cell.
+  // The widest region reaches an end when that end lies inside its highest-density region (density
+  // per unit prior variable): the prior range, not the data, then bounds it.
   const widest = intervals[intervals.length - 1];
-  const lowEnd = values[cells.order[0]];
-  const highEnd = values[cells.order[n - 1]];
-  const firstCellTop = fromPriorVariable(cells.prior, cells.edges[1]);
-  const lastCellBottom = fromPriorVariable(cells.prior, cells.edges[n - 1]);
+  const densities = Array.from(cells.order, (i) => mass[i] / cells.widths[i]);
+  const byDensity = densities.map((_, k) => k).sort((x, y) => densities[y] - densities[x]);
+  let held = 0;
+  let bound = 0;
+  for (const k of byDensity) {
+    held += mass[cells.order[k]] / total;
+    bound = densities[k];
+    if (held >= widest.level) break;
+  }
   const ends: number[] = [];
-  if (widest.kind === 'upper-limit' || widest.lower < firstCellTop) ends.push(lowEnd);
-  if (widest.kind === 'lower-limit' || widest.upper > lastCellBottom) ends.push(highEnd);
+  if (densities[0] >= bound) ends.push(values[cells.order[0]]);
+  if (densities[n - 1] >= bound) ends.push(values[cells.order[n - 1]]);
   const percent = `${Math.round(widest.level * 100)}%`;
   const edgeWarning =
     ends.length === 0
