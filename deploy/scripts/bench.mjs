@@ -31,6 +31,9 @@ if (runs('engine')) {
   log('engine alone');
   const engineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/engine.bench.mjs')], { stdio: 'inherit' });
   if (engineBench.status !== 0) fail('the engine benchmark failed');
+  log('statistics alone');
+  const statisticsBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/grid-posterior.bench.mjs')], { stdio: 'inherit' });
+  if (statisticsBench.status !== 0) fail('the statistics benchmark failed');
 }
 
 const services = await startProfileServices(profile, { fresh: true });

@@ -1,7 +1,8 @@
 /**
  * Published limits on the primordial spectrum that scans are judged against. Each set names its
  * source, so a plot or a table can say where its lines come from. New data sets are added here as
- * new entries, never by editing the numbers of an old one.
+ * new entries, never by editing the numbers of an old one. The versioned likelihood sets and their
+ * joint regions in `statistics/` will replace these boxes once the plane and heatmaps draw them.
  */
 export interface ObservationalLimits {
   key: string;

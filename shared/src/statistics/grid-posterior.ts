@@ -26,7 +26,10 @@ export interface CredibleInterval {
 export interface AxisConstraint {
   axis: string;
   intervals: CredibleInterval[];
-  /** Set when the widest interval reaches an end of the axis: the prior range cuts the posterior. */
+  /**
+   * Set when the widest level's highest-density region (in the prior variable) holds an end of the
+   * axis: the prior range, not the data, bounds the posterior there.
+   */
   edgeWarning: string | null;
 }
 
@@ -181,15 +184,21 @@ function axisConstraint(name: string, cells: AxisCells, values: readonly number[
     if (kind === 'lower-limit') return { level, kind, lower: quantile(1 - level), upper: values[cells.order[n - 1]] };
     return { level, kind, lower: quantile((1 - level) / 2), upper: quantile((1 + level) / 2) };
   });
-  // The widest interval reaches an end when it is one-sided towards it or its bound falls in the end cell.
+  // The widest region reaches an end when that end lies inside its highest-density region (density
+  // per unit prior variable): the prior range, not the data, then bounds it.
   const widest = intervals[intervals.length - 1];
-  const lowEnd = values[cells.order[0]];
-  const highEnd = values[cells.order[n - 1]];
-  const firstCellTop = fromPriorVariable(cells.prior, cells.edges[1]);
-  const lastCellBottom = fromPriorVariable(cells.prior, cells.edges[n - 1]);
+  const densities = Array.from(cells.order, (i) => mass[i] / cells.widths[i]);
+  const byDensity = densities.map((_, k) => k).sort((x, y) => densities[y] - densities[x]);
+  let held = 0;
+  let bound = 0;
+  for (const k of byDensity) {
+    held += mass[cells.order[k]] / total;
+    bound = densities[k];
+    if (held >= widest.level) break;
+  }
   const ends: number[] = [];
-  if (widest.kind === 'upper-limit' || widest.lower < firstCellTop) ends.push(lowEnd);
-  if (widest.kind === 'lower-limit' || widest.upper > lastCellBottom) ends.push(highEnd);
+  if (densities[0] >= bound) ends.push(values[cells.order[0]]);
+  if (densities[n - 1] >= bound) ends.push(values[cells.order[n - 1]]);
   const percent = `${Math.round(widest.level * 100)}%`;
   const edgeWarning =
     ends.length === 0
@@ -236,16 +245,8 @@ function marginal2D(
       density[ky * nx + kx] = m / (xCells.widths[ix] * yCells.widths[iy]);
     }
   }
-  // Highest-density regions: add cells from the densest down until each level's mass is reached.
-  const byDensity = Array.from({ length: nx * ny }, (_, c) => c).sort((a, b) => density[b] - density[a]);
-  const contourDensity: { level: number; density: number }[] = [];
-  let sum = 0;
-  let next = 0;
-  for (const c of byDensity) {
-    sum += mass[c];
-    while (next < levels.length && sum >= levels[next]) contourDensity.push({ level: levels[next++], density: density[c] });
-    if (next === levels.length) break;
-  }
+  const bounds = highestDensityBounds(mass, density, levels);
+  const contourDensity = levels.map((level, k) => ({ level, density: bounds[k] }));
   return {
     x: xName,
     y: yName,
@@ -255,6 +256,36 @@ function marginal2D(
     density,
     contourDensity,
   };
+}
+
+/**
+ * For each level, the density d such that the cells denser than d hold that much of the mass (the
+ * edge of the highest-density region). One pass bins the cells by ln(density / peak); only the
+ * cells of the bin where a level is crossed are sorted, so a million cells need no full sort.
+ */
+function highestDensityBounds(mass: Float64Array, density: Float64Array, levels: number[]): number[] {
+  const bins = 4096;
+  const depth = 80; // ln units below the peak; deeper cells share the last bin
+  let peak = 0;
+  for (let c = 0; c < density.length; c++) if (density[c] > peak) peak = density[c];
+  if (!(peak > 0)) return levels.map(() => 0);
+  const binOf = (d: number) => (d > 0 ? Math.min(bins - 1, Math.floor((-Math.log(d / peak) / depth) * bins)) : bins - 1);
+  const binMass = new Float64Array(bins);
+  for (let c = 0; c < density.length; c++) binMass[binOf(density[c])] += mass[c];
+  return levels.map((level) => {
+    let before = 0;
+    let bin = 0;
+    while (bin < bins - 1 && before + binMass[bin] < level) before += binMass[bin++];
+    const cells: number[] = [];
+    for (let c = 0; c < density.length; c++) if (binOf(density[c]) === bin) cells.push(c);
+    cells.sort((x, y) => density[y] - density[x]);
+    let sum = before;
+    for (const c of cells) {
+      sum += mass[c];
+      if (sum >= level) return density[c];
+    }
+    return cells.length > 0 ? density[cells[cells.length - 1]] : 0;
+  });
 }
 
 function formatValue(x: number): string {
