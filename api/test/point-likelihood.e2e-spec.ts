@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
+import { tableFromIPC } from 'apache-arrow';
 import { deltaChi2, confidenceOf, findLikelihoodSet, ScanGrid } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
@@ -92,6 +93,29 @@ describe('points judged under a likelihood set', () => {
     expect(inside.length).toBeGreaterThan(10);
     const bounded = await member.get(`/api/scans/${scan.id}/points?likelihood=${key}&deltaChi2_max=6.18&pageSize=1000`);
     expect([bounded.body.total, bounded.body.items.map((p: { pointIndex: number }) => p.pointIndex)]).toEqual([inside.length, inside]);
+  });
+
+  it('adds Δχ² and the confidence level as the last columns of every export format', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const key = 'pact-lb-bk18';
+    const csv = await member.get(`/api/scans/${scan.id}/points?format=csv&likelihood=${key}`);
+    const [header, ...lines] = csv.text.trim().split('\n');
+    expect(header.split(',').slice(-2)).toEqual(['deltaChi2', 'confidence']);
+    for (const line of lines) {
+      const cells = line.split(',');
+      const want = expected(key, Number(cells[0]));
+      expect(cells.at(-2)).toBe(want ? String(want.deltaChi2) : '');
+    }
+    const json = await member.get(`/api/scans/${scan.id}/points?format=json&likelihood=${key}`);
+    expect(json.body[5]).toMatchObject({ pointIndex: 5, deltaChi2: expected(key, 5)!.deltaChi2 });
+    const arrow = await member.get(`/api/scans/${scan.id}/points?format=arrow&likelihood=${key}`).buffer(true).parse((res, done) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => done(null, Buffer.concat(chunks)));
+    });
+    const table = tableFromIPC(arrow.body as Buffer);
+    expect(table.getChild('deltaChi2')!.get(5)).toBe(expected(key, 5)!.deltaChi2);
+    expect(table.getChild('confidence')!.get(4)).toBeNull(); // point 4 failed
   });
 
   it('refuses Δχ² without a set, and names a set that does not exist', async () => {

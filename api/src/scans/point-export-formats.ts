@@ -1,6 +1,6 @@
 import { Field, Float64, Int32, makeData, RecordBatch, RecordBatchStreamWriter, Schema, Struct, Utf8, vectorFromArray } from 'apache-arrow';
 import { Transform, type Duplex } from 'node:stream';
-import { POINT_OUTPUTS, type PointExportFormat, type PointOutput, type ScanPointDto } from '@sixtyfold/shared';
+import { confidenceOf, deltaChi2, POINT_OUTPUTS, type LikelihoodSet, type PointExportFormat, type PointOutput, type ScanPointDto } from '@sixtyfold/shared';
 
 /** One exported point as the driver hands it over (`rowsAsArray`): the sort key, then the columns of `exportSelect`. */
 type ExportRow = [sortKey: unknown, pointIndex: number, inputs: string | Record<string, number>, status: string, failureReason: string | null, ...outputs: (number | null)[]];
@@ -24,13 +24,25 @@ const ARROW_BATCH_ROWS = 64 * 1024;
 export class ExportColumns {
   readonly outputs: readonly PointOutput[];
 
-  constructor(readonly axes: readonly string[]) {
+  /** `judgedBy`: the likelihood set asked for; each point then ends with its Δχ² and confidence level under it. */
+  constructor(readonly axes: readonly string[], readonly judgedBy?: LikelihoodSet) {
     this.outputs = POINT_OUTPUTS.filter((o) => !axes.includes(o));
   }
 
   get names(): string[] {
-    return ['pointIndex', ...this.axes, 'status', 'failureReason', ...this.outputs];
+    return ['pointIndex', ...this.axes, 'status', 'failureReason', ...this.outputs, ...(this.judgedBy ? ['deltaChi2', 'confidence'] : [])];
   }
+}
+
+/** A point's Δχ² under a set and the confidence level it corresponds to (in as many parameters as terms were summed); null for a failed point. */
+export function judged(set: LikelihoodSet, point: Pick<ScanPointDto, 'ns' | 'r' | 'alphaS'>): { deltaChi2: number | null; confidence: number | null } {
+  const judgement = point.ns === null || point.r === null ? null : deltaChi2(set, { ns: point.ns, r: point.r, alphaS: point.alphaS });
+  return judgement ? { deltaChi2: judgement.deltaChi2, confidence: confidenceOf(judgement.deltaChi2, judgement.terms) } : { deltaChi2: null, confidence: null };
+}
+
+/** A row's Δχ² and confidence under the export's set (both null for a failed point). */
+function judgedRow(set: LikelihoodSet, row: ExportRow): { deltaChi2: number | null; confidence: number | null } {
+  return judged(set, { ns: row[OUTPUT_AT.ns] as number | null, r: row[OUTPUT_AT.r] as number | null, alphaS: row[OUTPUT_AT.alphaS] as number | null });
 }
 
 /** The stored columns an export SELECTs after the sort key, in the order of `ExportRow` (every output, as the JSON needs them). */
@@ -88,6 +100,10 @@ function csvStage(columns: ExportColumns): Transform {
       for (const axis of axes) line += `,${csvNumber(inputs[axis])}`;
       line += `,${csvText(row[3])},${csvText(row[4])}`;
       for (const at of outputsAt) line += `,${csvNumber(row[at] as number | null)}`;
+      if (columns.judgedBy) {
+        const { deltaChi2: d, confidence } = judgedRow(columns.judgedBy, row);
+        line += `,${csvNumber(d)},${csvNumber(confidence)}`;
+      }
       return `${line}\n`;
     },
     () => '',
@@ -95,12 +111,13 @@ function csvStage(columns: ExportColumns): Transform {
 }
 
 /** The JSON array of points, each as the points page gives it (`ScanPointDto`). */
-function jsonStage(): Transform {
+function jsonStage(columns: ExportColumns): Transform {
   return textStage(
     '',
     (row, first) => {
       const point = { pointIndex: row[1], inputs: inputsOf(row), status: row[3], failureReason: row[4] } as ScanPointDto;
       for (const o of POINT_OUTPUTS) point[o] = row[OUTPUT_AT[o]] as number | null;
+      if (columns.judgedBy) Object.assign(point, judgedRow(columns.judgedBy, row));
       return `${first ? '[' : ','}\n${JSON.stringify(point)}`;
     },
     (empty) => (empty ? '[]\n' : '\n]\n'),
@@ -119,6 +136,7 @@ function arrowBatchStage(columns: ExportColumns): Transform {
     new Field('status', new Utf8(), false),
     new Field('failureReason', new Utf8(), true),
     ...columns.outputs.map((o) => new Field(o, new Float64(), true)),
+    ...(columns.judgedBy ? [new Field('deltaChi2', new Float64(), true), new Field('confidence', new Float64(), true)] : []),
   ]);
   const outputsAt = columns.outputs.map((o) => OUTPUT_AT[o]);
   let rows: ExportRow[] = [];
@@ -132,6 +150,7 @@ function arrowBatchStage(columns: ExportColumns): Transform {
       vectorFromArray(rows.map((r) => r[3]), new Utf8()).data[0],
       vectorFromArray(rows.map((r) => r[4]), new Utf8()).data[0],
       ...outputsAt.map((at) => vectorFromArray(rows.map((r) => r[at] as number | null), new Float64()).data[0]),
+      ...judgedColumns(columns, rows),
     ];
     rows = [];
     sent += n;
@@ -149,9 +168,16 @@ function arrowBatchStage(columns: ExportColumns): Transform {
   });
 }
 
+/** The Δχ² and confidence columns of an Arrow batch, when the export is judged by a set. */
+function judgedColumns(columns: ExportColumns, rows: ExportRow[]) {
+  if (!columns.judgedBy) return [];
+  const judgements = rows.map((row) => judgedRow(columns.judgedBy!, row));
+  return (['deltaChi2', 'confidence'] as const).map((k) => vectorFromArray(judgements.map((j) => j[k]), new Float64()).data[0]);
+}
+
 /** The transforms between the query's row arrays and the response, per format. */
 export function exportStages(format: PointExportFormat, columns: ExportColumns): Duplex[] {
   if (format === 'csv') return [csvStage(columns)];
-  if (format === 'json') return [jsonStage()];
+  if (format === 'json') return [jsonStage(columns)];
   return [arrowBatchStage(columns), RecordBatchStreamWriter.throughNode()];
 }

@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  confidenceOf, deltaChi2, inputSortedOrder, planeSample, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  inputSortedOrder, planeSample, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -15,7 +15,7 @@ import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
 import { planSlice, readSlices } from './grid-slice';
-import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
+import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages, judged } from './point-export-formats';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -101,12 +101,6 @@ function inputRangeCount(grid: ScanGrid, ranges: ScanPointsQuery['inputRanges'])
     const inside = grid.values[a].filter((v) => range.every((r) => (r.min === undefined || v >= r.min) && (r.max === undefined || v <= r.max)));
     return n * inside.length;
   }, 1);
-}
-
-/** A point's Δχ² under a set and the confidence level it corresponds to (in as many parameters as terms were summed); null for a failed point. */
-function judged(set: LikelihoodSet, point: Pick<ScanPointDto, 'ns' | 'r' | 'alphaS'>): { deltaChi2: number | null; confidence: number | null } {
-  const judgement = point.ns === null || point.r === null ? null : deltaChi2(set, { ns: point.ns, r: point.r, alphaS: point.alphaS });
-  return judgement ? { deltaChi2: judgement.deltaChi2, confidence: confidenceOf(judgement.deltaChi2, judgement.terms) } : { deltaChi2: null, confidence: null };
 }
 
 /** A scan's stored points: pages, streamed exports and heatmap slices. */
@@ -258,8 +252,8 @@ export class ScanResultsService {
    */
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: PointExportFormat, res: Response): Promise<void> {
     const scan = await this.readable(user, id);
-    const columns = new ExportColumns(variedInputs(scan.spec));
     const set = await this.likelihoodSet(q);
+    const columns = new ExportColumns(variedInputs(scan.spec), set);
     const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN), set).getQueryAndParameters();
     return this.exports.send(user, res, {
       headers: {
