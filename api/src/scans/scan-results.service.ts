@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  inputSortedOrder, planeSample, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  inputSortedOrder, planeSample, ENGINE_PIVOT_PER_MPC, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -68,7 +68,10 @@ function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'
  */
 function deltaChi2Sql(set: LikelihoodSet): string {
   const n = (x: number) => `(${x})`;
-  const terms = [`POW((p.ns - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(p.r < 0, 1e308, POW(p.r / ${n(rSigma(set))}, 2))`];
+  const ratio = set.r.pivotPerMpc / ENGINE_PIVOT_PER_MPC;
+  // r at the set's pivot, as `rAtSetPivot` moves it.
+  const r = ratio === 1 ? 'p.r' : `p.r * POW(${n(ratio)}, -p.r / 8 - (p.ns - 1))`;
+  const terms = [`POW((p.ns - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(p.r < 0, 1e308, POW(${r} / ${n(rSigma(set))}, 2))`];
   if (set.alphaS) terms.push(`IF(p.alpha_s IS NULL, 0, POW((p.alpha_s - ${n(set.alphaS.mean)}) / ${n(set.alphaS.sigma)}, 2))`);
   return `(${terms.join(' + ')})`;
 }

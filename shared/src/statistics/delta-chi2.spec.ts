@@ -1,6 +1,6 @@
 import jStat from 'jstat';
 import { describe, expect, it } from 'vitest';
-import { confidenceOf, deltaChi2, deltaChi2Threshold, rSigma, SIGMA_CONFIDENCE_LEVELS, sigmaThresholds } from './delta-chi2.js';
+import { confidenceOf, deltaChi2, deltaChi2Threshold, rAtSetPivot, rSigma, SIGMA_CONFIDENCE_LEVELS, sigmaThresholds } from './delta-chi2.js';
 import { findLikelihoodSet } from './likelihood-sets.js';
 
 const planck = findLikelihoodSet('planck18')!;
@@ -68,5 +68,15 @@ describe('confidence levels of Δχ²', () => {
   it('is 0 at Δχ² = 0 and 1 at infinity', () => {
     expect(confidenceOf(0, 2)).toBe(0);
     expect(confidenceOf(Infinity, 2)).toBe(1);
+  });
+});
+
+describe('r at the set\'s pivot', () => {
+  it('moves r from 0.05 to 0.002 Mpc⁻¹ by the tensor and scalar tilts: r_0.002 ≈ 0.91 r_0.05 for n_s = 0.965, r = 0.04 (check-values §1, derived)', () => {
+    const planck = findLikelihoodSet('planck18')!;
+    expect(rAtSetPivot(planck, 0.965, 0.04) / 0.04).toBeCloseTo(0.04 ** 0.03, 12);
+    expect(rAtSetPivot(planck, 0.965, 0.04) / 0.04).toBeCloseTo(0.91, 2);
+    // A set quoted at the engine's pivot leaves r as it is.
+    expect(rAtSetPivot(findLikelihoodSet('planck18-bk18')!, 0.965, 0.04)).toBe(0.04);
   });
 });

@@ -11,7 +11,20 @@ export function rSigma(set: Pick<LikelihoodSet, 'r'>): number {
   return set.r.upper95 / 1.959964;
 }
 
-/** What a point is judged on: r at the set's pivot (`set.r.pivotPerMpc`), α_s when known. */
+/** The scale the engine's n_s, r and α_s are given at: the pivot k_* = 0.05 Mpc⁻¹ (Planck's convention for A_s and n_s; common practice). */
+export const ENGINE_PIVOT_PER_MPC = 0.05;
+
+/**
+ * r moved from the engine's pivot to the one the set's limit is quoted at: r(k) = r_* (k/k_*)^(n_t − (n_s − 1))
+ * with the consistency relation n_t = −r/8 (first-order slow roll; common practice). For n_s = 0.965 and
+ * r = 0.04 it gives r_0.002 = 0.908 r_0.05 (derived; ../check-values §1 has 0.91).
+ */
+export function rAtSetPivot(set: Pick<LikelihoodSet, 'r'>, ns: number, r: number): number {
+  const ratio = set.r.pivotPerMpc / ENGINE_PIVOT_PER_MPC;
+  return ratio === 1 ? r : r * ratio ** (-r / 8 - (ns - 1));
+}
+
+/** What a point is judged on: n_s and r at the engine's pivot (r is moved to the set's, `rAtSetPivot`), α_s when known. */
 export interface SpectrumPoint {
   ns: number;
   r: number;
@@ -34,7 +47,7 @@ export function deltaChi2(set: LikelihoodSet, point: SpectrumPoint): PointDeltaC
   const { ns, r, alphaS } = point;
   if (!Number.isFinite(ns) || !Number.isFinite(r)) return null;
   if (r < 0) return { deltaChi2: Infinity, terms: 2 };
-  let sum = ((ns - set.ns.mean) / set.ns.sigma) ** 2 + (r / rSigma(set)) ** 2;
+  let sum = ((ns - set.ns.mean) / set.ns.sigma) ** 2 + (rAtSetPivot(set, ns, r) / rSigma(set)) ** 2;
   let terms = 2;
   if (set.alphaS && alphaS != null && Number.isFinite(alphaS)) {
     sum += ((alphaS - set.alphaS.mean) / set.alphaS.sigma) ** 2;
