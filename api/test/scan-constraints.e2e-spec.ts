@@ -76,6 +76,35 @@ describe('constraints of a grid scan', () => {
     expect(res.body.pair).toMatchObject({ x: 'x', y: 'y' });
   });
 
+  it('compares evidence: the same points in two scans give ln B = 0, ranked, in the words of Kass & Raftery', async () => {
+    // A second scan with the same stored outputs (copied): its evidence equals the first's, so ln B = 0 exactly.
+    const twin = await t.db.getRepository(Scan).save({ ...scan, id: undefined, name: 'constraints twin', createdAt: undefined, updatedAt: undefined });
+    try {
+      await t.db.query(
+        'INSERT INTO scan_points (scan_id, point_index, inputs, axis_0, axis_1, status, ns, r, computed_at) SELECT ?, point_index, inputs, axis_0, axis_1, status, ns, r, computed_at FROM scan_points WHERE scan_id = ?',
+        [twin.id, scan.id],
+      );
+      const member = await t.signIn(DEMO.plateauMember);
+      const res = await member.get(`/api/scans/evidence?ids=${scan.id},${twin.id}&likelihoods=planck18-bk18,pact-lb-bk18`);
+      expect(res.status).toBe(200);
+      expect(res.body.referenceId).toBe(scan.id);
+      expect(res.body.note).toMatch(/prior/);
+      expect(res.body.sets.map((s: { likelihood: { key: string } }) => s.likelihood.key)).toEqual(['planck18-bk18', 'pact-lb-bk18']);
+      for (const set of res.body.sets) {
+        const twinRow = set.scans.find((row: { scanId: number }) => row.scanId === twin.id);
+        expect(twinRow.lnB).toBe(0);
+        expect(twinRow.verdict).toBe(`no preference between scan ${twin.id} and scan ${scan.id}`);
+        expect(set.scans.map((row: { rank: number }) => row.rank)).toEqual([1, 2]);
+      }
+      // Under P-ACT-LB (n_s = 0.974 ± 0.003) the same points fit worse than under Planck (their n_s centres on 0.9649).
+      expect(res.body.sets[1].scans[0].lnZ).toBeLessThan(res.body.sets[0].scans[0].lnZ);
+      const wrongReference = await member.get(`/api/scans/evidence?ids=${scan.id}&reference=${twin.id}`);
+      expect([wrongReference.status, wrongReference.body.fieldErrors?.reference]).toEqual([400, ['the reference must be one of the scans compared']]);
+    } finally {
+      await t.db.getRepository(Scan).delete({ id: twin.id });
+    }
+  });
+
   it('gives the marginals as CSV, and refuses what it cannot answer', async () => {
     const member = await t.signIn(DEMO.plateauMember);
     const csv = await member.get(`/api/scans/${scan.id}/constraints?likelihood=planck18-bk18&format=csv`);

@@ -2,8 +2,8 @@ import { BadRequestException, ConflictException, Injectable } from '@nestjs/comm
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  axisPrior, deltaChi2, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, posteriorAxes, ScanGrid,
-  type ScanConstraints, type ScanConstraintsQuery,
+  axisPrior, bayesFactor, deltaChi2, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, posteriorAxes, ScanGrid,
+  type EvidenceComparison, type EvidenceComparisonQuery, type LikelihoodSet, type ScanConstraints, type ScanConstraintsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { openQueryStream } from '../exports/query-stream';
@@ -11,6 +11,24 @@ import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
 import { ScanResultsService } from './scan-results.service';
 
 const finite = (x: number) => (Number.isFinite(x) ? x : null);
+
+/** The stored outputs of a scan's OK points, as columns. */
+interface StoredOutputs {
+  index: number[];
+  ns: number[];
+  r: number[];
+  alphaS: (number | null)[];
+}
+
+/** Each grid point's Δχ² under the set; NaN marks a point left out (failed, flagged, or not stored yet). */
+function judge(set: LikelihoodSet, size: number, outputs: StoredOutputs): Float64Array {
+  const chi2 = new Float64Array(size).fill(Number.NaN);
+  outputs.index.forEach((i, k) => {
+    const judged = deltaChi2(set, { ns: outputs.ns[k], r: outputs.r[k], alphaS: outputs.alphaS[k] });
+    if (judged) chi2[i] = judged.deltaChi2;
+  });
+  return chi2;
+}
 
 /**
  * What a grid scan's data allow under one likelihood set: the posterior over the grid with a
@@ -39,19 +57,7 @@ export class ScanConstraintsService {
 
     const axes = posteriorAxes(scan.spec.axes).map((axis) => ({ ...axis, prior: q.priors[axis.name] ?? axisPrior(axis) }));
     const grid = new ScanGrid(scan.spec.axes);
-    // NaN marks a point left out: failed, flagged, or not stored yet.
-    const chi2 = new Float64Array(grid.size).fill(Number.NaN);
-    const source = await openQueryStream(this.db, 'SELECT point_index, ns, r, alpha_s FROM scan_points WHERE scan_id = ? AND status = ?', [scan.id, 'ok'], { rowsAsArray: true });
-    let completed = false;
-    try {
-      for await (const [index, ns, r, alphaS] of source.readable as AsyncIterable<[number, number, number, number | null]>) {
-        const judged = deltaChi2(likelihood, { ns, r, alphaS });
-        if (judged) chi2[Number(index)] = judged.deltaChi2;
-      }
-      completed = true;
-    } finally {
-      await source.close(completed);
-    }
+    const chi2 = judge(likelihood, grid.size, await this.storedOutputs(scan.id));
     const input = { axes, deltaChi2: chi2 };
     const pair = names.length >= 2 ? ([names.indexOf(pairOf[0]), names.indexOf(pairOf[1])] as [number, number]) : undefined;
     const included = chi2.reduce((n, x) => (Number.isNaN(x) ? n : n + 1), 0);
@@ -76,6 +82,63 @@ export class ScanConstraintsService {
       included: posterior.included,
       evidence: { z: evidence.z, lnZ: evidence.lnZ, lnZHalf: evidence.lnZHalf, lnZError: evidence.lnZError, note: EVIDENCE_PRIOR_NOTE },
     };
+  }
+
+  /**
+   * The evidence of each scan under each set, with ln B against the reference scan (the first
+   * unless named), ranked best first. Each scan's points are read once for all the sets.
+   */
+  async compareEvidence(user: SessionUser, q: EvidenceComparisonQuery): Promise<EvidenceComparison> {
+    const scans = [];
+    for (const id of q.ids) {
+      const scan = await this.results.readable(user, id);
+      if (!scan.spec.axes) throw new ConflictException(`Scan ${id} runs over a list of points: its evidence needs the prior volume of a grid`);
+      scans.push({ scan, axes: posteriorAxes(scan.spec.axes), size: new ScanGrid(scan.spec.axes).size, outputs: await this.storedOutputs(scan.id) });
+    }
+    const referenceId = q.reference ?? q.ids[0];
+    const sets = [];
+    for (const ref of q.likelihoods) {
+      const likelihood = await this.sets.find(ref.key, ref.version);
+      const rows = scans.map(({ scan, axes, size, outputs }) => {
+        const chi2 = judge(likelihood, size, outputs);
+        const included = chi2.reduce((n, x) => (Number.isNaN(x) ? n : n + 1), 0);
+        const evidence = included > 0 ? gridEvidence({ axes, deltaChi2: chi2 }) : null;
+        return { scanId: scan.id, name: scan.name, lnZ: evidence?.lnZ ?? null, lnZError: evidence?.lnZError ?? null, included, excluded: size - included };
+      });
+      const reference = rows.find((row) => row.scanId === referenceId)!;
+      const ranked = [...rows].sort((a, b) => (b.lnZ ?? -Infinity) - (a.lnZ ?? -Infinity));
+      sets.push({
+        likelihood,
+        scans: ranked.map((row, k) => {
+          const factor = row.lnZ !== null && reference.lnZ !== null ? bayesFactor(row.lnZ, reference.lnZ) : null;
+          const verdict = factor && (row.scanId === referenceId ? 'the reference' : factor.words.replace('the model', `scan ${row.scanId}`).replace('the reference', `scan ${referenceId}`));
+          return { ...row, rank: k + 1, lnB: factor?.lnB ?? null, twoLnB: factor?.twoLnB ?? null, verdict: verdict ?? null };
+        }),
+      });
+    }
+    return { referenceId, note: EVIDENCE_PRIOR_NOTE, sets };
+  }
+
+  /** The OK points' n_s, r and α_s, read in one pass as columns. */
+  private async storedOutputs(scanId: number): Promise<StoredOutputs> {
+    const index: number[] = [];
+    const ns: number[] = [];
+    const r: number[] = [];
+    const alphaS: (number | null)[] = [];
+    const source = await openQueryStream(this.db, 'SELECT point_index, ns, r, alpha_s FROM scan_points WHERE scan_id = ? AND status = ?', [scanId, 'ok'], { rowsAsArray: true });
+    let completed = false;
+    try {
+      for await (const row of source.readable as AsyncIterable<[number, number, number, number | null]>) {
+        index.push(Number(row[0]));
+        ns.push(row[1]);
+        r.push(row[2]);
+        alphaS.push(row[3]);
+      }
+      completed = true;
+    } finally {
+      await source.close(completed);
+    }
+    return { index, ns, r, alphaS };
   }
 
   /** The 1-D marginals as CSV: axis, prior, value, mass, density. */

@@ -2,7 +2,8 @@ import { Body, Controller, Delete, Get, HttpCode, Param, ParseIntPipe, Post, Que
 import { ApiOperation, ApiProduces, ApiResponse, ApiTags } from '@nestjs/swagger';
 import type { Response } from 'express';
 import {
-  scanConstraintsQuerySchema, scanConstraintsSchema, type ScanConstraints, type ScanConstraintsQuery,
+  evidenceComparisonQuerySchema, evidenceComparisonSchema, scanConstraintsQuerySchema, scanConstraintsSchema,
+  type EvidenceComparison, type EvidenceComparisonQuery, type ScanConstraints, type ScanConstraintsQuery,
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
@@ -62,6 +63,22 @@ export class ScansController {
     @UploadedFile() file: Express.Multer.File | undefined,
   ): Promise<ScanDetail> {
     return this.scans.createFromUpload(user, fields.spec, file);
+  }
+
+  @Get('evidence')
+  @ApiOperation({
+    summary: 'Model comparison: the evidence of each grid scan under each likelihood set, ln B against a reference scan, ranked, in the words of Kass & Raftery (1995)',
+    description: '`ids=3,5,8` (at most 8), `likelihoods=planck18-bk18,pact-lb-bk18` (each `key` or `key@version`), `reference` (default the first id). '
+      + 'The evidence is the mean likelihood over the prior volume each scan chose, so ln B depends on the axes\' ranges.',
+  })
+  @ApiZodQuery(evidenceComparisonQuerySchema)
+  @ApiZodResponse(200, evidenceComparisonSchema, 'Per set, the scans ranked by ln Z, with ln B against the reference')
+  @ApiErrorResponses(400, 401, 404, 409)
+  evidence(
+    @CurrentUser() user: SessionUser,
+    @Query(new ZodValidationPipe(evidenceComparisonQuerySchema)) query: EvidenceComparisonQuery,
+  ): Promise<EvidenceComparison> {
+    return this.constraintsOf.compareEvidence(user, query);
   }
 
   @Get(':id')

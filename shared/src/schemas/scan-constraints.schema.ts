@@ -46,3 +46,51 @@ export const scanConstraintsSchema = z.object({
   evidence: z.object({ z: z.number(), lnZ: z.number(), lnZHalf: z.number(), lnZError: z.number(), note: z.string() }).nullable(),
 });
 export type ScanConstraints = z.infer<typeof scanConstraintsSchema>;
+
+/**
+ * `GET /api/scans/evidence?ids=3,5,8&likelihoods=planck18-bk18,pact-lb-bk18&reference=3`: the evidence of
+ * each grid scan under each set, and ln B against the reference scan (default the first), ranked.
+ */
+export const evidenceComparisonQuerySchema = z
+  .object({
+    ids: z
+      .string({ error: 'list the scans, e.g. ids=3,5' })
+      .transform((s) => s.split(',').map((x) => Number(x.trim())))
+      .pipe(z.array(z.number().int('scan ids are whole numbers').positive('scan ids are positive')).min(1, 'list at least one scan').max(8, 'compare at most 8 scans')),
+    likelihoods: z
+      .string()
+      .default('planck18-bk18,pact-lb-bk18')
+      .transform((s) => s.split(',').map((x) => x.trim()))
+      .pipe(z.array(likelihoodRefSchema).min(1, 'name at least one likelihood set').max(6, 'at most 6 likelihood sets')),
+    reference: z.coerce.number({ error: 'must be a scan id' }).int().positive().optional(),
+  })
+  .refine((q) => q.reference === undefined || q.ids.includes(q.reference), { path: ['reference'], message: 'the reference must be one of the scans compared' });
+export type EvidenceComparisonQuery = z.output<typeof evidenceComparisonQuerySchema>;
+
+export const evidenceComparisonSchema = z.object({
+  referenceId: z.number().int(),
+  /** Shown beside every table: the evidence depends on the prior ranges the scans chose. */
+  note: z.string(),
+  sets: z.array(
+    z.object({
+      likelihood: likelihoodSetEntrySchema,
+      /** Best first (highest ln Z); a scan with no judged point has lnZ null and comes last. */
+      scans: z.array(
+        z.object({
+          scanId: z.number().int(),
+          name: z.string(),
+          rank: z.number().int(),
+          lnZ: z.number().nullable(),
+          lnZError: z.number().nullable(),
+          included: z.number().int(),
+          excluded: z.number().int(),
+          /** Against the reference scan: ln B, 2 ln B and the words of Kass & Raftery (1995). */
+          lnB: z.number().nullable(),
+          twoLnB: z.number().nullable(),
+          verdict: z.string().nullable(),
+        }),
+      ),
+    }),
+  ),
+});
+export type EvidenceComparison = z.infer<typeof evidenceComparisonSchema>;
