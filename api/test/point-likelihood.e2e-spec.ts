@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import { tableFromIPC } from 'apache-arrow';
-import { deltaChi2, confidenceOf, findLikelihoodSet, ScanGrid } from '@sixtyfold/shared';
+import { deltaChi2, confidenceOf, findLikelihoodSet, roundForSlice, ScanGrid } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
 import { User } from '../src/users/entities/user.entity';
@@ -118,6 +118,24 @@ describe('points judged under a likelihood set', () => {
     const table = tableFromIPC(arrow.body as Buffer);
     expect(table.getChild('deltaChi2')!.get(5)).toBe(expected(key, 5)!.deltaChi2);
     expect(table.getChild('confidence')!.get(4)).toBeNull(); // point 4 failed
+  });
+
+  it('colours a heatmap by Δχ² under a set: each cell is its point\'s Δχ² (to the slice\'s 7 digits)', async () => {
+    const member = await t.signIn(DEMO.plateauMember);
+    const key = 'planck18';
+    const res = await member.get(`/api/scans/${scan.id}/grid?x=nStar&y=f&output=deltaChi2&likelihood=${key}`);
+    expect(res.status).toBe(200);
+    expect(res.body.output).toBe('deltaChi2');
+    const grid = new ScanGrid(AXES);
+    for (let iy = 0; iy < 20; iy++) {
+      for (let ix = 0; ix < 20; ix++) {
+        const i = grid.indexOf([iy, ix]);
+        const want = expected(key, i);
+        expect(res.body.mean[iy * 20 + ix]).toBe(want ? roundForSlice(want.deltaChi2) : null);
+      }
+    }
+    const unnamed = await member.get(`/api/scans/${scan.id}/grid?x=nStar&y=f&output=deltaChi2`);
+    expect([unnamed.status, unnamed.body.fieldErrors?.likelihood]).toEqual([400, ['output=deltaChi2: name the likelihood set too, e.g. likelihood=planck18-bk18']]);
   });
 
   it('refuses Δχ² without a set, and names a set that does not exist', async () => {

@@ -78,7 +78,8 @@ describe('constraints of a grid scan', () => {
 
   it('compares evidence: the same points in two scans give ln B = 0, ranked, in the words of Kass & Raftery', async () => {
     // A second scan with the same stored outputs (copied): its evidence equals the first's, so ln B = 0 exactly.
-    const twin = await t.db.getRepository(Scan).save({ ...scan, id: undefined, name: 'constraints twin', createdAt: undefined, updatedAt: undefined });
+    const { groupId, ownerId, method, status, note, spec, totalPoints, donePoints, failedPoints } = scan;
+    const twin = await t.db.getRepository(Scan).save({ groupId, ownerId, method, status, note, spec, totalPoints, donePoints, failedPoints, name: 'constraints twin' });
     try {
       await t.db.query(
         'INSERT INTO scan_points (scan_id, point_index, inputs, axis_0, axis_1, status, ns, r, computed_at) SELECT ?, point_index, inputs, axis_0, axis_1, status, ns, r, computed_at FROM scan_points WHERE scan_id = ?',

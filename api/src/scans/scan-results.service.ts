@@ -14,7 +14,7 @@ import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
-import { planSlice, readSlices } from './grid-slice';
+import { planSlice, readSlices, type SliceColumns } from './grid-slice';
 import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages, judged } from './point-export-formats';
 
 /** API output name → scan_points column. */
@@ -66,13 +66,14 @@ function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'
  * `deltaChi2` (a point with r < 0 sorts last, as +Infinity there; a failed point is NULL). The set's
  * numbers were checked finite by its schema, so they are written in as literals.
  */
-function deltaChi2Sql(set: LikelihoodSet): string {
+function deltaChi2Sql(set: LikelihoodSet, table = 'p'): string {
   const n = (x: number) => `(${x})`;
   const ratio = set.r.pivotPerMpc / ENGINE_PIVOT_PER_MPC;
   // r at the set's pivot, as `rAtSetPivot` moves it.
-  const r = ratio === 1 ? 'p.r' : `p.r * POW(${n(ratio)}, -p.r / 8 - (p.ns - 1))`;
-  const terms = [`POW((p.ns - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(p.r < 0, 1e308, POW(${r} / ${n(rSigma(set))}, 2))`];
-  if (set.alphaS) terms.push(`IF(p.alpha_s IS NULL, 0, POW((p.alpha_s - ${n(set.alphaS.mean)}) / ${n(set.alphaS.sigma)}, 2))`);
+  const [ns, rAtK, alphaS] = ['ns', 'r', 'alpha_s'].map((column) => `${table}.${column}`);
+  const r = ratio === 1 ? rAtK : `${rAtK} * POW(${n(ratio)}, -${rAtK} / 8 - (${ns} - 1))`;
+  const terms = [`POW((${ns} - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(${rAtK} < 0, 1e308, POW(${r} / ${n(rSigma(set))}, 2))`];
+  if (set.alphaS) terms.push(`IF(${alphaS} IS NULL, 0, POW((${alphaS} - ${n(set.alphaS.mean)}) / ${n(set.alphaS.sigma)}, 2))`);
   return `(${terms.join(' + ')})`;
 }
 
@@ -338,6 +339,9 @@ export class ScanResultsService {
     // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
     const plan = planSlice(scan.spec.axes, q);
+    const set = q.likelihood ? await this.sets.find(q.likelihood.key, q.likelihood.version) : undefined;
+    // Δχ² under the set is one more column to average, written out in SQL (the schema asks a set for it).
+    const columns: SliceColumns = { ...COLUMN, deltaChi2: set ? deltaChi2Sql(set, 'scan_points') : 'NULL' };
     // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
     const finished = FINISHED.has(scan.status);
     const keyOf = (output: ScanGridQuery['output']) => JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, { ...q, output }]);
@@ -350,7 +354,7 @@ export class ScanResultsService {
     const together = plan.x.values.length * plan.y.values.length * READ_TOGETHER.length <= KEPT_SLICE_CELLS / 2;
     // The asked output last, so that it is the most recent in the cache.
     const outputs = [...(together ? READ_TOGETHER.filter((output) => output !== q.output) : []), q.output];
-    const slices = readSlices(this.db, scan.id, plan, outputs, COLUMN);
+    const slices = readSlices(this.db, scan.id, plan, outputs, columns);
     this.reading.set(cells, { outputs, slices });
     try {
       const read = await slices;

@@ -145,7 +145,9 @@ export const scanGridQuerySchema = z.preprocess(
     .object({
       x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
       y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
-      output: z.enum([...POINT_OUTPUTS, 'status']).default('ns'),
+      /** An output, the status, or `deltaChi2` under the `likelihood` set (for the 68/95 % boundary lines). */
+      output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']).default('ns'),
+      likelihood: likelihoodRefSchema.optional(),
       /** Index along each other axis, from `at.<parameter>=<index>` (default 0). */
       at: z.record(z.string(), z.coerce.number().int().min(0)).default({}),
       maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
@@ -160,6 +162,7 @@ export const scanGridQuerySchema = z.preprocess(
         const to = q[`${axis}To`];
         if (from !== undefined && to !== undefined && from > to) ctx.addIssue({ code: 'custom', path: [`${axis}To`], message: `must not be below ${axis}From` });
       }
+      if (q.output === 'deltaChi2' && !q.likelihood) ctx.addIssue({ code: 'custom', path: ['likelihood'], message: 'output=deltaChi2: name the likelihood set too, e.g. likelihood=planck18-bk18' });
     }),
 );
 export type ScanGridQuery = z.infer<typeof scanGridQuerySchema>;
@@ -201,7 +204,7 @@ const countColumn = z.array(z.number().int());
 export const scanGridSliceSchema = z.object({
   x: sliceAxis,
   y: sliceAxis,
-  output: z.enum([...POINT_OUTPUTS, 'status']),
+  output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']),
   /** Absent for the status output. */
   mean: cellColumn.optional(),
   /** Absent where they would repeat the mean: for the status output and when each cell is one point. */
