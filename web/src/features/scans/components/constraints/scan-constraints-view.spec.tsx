@@ -2,15 +2,21 @@ import type { ScanConstraints } from '@sixtyfold/shared';
 import { screen, within } from '@testing-library/react';
 import { Route, Routes } from 'react-router-dom';
 import { json, mockApi } from '@/testing/mock-api';
+import { plotIn } from '@/testing/plotly-chart-mock';
 import { renderWithProviders } from '@/testing/render';
 import { likelihoodSet, naturalSpec, pactSet, scanDetail } from '@/testing/scan-fixtures';
 import { ScanConstraintsView } from './scan-constraints-view';
+
+vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
 
 const answer = (overrides: Partial<ScanConstraints> = {}): ScanConstraints => ({
   scanId: 42,
   likelihood: likelihoodSet(),
   priors: [{ axis: 'f', prior: 'log' }, { axis: 'nStar', prior: 'uniform' }],
-  marginals: [],
+  marginals: [
+    { axis: 'f', prior: 'log', values: [5, 7, 10], mass: [0.2, 0.5, 0.3], density: [0.4, 1.2, null] },
+    { axis: 'nStar', prior: 'uniform', values: [50, 55, 60], mass: [0.1, 0.3, 0.6], density: [0.02, 0.06, 0.12] },
+  ],
   constraints: [
     {
       axis: 'f',
@@ -71,6 +77,21 @@ describe('constraints tab', () => {
     expect(requests.find((r) => r.url.pathname.endsWith('/constraints'))?.url.searchParams.get('likelihood')).toBe('planck18-bk18');
     expect(screen.getByRole('combobox', { name: 'Prior on f' })).toHaveValue('log');
     expect(screen.getByRole('link', { name: /Download the 1-D marginals/ })).toHaveAttribute('href', '/api/scans/42/constraints?likelihood=planck18-bk18&format=csv');
+  });
+
+  it('draws the 1-D marginal of each axis on the scale of its prior, with the 68 and 95 % regions behind it', async () => {
+    mockApi({
+      'GET /api/likelihood-sets': () => json(200, [likelihoodSet()]),
+      'GET /api/scans/42/constraints': () => json(200, answer()),
+    });
+    renderView();
+    const chart = await screen.findByRole('img', { name: '1-D marginal of f' });
+    await vi.waitFor(() => plotIn(chart));
+    const plot = plotIn(chart);
+    expect(plot.data[0]).toMatchObject({ x: [5, 7, 10], y: [0.4, 1.2, null] });
+    expect(plot.layout.xaxis?.type).toBe('log');
+    expect(plot.layout.shapes?.map((shape) => [shape.x0, shape.x1])).toEqual([[0.02801, 2.2812], [0.001, 0.86312]]);
+    expect(plotIn(screen.getByRole('img', { name: '1-D marginal of N_*' })).layout.xaxis?.type).toBe('linear');
   });
 
   it('asks with the set and priors in the address', async () => {

@@ -12,6 +12,7 @@ import { constraintsCsvHref, useScanConstraints, type ConstraintsQuery } from '.
 import { useViewParams } from '../../hooks/use-view-params';
 import { formatInterval } from '../../utils/format-interval';
 import { inputLabel } from '../../utils/point-columns';
+import { MarginalPlots } from './marginal-plots';
 
 const PRIOR_OPTIONS = [
   { value: 'uniform', label: 'Uniform' },
@@ -145,6 +146,7 @@ function ConstraintsResult({ scanId, answer, csvHref }: { scanId: number; answer
           </Table.Root>
         </Table.ScrollArea>
       </Panel>
+      <MarginalPlots answer={answer} />
       <Panel p={{ base: '3', md: '4' }}>
         <Stack gap="2" fontSize="sm">
           {bestFit ? (
