@@ -1,4 +1,4 @@
-import { pointCount, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointCount, type LikelihoodSetEntry, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 
 // Scans of the invented Halvorsen Institute groups (see fixtures.ts), with their full detail.
 
@@ -73,3 +73,29 @@ export function slice(
     at,
   };
 }
+
+/** A built-in likelihood set as `GET /api/likelihood-sets` lists it. */
+export function likelihoodSet(overrides: Partial<LikelihoodSetEntry> = {}): LikelihoodSetEntry {
+  return {
+    key: 'planck18-bk18',
+    version: 1,
+    name: 'Planck 2018 + BICEP/Keck 2018',
+    statement: 'An approximation of the published result, not the published likelihood: a Gaussian in n_s and a half-Gaussian in r.',
+    sources: [
+      { label: 'Planck 2018 X', citation: 'Planck Collaboration, A&A 641, A10 (2020)', arxiv: '1807.06211' },
+      { label: 'BICEP/Keck 2018', citation: 'BICEP/Keck Collaboration, PRL 127, 151301 (2021)', arxiv: '2110.00483' },
+    ],
+    ns: { mean: 0.9649, sigma: 0.0042 },
+    r: { upper95: 0.036, pivotPerMpc: 0.05 },
+    builtIn: true,
+    addedAt: null,
+    ...overrides,
+  };
+}
+
+export const pactSet = likelihoodSet({
+  key: 'pact-lb-bk18',
+  name: 'P-ACT-LB + BICEP/Keck 2018',
+  sources: [{ label: 'ACT DR6', citation: 'Louis et al. (2025)', arxiv: '2503.14452' }],
+  ns: { mean: 0.974, sigma: 0.003 },
+});

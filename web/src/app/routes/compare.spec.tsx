@@ -4,7 +4,7 @@ import { adminUser, scan } from '@/testing/fixtures';
 import { json, mockApi } from '@/testing/mock-api';
 import { plotIn } from '@/testing/plotly-chart-mock';
 import { renderApp } from '@/testing/render';
-import { naturalSpec, scanDetail, slice } from '@/testing/scan-fixtures';
+import { likelihoodSet, naturalSpec, pactSet, scanDetail, slice } from '@/testing/scan-fixtures';
 
 vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
 // A whole page with a dozen queries: give a busy machine time.
@@ -49,6 +49,18 @@ function mockCompare() {
     'GET /api/scans/42/plane': () => json(200, plane),
     'GET /api/scans/43/plane': () => json(200, plane),
     'GET /api/constraint-regions': (request) => json(200, regionsOf[request.url.searchParams.get('groupId') ?? ''] ?? []),
+    'GET /api/scans/evidence': () =>
+      json(200, {
+        referenceId: 42,
+        note: 'The evidence depends on the prior ranges (the axes) each scan chose.',
+        sets: [likelihoodSet(), pactSet].map((likelihood) => ({
+          likelihood,
+          scans: [
+            { scanId: 43, name: secondSpec.name, rank: 1, lnZ: -1.1, lnZError: 0.01, included: 9, excluded: 0, lnB: 1.2, twoLnB: 2.4, verdict: 'positive' },
+            { scanId: 42, name: details[42].name, rank: 2, lnZ: -2.3, lnZError: 0.01, included: 9, excluded: 0, lnB: 0, twoLnB: 0, verdict: 'reference' },
+          ],
+        })),
+      }),
   });
 }
 
@@ -79,5 +91,16 @@ describe('compare page plane', () => {
 
     const asked = requests.filter((r) => r.url.pathname === '/api/constraint-regions').map((r) => r.url.searchParams.get('groupId'));
     expect([...new Set(asked)].sort()).toEqual(['10', '11']);
+  });
+});
+
+describe('compare page evidence', () => {
+  it('ranks the compared scans by evidence under Planck and P-ACT-LB side by side', async () => {
+    mockCompare();
+    renderApp('/compare?scans=42,43');
+    const planck = await screen.findByRole('table', { name: 'Evidence under Planck 2018 + BICEP/Keck 2018 (planck18-bk18 v1)' }, slow);
+    expect(within(planck).getAllByRole('row')[1]).toHaveTextContent(/^1Natural inflation, second look/);
+    expect(within(planck).getAllByRole('row')[1]).toHaveTextContent('positive');
+    expect(screen.getByRole('table', { name: 'Evidence under P-ACT-LB + BICEP/Keck 2018 (pact-lb-bk18 v1)' })).toBeInTheDocument();
   });
 });

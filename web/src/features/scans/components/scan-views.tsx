@@ -1,6 +1,7 @@
 import { Badge, Tabs } from '@chakra-ui/react';
 import type { ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import type { ReactNode } from 'react';
+import { ScanConstraintsView } from './constraints/scan-constraints-view';
 import { useViewParams } from '../hooks/use-view-params';
 import type { PointDiscussion } from './heatmaps/point-drawer';
 import { ScanHeatmaps } from './heatmaps/scan-heatmaps';
@@ -9,7 +10,7 @@ import type { UseRegionOverlay } from './plane/region-overlay';
 import { ScanPlaneView } from './plane/scan-plane-view';
 import { ScanPointsTable } from './points-table';
 
-export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'discussion'] as const;
+export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'constraints', 'discussion'] as const;
 export type ScanView = (typeof SCAN_VIEWS)[number];
 
 /** The view in the address (`?view=`), heatmaps when there is none or it is unknown. */
@@ -51,6 +52,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
         {spec.axes && <Tabs.Trigger value="heatmaps">{oneAxis ? 'Line plots' : 'Heatmaps'}</Tabs.Trigger>}
         <Tabs.Trigger value="plane">n_s–r plane</Tabs.Trigger>
         <Tabs.Trigger value="points">Points</Tabs.Trigger>
+        <Tabs.Trigger value="constraints">Constraints</Tabs.Trigger>
         {discussion && (
           <Tabs.Trigger value="discussion">
             Discussion
@@ -72,6 +74,9 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
       </Tabs.Content>
       <Tabs.Content value="points">
         <ScanPointsTable scan={scan} />
+      </Tabs.Content>
+      <Tabs.Content value="constraints">
+        <ScanConstraintsView scan={scan} spec={spec} />
       </Tabs.Content>
       {discussion && <Tabs.Content value="discussion">{discussion.content}</Tabs.Content>}
     </Tabs.Root>

@@ -21,6 +21,7 @@ import { LimitSetSelect } from '../limit-set-select';
 import { NsRPlane } from '../plane/ns-r-plane';
 import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
 import type { UseRegionOverlay } from '../plane/region-overlay';
+import { EvidenceTables } from './evidence-tables';
 
 /** What the side-by-side maps can show; one colour scale spans all of them. */
 export const COMPARED_OUTPUTS = ['ns', 'r', 'alphaS', 'nTotal', 'amplitudeScale'] as const satisfies readonly PointOutput[];
@@ -188,6 +189,8 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
           )}
         </Panel>
       </Stack>
+
+      <EvidenceTables scans={scans} />
     </Stack>
   );
 }
