@@ -2,7 +2,7 @@ import type { ScanDetail, ScanPointDto } from '@sixtyfold/shared';
 import { screen, waitFor, within } from '@testing-library/react';
 import { Route, Routes, useLocation } from 'react-router-dom';
 import { scan } from '@/testing/fixtures';
-import { naturalSpec } from '@/testing/scan-fixtures';
+import { likelihoodSet, naturalSpec, pactSet } from '@/testing/scan-fixtures';
 import { json, mockApi } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render';
 import { ScanPointsTable } from './points-table';
@@ -36,6 +36,28 @@ function renderTable(route = '/scans/101?view=points') {
 }
 
 describe('points table', () => {
+  it('judges the points by a chosen likelihood set: Δχ² (sortable) and the confidence level', async () => {
+    const { requests } = mockApi({
+      'GET /api/likelihood-sets': () => json(200, [likelihoodSet(), pactSet]),
+      'GET /api/scans/101/points': () =>
+        json(200, { items: [point(0, { deltaChi2: 6.18, confidence: 0.9545 }), point(1, { status: 'no_end', failureReason: 'ends nowhere', ns: null, r: null, deltaChi2: null, confidence: null })], total: 2, page: 1, pageSize: 50 }),
+    });
+    const { user } = renderTable('/scans/101?view=points&likelihood=pact-lb-bk18@1');
+    const table = await screen.findByRole('table', { name: 'Points of the scan' });
+    const rows = within(table).getAllByRole('row');
+    expect(rows[0]).toHaveTextContent('Δχ²');
+    expect(rows[1]).toHaveTextContent('6.18');
+    expect(rows[1]).toHaveTextContent('95.5 %');
+    expect(requests.some((r) => r.url.pathname === '/api/scans/101/points' && r.url.searchParams.get('likelihood') === 'pact-lb-bk18@1')).toBe(true);
+    await user.click(within(table).getByRole('button', { name: /Sort by Δχ²/ }));
+    await waitFor(() => expect(screen.getByLabelText('address')).toHaveTextContent('sort=deltaChi2'));
+    // Without a set the columns and the Δχ² sort go.
+    await user.selectOptions(screen.getByLabelText('Likelihood set'), '');
+    await waitFor(() => expect(screen.getByLabelText('address')).not.toHaveTextContent('deltaChi2'));
+    expect(within(await screen.findByRole('table', { name: 'Points of the scan' })).getAllByRole('row')[0]).not.toHaveTextContent('Δχ²');
+  });
+
+
   it('shows axis inputs and outputs, and failures by reason instead of numbers', async () => {
     mockApi({
       'GET /api/scans/101/points': () =>

@@ -10,6 +10,7 @@ import { Pager } from '@/components/ui/pager';
 import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
 import { readPage } from '@/lib/search-params';
+import { useLikelihoodSets } from '../api/get-likelihood-sets';
 import { isLive } from '../api/get-scan';
 import { pointsExportHref, useScanPoints, type PointsQuery } from '../api/get-scan-points';
 import { failureLabel, inputLabel, OUTPUT_LABELS } from '../utils/point-columns';
@@ -32,6 +33,14 @@ interface Column {
   value: (point: ScanPointDto) => number | null;
 }
 
+/** With a likelihood set chosen: each point's Δχ² under it (sortable) and the confidence level that corresponds to. */
+const JUDGED_COLUMNS: Column[] = [
+  { key: 'deltaChi2', label: 'Δχ²', value: (p) => p.deltaChi2 ?? null },
+  { key: 'confidence', label: 'Confidence', value: (p) => p.confidence ?? null },
+];
+/** Columns the API cannot sort or filter by. */
+const DISPLAY_ONLY = new Set<PointColumn>(['confidence']);
+
 function columnsOf(spec: StoredScanSpec): Column[] {
   const axes = variedInputs(spec);
   return [
@@ -51,9 +60,10 @@ function columnsOf(spec: StoredScanSpec): Column[] {
  */
 export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
   const spec = scan.spec;
-  const columns = columnsOf(spec);
   const [params, setParams] = useSearchParams();
   const query: PointsQuery = { ...readPointsQuery(params), pageSize: String(PAGE_SIZE) };
+  const sets = useLikelihoodSets();
+  const columns = [...columnsOf(spec), ...(query.likelihood ? JUDGED_COLUMNS : [])];
   const page = readPage(query.page ?? null);
   const points = useScanPoints(scan.id, query, isLive(scan));
   const filters = filtersOf(query);
@@ -116,7 +126,32 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
               <NativeSelect.Indicator />
             </NativeSelect.Root>
           </Field.Root>
-          <ColumnFilterForm columns={columns} onApply={(filter) => setQuery(withFilter(query, filter))} />
+          <Field.Root w={{ base: 'full', md: '64' }}>
+            <Field.Label>Judge by</Field.Label>
+            <NativeSelect.Root size="sm">
+              <NativeSelect.Field
+                bg="bg.panel"
+                aria-label="Likelihood set"
+                value={query.likelihood ?? ''}
+                onChange={(event) => {
+                  const next: PointsQuery = { ...query, likelihood: event.target.value };
+                  delete next.page;
+                  // Δχ² sorts only under a set.
+                  if (!event.target.value && next.sort === 'deltaChi2') delete next.sort;
+                  setQuery(next);
+                }}
+              >
+                <option value="">No likelihood set</option>
+                {(sets.data ?? []).map((set) => (
+                  <option key={`${set.key}@${set.version}`} value={`${set.key}@${set.version}`}>
+                    {set.name} (v{set.version})
+                  </option>
+                ))}
+              </NativeSelect.Field>
+              <NativeSelect.Indicator />
+            </NativeSelect.Root>
+          </Field.Root>
+          <ColumnFilterForm columns={columns.filter((c) => !JUDGED_COLUMNS.includes(c))} onApply={(filter) => setQuery(withFilter(query, filter))} />
         </Stack>
         <HStack gap="2" wrap="wrap">
           <Text fontSize="sm" color="fg.muted">
@@ -184,8 +219,8 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
                 <Table.Row bg="bg.subtle">
                   <Table.ColumnHeader aria-sort={ariaSort('pointIndex')}>{sortButton('pointIndex', 'Point')}</Table.ColumnHeader>
                   {columns.map((column) => (
-                    <Table.ColumnHeader key={column.key} aria-sort={ariaSort(column.key)} textAlign="end">
-                      {sortButton(column.key, column.label)}
+                    <Table.ColumnHeader key={column.key} aria-sort={DISPLAY_ONLY.has(column.key) ? undefined : ariaSort(column.key)} textAlign="end">
+                      {DISPLAY_ONLY.has(column.key) ? column.label : sortButton(column.key, column.label)}
                     </Table.ColumnHeader>
                   ))}
                   <Table.ColumnHeader>Status</Table.ColumnHeader>
@@ -201,7 +236,7 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
                     </Table.Cell>
                     {columns.map((column) => (
                       <Table.Cell key={column.key} textAlign="end">
-                        {formatNumber(column.value(point))}
+                        {column.key === 'confidence' ? formatConfidence(column.value(point)) : formatNumber(column.value(point))}
                       </Table.Cell>
                     ))}
                     <Table.Cell fontFamily="body">
@@ -245,6 +280,11 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
       )}
     </Stack>
   );
+}
+
+/** A confidence level as a percentage, e.g. 0.954 → "95.4 %". */
+function formatConfidence(value: number | null): string {
+  return value === null ? '—' : `${(100 * value).toFixed(1)} %`;
 }
 
 /** Picks a column and a range for it; either bound may stay empty. */

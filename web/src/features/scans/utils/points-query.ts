@@ -21,7 +21,7 @@ export function readPointsQuery(params: URLSearchParams): PointsQuery {
   const query: PointsQuery = {};
   for (const [key, value] of params) {
     if (value === '') continue;
-    if (key === 'page' || key === 'sort' || key === 'order' || key === 'status') query[key] = value;
+    if (key === 'page' || key === 'sort' || key === 'order' || key === 'status' || key === 'likelihood') query[key] = value;
     const range = RANGE_KEY.exec(key);
     if (range && (range[1].startsWith('input.') || isOutput(range[1]))) query[key] = value;
   }
