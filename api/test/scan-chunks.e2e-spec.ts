@@ -20,11 +20,11 @@ import { startWorkers, stopWorkers } from './support/workers';
 // The API reconciles every second throughout, so these also show it never queues a chunk twice.
 
 /**
- * A potential whose modulation (period 6e-7 in φ) the integrator can only follow in tiny steps:
+ * A potential whose modulation (period 6e-8 in φ) the integrator can only follow in tiny steps:
  * with c > 0 a point computes until its wall-time limit, with c = 0 it is plain φ² and quick.
  */
 const SLOW_MODEL = (groupId: number) => ({
-  groupId, name: 'finely modulated quadratic', expression: 'phi^2 * (1 + c * sin(1e7 * phi))',
+  groupId, name: 'finely modulated quadratic', expression: 'phi^2 * (1 + c * sin(1e8 * phi))',
   parameters: [{ name: 'c', defaultValue: 1e-9, description: 'modulation depth' }], phiInit: 16, description: '',
 });
 /** Points end at 1 s; the lock (4 s) is shorter than a chunk of these points takes. */

@@ -379,9 +379,10 @@ export class BackgroundSolver {
     this.node[1] = piInit;
     s.reset(0, this.node, 0.01);
     const side = Math.sign(phiTarget - phiInit);
-    for (let guard = 0; guard < 100_000; guard++) {
+    // Bounded by the point's step budget, like the background it retraces.
+    for (let steps = 1; ; steps++) {
       if (s.step(Infinity) !== 'ok' || !(potential.V(s.y[0]) > 0)) return NaN;
-      const over = budget.exceeded(s.evaluations, 0);
+      const over = budget.exceeded(s.evaluations, steps);
       if (over) return budget.failure(over, 'in the attractor check (a second path from the start)', { n: s.t, phi: s.y[0], pi: s.y[1] });
       if (Math.sign(s.y[1]) !== side) return NaN; // turned before getting there
       if (Math.sign(phiTarget - s.y[0]) !== side) {
@@ -398,7 +399,6 @@ export class BackgroundSolver {
         return s.y[1];
       }
     }
-    return NaN;
   }
 
   private potentialFailure(): Failure {
