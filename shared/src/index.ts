@@ -20,7 +20,7 @@ export * from './queue/scan-queue.js';
 export * from './schemas/scan-point.schema.js';
 export * from './schemas/scan-plane.schema.js';
 export * from './schemas/api-token.schema.js';
-export * from './observations/observational-limits.js';
+export * from './observations/reference-predictions.js';
 export * from './schemas/mail.schema.js';
 export * from './schemas/invitation.schema.js';
 export * from './schemas/comment.schema.js';

@@ -1,8 +1,5 @@
 import { likelihoodSetSchema, type LikelihoodSet, type LikelihoodSource } from '../schemas/likelihood-set.schema.js';
 
-// The statistics module replaces `observations/observational-limits.ts` (today's boxes) once the
-// plane and heatmaps draw these sets' regions; until then both stay.
-
 const APPROXIMATION =
   'An approximation of the published result, not the published likelihood: a Gaussian in n_s with the published ' +
   'mean and 68% width, and a half-Gaussian in r ≥ 0 whose width σ_r = r95/1.96 puts the published 95% upper limit ' +

@@ -4,7 +4,7 @@ import { adminUser, memberUser } from '@/testing/fixtures';
 import { plotIn } from '@/testing/plotly-chart-mock';
 import { apiError, json, mockApi, type MockRequest } from '@/testing/mock-api';
 import { renderApp } from '@/testing/render';
-import { naturalSpec, scanDetail, slice } from '@/testing/scan-fixtures';
+import { likelihoodSet, naturalSpec, pactSet, scanDetail, slice } from '@/testing/scan-fixtures';
 
 vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
 // Whole pages with several queries each: give a busy machine time.
@@ -25,6 +25,8 @@ const values: Record<string, (number | null)[][]> = {
   r: [[0.09, 0.05, null], [0.08, 0.03, null], [0.07, 0.02, null]],
   alphaS: [[-7e-4, -6e-4, null], [-6e-4, -5e-4, null], [-5e-4, -4e-4, null]],
   status: [[null, null, null], [null, null, null], [null, null, null]],
+  // As the API judges these cells under planck18-bk18 (the numbers only need to differ per cell here).
+  deltaChi2: [[30, 12, null], [16, 0.4, null], [9, 1.2, null]],
 };
 const slices: Record<string, ScanGridSlice> = Object.fromEntries(
   Object.entries(values).map(([output, z]) => [output, slice(output as ScanGridSlice['output'], z, status, axes)]),
@@ -35,6 +37,7 @@ function api(user: CurrentUser, detail = scanDetail(), extra: Record<string, (re
     'GET /api/auth/me': () => json(200, user),
     'GET /api/scans/42': () => json(200, detail),
     'GET /api/scans/42/grid': (request) => json(200, slices[request.url.searchParams.get('output') ?? 'ns']),
+    'GET /api/likelihood-sets': () => json(200, [likelihoodSet(), pactSet]),
     ...extra,
   });
 }
@@ -164,11 +167,25 @@ describe('scan heatmaps', () => {
     expect(plotIn(ns).layout.annotations).toEqual([expect.objectContaining({ text: 'one point per cell' })]);
     expect(screen.getAllByText(/6 ok, 2 failed, 1 not stored yet$/)).toHaveLength(3);
 
-    // Inside the 95% n_s interval and r ≤ 0.036: only (f = 7, N_* = 55) and (f = 7, N_* = 60).
-    expect(screen.getByText(/^Outlined \(2 cells\)/)).toHaveTextContent('Source: n_s = 0.9649 ± 0.0042 (68%): Planck Collaboration 2020');
-    await user.click(screen.getByRole('checkbox', { name: 'Outline cells inside the limits' }));
-    await waitFor(() => expect(router.state.location.search).toBe('?outline=off'), slow);
-    await waitFor(() => expect(screen.queryByText(/^Outlined/)).not.toBeInTheDocument(), slow);
+    // The 68 and 95 % boundaries of the default set, as contour lines of its Δχ² over every panel.
+    await waitFor(() => expect(grids.length).toBeGreaterThan(0));
+    const asked = () => requests.filter((r) => r.url.searchParams.get('output') === 'deltaChi2').map((r) => r.url.searchParams.get('likelihood'));
+    await waitFor(() => expect(asked()).toContain('planck18-bk18@1'), slow);
+    const contours = () => (plotIn(screen.getByRole('img', { name: 'Heatmap of r over f and N_*' })).data as { type: string; z?: unknown; contours?: { start: number } }[]).filter((t) => t.type === 'contour');
+    await waitFor(() => expect(contours()).toHaveLength(4), slow);
+    expect(contours()[0].z).toEqual(values.deltaChi2);
+    expect(contours().map((t) => t.contours!.start.toFixed(2))).toEqual(['2.30', '2.30', '6.18', '6.18']);
+    expect(screen.getByText(/^Lines: the 68.3 % \(solid, Δχ² = 2.30\) and 95.4 % \(dashed, Δχ² = 6.18\) boundaries/)).toHaveTextContent('of Planck 2018 + BICEP/Keck 2018 for two parameters');
+    expect(screen.getByText(/^An approximation of the published result/)).toBeInTheDocument();
+
+    // Another set redraws the lines from its own Δχ².
+    await user.selectOptions(screen.getByLabelText('Likelihood set'), 'pact-lb-bk18@1');
+    await waitFor(() => expect(asked()).toContain('pact-lb-bk18@1'), slow);
+    expect(router.state.location.search).toBe('?likelihood=pact-lb-bk18%401');
+    await user.click(screen.getByRole('checkbox', { name: '68/95 % boundaries' }));
+    await waitFor(() => expect(router.state.location.search).toContain('boundaries=off'), slow);
+    await waitFor(() => expect(contours()).toHaveLength(0), slow);
+    expect(screen.queryByText(/^Lines: the 68.3 %/)).not.toBeInTheDocument();
 
     await user.selectOptions(screen.getByLabelText('Third panel'), 'Status');
     expect(await screen.findByRole('heading', { name: 'Status of each point' }, slow)).toBeInTheDocument();
@@ -455,19 +472,23 @@ describe('scan n_s–r plane', () => {
     inputs: { f: [5, 7], nStar: [50, 55] },
   };
 
-  it('opens as a tab, plots the ok points over the limits and says when they are sampled', async () => {
+  it('opens as a tab, plots the ok points over the chosen set’s regions and says when they are sampled', async () => {
     const { requests } = api(memberUser, scanDetail(), { 'GET /api/scans/42/plane': () => json(200, plane) });
     const { user, router } = renderApp('/scans/42');
 
     await user.click(await screen.findByRole('tab', { name: 'n_s–r plane' }, slow));
     await waitFor(() => expect(router.state.location.search).toBe('?view=plane'), slow);
-    const chart = await screen.findByRole('img', { name: 'n_s–r plane of Natural inflation, f against N_* with the Planck 2018 + BICEP/Keck 2018 limits' }, slow);
+    const chart = await screen.findByRole('img', { name: 'n_s–r plane of Natural inflation, f against N_* with the regions of Planck 2018 + BICEP/Keck 2018' }, slow);
     expect(requests.find((r) => r.url.pathname === '/api/scans/42/plane')?.url.searchParams.get('limit')).toBe('5000');
     expect(screen.getByText(/sampled evenly, 1 in 3 of its points \(steps of 3 × 1 along f × nStar\): 2 of its 12,000 ok points shown/)).toBeInTheDocument();
-    expect(screen.getByText(/^Shaded: n_s interval × r bound/)).toHaveTextContent('BICEP/Keck Collaboration 2021');
+    expect(screen.getByText(/^Shaded: the joint \(n_s, r\) regions of the set, Δχ² ≤ 2.30 \(68.3 %\) and 6.18 \(95.4 %\)/)).toHaveTextContent('r at k = 0.05 Mpc⁻¹');
+    const regionNames = () => (plotIn(chart).data as { name: string; fill?: string }[]).filter((t) => t.fill === 'toself').map((t) => t.name);
+    expect(regionNames()).toEqual(['Planck 2018 + BICEP/Keck 2018: 95.4 % (Δχ² ≤ 6.18)', 'Planck 2018 + BICEP/Keck 2018: 68.3 % (Δχ² ≤ 2.30)']);
+    expect(screen.getByRole('link', { name: 'arXiv:2110.00483' })).toBeInTheDocument();
 
-    await user.selectOptions(screen.getByLabelText('Observational limits'), 'Planck 2018 alone');
-    expect(await screen.findByText(/^Shaded/, undefined, slow)).toHaveTextContent('r_0.002 < 0.10 (95%)');
+    await user.selectOptions(screen.getByLabelText('Likelihood set'), 'pact-lb-bk18@1');
+    await waitFor(() => expect(regionNames()[0]).toBe('P-ACT-LB + BICEP/Keck 2018: 95.4 % (Δχ² ≤ 6.18)'), slow);
+    expect(screen.getByRole('link', { name: 'arXiv:2503.14452' })).toBeInTheDocument();
     await user.click(screen.getByRole('radio', { name: 'Log' }));
     await waitFor(() => expect(plotIn(screen.getByRole('img', { name: /n_s–r plane/ })).layout.yaxis?.type).toBe('log'), slow);
     await user.selectOptions(screen.getByLabelText('Colour by'), 'N_*');

@@ -29,7 +29,9 @@ export const liveSliceRefreshMs = (lastAnswerMs: number | undefined) => Math.max
 export interface ScanGridParams {
   x: string;
   y: string;
-  output: PointOutput | 'status';
+  output: PointOutput | 'status' | 'deltaChi2';
+  /** The set `deltaChi2` is judged by, as `key@version`. */
+  likelihood?: string;
   /** Index along each axis that is neither x nor y. */
   at: Record<string, number>;
   /** Most cells along each axis (the API's limit when absent). */
@@ -38,11 +40,12 @@ export interface ScanGridParams {
   window?: SliceWindow | null;
 }
 
-export const getScanGrid = (scanId: number, { x, y, output, at, maxCells, window }: ScanGridParams, signal?: AbortSignal) =>
+export const getScanGrid = (scanId: number, { x, y, output, likelihood, at, maxCells, window }: ScanGridParams, signal?: AbortSignal) =>
   api.get(`/scans/${scanId}/grid`, {
     schema: scanGridSliceSchema,
     query: {
       x, y, output,
+      ...(likelihood !== undefined && { likelihood }),
       ...Object.fromEntries(Object.entries(at).map(([name, index]) => [`at.${name}`, index])),
       ...(maxCells !== undefined && { maxCells }),
       ...window,
@@ -54,8 +57,9 @@ export const getScanGrid = (scanId: number, { x, y, output, at, maxCells, window
 const answerMs = new WeakMap<ScanGridSlice, number>();
 
 /** `live` refetches as liveSliceRefreshMs says, so a heatmap fills in while workers store points. */
-export const getScanGridQueryOptions = (scanId: number, params: ScanGridParams, { live = false }: { live?: boolean } = {}) =>
+export const getScanGridQueryOptions = (scanId: number, params: ScanGridParams, { live = false, enabled = true }: { live?: boolean; enabled?: boolean } = {}) =>
   queryOptions({
+    enabled,
     queryKey: [...scanResultsKey(scanId), 'grid', params],
     queryFn: async ({ signal }) => {
       const started = performance.now();
@@ -68,5 +72,5 @@ export const getScanGridQueryOptions = (scanId: number, params: ScanGridParams, 
     refetchInterval: (query) => (live ? liveSliceRefreshMs(query.state.data && answerMs.get(query.state.data)) : false),
   });
 
-export const useScanGridSlice = (scanId: number, params: ScanGridParams, options: { live?: boolean } = {}) =>
+export const useScanGridSlice = (scanId: number, params: ScanGridParams, options: { live?: boolean; enabled?: boolean } = {}) =>
   useQuery(getScanGridQueryOptions(scanId, params, options));

@@ -1,7 +1,7 @@
-import { findLimits, nsInterval, ScanGrid } from '@sixtyfold/shared';
+import { ScanGrid } from '@sixtyfold/shared';
 import { naturalSpec, slice } from '@/testing/scan-fixtures';
 import type { ScanGridSlice } from '@sixtyfold/shared';
-import { cellCounts, cellPointIndex, cellStates, cellStatistic, failedByReason, failureGroups, insideLimitsMask, isLogSpaced, markedCells, outlineSegments, sameCells, zoomWindow, zRangeOf } from './grid-cells';
+import { cellCounts, cellPointIndex, cellStates, cellStatistic, failedByReason, failureGroups, isLogSpaced, markedCells, sameCells, zoomWindow, zRangeOf } from './grid-cells';
 
 /** A whole axis at one point per cell, or in blocks of `block` values. */
 const axis = (parameter: string, values: number[], block = 1) => ({
@@ -81,41 +81,6 @@ describe('failed and missing cells', () => {
     expect(cellStatistic(blocks)).toBe('blocks of 2 × 2 points: mean');
     expect(cellStatistic(slice('ns', [[0.96]], [['ok']]))).toBe('one point per cell');
     expect(zRangeOf([blocks])).toEqual([0.95, 0.97]);
-  });
-});
-
-describe('cells inside the observational limits', () => {
-  const limits = findLimits('planck18-bk18');
-  const [low, high] = nsInterval(limits, 95);
-
-  it('needs n_s inside the 95% interval and r at most the 95% bound, both stored', () => {
-    const ns = slice('ns', [[limits.ns.mean, low - 1e-6, high - 1e-9], [limits.ns.mean, limits.ns.mean, null]], [['ok', 'ok', 'ok'], ['ok', 'ok', 'no_end']]);
-    const r = slice('r', [[0.01, 0.01, limits.r.max95], [limits.r.max95 * 1.01, null, 0.01]], [['ok', 'ok', 'ok'], ['ok', 'ok', 'no_end']]);
-    expect(insideLimitsMask(ns, r, limits)).toEqual([
-      [true, false, true],
-      [false, false, false],
-    ]);
-  });
-
-  it('judges by the chosen limit set', () => {
-    const ns = slice('ns', [[limits.ns.mean]], [['ok']]);
-    const r = slice('r', [[0.05]], [['ok']]);
-    expect(insideLimitsMask(ns, r, findLimits('planck18-bk18'))).toEqual([[false]]);
-    expect(insideLimitsMask(ns, r, findLimits('planck18'))).toEqual([[true]]);
-  });
-
-  it('outlines a region once, along its border only', () => {
-    const { x, y } = outlineSegments([
-      [true, true],
-      [true, false],
-    ]);
-    // Three cells in an L: 8 outer edges, each drawn as two points and a break.
-    expect(x).toHaveLength(8 * 3);
-    const edges = new Set<string>();
-    for (let i = 0; i < x.length; i += 3) edges.add(`${x[i]},${y[i]}-${x[i + 1]},${y[i + 1]}`);
-    expect(edges.has('0.5,-0.5-0.5,0.5')).toBe(false); // between the two top cells
-    expect(edges.has('0.5,0.5-1.5,0.5')).toBe(true); // under the top right cell, above the empty one
-    expect(outlineSegments([[false]])).toEqual({ x: [], y: [] });
   });
 });
 

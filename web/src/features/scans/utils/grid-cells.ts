@@ -1,4 +1,4 @@
-import { insideLimits, type ConfidenceLevel, type ObservationalLimits, type ScanGrid, type ScanGridSlice } from '@sixtyfold/shared';
+import type { ScanGrid, ScanGridSlice } from '@sixtyfold/shared';
 
 type SliceCut = Pick<ScanGridSlice, 'x' | 'y' | 'at'>;
 type SliceAxis = ScanGridSlice['x'];
@@ -97,43 +97,6 @@ export function cellCounts(slice: Pick<ScanGridSlice, 'x' | 'y' | 'ok' | 'failed
   const failed = Object.values(slice.failed).reduce((n, column) => n + sum(column), 0);
   const points = (slice.x.to - slice.x.from + 1) * (slice.y.to - slice.y.from + 1);
   return { ok, failed, missing: points - ok - failed };
-}
-
-/**
- * Cells whose n_s and r (their block means) both lie inside the limits (n_s interval × r bound,
- * see insideLimits). The two slices must cover the same cells; cells without OK points never are.
- */
-export function insideLimitsMask(ns: ScanGridSlice, r: ScanGridSlice, limits: ObservationalLimits, level: ConfidenceLevel = 95): boolean[][] {
-  const inside = (ns.mean ?? []).map((value, c) => {
-    const rValue = r.mean?.[c] ?? null;
-    return value !== null && rValue !== null && insideLimits(value, rValue, limits, level);
-  });
-  return cellRows(ns, inside);
-}
-
-/**
- * The outline of the true cells of a mask as line segments in cell coordinates (cell (ix, iy)
- * spans ix ± ½, iy ± ½), separated by nulls as Plotly draws broken lines. Only edges between an
- * inside cell and an outside one (or the border) are drawn, so regions get one clean outline.
- */
-export function outlineSegments(mask: boolean[][]): { x: (number | null)[]; y: (number | null)[] } {
-  const x: (number | null)[] = [];
-  const y: (number | null)[] = [];
-  const inside = (ix: number, iy: number) => mask[iy]?.[ix] === true;
-  const edge = (x0: number, y0: number, x1: number, y1: number) => {
-    x.push(x0, x1, null);
-    y.push(y0, y1, null);
-  };
-  mask.forEach((row, iy) =>
-    row.forEach((cell, ix) => {
-      if (!cell) return;
-      if (!inside(ix - 1, iy)) edge(ix - 0.5, iy - 0.5, ix - 0.5, iy + 0.5);
-      if (!inside(ix + 1, iy)) edge(ix + 0.5, iy - 0.5, ix + 0.5, iy + 0.5);
-      if (!inside(ix, iy - 1)) edge(ix - 0.5, iy - 0.5, ix + 0.5, iy - 0.5);
-      if (!inside(ix, iy + 1)) edge(ix - 0.5, iy + 0.5, ix + 0.5, iy + 0.5);
-    }),
-  );
-  return { x, y };
 }
 
 /** True when the values are positive with one ratio between neighbours: a log-spaced axis. */

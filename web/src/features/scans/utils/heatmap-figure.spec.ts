@@ -2,8 +2,9 @@ import type { ScanGridSlice } from '@sixtyfold/shared';
 import { slice } from '@/testing/scan-fixtures';
 import { failureSlot } from './failure-colors';
 import { heatmapFigure, tickIndices } from './heatmap-figure';
+import { SET_COLORS } from './plane-figure';
 
-type Trace = { type: string; name: string; z?: (number | null)[][]; text?: string[][]; zmin?: number; zmax?: number; x?: (number | null)[] };
+type Trace = { type: string; name: string; contours?: { start: number; end: number; coloring: string }; line?: { color: string; dash: string }; z?: (number | null)[][]; text?: string[][]; zmin?: number; zmax?: number; x?: (number | null)[] };
 
 const status = [
   ['ok', 'insufficient_efolds', 'ok'],
@@ -46,13 +47,17 @@ describe('heatmap traces', () => {
     expect([logged.zmin, logged.zmax]).toEqual([-11, -7]);
   });
 
-  it('outlines only when some cell is inside', () => {
-    const none = heatmapFigure({ slice: ns, outline: [[false, false, false], [false, false, false]] }).data as Trace[];
-    expect(none.some((t) => t.type === 'scatter')).toBe(false);
-    const some = heatmapFigure({ slice: ns, outline: [[true, false, false], [false, false, false]] }).data as Trace[];
-    const lines = some.filter((t) => t.type === 'scatter');
-    expect(lines).toHaveLength(2);
-    expect(lines[0].x).toEqual([-0.5, -0.5, null, 0.5, 0.5, null, -0.5, 0.5, null, -0.5, 0.5, null]);
+  it('draws each set’s 68 and 95 % boundaries as contour lines of its Δχ² at 2.30 and 6.18', () => {
+    const chi2 = slice('deltaChi2', [[0.5, null, 9], [3, null, null]], status, { y: { parameter: 'f', values: [5, 7] } });
+    const lines = (heatmapFigure({ slice: ns, boundaries: [{ slice: chi2, color: SET_COLORS[1] }] }).data as Trace[]).filter((t) => t.type === 'contour');
+    // Two levels, each a white line under the set's coloured one.
+    expect(lines).toHaveLength(4);
+    expect(lines.map((t) => t.contours!.start.toFixed(4))).toEqual(['2.2957', '2.2957', '6.1801', '6.1801']);
+    expect(lines.every((t) => t.contours!.start === t.contours!.end && t.contours!.coloring === 'none')).toBe(true);
+    expect(lines[1].line).toMatchObject({ color: `rgb(${SET_COLORS[1].rgb})`, dash: 'solid' });
+    expect(lines[3].line!.dash).toBe('dash');
+    expect(lines[0].z).toEqual([[0.5, null, 9], [3, null, null]]);
+    expect((heatmapFigure({ slice: ns }).data as Trace[]).some((t) => t.type === 'contour')).toBe(false);
   });
 
   it('draws a status slice as ok cells plus the failure overlay', () => {

@@ -3,7 +3,8 @@ import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
 import { failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
-import { cellRows, cellSpan, cellStates, cellStatistic, isLogSpaced, outlineSegments } from './grid-cells';
+import { cellRows, cellSpan, cellStates, cellStatistic, isLogSpaced } from './grid-cells';
+import { DRAWN_LEVELS } from './plane-figure';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
 import { inputLabel } from './point-columns';
 
@@ -14,10 +15,16 @@ export interface HeatmapFigureInput {
   zRange?: [number, number];
   /** Other outputs at the same cells (n_s and r, say), listed when hovering a cell. */
   hoverSlices?: ScanGridSlice[];
-  /** Cells to outline, e.g. those inside the observational limits. */
-  outline?: boolean[][] | null;
+  /** Δχ² of likelihood sets at the same cells: each draws its 68 and 95 % boundary lines. */
+  boundaries?: BoundarySlice[];
   /** Cells to mark with a dot, e.g. those whose point has comments. */
   marked?: boolean[][] | null;
+}
+
+/** One likelihood set's Δχ² slice (output `deltaChi2`) and the colour its lines take (SET_COLORS). */
+export interface BoundarySlice {
+  slice: ScanGridSlice;
+  color: { rgb: string };
 }
 
 // Past this many cells a text label per cell costs more memory than a hover is worth.
@@ -96,11 +103,34 @@ function hoverTexts(slice: ScanGridSlice, states: (string | null)[], others: Sca
 }
 
 /**
+ * The 68 and 95 % boundaries (Δχ² = 2.30 and 6.18, two parameters) of each set as contour lines of
+ * its Δχ² over the cells, interpolated between cell centres by Plotly (a block's Δχ² is its mean).
+ * Solid at 68 %, dashed at 95 %; a white line under each keeps it visible on every colour.
+ */
+export function boundaryTraces(boundaries: BoundarySlice[], xs: number[], ys: number[]): Data[] {
+  // A contour needs cells in two directions.
+  if (xs.length < 2 || ys.length < 2) return [];
+  return boundaries.flatMap(({ slice, color }) => {
+    const z = cellRows(slice, slice.mean ?? []);
+    return DRAWN_LEVELS.flatMap((drawn) =>
+      [{ color: '#ffffff', width: 3.5 }, { color: `rgb(${color.rgb})`, width: 1.8 }].map(
+        (line) =>
+          ({
+            type: 'contour', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, x: xs, y: ys, z,
+            contours: { coloring: 'none', start: drawn.deltaChi2, end: drawn.deltaChi2, size: 1, showlabels: false },
+            line: { ...line, dash: drawn.dash, smoothing: 0.6 }, showscale: false, hoverinfo: 'skip', connectgaps: false,
+          }) as Data,
+      ),
+    );
+  });
+}
+
+/**
  * The Plotly traces of one heatmap panel, in cell coordinates (cell ix spans ix ± ½) with the
  * axis values as tick labels, so list and log-spaced axes get equal cells. Failed cells are
  * never drawn as numbers: their z is null in the data and a second trace colours them by reason.
  */
-export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked }: HeatmapFigureInput): { data: Data[]; layout: Partial<Layout> } {
+export function heatmapFigure({ slice, zRange, hoverSlices = [], boundaries = [], marked }: HeatmapFigureInput): { data: Data[]; layout: Partial<Layout> } {
   const xs = slice.x.values.map((_, i) => i);
   const ys = slice.y.values.map((_, i) => i);
   const cells = xs.length * ys.length;
@@ -138,13 +168,7 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], outline, marked
     } as Data);
   }
 
-  if (outline?.some((row) => row.some(Boolean))) {
-    const segments = outlineSegments(outline);
-    // A dark line under a light one stays visible on every colour of the scale.
-    for (const line of [{ color: PLOT_COLORS.ink, width: 4 }, { color: '#ffffff', width: 1.6 }]) {
-      data.push({ type: 'scatter', mode: 'lines', name: 'inside the limits', ...segments, line, hoverinfo: 'skip', showlegend: false } as Data);
-    }
-  }
+  data.push(...boundaryTraces(boundaries, xs, ys));
 
   const dots = { x: [] as number[], y: [] as number[] };
   marked?.forEach((row, iy) => row.forEach((on, ix) => on && (dots.x.push(ix), dots.y.push(iy))));

@@ -1,8 +1,8 @@
-import { attractorPrediction, findLimits, monomialPrediction, nsInterval, type ScanPlane } from '@sixtyfold/shared';
+import { attractorPrediction, findLikelihoodSet, monomialPrediction, type ScanPlane } from '@sixtyfold/shared';
 import { regionLabel } from '@/lib/region-labels';
-import { planeFigure, referenceTraces, rFloorOf, SERIES_COLORS } from './plane-figure';
+import { planeFigure, referenceTraces, rFloorOf, SERIES_COLORS, SET_COLORS } from './plane-figure';
 
-type Trace = { name: string; x: number[]; y: number[]; customdata?: unknown[]; marker?: { color?: unknown; colorbar?: { title?: { text?: string } } } };
+type Trace = { name: string; x: number[]; y: number[]; fillcolor?: string; line?: { dash?: string }; customdata?: unknown[]; marker?: { color?: unknown; colorbar?: { title?: { text?: string } } } };
 
 const plane = (overrides: Partial<ScanPlane> = {}): ScanPlane => ({
   okPoints: 3,
@@ -17,18 +17,42 @@ const plane = (overrides: Partial<ScanPlane> = {}): ScanPlane => ({
   inputs: { f: [5, 7, 10], nStar: [50, 55, 60] },
   ...overrides,
 });
-const limits = findLimits('planck18-bk18');
+const planckBk = findLikelihoodSet('planck18-bk18')!;
+const pact = findLikelihoodSet('pact-lb-bk18')!;
+const likelihoods = [planckBk];
 
 describe('the n_s–r plane', () => {
-  it('shades n_s interval × r bound rectangles, named as such', () => {
-    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], limits, rScale: 'linear', references: false }).data as Trace[];
+  it('fills each set’s joint 68 and 95 % regions, the wider one first, as half-ellipses on r ≥ 0', () => {
+    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], likelihoods, rScale: 'linear', references: false }).data as Trace[];
     const [wide, narrow] = data;
-    const [low95, high95] = nsInterval(limits, 95);
-    expect(wide.name).toBe('n_s 95% interval × r < 0.036 (95%)');
-    expect(wide.x).toEqual([low95, high95, high95, low95, low95]);
-    expect(wide.y).toEqual([0, 0, 0.036, 0.036, 0]);
-    expect(narrow.name).toBe('n_s 68% interval × r < 0.036 (95%)');
-    expect(narrow.x[0]).toBeCloseTo(0.9649 - 0.0042, 12);
+    expect(wide.name).toBe('Planck 2018 + BICEP/Keck 2018: 95.4 % (Δχ² ≤ 6.18)');
+    expect(narrow.name).toBe('Planck 2018 + BICEP/Keck 2018: 68.3 % (Δχ² ≤ 2.30)');
+    expect(wide.line?.dash).toBe('dash');
+    // A Gaussian in n_s (0.9649 ± 0.0042) and a half-Gaussian in r with σ_r = 0.036/1.96: the region
+    // Δχ² ≤ t ends on r = 0 at n_s = μ ± σ√t and is highest, r = σ_r√t, at n_s = μ (closed form).
+    // t = 2.2957 and 6.1801 are the χ² quantiles of 1σ and 2σ in two parameters (Press et al., Numerical Recipes §15.6).
+    const t68 = 2.2957489;
+    expect(Math.min(...narrow.x)).toBeCloseTo(0.9649 - 0.0042 * Math.sqrt(t68), 6);
+    expect(Math.max(...narrow.x)).toBeCloseTo(0.9649 + 0.0042 * Math.sqrt(t68), 6);
+    expect(Math.max(...narrow.y)).toBeCloseTo((0.036 / 1.959964) * Math.sqrt(t68), 4);
+    expect(Math.min(...wide.x)).toBeCloseTo(0.9649 - 0.0042 * Math.sqrt(6.1800743), 6);
+    // Closed: the last vertex is the first.
+    expect([narrow.x.at(-1), narrow.y.at(-1)]).toEqual([narrow.x[0], narrow.y[0]]);
+  });
+
+  it('draws every chosen set in its own colour, and frames the plot on their regions', () => {
+    const figure = planeFigure({ series: [{ label: 'scan', plane: plane({ ns: [0.965], r: [0.01], pointIndex: [0] }) }], likelihoods: [planckBk, pact], rScale: 'linear', references: false });
+    const regions = (figure.data as Trace[]).filter((t) => t.fillcolor);
+    expect(regions.map((t) => t.name.split(':')[0])).toEqual([planckBk.name, pact.name, planckBk.name, pact.name]);
+    expect(regions[1].fillcolor).toContain(SET_COLORS[1].rgb);
+    // P-ACT-LB's n_s = 0.974 ± 0.003 reaches 0.974 + 0.003 √6.18 = 0.9815: inside the frame.
+    const [, nsHigh] = figure.layout.xaxis!.range as number[];
+    expect(nsHigh).toBeGreaterThan(0.974 + 0.003 * Math.sqrt(6.1800743));
+  });
+
+  it('draws no region while no set is chosen or loaded', () => {
+    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], likelihoods: [], rScale: 'linear', references: false }).data as Trace[];
+    expect(data.map((t) => t.name)).toEqual(['scan']);
   });
 
   it('starts a log r axis below the smallest r, so the regions stay drawable', () => {
@@ -54,7 +78,7 @@ describe('the n_s–r plane', () => {
   });
 
   it('colours one scan by the chosen parameter and says which point each marker is', () => {
-    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], colorBy: 'f', limits, rScale: 'linear', references: false }).data as Trace[];
+    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], colorBy: 'f', likelihoods, rScale: 'linear', references: false }).data as Trace[];
     const points = data.at(-1)!;
     expect(points.marker?.color).toEqual([5, 7, 10]);
     expect(points.marker?.colorbar?.title?.text).toBe('f');
@@ -64,7 +88,7 @@ describe('the n_s–r plane', () => {
   it('gives several scans a colour each and a legend entry by label', () => {
     const data = planeFigure({
       series: [{ label: 'first', plane: plane() }, { label: 'second', plane: plane({ pointIndex: [1, 2, 3] }) }],
-      colorBy: 'f', limits, rScale: 'log', references: true,
+      colorBy: 'f', likelihoods, rScale: 'log', references: true,
     }).data as Trace[];
     const [first, second] = data.slice(-2);
     expect([first.name, second.name]).toEqual(['first', 'second']);
@@ -77,7 +101,7 @@ describe('the n_s–r plane', () => {
       id: 1, groupId: 10, name: 'Survey A', source: 'Invented survey DR2', confidenceLevel: 0.68,
       vertices: [{ ns: 0.95, r: 0 }, { ns: 0.97, r: 0 }, { ns: 0.96, r: 0.04 }], createdById: 2, createdAt: '2026-12-01T10:00:00.000Z',
     };
-    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], limits, rScale: 'linear', references: false, regions: [region] }).data as Trace[];
+    const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], likelihoods, rScale: 'linear', references: false, regions: [region] }).data as Trace[];
     const outline = data.find((t) => t.name === 'Survey A (68% CL, Invented survey DR2)')!;
     expect(regionLabel(region)).toBe('Survey A (68% CL, Invented survey DR2)');
     expect(outline.x).toEqual([0.95, 0.97, 0.96, 0.95]);

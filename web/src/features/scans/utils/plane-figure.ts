@@ -1,5 +1,6 @@
 import {
-  attractorPrediction, monomialPrediction, nsInterval, type ConstraintRegion, type ObservationalLimits, type ScanPlane,
+  attractorPrediction, confidenceOutline, deltaChi2Threshold, monomialPrediction, SIGMA_CONFIDENCE_LEVELS,
+  type ConstraintRegion, type LikelihoodSet, type RegionVertex, type ScanPlane,
 } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
@@ -17,12 +18,27 @@ export interface PlaneFigureInput {
   series: PlaneSeries[];
   /** Colour a single series by this axis parameter or 'nStar'; several series get a colour each. */
   colorBy?: string | null;
-  limits: ObservationalLimits;
+  /** The likelihood sets whose 68 and 95 % regions are drawn under the points (none while they load). */
+  likelihoods: LikelihoodSet[];
   rScale: 'linear' | 'log';
   references: boolean;
   /** The group's uploaded constraint regions to outline beside the built-in limits. */
   regions?: ConstraintRegion[];
 }
+
+/** Colours of the likelihood sets' regions and lines, in order: RGB so that fills can be lighter, and a name for the text. */
+export const SET_COLORS = [
+  { rgb: '67, 82, 158', name: 'blue' },
+  { rgb: '192, 113, 31', name: 'amber' },
+  { rgb: '42, 140, 122', name: 'teal' },
+  { rgb: '140, 90, 168', name: 'purple' },
+] as const;
+
+/** The two regions drawn per set: 1σ and 2σ of a Gaussian, in two parameters (n_s, r): Δχ² ≤ 2.30 and ≤ 6.18. */
+export const DRAWN_LEVELS = [
+  { level: SIGMA_CONFIDENCE_LEVELS[0], percent: '68.3 %', deltaChi2: deltaChi2Threshold(SIGMA_CONFIDENCE_LEVELS[0], 2), fill: 0.22, dash: 'solid' },
+  { level: SIGMA_CONFIDENCE_LEVELS[1], percent: '95.4 %', deltaChi2: deltaChi2Threshold(SIGMA_CONFIDENCE_LEVELS[1], 2), fill: 0.1, dash: 'dash' },
+] as const;
 
 /** Colours of uploaded region outlines, in order. */
 export const REGION_COLORS = ['#2a8c7a', '#b3261e', '#8c5aa8', '#686153'];
@@ -82,20 +98,33 @@ export function referenceTraces(): Data[] {
   });
 }
 
+/** Each set's outline at each drawn level, closed along r = 0 (or the floor of a log axis). */
+export function likelihoodOutlines(sets: LikelihoodSet[], rFloor: number): { set: LikelihoodSet; index: number; drawn: (typeof DRAWN_LEVELS)[number]; outline: RegionVertex[] }[] {
+  return sets.flatMap((set, index) =>
+    DRAWN_LEVELS.map((drawn) => ({
+      set, index, drawn,
+      outline: confidenceOutline(set, drawn.level).map((v) => ({ ns: v.ns, r: Math.max(v.r, rFloor) })),
+    })),
+  );
+}
+
 /**
- * The observational regions as filled rectangles: n_s inside its 68% or 95% interval and r below
- * its 95% limit. This is the product of the two one-dimensional limits (see insideLimits), and
- * the legend says so rather than passing it off as the joint contour.
+ * Each likelihood set's joint (n_s, r) regions, Δχ² ≤ 2.30 and ≤ 6.18 (confidenceOutline), filled
+ * in the set's colour, 95 % under 68 % so both show; the outline is dashed at 95 %.
  */
-export function limitTraces(limits: ObservationalLimits, rFloor: number): Data[] {
-  return ([95, 68] as const).map((level) => {
-    const [low, high] = nsInterval(limits, level);
-    return {
-      type: 'scatter', mode: 'lines', fill: 'toself', name: `n_s ${level}% interval × r < ${formatNumber(limits.r.max95)} (95%)`,
-      x: [low, high, high, low, low], y: [rFloor, rFloor, limits.r.max95, limits.r.max95, rFloor],
-      fillcolor: level === 68 ? PLOT_COLORS.limit68 : PLOT_COLORS.limit95, line: { width: 0 }, hoverinfo: 'skip',
-    } as Data;
-  });
+export function likelihoodTraces(sets: LikelihoodSet[], rFloor: number): Data[] {
+  // Widest first, so the narrower regions lie on top.
+  return likelihoodOutlines(sets, rFloor)
+    .sort((a, b) => b.drawn.level - a.drawn.level)
+    .map(({ set, index, drawn, outline }) => {
+      const { rgb } = SET_COLORS[index % SET_COLORS.length];
+      const closed = [...outline, outline[0]];
+      return {
+        type: 'scatter', mode: 'lines', fill: 'toself', name: `${set.name}: ${drawn.percent} (Δχ² ≤ ${drawn.deltaChi2.toFixed(2)})`,
+        x: closed.map((v) => v.ns), y: closed.map((v) => v.r),
+        fillcolor: `rgba(${rgb}, ${drawn.fill})`, line: { color: `rgb(${rgb})`, width: 1.2, dash: drawn.dash }, hoverinfo: 'skip',
+      } as Data;
+    });
 }
 
 /** Each uploaded region as a closed outline (its first vertex repeated at the end), not filled. */
@@ -132,9 +161,10 @@ function hoverText(plane: ScanPlane, i: number, label: string | null): string {
   return lines.join('<br>');
 }
 
-/** The n_s–r plane: limit regions underneath, then reference curves, then the scans' points on top. */
-export function planeFigure({ series, colorBy, limits, rScale, references, regions = [] }: PlaneFigureInput): { data: Data[]; layout: Partial<Layout> } {
-  const data: Data[] = [...limitTraces(limits, rFloorOf(series, rScale)), ...regionTraces(regions), ...(references ? referenceTraces() : [])];
+/** The n_s–r plane: the sets' regions underneath, then reference curves, then the scans' points on top. */
+export function planeFigure({ series, colorBy, likelihoods, rScale, references, regions = [] }: PlaneFigureInput): { data: Data[]; layout: Partial<Layout> } {
+  const rFloor = rFloorOf(series, rScale);
+  const data: Data[] = [...likelihoodTraces(likelihoods, rFloor), ...regionTraces(regions), ...(references ? referenceTraces() : [])];
 
   const single = series.length === 1;
   series.forEach(({ label, plane }, s) => {
@@ -157,17 +187,20 @@ export function planeFigure({ series, colorBy, limits, rScale, references, regio
         : { size: many ? 4 : 7, color: SERIES_COLORS[s % SERIES_COLORS.length], opacity: 0.85, line: { width: 0 } },
     } as Data);
   });
-  // Framed on the points and the 95% region; reference curves run on past the edges.
-  const [low, high] = nsInterval(limits, 95);
-  let nsMin = low;
-  let nsMax = high;
-  let rMax = limits.r.max95;
+  // Framed on the points and the sets' 95 % regions; reference curves run on past the edges.
+  let nsMin = Infinity;
+  let nsMax = -Infinity;
+  let rMax = 0;
+  for (const { outline } of likelihoodOutlines(likelihoods, rFloor)) {
+    for (const v of outline) [nsMin, nsMax, rMax] = [Math.min(nsMin, v.ns), Math.max(nsMax, v.ns), Math.max(rMax, v.r)];
+  }
   for (const { plane } of series) {
     for (const ns of plane.ns) if (Number.isFinite(ns)) [nsMin, nsMax] = [Math.min(nsMin, ns), Math.max(nsMax, ns)];
     for (const r of plane.r) if (Number.isFinite(r)) rMax = Math.max(rMax, r);
   }
+  if (!(nsMax > nsMin)) [nsMin, nsMax] = Number.isFinite(nsMin) ? [nsMin - 0.005, nsMax + 0.005] : [0.94, 0.99];
+  if (!(rMax > 0)) rMax = 0.1;
   const pad = (nsMax - nsMin) * 0.08;
-  const rFloor = rFloorOf(series, rScale);
   return {
     data,
     layout: {

@@ -1,5 +1,5 @@
 import { Heading, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { ScanGrid, type PointOutput, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import { useQueries } from '@tanstack/react-query';
 import { useNavigate } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
@@ -8,16 +8,20 @@ import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
+import { COMPARED_LIKELIHOODS } from '../../api/get-evidence-comparison';
 import { getScanQueryOptions, isLive } from '../../api/get-scan';
 import { getScanGridQueryOptions, panelCells } from '../../api/get-scan-grid';
 import { getScanPlaneQueryOptions } from '../../api/get-scan-plane';
+import { likelihoodRef, useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellPointIndex, insideLimitsMask, sameCells, zRangeOf } from '../../utils/grid-cells';
+import { cellPointIndex, sameCells, zRangeOf } from '../../utils/grid-cells';
+import type { BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
+import { DRAWN_LEVELS, SET_COLORS } from '../../utils/plane-figure';
 import { axisOptions, inputLabel } from '../../utils/point-columns';
-import { OutlineToggle } from '../heatmaps/outline-toggle';
+import { BoundaryToggle } from '../heatmaps/boundary-toggle';
 import { ScanHeatmap } from '../heatmaps/scan-heatmap';
-import { LimitSetSelect } from '../limit-set-select';
+import { LikelihoodSetChecks } from '../likelihood-set-picker';
 import { NsRPlane } from '../plane/ns-r-plane';
 import { PlaneControls, type PlaneSettings } from '../plane/plane-controls';
 import type { UseRegionOverlay } from '../plane/region-overlay';
@@ -68,11 +72,12 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
   const yParam = params.get('y');
   const x = xParam && axes.includes(xParam) ? xParam : axes[0];
   const y = yParam && axes.includes(yParam) && yParam !== x ? yParam : axes.find((name) => name !== x);
-  const outlined = params.get('outline') !== 'off';
-  const limits = findLimits(params.get('limits') ?? undefined);
+  const bounded = params.get('boundaries') !== 'off';
+  // Every chosen set is drawn on every map and on the plane, each in its own colour.
+  const likelihoods = useChosenLikelihoods(COMPARED_LIKELIHOODS);
   const canMap = x !== undefined && y !== undefined;
 
-  // n_s and r of every scan (for the outline and hover), and the chosen output when it is another.
+  // n_s and r of every scan (for hover), and the chosen output when it is another.
   const outputs: ComparedOutput[] = output === 'ns' || output === 'r' ? ['ns', 'r'] : ['ns', 'r', output];
   const sliceQueries = useQueries({
     queries: canMap
@@ -86,7 +91,25 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
   const sliceOf = (s: number, o: ComparedOutput): ScanGridSlice | undefined => sliceQueries[s * outputs.length + outputs.indexOf(o)]?.data;
   const shown = scans.map((_, s) => sliceOf(s, output));
   const zRange = zRangeOf(shown.filter((slice): slice is ScanGridSlice => !!slice));
-  const sliceError = sliceQueries.find((query) => query.isError);
+  // Each scan's Δχ² under each chosen set, at the same cells, for the boundary lines.
+  const boundarySets = bounded && canMap ? likelihoods.sets : [];
+  const boundaryQueries = useQueries({
+    queries: scans.flatMap((scan, s) =>
+      boundarySets.map((set) =>
+        getScanGridQueryOptions(
+          scan.id,
+          { x: x!, y: y!, output: 'deltaChi2', likelihood: likelihoodRef(set), at: middleOfOtherAxes(specs[s], x!, y!), maxCells: panelCells({ wide: false, live: isLive(scan) }) },
+          { live: isLive(scan) },
+        ),
+      ),
+    ),
+  });
+  const boundariesOf = (s: number, slice: ScanGridSlice): BoundarySlice[] =>
+    boundarySets.flatMap((_, b) => {
+      const data = boundaryQueries[s * boundarySets.length + b]?.data;
+      return data && sameCells(data, slice) ? [{ slice: data, color: SET_COLORS[b % SET_COLORS.length] }] : [];
+    });
+  const sliceError = [...sliceQueries, ...boundaryQueries].find((query) => query.isError);
 
   const planeQueries = useQueries({ queries: scans.map((scan) => getScanPlaneQueryOptions(scan.id, { live: isLive(scan) })) });
   const series = scans.flatMap((scan, s) => {
@@ -97,19 +120,26 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
   const regions = useRegionOverlay(scans.map((scan) => scan.groupId));
   const planeSettings: PlaneSettings = {
     colorBy: null,
-    limitsKey: limits.key,
     rScale: params.get('rscale') === 'log' ? 'log' : 'linear',
     references: params.get('refs') !== 'off',
   };
   const onPlaneChange = (changes: Partial<PlaneSettings>) =>
     update({
-      ...(changes.limitsKey !== undefined && { limits: changes.limitsKey }),
       ...(changes.rScale !== undefined && { rscale: changes.rScale === 'log' ? 'log' : null }),
       ...(changes.references !== undefined && { refs: changes.references ? null : 'off' }),
     });
 
   return (
     <Stack gap="6">
+      <Panel p={{ base: '3', md: '4' }}>
+        <HStack gap="4" wrap="wrap" align="end">
+          <LikelihoodSetChecks choice={likelihoods} />
+          <BoundaryToggle checked={bounded} onChange={(checked) => update({ boundaries: checked ? null : 'off' })} />
+        </HStack>
+        <Text fontSize="xs" color="fg.muted" mt="2">
+          Each chosen set’s 68 and 95 % regions are drawn on the maps and on the plane below, each set in its own colour.
+        </Text>
+      </Panel>
       <Stack gap="3">
         <Heading as="h2" size="md" color="ink.900">
           Heatmaps on one colour scale
@@ -126,14 +156,14 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
                 <SelectField label="Output" value={output} options={COMPARED_OUTPUTS.map((o) => ({ value: o, label: outputLabel(o) }))} onChange={(next) => update({ output: next })} />
                 <SelectField label="x axis" value={x} options={axisOptions(axes)} onChange={(next) => update(next === y ? { x: next, y: x } : { x: next })} />
                 <SelectField label="y axis" value={y} options={axisOptions(axes.filter((a) => a !== x))} onChange={(next) => update({ y: next })} />
-                <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
-                <OutlineToggle checked={outlined} onChange={(checked) => update({ outline: checked ? null : 'off' })} />
               </HStack>
               <Text fontSize="xs" color="fg.muted" mt="3">
                 {zRange
                   ? `One colour scale for every scan: ${outputLabel(output)} from ${formatNumber(zRange[0])} to ${formatNumber(zRange[1])}.`
                   : 'No stored values yet.'}{' '}
                 Other axes sit at their middle value in each scan.
+                {boundarySets.length > 0 &&
+                  ` Lines: the ${DRAWN_LEVELS.map((d) => `${d.percent} (${d.dash === 'solid' ? 'solid' : 'dashed'}, Δχ² = ${d.deltaChi2.toFixed(2)})`).join(' and ')} boundaries of ${boundarySets.map((set, b) => `${set.name} (${SET_COLORS[b % SET_COLORS.length].name})`).join(', ')}, for two parameters (n_s, r), through each cell’s Δχ².`}
               </Text>
             </Panel>
             {sliceError?.isError && <ErrorState title="Could not load a heatmap" error={sliceError.error} onRetry={() => sliceError.refetch()} />}
@@ -152,7 +182,7 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
                         slice={slice}
                         zRange={zRange}
                         hoverSlices={matched ? [ns, r] : undefined}
-                        outline={outlined && matched ? insideLimitsMask(ns, r, limits) : null}
+                        boundaries={boundariesOf(s, slice)}
                         onCellClick={({ ix, iy }) => navigate(paths.point.getHref(scan.id, cellPointIndex(grid, slice, ix, iy)))}
                       />
                     ) : (
@@ -180,7 +210,7 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
           ) : (
             <NsRPlane
               series={series}
-              limits={limits}
+              likelihoods={likelihoods.sets}
               rScale={planeSettings.rScale}
               references={planeSettings.references}
               regions={regions.shown}

@@ -1,4 +1,4 @@
-import { Badge, Button, HStack, Link, Stack, Table, Text } from '@chakra-ui/react';
+import { Badge, Box, Button, HStack, Link, Stack, Table, Text } from '@chakra-ui/react';
 import type { ScanConstraints, ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
 import { Link as RouterLink } from 'react-router-dom';
 import { ErrorState } from '@/components/ui/error-state';
@@ -7,11 +7,14 @@ import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
 import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
-import { DEFAULT_LIKELIHOOD, useLikelihoodSets } from '../../api/get-likelihood-sets';
+import { DEFAULT_LIKELIHOOD } from '../../api/get-likelihood-sets';
 import { constraintsCsvHref, useScanConstraints, type ConstraintsQuery } from '../../api/get-scan-constraints';
+import { likelihoodRef, useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
 import { formatInterval } from '../../utils/format-interval';
 import { inputLabel } from '../../utils/point-columns';
+import { LikelihoodSetNote } from '../likelihood-set-note';
+import { LikelihoodSetSelect } from '../likelihood-set-picker';
 import { MarginalPlots } from './marginal-plots';
 
 const PRIOR_OPTIONS = [
@@ -40,25 +43,19 @@ export function ScanConstraintsView({ scan, spec }: { scan: ScanDetail; spec: St
 
 function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
   const [params, update] = useViewParams();
-  const sets = useLikelihoodSets();
+  const choice = useChosenLikelihoods([DEFAULT_LIKELIHOOD]);
   const priors = Object.fromEntries(axes.flatMap((axis) => { const prior = params.get(`prior.${axis}`); return isPrior(prior) ? [[axis, prior]] : []; }));
-  const query: ConstraintsQuery = { likelihood: params.get('likelihood') ?? DEFAULT_LIKELIHOOD, priors };
+  const query: ConstraintsQuery = { likelihood: choice.refs[0], priors };
   const constraints = useScanConstraints(scan.id, query);
   const answer = constraints.data;
 
-  const setOptions = (sets.data ?? []).map((set) => ({ value: `${set.key}@${set.version}`, label: `${set.name} (${set.key} v${set.version})` }));
-  const chosenSet = answer ? `${answer.likelihood.key}@${answer.likelihood.version}` : query.likelihood;
   const priorOf = (axis: string) => priors[axis] ?? answer?.priors.find((p) => p.axis === axis)?.prior ?? 'uniform';
 
   return (
     <Stack gap="4" py="2">
       <Panel p={{ base: '3', md: '4' }}>
         <HStack gap="3" wrap="wrap" align="end">
-          {sets.isError ? (
-            <ErrorState title="Could not load the likelihood sets" error={sets.error} onRetry={() => sets.refetch()} />
-          ) : (
-            <SelectField label="Likelihood set" value={chosenSet} options={setOptions} onChange={(next) => update({ likelihood: next })} minW="72" />
-          )}
+          <LikelihoodSetSelect choice={choice} value={answer ? likelihoodRef(answer.likelihood) : query.likelihood} />
           {axes.map((axis) => (
             <SelectField
               key={axis}
@@ -69,7 +66,11 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
             />
           ))}
         </HStack>
-        {answer && <SetStatement likelihood={answer.likelihood} />}
+        {answer && (
+          <Box mt="3" fontSize="sm">
+            <LikelihoodSetNote set={answer.likelihood} />
+          </Box>
+        )}
       </Panel>
       {constraints.isError ? (
         <ErrorState title="Could not compute the constraints" error={constraints.error} onRetry={() => constraints.refetch()} />
@@ -78,28 +79,6 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
       ) : (
         <ConstraintsResult scanId={scan.id} answer={answer} csvHref={constraintsCsvHref(scan.id, query)} />
       )}
-    </Stack>
-  );
-}
-
-/** The set's own words about what it approximates, and its sources: shown wherever a set is used. */
-function SetStatement({ likelihood }: { likelihood: ScanConstraints['likelihood'] }) {
-  return (
-    <Stack gap="1" mt="3" fontSize="sm">
-      <Text color="fg.muted">{likelihood.statement}</Text>
-      <Text color="fg.muted">
-        Sources:{' '}
-        {likelihood.sources.map((source, i) => (
-          <span key={source.arxiv}>
-            {i > 0 && '; '}
-            {source.label} (
-            <Link href={`https://arxiv.org/abs/${source.arxiv}`} target="_blank" rel="noreferrer" title={source.citation}>
-              arXiv:{source.arxiv}
-            </Link>
-            )
-          </span>
-        ))}
-      </Text>
     </Stack>
   );
 }

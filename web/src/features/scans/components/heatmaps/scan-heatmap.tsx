@@ -4,7 +4,7 @@ import { useMemo } from 'react';
 import { Plot } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
 import { cellCounts, cellStatistic, zoomWindow, zRangeOf, type SliceWindow } from '../../utils/grid-cells';
-import { heatmapFigure } from '../../utils/heatmap-figure';
+import { heatmapFigure, type BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
 import { inputLabel } from '../../utils/point-columns';
 
@@ -16,8 +16,8 @@ export interface ScanHeatmapProps {
   zRange?: [number, number];
   /** Other outputs at the same cells, listed on hover (n_s and r beside α_s, say). */
   hoverSlices?: ScanGridSlice[];
-  /** Cells to outline, e.g. insideLimitsMask(ns, r, limits). */
-  outline?: boolean[][] | null;
+  /** Δχ² slices at the same cells whose 68 and 95 % boundaries are drawn as lines. */
+  boundaries?: BoundarySlice[];
   /** Cells marked with a dot (points with comments). */
   marked?: boolean[][] | null;
   /** A click on a stored cell, by its x and y index; combine with the slice's `at` for the point. */
@@ -44,8 +44,8 @@ function zoomOf(event: Record<string, unknown>): { x: [number, number]; y: [numb
 }
 
 /** One heatmap panel: the output over two axes, failed cells coloured by reason, blanks not yet stored. */
-export function ScanHeatmap({ slice, title, zRange, hoverSlices, outline, marked, onCellClick, onZoom, actions, height = 340 }: ScanHeatmapProps) {
-  const figure = useMemo(() => heatmapFigure({ slice, zRange, hoverSlices, outline, marked }), [slice, zRange, hoverSlices, outline, marked]);
+export function ScanHeatmap({ slice, title, zRange, hoverSlices, boundaries, marked, onCellClick, onZoom, actions, height = 340 }: ScanHeatmapProps) {
+  const figure = useMemo(() => heatmapFigure({ slice, zRange, hoverSlices, boundaries, marked }), [slice, zRange, hoverSlices, boundaries, marked]);
   const counts = cellCounts(slice);
   const range = slice.output === 'status' ? undefined : zRangeOf([slice]);
   const axes = `${inputLabel(slice.x.parameter)} and ${inputLabel(slice.y.parameter)}`;

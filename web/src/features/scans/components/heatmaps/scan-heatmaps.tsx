@@ -1,5 +1,5 @@
 import { Button, HStack, SimpleGrid, Stack, Text } from '@chakra-ui/react';
-import { findLimits, nsInterval, ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { ScanGrid, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 import type { UseQueryResult } from '@tanstack/react-query';
 import { useCallback, useEffect, useMemo } from 'react';
 import { ErrorState } from '@/components/ui/error-state';
@@ -7,17 +7,21 @@ import { LoadingState } from '@/components/ui/loading-state';
 import { preloadPlot } from '@/components/plots/plot';
 import { Panel } from '@/components/ui/panel';
 import { SelectField } from '@/components/ui/select-field';
-import { formatNumber } from '@/lib/format-number';
 import { isLive } from '../../api/get-scan';
+import { DEFAULT_LIKELIHOOD } from '../../api/get-likelihood-sets';
 import { panelCells, useScanGridSlice, type ScanGridParams } from '../../api/get-scan-grid';
+import { likelihoodRef, useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
-import { cellCounts, cellPointIndex, failedByReason, failureGroups, insideLimitsMask, markedCells, sameCells, type SliceWindow } from '../../utils/grid-cells';
+import { cellCounts, cellPointIndex, failedByReason, failureGroups, markedCells, sameCells, type SliceWindow } from '../../utils/grid-cells';
+import type { BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
+import { DRAWN_LEVELS, SET_COLORS } from '../../utils/plane-figure';
 import { axisOptions } from '../../utils/point-columns';
-import { LimitSetSelect } from '../limit-set-select';
+import { LikelihoodSetNote } from '../likelihood-set-note';
+import { LikelihoodSetSelect } from '../likelihood-set-picker';
 import { AxisSlider } from './axis-slider';
+import { BoundaryToggle } from './boundary-toggle';
 import { FailureLegend } from './failure-legend';
-import { OutlineToggle } from './outline-toggle';
 import { PointDrawer, useOpenPoint, type PointDiscussion } from './point-drawer';
 import { ScanHeatmap } from './scan-heatmap';
 
@@ -85,8 +89,9 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const x = xParam && names.includes(xParam) ? xParam : names[0];
   const y = yParam && names.includes(yParam) && yParam !== x ? yParam : names.find((name) => name !== x)!;
   const third: ThirdOutput = (THIRD_OUTPUTS as readonly string[]).includes(thirdParam ?? '') ? (thirdParam as ThirdOutput) : 'alphaS';
-  const outlined = params.get('outline') !== 'off';
-  const limits = findLimits(params.get('limits') ?? undefined);
+  const bounded = params.get('boundaries') !== 'off';
+  const likelihoods = useChosenLikelihoods([DEFAULT_LIKELIHOOD]);
+  const set = likelihoods.sets[0];
 
   // Axes other than x and y sit at an index kept in the address as at.<parameter>; the middle by default.
   const at: Record<string, number> = {};
@@ -106,22 +111,21 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const wide = params.get('wide') === 'on';
 
   const live = isLive(scan);
-  // All three panels ask for the same cells, so that n_s and r combine on hover and in the outline.
+  // All panels ask for the same cells, so that n_s and r combine on hover and the boundary lines fall on every map.
   const base = { x, y, at, window, maxCells: panelCells({ wide, live }) };
   const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
   const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
+  const boundary = useScanGridSlice(scan.id, { ...base, output: 'deltaChi2', likelihood: set && likelihoodRef(set) }, { live, enabled: bounded && !!set });
 
-  // n_s and r are combined (hover, outline) only while both describe the same cells.
+  // n_s and r are combined on hover only while both describe the same cells.
   const nsSlice = ns.data;
   const rSlice = r.data;
   const matched = nsSlice && rSlice && sameCells(nsSlice, rSlice) ? { ns: nsSlice, r: rSlice } : null;
   const hoverSlices = useMemo(() => (nsSlice && rSlice ? [nsSlice, rSlice] : []), [nsSlice, rSlice]);
-  const outline = useMemo(
-    () => (outlined && nsSlice && rSlice && sameCells(nsSlice, rSlice) ? insideLimitsMask(nsSlice, rSlice, limits) : null),
-    [outlined, nsSlice, rSlice, limits],
-  );
-  const insideCount = outline ? outline.reduce((n, row) => n + row.filter(Boolean).length, 0) : 0;
+  const boundarySlice = bounded && set ? boundary.data : undefined;
+  // One array per Δχ² answer, so a panel's figure is rebuilt only when the lines change.
+  const boundaries = useMemo<BoundarySlice[]>(() => (boundarySlice ? [{ slice: boundarySlice, color: SET_COLORS[0] }] : []), [boundarySlice]);
 
   // The clicked cell's point opens in the drawer.
   const [, openPoint] = useOpenPoint(grid.size);
@@ -138,14 +142,13 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const panelProps = (slice: ScanGridSlice) => ({
     slice,
     hoverSlices: matched && sameCells(slice, matched.ns) ? hoverSlices : undefined,
-    outline: outline && matched && sameCells(slice, matched.ns) ? outline : null,
+    boundaries: boundarySlice && sameCells(slice, boundarySlice) ? boundaries : undefined,
     marked: marksOf(slice),
     onCellClick: openCell(slice),
     onZoom,
   });
 
   const statusSource = ns.data ?? r.data;
-  const [nsLow, nsHigh] = nsInterval(limits, 95);
 
   return (
     <Stack gap="4">
@@ -170,8 +173,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
               onChange={(next) => update({ third: next })}
               minW="48"
             />
-            <LimitSetSelect value={limits.key} onChange={(key) => update({ limits: key })} />
-            <OutlineToggle checked={outlined} onChange={(checked) => update({ outline: checked ? null : 'off' })} />
+            <LikelihoodSetSelect choice={likelihoods} />
+            <BoundaryToggle checked={bounded} onChange={(checked) => update({ boundaries: checked ? null : 'off' })} />
           </HStack>
           {Object.keys(at).length > 0 && (
             <Stack direction={{ base: 'column', md: 'row' }} gap="6">
@@ -214,12 +217,15 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
 
       <Stack gap="2" fontSize="sm" color="fg.muted">
         {statusSource && <FailureLegend groups={failureGroups(failedByReason(statusSource))} missing={cellCounts(statusSource).missing} />}
-        {outlined && (
-          <Text>
-            Outlined{matched ? ` (${insideCount.toLocaleString('en-US')} cells)` : ''}: n_s in the 95% interval {formatNumber(nsLow)} to{' '}
-            {formatNumber(nsHigh)} and r below {formatNumber(limits.r.max95)}, the n_s interval × r bound of {limits.label} (the product of the two
-            one-dimensional limits, not the joint contour). Source: {limits.source}.
-          </Text>
+        {bounded && set && (
+          <>
+            <Text>
+              Lines: the {DRAWN_LEVELS.map((d) => `${d.percent} (${d.dash === 'solid' ? 'solid' : 'dashed'}, Δχ² = ${d.deltaChi2.toFixed(2)})`).join(' and ')} boundaries
+              of {set.name} for two parameters (n_s, r), drawn through each cell’s Δχ² (a block’s mean).
+              {boundary.isError ? ` Could not load them: ${boundary.error.message}` : ''}
+            </Text>
+            <LikelihoodSetNote set={set} />
+          </>
         )}
         <Text>
           Click a cell for its point (a block: its first point){pointDiscussion ? ' and its discussion; cells with a dot have comments' : ''}. Drag

@@ -1,15 +1,17 @@
 import { Stack, Text } from '@chakra-ui/react';
-import type { ConstraintRegion, ObservationalLimits } from '@sixtyfold/shared';
+import { ENGINE_PIVOT_PER_MPC, type ConstraintRegion, type LikelihoodSetEntry } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { Plot } from '@/components/plots/plot';
-import { planeFigure, type PlaneSeries } from '../../utils/plane-figure';
+import { DRAWN_LEVELS, planeFigure, type PlaneSeries } from '../../utils/plane-figure';
+import { LikelihoodSetNote } from '../likelihood-set-note';
 
 export interface NsRPlaneProps {
   /** One scan, or 2 to 4 overlaid; each labelled in the legend. */
   series: PlaneSeries[];
   /** With one series: colour its points by this axis parameter or 'nStar'. */
   colorBy?: string | null;
-  limits: ObservationalLimits;
+  /** The likelihood sets whose 68 and 95 % regions lie under the points, each with its statement and sources below. */
+  likelihoods: LikelihoodSetEntry[];
   rScale?: 'linear' | 'log';
   /** Draw the φ^p and α-attractor lines at N_* = 50 and 60. */
   references?: boolean;
@@ -20,11 +22,11 @@ export interface NsRPlaneProps {
   height?: number;
 }
 
-/** OK points of one or more scans on the n_s–r plane, over the observational regions, with their source. */
-export function NsRPlane({ series, colorBy, limits, rScale = 'linear', references = true, regions, onPointClick, height = 480 }: NsRPlaneProps) {
+/** OK points of one or more scans on the n_s–r plane, over the likelihood sets' regions, with their sources. */
+export function NsRPlane({ series, colorBy, likelihoods, rScale = 'linear', references = true, regions, onPointClick, height = 480 }: NsRPlaneProps) {
   const figure = useMemo(
-    () => planeFigure({ series, colorBy, limits, rScale, references, regions }),
-    [series, colorBy, limits, rScale, references, regions],
+    () => planeFigure({ series, colorBy, likelihoods, rScale, references, regions }),
+    [series, colorBy, likelihoods, rScale, references, regions],
   );
   const sampled = series.filter((s) => s.plane.stride > 1);
   const n = (value: number) => value.toLocaleString('en-US');
@@ -35,7 +37,7 @@ export function NsRPlane({ series, colorBy, limits, rScale = 'linear', reference
         data={figure.data}
         layout={figure.layout}
         height={height}
-        label={`n_s–r plane of ${series.map((s) => s.label).join(', ')} with the ${limits.label} limits`}
+        label={`n_s–r plane of ${series.map((s) => s.label).join(', ')}${likelihoods.length ? ` with the regions of ${likelihoods.map((set) => set.name).join(' and ')}` : ''}`}
         onPointClick={
           onPointClick
             ? (point) => {
@@ -53,10 +55,15 @@ export function NsRPlane({ series, colorBy, limits, rScale = 'linear', reference
             {n(s.plane.okPoints)} ok points shown.
           </Text>
         ))}
-        <Text>
-          Shaded: n_s interval × r bound, the product of the one-dimensional 68% and 95% n_s intervals with the 95% upper limit on r
-          (quoted at k = {limits.r.pivotPerMpc} Mpc⁻¹), not the joint contour. Source: {limits.source}.
-        </Text>
+        {likelihoods.length > 0 && (
+          <Text>
+            Shaded: the joint (n_s, r) regions of {likelihoods.length > 1 ? 'each set' : 'the set'}, Δχ² ≤ {DRAWN_LEVELS.map((d) => `${d.deltaChi2.toFixed(2)} (${d.percent})`).join(' and ')}{' '}
+            for two parameters, with r at k = {ENGINE_PIVOT_PER_MPC} Mpc⁻¹ as the scans compute it.
+          </Text>
+        )}
+        {likelihoods.map((set) => (
+          <LikelihoodSetNote key={`${set.key}@${set.version}`} set={set} named />
+        ))}
         {regions && regions.length > 0 && (
           <Text>Outlines: constraint regions your group uploaded, as given in their files (name, confidence level, source in the legend).</Text>
         )}

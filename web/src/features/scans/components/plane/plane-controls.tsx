@@ -1,12 +1,10 @@
 import { Checkbox, Field, HStack, SegmentGroup } from '@chakra-ui/react';
 import { SelectField } from '@/components/ui/select-field';
-import { useId } from 'react';
+import { useId, type ReactNode } from 'react';
 import { inputLabel } from '../../utils/point-columns';
-import { LimitSetSelect } from '../limit-set-select';
 
 export interface PlaneSettings {
   colorBy: string | null;
-  limitsKey: string;
   rScale: 'linear' | 'log';
   references: boolean;
 }
@@ -16,10 +14,12 @@ interface PlaneControlsProps {
   onChange: (changes: Partial<PlaneSettings>) => void;
   /** What points may be coloured by; none hides the choice (several scans get a colour each). */
   colorOptions?: string[];
+  /** The likelihood set picker, beside the other settings. */
+  children?: ReactNode;
 }
 
-/** Colour, limit set, r scale and reference lines of an n_s–r plane. */
-export function PlaneControls({ settings, onChange, colorOptions = [] }: PlaneControlsProps) {
+/** Colour, likelihood sets, r scale and reference lines of an n_s–r plane. */
+export function PlaneControls({ settings, onChange, colorOptions = [], children }: PlaneControlsProps) {
   const scaleLabel = useId();
   return (
     <HStack gap="4" wrap="wrap" align="end">
@@ -32,7 +32,7 @@ export function PlaneControls({ settings, onChange, colorOptions = [] }: PlaneCo
           minW="40"
         />
       )}
-      <LimitSetSelect value={settings.limitsKey} onChange={(limitsKey) => onChange({ limitsKey })} />
+      {children}
       <Field.Root w="auto">
         <Field.Label fontSize="sm" id={scaleLabel}>
           r axis

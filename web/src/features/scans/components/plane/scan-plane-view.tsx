@@ -1,5 +1,5 @@
 import { Stack, Text } from '@chakra-ui/react';
-import { findLimits, variedInputs, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
+import { variedInputs, type ScanDetail, type StoredScanSpec } from '@sixtyfold/shared';
 import { useMemo } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { AppLink } from '@/components/ui/app-link';
@@ -11,7 +11,10 @@ import { Panel } from '@/components/ui/panel';
 import { paths } from '@/config/paths';
 import { isLive } from '../../api/get-scan';
 import { useScanPlane } from '../../api/get-scan-plane';
+import { DEFAULT_LIKELIHOOD } from '../../api/get-likelihood-sets';
+import { useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
+import { LikelihoodSetSelect } from '../likelihood-set-picker';
 import { NsRPlane } from './ns-r-plane';
 import { PlaneControls, type PlaneSettings } from './plane-controls';
 import type { UseRegionOverlay } from './region-overlay';
@@ -23,21 +26,19 @@ export function ScanPlaneView({ scan, spec, useRegionOverlay }: { scan: ScanDeta
   const plane = useScanPlane(scan.id, { live });
   const [params, update] = useViewParams();
   const regions = useRegionOverlay([scan.groupId]);
+  const likelihoods = useChosenLikelihoods([DEFAULT_LIKELIHOOD]);
 
   const axes = variedInputs(spec);
   const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
   const colorParam = params.get('color');
   const settings: PlaneSettings = {
     colorBy: colorParam && colorOptions.includes(colorParam) ? colorParam : colorOptions[0],
-    limitsKey: findLimits(params.get('limits') ?? undefined).key,
     rScale: params.get('rscale') === 'log' ? 'log' : 'linear',
     references: params.get('refs') !== 'off',
   };
-  const limits = findLimits(settings.limitsKey);
   const onChange = (changes: Partial<PlaneSettings>) =>
     update({
       ...(changes.colorBy !== undefined && { color: changes.colorBy }),
-      ...(changes.limitsKey !== undefined && { limits: changes.limitsKey }),
       ...(changes.rScale !== undefined && { rscale: changes.rScale === 'log' ? 'log' : null }),
       ...(changes.references !== undefined && { refs: changes.references ? null : 'off' }),
     });
@@ -46,7 +47,9 @@ export function ScanPlaneView({ scan, spec, useRegionOverlay }: { scan: ScanDeta
   return (
     <Stack gap="4">
       <Panel p={{ base: '3', md: '4' }}>
-        <PlaneControls settings={settings} onChange={onChange} colorOptions={colorOptions} />
+        <PlaneControls settings={settings} onChange={onChange} colorOptions={colorOptions}>
+          <LikelihoodSetSelect choice={likelihoods} />
+        </PlaneControls>
         {regions.toggles && <Stack mt="3">{regions.toggles}</Stack>}
         <Text fontSize="xs" color="fg.muted" mt="3">
           Members upload the group’s constraint regions on the <AppLink to={paths.group.getHref(scan.groupId)}>group page</AppLink>.
@@ -76,7 +79,7 @@ export function ScanPlaneView({ scan, spec, useRegionOverlay }: { scan: ScanDeta
           <NsRPlane
             series={series}
             colorBy={settings.colorBy}
-            limits={limits}
+            likelihoods={likelihoods.sets}
             rScale={settings.rScale}
             references={settings.references}
             regions={regions.shown}
