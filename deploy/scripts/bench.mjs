@@ -3,12 +3,14 @@
 // the queue, the workers and MariaDB, against the engine alone on the same cores; then the API
 // under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped) and
 // the heatmap slices of a stored 10^6-point scan (`heatmap`); and `million`: a 10^6-point scan
-// computed end to end and read back every way (slices, pages, plane, exports, the page in chromium).
+// computed end to end and read back every way (slices, pages, plane, exports, the page in chromium);
+// `constraints`: exact-method scans of two families judged under every built-in likelihood set.
 // Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { benchExports, benchHeatmap, benchPoll } from './lib/load-bench.mjs';
+import { benchConstraints } from './lib/constraints-bench.mjs';
 import { benchMillion } from './lib/million-bench.mjs';
 import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
@@ -16,7 +18,7 @@ import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
-const PARTS = ['engine', 'pipeline', 'million', 'poll', 'exports', 'heatmap'];
+const PARTS = ['engine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
 const asked = process.argv.slice(2);
 const unknownPart = asked.find((p) => !PARTS.includes(p));
 if (unknownPart) fail(`no bench part '${unknownPart}'; the parts are ${PARTS.join(', ')}`);
@@ -137,6 +139,7 @@ try {
     const databasePid = Number(readFileSync(path.resolve(profile.dataDir, 'mariadb/run/mysqld.pid'), 'utf8'));
     await benchMillion(load, { apiPid: apps.api.pid, workerPids: apps.workers.map((w) => w.pid), databasePid, webUrl: `http://127.0.0.1:${profile.apiPort}` });
   }
+  if (runs('constraints')) await benchConstraints(load);
   if (runs('poll')) await benchPoll(load);
   if (runs('exports')) await benchExports(load);
   if (runs('heatmap')) await benchHeatmap(load, { webUrl: `http://127.0.0.1:${profile.apiPort}` });

@@ -117,10 +117,13 @@ describe('grid posterior', () => {
     expect(cut.constraints[0].edgeWarning).toBe('the 95% region reaches α = 30, the end of the axis: widen it');
     const inside = gridPosterior({ axes: [alpha], deltaChi2: gridOf([alpha], (a) => (a - 15) ** 2) });
     expect(inside.constraints[0].edgeWarning).toBeNull();
-    // A plateau running into the low end (peak inside): the 95% highest-density region holds α = 1.
+    // A plateau running into the low end (peak inside): the 95% highest-density region holds α = 1, so
+    // the data bound α only from above there: an upper limit at 95% (common practice), and the warning.
     const plateau = gridPosterior({ axes: [alpha], deltaChi2: gridOf([alpha], (a) => (a < 5 ? 0.5 : a <= 10 ? 0 : ((a - 10) / 2) ** 2)) });
-    expect(plateau.constraints[0].intervals[1].kind).toBe('two-sided');
+    expect(plateau.constraints[0].intervals[1]).toMatchObject({ kind: 'upper-limit', lower: 1 });
     expect(plateau.constraints[0].edgeWarning).toBe('the 95% region reaches α = 1, the end of the axis: widen it');
+    // The 68% region of that plateau: still one-sided, its mass sits on the plateau from the end.
+    expect(plateau.constraints[0].intervals[0].kind).toBe('upper-limit');
     // A posterior piled at the low end gives an upper limit and warns about that end.
     const low = gridPosterior({ axes: [alpha], deltaChi2: gridOf([alpha], (a) => ((a - 1) / 5) ** 2) });
     expect(low.constraints[0].intervals[1].kind).toBe('upper-limit');

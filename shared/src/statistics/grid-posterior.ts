@@ -13,8 +13,9 @@ export interface Marginal1D {
 
 /**
  * A credible interval from the 1-D marginal. `two-sided`: equal-tailed, cutting (1 − level)/2 from
- * each side. `upper-limit` / `lower-limit`: one-sided, used when the marginal's highest density
- * sits at the lowest / highest value of the axis (the mass piles at that end).
+ * each side. `upper-limit` / `lower-limit`: one-sided, used when the level's highest-density region
+ * holds the lowest / highest value of the axis (the data do not bound that side), or when the
+ * marginal peaks at that end.
  */
 export interface CredibleInterval {
   level: number;
@@ -178,24 +179,39 @@ function axisConstraint(name: string, cells: AxisCells, values: readonly number[
   }
   cumulative[n] = 1;
   const quantile = (q: number) => fromPriorVariable(cells.prior, inverseCdf(cells.edges, cumulative, q));
-  const kind: CredibleInterval['kind'] = mode === 0 ? 'upper-limit' : mode === n - 1 ? 'lower-limit' : 'two-sided';
+  // The highest-density region of a level (density per unit prior variable): cells by density until
+  // they hold the level; `bound` is the lowest density inside.
+  const densities = Array.from(cells.order, (i) => mass[i] / cells.widths[i]);
+  const byDensity = densities.map((_, k) => k).sort((x, y) => densities[y] - densities[x]);
+  const hpdBound = (level: number) => {
+    let held = 0;
+    for (const k of byDensity) {
+      held += mass[cells.order[k]] / total;
+      if (held >= level) return densities[k];
+    }
+    return 0;
+  };
+  // One-sided where the data do not bound that side (common practice): when the level's
+  // highest-density region holds one end of the axis, the prior range, not the data, cuts the
+  // posterior there, so the other side's limit is quoted. With both ends or neither inside, the
+  // mode decides (a flat posterior peaks at its first cell).
+  const kindAt = (level: number): CredibleInterval['kind'] => {
+    const bound = hpdBound(level);
+    const lowIn = densities[0] >= bound;
+    const highIn = densities[n - 1] >= bound;
+    if (lowIn && !highIn) return 'upper-limit';
+    if (highIn && !lowIn) return 'lower-limit';
+    return mode === 0 ? 'upper-limit' : mode === n - 1 ? 'lower-limit' : 'two-sided';
+  };
   const intervals = levels.map((level): CredibleInterval => {
+    const kind = kindAt(level);
     if (kind === 'upper-limit') return { level, kind, lower: values[cells.order[0]], upper: quantile(level) };
     if (kind === 'lower-limit') return { level, kind, lower: quantile(1 - level), upper: values[cells.order[n - 1]] };
     return { level, kind, lower: quantile((1 - level) / 2), upper: quantile((1 + level) / 2) };
   });
-  // The widest region reaches an end when that end lies inside its highest-density region (density
-  // per unit prior variable): the prior range, not the data, then bounds it.
+  // The widest region reaches an end when that end lies inside its highest-density region.
   const widest = intervals[intervals.length - 1];
-  const densities = Array.from(cells.order, (i) => mass[i] / cells.widths[i]);
-  const byDensity = densities.map((_, k) => k).sort((x, y) => densities[y] - densities[x]);
-  let held = 0;
-  let bound = 0;
-  for (const k of byDensity) {
-    held += mass[cells.order[k]] / total;
-    bound = densities[k];
-    if (held >= widest.level) break;
-  }
+  const bound = hpdBound(widest.level);
   const ends: number[] = [];
   if (densities[0] >= bound) ends.push(values[cells.order[0]]);
   if (densities[n - 1] >= bound) ends.push(values[cells.order[n - 1]]);

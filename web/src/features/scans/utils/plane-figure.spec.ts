@@ -50,6 +50,18 @@ describe('the n_s–r plane', () => {
     expect(nsHigh).toBeGreaterThan(0.974 + 0.003 * Math.sqrt(6.1800743));
   });
 
+  it('judges each point by the set: Δχ² on hover and as a colour, saturating at 3σ', () => {
+    // On r = 0, n_s one σ above the mean gives Δχ² = 1 and two σ gives 4 (Gaussian closed form);
+    // 1 and 4 are the 39.3 % and 86.5 % regions in two parameters (1 − e^{−Δχ²/2}).
+    const judged = plane({ ns: [0.9649, 0.9649 + 0.0042, 0.9649 + 2 * 0.0042], r: [0, 0, 0], alphaS: [0, 0, 0], pointIndex: [0, 1, 2] });
+    const data = planeFigure({ series: [{ label: 'scan', plane: judged }], colorBy: 'deltaChi2', likelihoods, rScale: 'linear', references: false }).data as (Trace & { text: string[]; marker: { cmax?: number } })[];
+    const points = data.at(-1)!;
+    expect((points.marker.color as number[]).map((v) => Number(v.toFixed(9)))).toEqual([0, 1, 4]);
+    expect(points.marker.cmax).toBeCloseTo(11.8292, 3);
+    expect(points.text[1]).toContain('Δχ² = 1 under Planck 2018 + BICEP/Keck 2018 (39.3 % region)');
+    expect(points.text[2]).toContain('(86.5 % region)');
+  });
+
   it('draws no region while no set is chosen or loaded', () => {
     const data = planeFigure({ series: [{ label: 'scan', plane: plane() }], likelihoods: [], rScale: 'linear', references: false }).data as Trace[];
     expect(data.map((t) => t.name)).toEqual(['scan']);

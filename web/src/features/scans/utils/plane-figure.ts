@@ -1,5 +1,5 @@
 import {
-  attractorPrediction, confidenceOutline, deltaChi2Threshold, monomialPrediction, SIGMA_CONFIDENCE_LEVELS,
+  attractorPrediction, confidenceOf, confidenceOutline, deltaChi2, deltaChi2Threshold, monomialPrediction, SIGMA_CONFIDENCE_LEVELS, sigmaThresholds,
   type ConstraintRegion, type LikelihoodSet, type RegionVertex, type ScanPlane,
 } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
@@ -16,7 +16,7 @@ export interface PlaneSeries {
 
 export interface PlaneFigureInput {
   series: PlaneSeries[];
-  /** Colour a single series by this axis parameter or 'nStar'; several series get a colour each. */
+  /** Colour a single series by this axis parameter, 'nStar' or 'deltaChi2' (under the first set); several series get a colour each. */
   colorBy?: string | null;
   /** The likelihood sets whose 68 and 95 % regions are drawn under the points (none while they load). */
   likelihoods: LikelihoodSet[];
@@ -55,8 +55,20 @@ const range = (from: number, to: number, count: number, log = false) =>
     return log ? from * (to / from) ** t : from + t * (to - from);
   });
 
-/** The values a series is coloured by: an axis parameter's inputs, or N_*. */
-export function colorValues(plane: ScanPlane, colorBy: string): number[] | undefined {
+/** Colouring by Δχ² saturates at the 99.73 % (3σ) level of two parameters, so the allowed points keep the scale. */
+export const DELTA_CHI2_COLOR_MAX = sigmaThresholds(2)[2];
+
+/** Each point's Δχ² under a set, from its stored n_s, r and α_s (the set's own terms), and its confidence level. */
+export function judgedPoints(plane: ScanPlane, set: LikelihoodSet): { deltaChi2: number; confidence: number }[] {
+  return plane.ns.map((ns, i) => {
+    const judged = deltaChi2(set, { ns, r: plane.r[i], alphaS: plane.alphaS[i] });
+    return judged ? { deltaChi2: judged.deltaChi2, confidence: confidenceOf(judged.deltaChi2, judged.terms) } : { deltaChi2: Number.NaN, confidence: Number.NaN };
+  });
+}
+
+/** The values a series is coloured by: an axis parameter's inputs, N_*, or Δχ² under a set. */
+export function colorValues(plane: ScanPlane, colorBy: string, set?: LikelihoodSet): number[] | undefined {
+  if (colorBy === 'deltaChi2') return set && judgedPoints(plane, set).map((j) => j.deltaChi2);
   return colorBy === 'nStar' ? plane.nStar : plane.inputs[colorBy];
 }
 
@@ -149,7 +161,7 @@ export function rFloorOf(series: PlaneSeries[], rScale: 'linear' | 'log'): numbe
   return 10 ** Math.floor(Math.log10(smallest) - 0.5);
 }
 
-function hoverText(plane: ScanPlane, i: number, label: string | null): string {
+function hoverText(plane: ScanPlane, i: number, label: string | null, judged: { set: LikelihoodSet; points: ReturnType<typeof judgedPoints> }[]): string {
   const inputs = plane.parameters.map((name) => `${inputLabel(name)} = ${formatNumber(plane.inputs[name]?.[i])}`);
   const lines = [
     ...(label ? [label] : []),
@@ -157,6 +169,7 @@ function hoverText(plane: ScanPlane, i: number, label: string | null): string {
     `n_s = ${formatNumber(plane.ns[i])}, r = ${formatNumber(plane.r[i])}`,
     `α_s = ${formatNumber(plane.alphaS[i])}, N_* = ${formatNumber(plane.nStar[i])}`,
     ...inputs,
+    ...judged.map(({ set, points }) => `Δχ² = ${formatNumber(points[i].deltaChi2, 3)} under ${set.name} (${formatNumber(points[i].confidence * 100, 3)} % region)`),
   ];
   return lines.join('<br>');
 }
@@ -168,20 +181,26 @@ export function planeFigure({ series, colorBy, likelihoods, rScale, references, 
 
   const single = series.length === 1;
   series.forEach(({ label, plane }, s) => {
-    const values = single && colorBy ? colorValues(plane, colorBy) : undefined;
-    const log = values ? isLogSpaced([...new Set(values)].sort((a, b) => a - b)) : false;
+    const judged = likelihoods.map((set) => ({ set, points: judgedPoints(plane, set) }));
+    const byChi2 = colorBy === 'deltaChi2';
+    const values = single && colorBy ? (byChi2 ? judged[0]?.points.map((j) => j.deltaChi2) : colorValues(plane, colorBy)) : undefined;
+    const log = values && !byChi2 ? isLogSpaced([...new Set(values)].sort((a, b) => a - b)) : false;
     const many = plane.ns.length > 2000;
     data.push({
       type: 'scatter', mode: 'markers', name: label,
       x: plane.ns, y: plane.r,
       customdata: plane.pointIndex.map((index) => [s, index]),
-      text: plane.ns.map((_, i) => hoverText(plane, i, single ? null : label)), hovertemplate: '%{text}<extra></extra>',
+      text: plane.ns.map((_, i) => hoverText(plane, i, single ? null : label, judged)), hovertemplate: '%{text}<extra></extra>',
       marker: values
         ? {
             size: many ? 4 : 7,
             color: log ? values.map((v) => Math.log10(v)) : values,
             colorscale: PLOT_COLORSCALE,
-            colorbar: { title: { text: `${log ? 'log₁₀ ' : ''}${inputLabel(colorBy!)}`, side: 'right' }, thickness: 12, outlinewidth: 0 },
+            ...(byChi2 && { cmin: 0, cmax: DELTA_CHI2_COLOR_MAX }),
+            colorbar: {
+              title: { text: byChi2 ? `Δχ², ${judged[0].set.name} (≥ ${DELTA_CHI2_COLOR_MAX.toFixed(2)} alike)` : `${log ? 'log₁₀ ' : ''}${inputLabel(colorBy!)}`, side: 'right' },
+              thickness: 12, outlinewidth: 0,
+            },
             line: { width: 0 },
           }
         : { size: many ? 4 : 7, color: SERIES_COLORS[s % SERIES_COLORS.length], opacity: 0.85, line: { width: 0 } },

@@ -1,6 +1,7 @@
 import { Checkbox, Field, HStack, SegmentGroup } from '@chakra-ui/react';
 import { SelectField } from '@/components/ui/select-field';
 import { useId, type ReactNode } from 'react';
+import { outputLabel } from '../../utils/output-labels';
 import { inputLabel } from '../../utils/point-columns';
 
 export interface PlaneSettings {
@@ -27,7 +28,7 @@ export function PlaneControls({ settings, onChange, colorOptions = [], children 
         <SelectField
           label="Colour by"
           value={settings.colorBy ?? ''}
-          options={colorOptions.map((name) => ({ value: name, label: inputLabel(name) }))}
+          options={colorOptions.map((name) => ({ value: name, label: name === 'deltaChi2' ? `${outputLabel(name)} under the set` : inputLabel(name) }))}
           onChange={(colorBy) => onChange({ colorBy })}
           minW="40"
         />

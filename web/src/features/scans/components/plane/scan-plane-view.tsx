@@ -29,7 +29,7 @@ export function ScanPlaneView({ scan, spec, useRegionOverlay }: { scan: ScanDeta
   const likelihoods = useChosenLikelihoods([DEFAULT_LIKELIHOOD]);
 
   const axes = variedInputs(spec);
-  const colorOptions = axes.includes('nStar') ? axes : [...axes, 'nStar'];
+  const colorOptions = [...(axes.includes('nStar') ? axes : [...axes, 'nStar']), 'deltaChi2'];
   const colorParam = params.get('color');
   const settings: PlaneSettings = {
     colorBy: colorParam && colorOptions.includes(colorParam) ? colorParam : colorOptions[0],
