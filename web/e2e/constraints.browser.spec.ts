@@ -229,5 +229,19 @@ describe('what the data allow, in the browser', () => {
     expect(Math.abs(planckBox!.y - pactBox!.y)).toBeLessThan(1);
     expect(pactBox!.x).toBeGreaterThan(planckBox!.x + planckBox!.width);
     await page.getByText(comparison.note).first().waitFor();
+
+    // The regions drawn as regions: both sets' joint regions filled on the plane (two sets × two
+    // levels), and on the scan's own maps the chosen set's 68/95 % boundary lines.
+    const plane = page.getByRole('img', { name: /with the regions of Planck 2018 \+ BICEP\/Keck 2018 and P-ACT-LB \+ BICEP\/Keck 2018$/ });
+    await plane.scrollIntoViewIfNeeded();
+    await plane.locator('.scatterlayer .fills path').nth(3).waitFor({ state: 'attached', timeout: 30_000 });
+    await settled(page);
+    await shot(page, 'compare-regions');
+    await page.goto(`${webUrl}/scans/${tModel}`);
+    const rMap = page.getByRole('img', { name: /^Heatmap of r over/ });
+    await rMap.locator('.contourlevel path').first().waitFor({ state: 'attached', timeout: 30_000 });
+    await page.getByText(/^Lines: the 68.3 % \(solid, Δχ² = 2.30\) and 95.4 % \(dashed, Δχ² = 6.18\) boundaries/).waitFor();
+    await settled(page);
+    await shot(page, 'scan-boundaries');
   });
 });
