@@ -47,7 +47,7 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
   const answer = constraints.data;
 
   const setOptions = (sets.data ?? []).map((set) => ({ value: `${set.key}@${set.version}`, label: `${set.name} (${set.key} v${set.version})` }));
-  const chosenSet = answer ? `${answer.likelihood.key}@${answer.likelihood.version}` : query.likelihood;
+  const chosenSet = answer ? answer.likelihood.ref : query.likelihood;
   const priorOf = (axis: string) => priors[axis] ?? answer?.priors.find((p) => p.axis === axis)?.prior ?? 'uniform';
 
   return (
@@ -82,24 +82,27 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
   );
 }
 
-/** The set's own words about what it approximates, and its sources: shown wherever a set is used. */
+/** The likelihood's own words about what it is, and a set's sources: shown wherever a likelihood is used. */
 function SetStatement({ likelihood }: { likelihood: ScanConstraints['likelihood'] }) {
   return (
     <Stack gap="1" mt="3" fontSize="sm">
+      {likelihood.kind === 'regions' && <Text>{likelihood.name}</Text>}
       <Text color="fg.muted">{likelihood.statement}</Text>
-      <Text color="fg.muted">
-        Sources:{' '}
-        {likelihood.sources.map((source, i) => (
-          <span key={source.arxiv}>
-            {i > 0 && '; '}
-            {source.label} (
-            <Link href={`https://arxiv.org/abs/${source.arxiv}`} target="_blank" rel="noreferrer" title={source.citation}>
-              arXiv:{source.arxiv}
-            </Link>
-            )
-          </span>
-        ))}
-      </Text>
+      {likelihood.kind === 'set' && (
+        <Text color="fg.muted">
+          Sources:{' '}
+          {likelihood.sources.map((source, i) => (
+            <span key={source.arxiv}>
+              {i > 0 && '; '}
+              {source.label} (
+              <Link href={`https://arxiv.org/abs/${source.arxiv}`} target="_blank" rel="noreferrer" title={source.citation}>
+                arXiv:{source.arxiv}
+              </Link>
+              )
+            </span>
+          ))}
+        </Text>
+      )}
     </Stack>
   );
 }
