@@ -36,7 +36,7 @@ export class ConstraintRegionsService {
     const found: ConstraintRegionDto[] = [];
     for (const id of ids) {
       const region = rows.find((row) => row.id === id);
-      if (!region) throw new NotFoundException(`No constraint region ${id}`);
+      if (!region) throw new NotFoundException(`No such constraint region ${id}`);
       await this.access.require(user, region.groupId, 'viewer', `constraint region ${id}`);
       found.push(toDto(region));
     }
