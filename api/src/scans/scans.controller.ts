@@ -4,7 +4,7 @@ import type { Response } from 'express';
 import {
   evidenceComparisonQuerySchema, evidenceComparisonSchema, scanConstraintsQuerySchema, scanConstraintsSchema,
   type EvidenceComparison, type EvidenceComparisonQuery, type ScanConstraints, type ScanConstraintsQuery,
-  createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
+  createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQueryFieldsSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
   type ScanPointsQuery, type ScanSummary,
@@ -137,6 +137,7 @@ export class ScansController {
       + '`xFrom`, `xTo`, `yFrom`, `yTo` (axis indices, inclusive) zoom into a window, at full resolution when it fits. '
       + 'A scan over a list of points has no grid: 409 (use `/points` or `/plane`).',
   })
+  @ApiZodQuery(scanGridQueryFieldsSchema)
   @ApiZodResponse(200, scanGridSliceSchema, 'At most maxCells cells per axis as row-major columns: mean, min and max of the output per block, OK and failed counts by reason')
   @ApiErrorResponses(400, 401, 404, 409)
   grid(

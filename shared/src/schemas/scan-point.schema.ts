@@ -142,6 +142,20 @@ export const GRID_MAX_CELLS = 512;
 
 const windowEnd = z.coerce.number({ error: 'must be a whole number' }).int('must be a whole number').min(0, 'is an axis index, 0 or more').optional();
 
+/** The named query fields of the grid route, as documented; the cut along other axes comes as `at.<parameter>=<index>`. */
+export const scanGridQueryFieldsSchema = z.object({
+  x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
+  y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
+  /** An output, the status, or `deltaChi2` under the `likelihood` set (for the 68/95 % boundary lines). */
+  output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']).default('ns'),
+  likelihood: likelihoodRefSchema.optional(),
+  maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
+  xFrom: windowEnd,
+  xTo: windowEnd,
+  yFrom: windowEnd,
+  yTo: windowEnd,
+});
+
 /**
  * `GET /api/scans/:id/grid?x=f&y=nStar&output=ns&at.lambda=3`: a 2-D slice for a heatmap, at most
  * `maxCells` cells along each axis; `xFrom`..`xTo` and `yFrom`..`yTo` (axis indices, inclusive) zoom in.
@@ -154,20 +168,10 @@ export const scanGridQuerySchema = z.preprocess(
     const at = Object.fromEntries(entries.filter(([k]) => k.startsWith('at.')).map(([k, v]) => [k.slice(3), v]));
     return { ...Object.fromEntries(entries.filter(([k]) => !k.startsWith('at.'))), at: { ...(raw as { at?: object }).at, ...at } };
   },
-  z
-    .object({
-      x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
-      y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
-      /** An output, the status, or `deltaChi2` under the `likelihood` set (for the 68/95 % boundary lines). */
-      output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']).default('ns'),
-      likelihood: likelihoodRefSchema.optional(),
+  scanGridQueryFieldsSchema
+    .extend({
       /** Index along each other axis, from `at.<parameter>=<index>` (default 0). */
       at: z.record(z.string(), z.coerce.number().int().min(0)).default({}),
-      maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
-      xFrom: windowEnd,
-      xTo: windowEnd,
-      yFrom: windowEnd,
-      yTo: windowEnd,
     })
     .superRefine((q, ctx) => {
       for (const axis of ['x', 'y'] as const) {
