@@ -48,6 +48,14 @@ describe('the OpenAPI document and its UI', () => {
     expect(doc.paths['/api/scans/{id}'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
   });
 
+  it('describes each likelihood parameter with both forms: a set and uploaded regions', () => {
+    const routes: [string, string][] = [['/api/scans/{id}/points', 'likelihood'], ['/api/scans/{id}/grid', 'likelihood'], ['/api/scans/{id}/constraints', 'likelihood'], ['/api/scans/evidence', 'likelihoods']];
+    for (const [route, name] of routes) {
+      const parameter = doc.paths[route].get.parameters!.find((p) => p.name === name) as { description?: string } | undefined;
+      expect({ route, description: parameter?.description }).toEqual({ route, description: expect.stringMatching(/key@version.*regions:<id>,<id>/s) });
+    }
+  });
+
   it('describes the model, plane, grid and pool routes with their shared schemas', () => {
     const json = (op: Operation, status: string) => op.responses[status].content!['application/json'].schema;
     const models = doc.paths['/api/models'];

@@ -37,6 +37,7 @@ export * from './statistics/likelihood-sets.js';
 export * from './statistics/delta-chi2.js';
 export * from './statistics/likelihood-outline.js';
 export * from './statistics/region-likelihood.js';
+export * from './statistics/point-judge.js';
 export * from './statistics/grid-axes.js';
 export * from './statistics/grid-posterior.js';
 export * from './statistics/evidence.js';

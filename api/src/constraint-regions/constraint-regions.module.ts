@@ -10,5 +10,6 @@ import { ConstraintRegion } from './entities/constraint-region.entity';
   imports: [TypeOrmModule.forFeature([ConstraintRegion]), GroupsModule, AuditModule],
   controllers: [ConstraintRegionsController],
   providers: [ConstraintRegionsService],
+  exports: [ConstraintRegionsService],
 })
 export class ConstraintRegionsModule {}

@@ -28,6 +28,22 @@ export class ConstraintRegionsService {
   }
 
   /**
+   * Regions by id, in the order asked, each readable by the user as the list is (a viewer of its
+   * group). An unknown id and another group's region answer the same 404.
+   */
+  async readable(user: SessionUser, ids: readonly number[]): Promise<ConstraintRegionDto[]> {
+    const rows = await this.regions.findBy({ id: In([...ids]) });
+    const found: ConstraintRegionDto[] = [];
+    for (const id of ids) {
+      const region = rows.find((row) => row.id === id);
+      if (!region) throw new NotFoundException(`No such constraint region ${id}`);
+      await this.access.require(user, region.groupId, 'viewer', `constraint region ${id}`);
+      found.push(toDto(region));
+    }
+    return found;
+  }
+
+  /**
    * Members store a region whose file was read in full; one insert and its audit event. The role
    * comes first, so that someone who may not upload here learns nothing from the file.
    */

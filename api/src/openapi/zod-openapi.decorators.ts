@@ -23,7 +23,7 @@ export function ApiZodQuery(schema: z.ZodType) {
   const required = new Set(object.required ?? []);
   return applyDecorators(
     ...Object.entries(object.properties ?? {}).map(([name, property]) =>
-      ApiQuery({ name, required: required.has(name), schema: property as SchemaObject }),
+      ApiQuery({ name, required: required.has(name), schema: property as SchemaObject, description: (property as SchemaObject).description }),
     ),
   );
 }

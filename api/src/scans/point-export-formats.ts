@@ -1,6 +1,6 @@
 import { Field, Float64, Int32, makeData, RecordBatch, RecordBatchStreamWriter, Schema, Struct, Utf8, vectorFromArray } from 'apache-arrow';
 import { Transform, type Duplex } from 'node:stream';
-import { confidenceOf, deltaChi2, POINT_OUTPUTS, type LikelihoodSet, type PointExportFormat, type PointOutput, type ScanPointDto } from '@sixtyfold/shared';
+import { POINT_OUTPUTS, type PointExportFormat, type PointJudge, type PointOutput, type ScanPointDto } from '@sixtyfold/shared';
 
 /** One exported point as the driver hands it over (`rowsAsArray`): the sort key, then the columns of `exportSelect`. */
 type ExportRow = [sortKey: unknown, pointIndex: number, inputs: string | Record<string, number>, status: string, failureReason: string | null, ...outputs: (number | null)[]];
@@ -24,8 +24,8 @@ const ARROW_BATCH_ROWS = 64 * 1024;
 export class ExportColumns {
   readonly outputs: readonly PointOutput[];
 
-  /** `judgedBy`: the likelihood set asked for; each point then ends with its Δχ² and confidence level under it. */
-  constructor(readonly axes: readonly string[], readonly judgedBy?: LikelihoodSet) {
+  /** `judgedBy`: the likelihood asked for (a set or uploaded regions); each point then ends with its Δχ² and confidence level under it. */
+  constructor(readonly axes: readonly string[], readonly judgedBy?: PointJudge) {
     this.outputs = POINT_OUTPUTS.filter((o) => !axes.includes(o));
   }
 
@@ -34,15 +34,10 @@ export class ExportColumns {
   }
 }
 
-/** A point's Δχ² under a set and the confidence level it corresponds to (in as many parameters as terms were summed); null for a failed point. */
-export function judged(set: LikelihoodSet, point: Pick<ScanPointDto, 'ns' | 'r' | 'alphaS'>): { deltaChi2: number | null; confidence: number | null } {
-  const judgement = point.ns === null || point.r === null ? null : deltaChi2(set, { ns: point.ns, r: point.r, alphaS: point.alphaS });
-  return judgement ? { deltaChi2: judgement.deltaChi2, confidence: confidenceOf(judgement.deltaChi2, judgement.terms) } : { deltaChi2: null, confidence: null };
-}
-
-/** A row's Δχ² and confidence under the export's set (both null for a failed point). */
-function judgedRow(set: LikelihoodSet, row: ExportRow): { deltaChi2: number | null; confidence: number | null } {
-  return judged(set, { ns: row[OUTPUT_AT.ns] as number | null, r: row[OUTPUT_AT.r] as number | null, alphaS: row[OUTPUT_AT.alphaS] as number | null });
+/** A row's Δχ² and confidence under the export's likelihood (both null for a failed point). */
+function judgedRow(judge: PointJudge, row: ExportRow): { deltaChi2: number | null; confidence: number | null } {
+  const judgement = judge({ ns: row[OUTPUT_AT.ns] as number | null, r: row[OUTPUT_AT.r] as number | null, alphaS: row[OUTPUT_AT.alphaS] as number | null });
+  return { deltaChi2: judgement?.deltaChi2 ?? null, confidence: judgement?.confidence ?? null };
 }
 
 /** The stored columns an export SELECTs after the sort key, in the order of `ExportRow` (every output, as the JSON needs them). */

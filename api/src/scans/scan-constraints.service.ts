@@ -2,12 +2,12 @@ import { BadRequestException, ConflictException, Injectable } from '@nestjs/comm
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  axisPrior, bayesFactor, deltaChi2, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, posteriorAxes, ScanGrid,
-  type EvidenceComparison, type EvidenceComparisonQuery, type LikelihoodSet, type ScanConstraints, type ScanConstraintsQuery,
+  axisPrior, bayesFactor, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, posteriorAxes, ScanGrid,
+  type EvidenceComparison, type EvidenceComparisonQuery, type PointJudge, type ScanConstraints, type ScanConstraintsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { openQueryStream } from '../exports/query-stream';
-import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
+import { LikelihoodsService } from '../likelihoods/likelihoods.service';
 import { ScanResultsService } from './scan-results.service';
 
 const finite = (x: number) => (Number.isFinite(x) ? x : null);
@@ -20,18 +20,18 @@ interface StoredOutputs {
   alphaS: (number | null)[];
 }
 
-/** Each grid point's Δχ² under the set; NaN marks a point left out (failed, flagged, or not stored yet). */
-function judge(set: LikelihoodSet, size: number, outputs: StoredOutputs): Float64Array {
+/** Each grid point's Δχ² under a set or uploaded regions; NaN marks a point left out (failed, flagged, or not stored yet). */
+function judge(judgeOne: PointJudge, size: number, outputs: StoredOutputs): Float64Array {
   const chi2 = new Float64Array(size).fill(Number.NaN);
   outputs.index.forEach((i, k) => {
-    const judged = deltaChi2(set, { ns: outputs.ns[k], r: outputs.r[k], alphaS: outputs.alphaS[k] });
+    const judged = judgeOne({ ns: outputs.ns[k], r: outputs.r[k], alphaS: outputs.alphaS[k] });
     if (judged) chi2[i] = judged.deltaChi2;
   });
   return chi2;
 }
 
 /**
- * What a grid scan's data allow under one likelihood set: the posterior over the grid with a
+ * What a grid scan's data allow under one likelihood (a set or uploaded regions): the posterior over the grid with a
  * prior per axis, its marginals, credible intervals, best fit and evidence (`shared/src/statistics/`),
  * from the stored outputs alone. Failed, flagged and not yet computed points are left out and counted.
  */
@@ -40,13 +40,14 @@ export class ScanConstraintsService {
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly results: ScanResultsService,
-    private readonly sets: LikelihoodSetsService,
+    private readonly likelihoods: LikelihoodsService,
   ) {}
 
   async constraints(user: SessionUser, id: number, q: ScanConstraintsQuery): Promise<ScanConstraints> {
     const scan = await this.results.readable(user, id);
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points: a posterior needs the prior volume of a grid');
-    const likelihood = await this.sets.find(q.likelihood.key, q.likelihood.version);
+    const resolved = await this.likelihoods.resolve(user, q.likelihood);
+    const likelihood = resolved.description;
     const names = scan.spec.axes.map((axis) => axis.parameter);
     const bad: Record<string, string[]> = {};
     for (const name of Object.keys(q.priors)) if (!names.includes(name)) bad[`prior.${name}`] = [`the scan has no axis ${name}; its axes are ${names.join(', ')}`];
@@ -57,7 +58,7 @@ export class ScanConstraintsService {
 
     const axes = posteriorAxes(scan.spec.axes).map((axis) => ({ ...axis, prior: q.priors[axis.name] ?? axisPrior(axis) }));
     const grid = new ScanGrid(scan.spec.axes);
-    const chi2 = judge(likelihood, grid.size, await this.storedOutputs(scan.id));
+    const chi2 = judge(resolved.judge, grid.size, await this.storedOutputs(scan.id));
     const input = { axes, deltaChi2: chi2 };
     const pair = names.length >= 2 ? ([names.indexOf(pairOf[0]), names.indexOf(pairOf[1])] as [number, number]) : undefined;
     const included = chi2.reduce((n, x) => (Number.isNaN(x) ? n : n + 1), 0);
@@ -98,9 +99,9 @@ export class ScanConstraintsService {
     const referenceId = q.reference ?? q.ids[0];
     const sets = [];
     for (const ref of q.likelihoods) {
-      const likelihood = await this.sets.find(ref.key, ref.version);
+      const { description: likelihood, judge: judgeOne } = await this.likelihoods.resolve(user, ref, 'likelihoods');
       const rows = scans.map(({ scan, axes, size, outputs }) => {
-        const chi2 = judge(likelihood, size, outputs);
+        const chi2 = judge(judgeOne, size, outputs);
         const included = chi2.reduce((n, x) => (Number.isNaN(x) ? n : n + 1), 0);
         const evidence = included > 0 ? gridEvidence({ axes, deltaChi2: chi2 }) : null;
         return { scanId: scan.id, name: scan.name, lnZ: evidence?.lnZ ?? null, lnZError: evidence?.lnZError ?? null, included, excluded: size - included };

@@ -10,12 +10,12 @@ import type { SessionUser } from '../common/session-user';
 import { ExportsService } from '../exports/exports.service';
 import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
-import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
+import { LikelihoodsService, type ResolvedLikelihood } from '../likelihoods/likelihoods.service';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
 import { planSlice, readSlices, type SliceColumns } from './grid-slice';
-import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages, judged } from './point-export-formats';
+import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -82,14 +82,20 @@ function inputsOf(raw: RawPoint): Record<string, number> {
   return typeof raw.inputs === 'string' ? JSON.parse(raw.inputs) : (raw.inputs as Record<string, number>);
 }
 
-function toDto(raw: RawPoint, set?: LikelihoodSet): ScanPointDto {
+/** A point as the API gives it; with a likelihood, its Δχ² and confidence level (and, under uploaded regions, whether it lies outside them). */
+function toDto(raw: RawPoint, likelihood?: ResolvedLikelihood): ScanPointDto {
   const inputs = inputsOf(raw);
   const dto = { pointIndex: Number(raw.point_index), inputs, status: String(raw.status), failureReason: (raw.failure_reason as string) ?? null } as ScanPointDto;
   for (const o of POINT_OUTPUTS) {
     const v = raw[COLUMN[o]];
     dto[o] = v === null || v === undefined ? null : Number(v);
   }
-  if (set) Object.assign(dto, judged(set, dto));
+  if (likelihood) {
+    const judged = likelihood.judge(dto);
+    dto.deltaChi2 = judged?.deltaChi2 ?? null;
+    dto.confidence = judged?.confidence ?? null;
+    if (likelihood.description.kind === 'regions') dto.outsideRegions = judged?.outsideRegions ?? null;
+  }
   return dto;
 }
 
@@ -114,7 +120,7 @@ export class ScanResultsService {
     @InjectDataSource() private readonly db: DataSource,
     private readonly access: GroupAccessService,
     private readonly exports: ExportsService,
-    private readonly sets: LikelihoodSetsService,
+    private readonly likelihoods: LikelihoodsService,
   ) {}
 
   private readonly slices = new GridSliceCache(KEPT_SLICE_CELLS);
@@ -173,7 +179,9 @@ export class ScanResultsService {
    */
   async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
     const scan = await this.readable(user, id);
-    const set = await this.likelihoodSet(q);
+    const likelihood = q.likelihood && (await this.likelihoods.resolve(user, q.likelihood));
+    // Only a set sorts and filters by Δχ² (in SQL); the schema refuses both under uploaded regions.
+    const set = likelihood?.set;
     // Built first: it refuses an input the scan does not vary, whatever the page.
     const matching = this.filtered(scan, q, 'p.*', set);
     const unfiltered = !q.ranges.length && !q.inputRanges.length && q.deltaChi2Max === undefined;
@@ -190,12 +198,7 @@ export class ScanResultsService {
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
     const rows: RawPoint[] =
       (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total, set))));
-    return { items: rows.map((row) => toDto(row, set)), total, page: q.page, pageSize: q.pageSize };
-  }
-
-  /** The likelihood set a query names (404 when there is none such), or undefined. */
-  private async likelihoodSet(q: ScanPointsQuery): Promise<LikelihoodSet | undefined> {
-    return q.likelihood ? this.sets.find(q.likelihood.key, q.likelihood.version) : undefined;
+    return { items: rows.map((row) => toDto(row, likelihood)), total, page: q.page, pageSize: q.pageSize };
   }
 
   /**
@@ -256,9 +259,9 @@ export class ScanResultsService {
    */
   async export(user: SessionUser, id: number, q: ScanPointsQuery, format: PointExportFormat, res: Response): Promise<void> {
     const scan = await this.readable(user, id);
-    const set = await this.likelihoodSet(q);
-    const columns = new ExportColumns(variedInputs(scan.spec), set);
-    const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN), set).getQueryAndParameters();
+    const likelihood = q.likelihood && (await this.likelihoods.resolve(user, q.likelihood));
+    const columns = new ExportColumns(variedInputs(scan.spec), likelihood?.judge);
+    const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN), likelihood?.set).getQueryAndParameters();
     return this.exports.send(user, res, {
       headers: {
         'Content-Type': EXPORT_CONTENT_TYPES[format],
@@ -339,8 +342,9 @@ export class ScanResultsService {
     // A list's points have no neighbours to lay out in cells; the plane and the points serve it.
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points, not a grid: it has no heatmap slices. Read its points or its n_s–r plane instead');
     const plan = planSlice(scan.spec.axes, q);
-    const set = q.likelihood ? await this.sets.find(q.likelihood.key, q.likelihood.version) : undefined;
-    // Δχ² under the set is one more column to average, written out in SQL (the schema asks a set for it).
+    // Δχ² under the set is one more column to average, written out in SQL (the schema asks a set for it,
+    // and refuses uploaded regions, which are judged per point outside the database).
+    const set = q.likelihood ? (await this.likelihoods.resolve(user, q.likelihood)).set : undefined;
     const columns: SliceColumns = { ...COLUMN, deltaChi2: set ? deltaChi2Sql(set, 'scan_points') : 'NULL' };
     // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
     const finished = FINISHED.has(scan.status);

@@ -4,7 +4,7 @@ import type { Response } from 'express';
 import {
   evidenceComparisonQuerySchema, evidenceComparisonSchema, scanConstraintsQuerySchema, scanConstraintsSchema,
   type EvidenceComparison, type EvidenceComparisonQuery, type ScanConstraints, type ScanConstraintsQuery,
-  createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
+  createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQueryFieldsSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
   type ScanPointsQuery, type ScanSummary,
@@ -68,7 +68,7 @@ export class ScansController {
   @Get('evidence')
   @ApiOperation({
     summary: 'Model comparison: the evidence of each grid scan under each likelihood set, ln B against a reference scan, ranked, in the words of Kass & Raftery (1995)',
-    description: '`ids=3,5,8` (at most 8), `likelihoods=planck18-bk18,pact-lb-bk18` (each `key` or `key@version`), `reference` (default the first id). '
+    description: '`ids=3,5,8` (at most 8), `likelihoods=planck18-bk18,pact-lb-bk18` (each `key` or `key@version`, or uploaded regions `regions:<id>,<id>`), `reference` (default the first id). '
       + 'The evidence is the mean likelihood over the prior volume each scan chose, so ln B depends on the axes\' ranges.',
   })
   @ApiZodQuery(evidenceComparisonQuerySchema)
@@ -93,7 +93,8 @@ export class ScansController {
   @Get(':id/points')
   @ApiOperation({
     summary: 'Points of a scan: a page as JSON, or with `format=csv|json|arrow` every matching point as a download',
-    description: 'Sort by `pointIndex`, an output or `input.<axis parameter>`; filter outputs with `<output>_min`/`_max` and axis inputs with `input.<axis parameter>_min`/`_max`.',
+    description: 'Sort by `pointIndex`, an output or `input.<axis parameter>`; filter outputs with `<output>_min`/`_max` and axis inputs with `input.<axis parameter>_min`/`_max`. '
+      + '`likelihood=<key>[@<version>]` or `regions:<id>,<id>` adds each point\'s Δχ² and confidence level; sorting and filtering by Δχ² need a set.',
   })
   @ApiZodQuery(scanPointsQueryFieldsSchema)
   @ApiProduces('application/json', 'text/csv', 'application/vnd.apache.arrow.stream')
@@ -136,6 +137,7 @@ export class ScansController {
       + '`xFrom`, `xTo`, `yFrom`, `yTo` (axis indices, inclusive) zoom into a window, at full resolution when it fits. '
       + 'A scan over a list of points has no grid: 409 (use `/points` or `/plane`).',
   })
+  @ApiZodQuery(scanGridQueryFieldsSchema)
   @ApiZodResponse(200, scanGridSliceSchema, 'At most maxCells cells per axis as row-major columns: mean, min and max of the output per block, OK and failed counts by reason')
   @ApiErrorResponses(400, 401, 404, 409)
   grid(
@@ -149,7 +151,7 @@ export class ScansController {
   @Get(':id/constraints')
   @ApiOperation({
     summary: 'What the scan allows under a likelihood set: the posterior over its grid, 1-D and 2-D marginals, 68/95 % credible intervals, best fit, evidence',
-    description: '`likelihood=<key>` or `<key>@<version>` (see `/api/likelihood-sets`); `prior.<axis>=uniform|log` (default: log for a log-spaced axis); '
+    description: '`likelihood=<key>` or `<key>@<version>` (see `/api/likelihood-sets`), or `regions:<id>,<id>` (uploaded constraint regions); `prior.<axis>=uniform|log` (default: log for a log-spaced axis); '
       + '`x`, `y`: the pair of the 2-D marginal. Failed and flagged points are left out and counted. `format=csv`: the 1-D marginals as CSV.',
   })
   @ApiZodQuery(scanConstraintsQuerySchema)
@@ -169,7 +171,9 @@ export class ScansController {
     const constraints = await this.constraintsOf.constraints(user, id, query);
     if (query.format === 'json') return constraints;
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');
-    res.setHeader('Content-Disposition', `attachment; filename="scan-${id}-marginals-${constraints.likelihood.key}-v${constraints.likelihood.version}.csv"`);
+    const { likelihood } = constraints;
+    const judgedWith = likelihood.kind === 'set' ? `${likelihood.key}-v${likelihood.version}` : likelihood.ref.replace(/[:,]/g, '-');
+    res.setHeader('Content-Disposition', `attachment; filename="scan-${id}-marginals-${judgedWith}.csv"`);
     return ScanConstraintsService.marginalsCsv(constraints);
   }
 

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { likelihoodRefSchema, likelihoodSetEntrySchema } from './likelihood-set-entry.schema.js';
+import { judgedLikelihoodSchema, likelihoodRefSchema } from './likelihood-set-entry.schema.js';
 
 const PRIOR_KEY = /^prior\.([A-Za-z][A-Za-z0-9_]*)$/;
 
@@ -31,8 +31,8 @@ const interval = z.object({ level: z.number(), kind: z.enum(['two-sided', 'upper
 /** The answer: what the scan's data allow under the set, with the numbers it rests on. */
 export const scanConstraintsSchema = z.object({
   scanId: z.number().int(),
-  /** The set judged with, its version and sources (a result always names the version). */
-  likelihood: likelihoodSetEntrySchema,
+  /** The set judged with, its version and sources (a result always names the version), or the uploaded regions. */
+  likelihood: judgedLikelihoodSchema,
   priors: z.array(z.object({ axis: z.string(), prior: z.enum(['uniform', 'log']) })),
   marginals: z.array(z.object({ axis: z.string(), prior: z.enum(['uniform', 'log']), values: z.array(z.number()), mass: z.array(z.number()), density: z.array(z.number().nullable()) })),
   constraints: z.array(z.object({ axis: z.string(), intervals: z.array(interval), edgeWarning: z.string().nullable() })),
@@ -48,6 +48,19 @@ export const scanConstraintsSchema = z.object({
 export type ScanConstraints = z.infer<typeof scanConstraintsSchema>;
 
 /**
+ * A comma-separated list of likelihood references: a bare id after `regions:<id>` continues that
+ * reference, so `planck18-bk18,regions:12,13` is two likelihoods.
+ */
+function splitLikelihoods(list: string): string[] {
+  const refs: string[] = [];
+  for (const item of list.split(',').map((x) => x.trim())) {
+    if (/^\d+$/.test(item) && refs.at(-1)?.startsWith('regions:')) refs[refs.length - 1] += `,${item}`;
+    else refs.push(item);
+  }
+  return refs;
+}
+
+/**
  * `GET /api/scans/evidence?ids=3,5,8&likelihoods=planck18-bk18,pact-lb-bk18&reference=3`: the evidence of
  * each grid scan under each set, and ln B against the reference scan (default the first), ranked.
  */
@@ -60,8 +73,9 @@ export const evidenceComparisonQuerySchema = z
     likelihoods: z
       .string()
       .default('planck18-bk18,pact-lb-bk18')
-      .transform((s) => s.split(',').map((x) => x.trim()))
-      .pipe(z.array(likelihoodRefSchema).min(1, 'name at least one likelihood set').max(6, 'at most 6 likelihood sets')),
+      .transform(splitLikelihoods)
+      .pipe(z.array(likelihoodRefSchema).min(1, 'name at least one likelihood set').max(6, 'at most 6 likelihood sets'))
+      .describe('Comma-separated likelihoods: sets as `key` or `key@version`, and uploaded constraint regions as `regions:<id>,<id>`'),
     reference: z.coerce.number({ error: 'must be a scan id' }).int().positive().optional(),
   })
   .refine((q) => q.reference === undefined || q.ids.includes(q.reference), { path: ['reference'], message: 'the reference must be one of the scans compared' });
@@ -73,7 +87,7 @@ export const evidenceComparisonSchema = z.object({
   note: z.string(),
   sets: z.array(
     z.object({
-      likelihood: likelihoodSetEntrySchema,
+      likelihood: judgedLikelihoodSchema,
       /** Best first (highest ln Z); a scan with no judged point has lnZ null and comes last. */
       scans: z.array(
         z.object({

@@ -1,6 +1,13 @@
 import { z } from 'zod';
 import { likelihoodRefSchema } from './likelihood-set-entry.schema.js';
 
+/**
+ * Why Δχ² cannot sort, filter or colour a heatmap under uploaded regions: those run in SQL, and a
+ * region likelihood (point-in-polygon and distances to the contours) is evaluated per point in the API.
+ */
+export const REGION_LIKELIHOOD_NOT_IN_SQL =
+  'needs a published or admin likelihood set: a region likelihood is evaluated per point outside the database';
+
 /** Outputs stored per point, by API name; each can sort, filter and colour a heatmap. */
 export const POINT_OUTPUTS = ['ns', 'r', 'alphaS', 'As', 'amplitudeScale', 'nTotal', 'nStar', 'phiStar', 'phiEnd', 'energyScaleGeV'] as const;
 export type PointOutput = (typeof POINT_OUTPUTS)[number];
@@ -24,6 +31,8 @@ export const scanPointSchema = z.object({
   /** With `likelihood=<set>`: −2 ln(L/L_max) under that set (null for a failed point), and the confidence level it corresponds to. */
   deltaChi2: output.optional(),
   confidence: output.optional(),
+  /** With `likelihood=regions:…`: the point lies outside the outermost contour, where Δχ² is extrapolated (null for a failed point). */
+  outsideRegions: z.boolean().nullable().optional(),
 });
 export type ScanPointDto = z.infer<typeof scanPointSchema>;
 
@@ -54,7 +63,7 @@ export const scanPointsQueryFieldsSchema = z.object({
     .refine((s) => s === 'pointIndex' || s === 'deltaChi2' || (POINT_OUTPUTS as readonly string[]).includes(s) || INPUT_KEY.test(s), {
       message: `sort by pointIndex, an output (${POINT_OUTPUTS.join(', ')}), deltaChi2 (with likelihood) or input.<axis parameter>`,
     }),
-  /** A likelihood set, `key` or `key@version`: each point then carries its Δχ² and confidence level under it. */
+  /** A likelihood set (`key` or `key@version`) or uploaded regions (`regions:<id>,<id>`): each point then carries its Δχ² and confidence level under it. */
   likelihood: likelihoodRefSchema.optional(),
   deltaChi2_max: optionalNumber,
   order: z.enum(['asc', 'desc']).default('asc'),
@@ -94,6 +103,10 @@ export const scanPointsQuerySchema = z.preprocess(
       inputRanges: z.array(z.object({ name: z.string(), min: optionalNumber, max: optionalNumber })).max(8, 'at most 8 input filters').default([]),
     })
     .superRefine((q, ctx) => {
+      if (q.likelihood?.kind === 'regions') {
+        if (q.sort === 'deltaChi2') ctx.addIssue({ code: 'custom', path: ['sort'], message: `sorting by deltaChi2 ${REGION_LIKELIHOOD_NOT_IN_SQL}` });
+        if (q.deltaChi2_max !== undefined) ctx.addIssue({ code: 'custom', path: ['deltaChi2_max'], message: `deltaChi2_max ${REGION_LIKELIHOOD_NOT_IN_SQL}` });
+      }
       if (q.likelihood) return;
       const needs = 'name the likelihood set too, e.g. likelihood=planck18-bk18';
       if (q.sort === 'deltaChi2') ctx.addIssue({ code: 'custom', path: ['sort'], message: `sorting by deltaChi2: ${needs}` });
@@ -129,6 +142,20 @@ export const GRID_MAX_CELLS = 512;
 
 const windowEnd = z.coerce.number({ error: 'must be a whole number' }).int('must be a whole number').min(0, 'is an axis index, 0 or more').optional();
 
+/** The named query fields of the grid route, as documented; the cut along other axes comes as `at.<parameter>=<index>`. */
+export const scanGridQueryFieldsSchema = z.object({
+  x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
+  y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
+  /** An output, the status, or `deltaChi2` under the `likelihood` set (for the 68/95 % boundary lines). */
+  output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']).default('ns'),
+  likelihood: likelihoodRefSchema.optional(),
+  maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
+  xFrom: windowEnd,
+  xTo: windowEnd,
+  yFrom: windowEnd,
+  yTo: windowEnd,
+});
+
 /**
  * `GET /api/scans/:id/grid?x=f&y=nStar&output=ns&at.lambda=3`: a 2-D slice for a heatmap, at most
  * `maxCells` cells along each axis; `xFrom`..`xTo` and `yFrom`..`yTo` (axis indices, inclusive) zoom in.
@@ -141,20 +168,10 @@ export const scanGridQuerySchema = z.preprocess(
     const at = Object.fromEntries(entries.filter(([k]) => k.startsWith('at.')).map(([k, v]) => [k.slice(3), v]));
     return { ...Object.fromEntries(entries.filter(([k]) => !k.startsWith('at.'))), at: { ...(raw as { at?: object }).at, ...at } };
   },
-  z
-    .object({
-      x: z.string({ error: 'choose the x axis' }).min(1, 'choose the x axis'),
-      y: z.string({ error: 'choose the y axis' }).min(1, 'choose the y axis'),
-      /** An output, the status, or `deltaChi2` under the `likelihood` set (for the 68/95 % boundary lines). */
-      output: z.enum([...POINT_OUTPUTS, 'status', 'deltaChi2']).default('ns'),
-      likelihood: likelihoodRefSchema.optional(),
+  scanGridQueryFieldsSchema
+    .extend({
       /** Index along each other axis, from `at.<parameter>=<index>` (default 0). */
       at: z.record(z.string(), z.coerce.number().int().min(0)).default({}),
-      maxCells: z.coerce.number({ error: 'must be a number' }).int('must be a whole number').min(1, 'is at least 1').max(GRID_MAX_CELLS, `is at most ${GRID_MAX_CELLS}`).default(GRID_MAX_CELLS),
-      xFrom: windowEnd,
-      xTo: windowEnd,
-      yFrom: windowEnd,
-      yTo: windowEnd,
     })
     .superRefine((q, ctx) => {
       for (const axis of ['x', 'y'] as const) {
@@ -162,6 +179,7 @@ export const scanGridQuerySchema = z.preprocess(
         const to = q[`${axis}To`];
         if (from !== undefined && to !== undefined && from > to) ctx.addIssue({ code: 'custom', path: [`${axis}To`], message: `must not be below ${axis}From` });
       }
+      if (q.output === 'deltaChi2' && q.likelihood?.kind === 'regions') ctx.addIssue({ code: 'custom', path: ['output'], message: `output=deltaChi2 ${REGION_LIKELIHOOD_NOT_IN_SQL}` });
       if (q.output === 'deltaChi2' && !q.likelihood) ctx.addIssue({ code: 'custom', path: ['likelihood'], message: 'output=deltaChi2: name the likelihood set too, e.g. likelihood=planck18-bk18' });
     }),
 );

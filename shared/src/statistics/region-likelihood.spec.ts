@@ -57,6 +57,10 @@ describe('uploaded contours as a likelihood', () => {
   it('refuses contours it cannot interpolate', () => {
     expect(() => new RegionLikelihood([])).toThrow('at least one contour');
     expect(() => new RegionLikelihood([{ confidenceLevel: 0.95, vertices: square(0.01) }, { confidenceLevel: 0.95, vertices: square(0.02) }])).toThrow('share the level');
+    // The 68% square sticks out of the 95% one.
+    expect(() => new RegionLikelihood([{ confidenceLevel: 0.68, vertices: square(0.01, 0.975) }, { confidenceLevel: 0.95, vertices: square(0.012) }])).toThrow(
+      'the 68% contour is not inside the 95% contour; the contours must be nested',
+    );
     // A thin C shape whose centroid falls in its gap.
     const cShape = [
       { ns: 0, r: 0 }, { ns: 3, r: 0 }, { ns: 3, r: 0.2 }, { ns: 0.2, r: 0.2 }, { ns: 0.2, r: 2.8 },

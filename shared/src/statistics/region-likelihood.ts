@@ -42,6 +42,12 @@ export class RegionLikelihood {
       level: region.confidenceLevel,
       vertices: region.vertices,
     }));
+    // The rule between two contours assumes the wider one encloses the narrower one.
+    for (let i = 1; i < sorted.length; i++) {
+      if (!sorted[i - 1].vertices.every((vertex) => insidePolygon(vertex, sorted[i].vertices))) {
+        throw new RangeError(`the ${percent(sorted[i - 1].confidenceLevel)} contour is not inside the ${percent(sorted[i].confidenceLevel)} contour; the contours must be nested`);
+      }
+    }
     this.centre = polygonCentroid(sorted[0].vertices);
     if (!insidePolygon(this.centre, sorted[0].vertices)) {
       throw new RangeError('the innermost contour\'s centroid lies outside it; the interpolation needs a centre inside');
@@ -71,6 +77,8 @@ export class RegionLikelihood {
     return { deltaChi2: sigmas * sigmas, insideLevel: null, outside: true };
   }
 }
+
+const percent = (level: number) => `${Number((level * 100).toPrecision(4))}%`;
 
 /** Even-odd rule: whether a point lies inside a closed polygon (on an edge counts as inside). */
 export function insidePolygon(point: RegionVertex, vertices: readonly RegionVertex[]): boolean {

@@ -1,4 +1,4 @@
-import { pointCount, type LikelihoodSetEntry, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
+import { pointCount, type JudgedLikelihood, type LikelihoodSetEntry, type ScanDetail, type ScanGridSlice, type StoredScanSpec } from '@sixtyfold/shared';
 
 // Scans of the invented Halvorsen Institute groups (see fixtures.ts), with their full detail.
 
@@ -92,6 +92,9 @@ export function likelihoodSet(overrides: Partial<LikelihoodSetEntry> = {}): Like
     ...overrides,
   };
 }
+
+/** A set as an answer names what it was judged with. */
+export const judgedBy = (set: LikelihoodSetEntry): JudgedLikelihood => ({ ...set, kind: 'set', ref: `${set.key}@${set.version}` });
 
 export const pactSet = likelihoodSet({
   key: 'pact-lb-bk18',

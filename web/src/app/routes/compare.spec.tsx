@@ -4,7 +4,7 @@ import { adminUser, scan } from '@/testing/fixtures';
 import { json, mockApi } from '@/testing/mock-api';
 import { plotIn } from '@/testing/plotly-chart-mock';
 import { renderApp } from '@/testing/render';
-import { likelihoodSet, naturalSpec, pactSet, scanDetail, slice } from '@/testing/scan-fixtures';
+import { judgedBy, likelihoodSet, naturalSpec, pactSet, scanDetail, slice } from '@/testing/scan-fixtures';
 
 vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
 // A whole page with a dozen queries: give a busy machine time.
@@ -63,8 +63,8 @@ function mockCompare() {
       json(200, {
         referenceId: 42,
         note: 'The evidence depends on the prior ranges (the axes) each scan chose.',
-        sets: [likelihoodSet(), pactSet].map((likelihood) => ({
-          likelihood,
+        sets: [likelihoodSet(), pactSet].map((set) => ({
+          likelihood: judgedBy(set),
           scans: [
             { scanId: 43, name: secondSpec.name, rank: 1, lnZ: -1.1, lnZError: 0.01, included: 9, excluded: 0, lnB: 1.2, twoLnB: 2.4, verdict: 'positive' },
             { scanId: 42, name: details[42].name, rank: 2, lnZ: -2.3, lnZError: 0.01, included: 9, excluded: 0, lnB: 0, twoLnB: 0, verdict: 'reference' },

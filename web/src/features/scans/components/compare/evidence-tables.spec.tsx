@@ -3,7 +3,7 @@ import { screen, within } from '@testing-library/react';
 import { Route, Routes } from 'react-router-dom';
 import { json, mockApi } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render';
-import { likelihoodSet, naturalSpec, pactSet, scanDetail } from '@/testing/scan-fixtures';
+import { judgedBy, likelihoodSet, naturalSpec, pactSet, scanDetail } from '@/testing/scan-fixtures';
 import { EvidenceTables } from './evidence-tables';
 
 const natural = scanDetail({ id: 3, name: 'Natural inflation' });
@@ -19,8 +19,8 @@ const comparison = (reference: number): EvidenceComparison => ({
   referenceId: reference,
   note: 'The evidence depends on the prior ranges (the axes) each scan chose.',
   sets: [
-    { likelihood: likelihoodSet(), scans: [row(5, 'T-model attractor', 1, -1.2, 3.4, 'strong'), row(3, 'Natural inflation', 2, -4.6, 0, 'reference')] },
-    { likelihood: pactSet, scans: [row(5, 'T-model attractor', 1, -2.0, 0.7, 'not worth more than a bare mention'), row(3, 'Natural inflation', 2, -2.7, 0, 'reference')] },
+    { likelihood: judgedBy(likelihoodSet()), scans: [row(5, 'T-model attractor', 1, -1.2, 3.4, 'strong'), row(3, 'Natural inflation', 2, -4.6, 0, 'reference')] },
+    { likelihood: judgedBy(pactSet), scans: [row(5, 'T-model attractor', 1, -2.0, 0.7, 'not worth more than a bare mention'), row(3, 'Natural inflation', 2, -2.7, 0, 'reference')] },
   ],
 });
 

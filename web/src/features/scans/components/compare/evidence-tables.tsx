@@ -68,7 +68,7 @@ function EvidenceResult({ ids, reference }: { ids: number[]; reference: number }
       </Text>
       <SimpleGrid columns={{ base: 1, lg: 2 }} gap="4">
         {sets.map((set) => (
-          <EvidenceTable key={`${set.likelihood.key}@${set.likelihood.version}`} set={set} />
+          <EvidenceTable key={set.likelihood.ref} set={set} />
         ))}
       </SimpleGrid>
     </Stack>
@@ -77,7 +77,7 @@ function EvidenceResult({ ids, reference }: { ids: number[]; reference: number }
 
 function EvidenceTable({ set }: { set: EvidenceComparison['sets'][number] }) {
   const { likelihood } = set;
-  const title = `${likelihood.name} (${likelihood.key} v${likelihood.version})`;
+  const title = likelihood.kind === 'set' ? `${likelihood.name} (${likelihood.key} v${likelihood.version})` : likelihood.name;
   return (
     <Panel p={{ base: '3', md: '4' }} minW="0">
       <Stack gap="2">
@@ -85,7 +85,8 @@ function EvidenceTable({ set }: { set: EvidenceComparison['sets'][number] }) {
           {title}
         </Heading>
         <Text fontSize="xs" color="fg.muted">
-          {likelihood.statement} Sources: {likelihood.sources.map((source) => `${source.label} (arXiv:${source.arxiv})`).join('; ')}.
+          {likelihood.statement}
+          {likelihood.kind === 'set' && ` Sources: ${likelihood.sources.map((source) => `${source.label} (arXiv:${source.arxiv})`).join('; ')}.`}
         </Text>
         <Table.ScrollArea>
           <Table.Root size="sm" aria-label={`Evidence under ${title}`}>
@@ -105,7 +106,7 @@ function EvidenceTable({ set }: { set: EvidenceComparison['sets'][number] }) {
                   <Table.Cell fontFamily="mono">{row.rank}</Table.Cell>
                   <Table.Cell>
                     <Link asChild>
-                      <RouterLink to={`${paths.scan.getHref(row.scanId, 'constraints')}&likelihood=${likelihood.key}@${likelihood.version}`}>{row.name}</RouterLink>
+                      <RouterLink to={`${paths.scan.getHref(row.scanId, 'constraints')}&likelihood=${likelihood.ref}`}>{row.name}</RouterLink>
                     </Link>
                   </Table.Cell>
                   <Table.Cell fontFamily="mono" whiteSpace="nowrap">

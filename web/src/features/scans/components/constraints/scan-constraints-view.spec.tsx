@@ -4,14 +4,14 @@ import { Route, Routes } from 'react-router-dom';
 import { json, mockApi } from '@/testing/mock-api';
 import { plotIn } from '@/testing/plotly-chart-mock';
 import { renderWithProviders } from '@/testing/render';
-import { likelihoodSet, naturalSpec, pactSet, scanDetail } from '@/testing/scan-fixtures';
+import { judgedBy, likelihoodSet, naturalSpec, pactSet, scanDetail } from '@/testing/scan-fixtures';
 import { ScanConstraintsView } from './scan-constraints-view';
 
 vi.mock('@/components/plots/plotly-chart', () => import('@/testing/plotly-chart-mock'));
 
 const answer = (overrides: Partial<ScanConstraints> = {}): ScanConstraints => ({
   scanId: 42,
-  likelihood: likelihoodSet(),
+  likelihood: judgedBy(likelihoodSet()),
   priors: [{ axis: 'f', prior: 'log' }, { axis: 'nStar', prior: 'uniform' }],
   marginals: [
     { axis: 'f', prior: 'log', values: [5, 7, 10], mass: [0.2, 0.5, 0.3], density: [0.4, 1.2, null] },
@@ -97,7 +97,7 @@ describe('constraints tab', () => {
   it('asks with the set and priors in the address', async () => {
     const { requests } = mockApi({
       'GET /api/likelihood-sets': () => json(200, [likelihoodSet(), pactSet]),
-      'GET /api/scans/42/constraints': () => json(200, answer({ likelihood: pactSet })),
+      'GET /api/scans/42/constraints': () => json(200, answer({ likelihood: judgedBy(pactSet) })),
     });
     renderView(scanDetail(), '/scans/42?view=constraints&likelihood=pact-lb-bk18@1&prior.f=uniform');
     await screen.findByRole('table', { name: 'Parameter constraints' });

@@ -9,7 +9,7 @@ import { paths } from '@/config/paths';
 import { formatNumber } from '@/lib/format-number';
 import { DEFAULT_LIKELIHOOD } from '../../api/get-likelihood-sets';
 import { constraintsCsvHref, useScanConstraints, type ConstraintsQuery } from '../../api/get-scan-constraints';
-import { likelihoodRef, useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
+import { useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
 import { formatInterval } from '../../utils/format-interval';
 import { inputLabel } from '../../utils/point-columns';
@@ -55,7 +55,7 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
     <Stack gap="4" py="2">
       <Panel p={{ base: '3', md: '4' }}>
         <HStack gap="3" wrap="wrap" align="end">
-          <LikelihoodSetSelect choice={choice} value={answer ? likelihoodRef(answer.likelihood) : query.likelihood} />
+          <LikelihoodSetSelect choice={choice} value={answer ? answer.likelihood.ref : query.likelihood} />
           {axes.map((axis) => (
             <SelectField
               key={axis}
@@ -68,7 +68,7 @@ function GridConstraints({ scan, axes }: { scan: ScanDetail; axes: string[] }) {
         </HStack>
         {answer && (
           <Box mt="3" fontSize="sm">
-            <LikelihoodSetNote set={answer.likelihood} />
+            <LikelihoodSetNote likelihood={answer.likelihood} />
           </Box>
         )}
       </Panel>

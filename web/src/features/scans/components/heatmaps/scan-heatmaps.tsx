@@ -224,7 +224,7 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
               of {set.name} for two parameters (n_s, r), drawn through each cell’s Δχ² (a block’s mean).
               {boundary.isError ? ` Could not load them: ${boundary.error.message}` : ''}
             </Text>
-            <LikelihoodSetNote set={set} />
+            <LikelihoodSetNote likelihood={set} />
           </>
         )}
         <Text>

@@ -62,7 +62,7 @@ export function NsRPlane({ series, colorBy, likelihoods, rScale = 'linear', refe
           </Text>
         )}
         {likelihoods.map((set) => (
-          <LikelihoodSetNote key={`${set.key}@${set.version}`} set={set} named />
+          <LikelihoodSetNote key={`${set.key}@${set.version}`} likelihood={set} named />
         ))}
         {regions && regions.length > 0 && (
           <Text>Outlines: constraint regions your group uploaded, as given in their files (name, confidence level, source in the legend).</Text>
