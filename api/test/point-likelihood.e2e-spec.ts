@@ -58,6 +58,8 @@ describe('points judged under a likelihood set', () => {
     for (const key of ['planck18-bk18', 'planck18', 'pact-lb-bk18']) {
       const res = await member.get(`/api/scans/${scan.id}/points?likelihood=${key}&pageSize=1000`);
       expect(res.status).toBe(200);
+      // Asked without a version, the answer names the one it judged with.
+      expect(res.body.judgedBy).toBe(`${key}@1`);
       for (const point of res.body.items) {
         const want = expected(key, point.pointIndex);
         if (!want) {
@@ -101,6 +103,8 @@ describe('points judged under a likelihood set', () => {
     const member = await t.signIn(DEMO.plateauMember);
     const key = 'pact-lb-bk18';
     const csv = await member.get(`/api/scans/${scan.id}/points?format=csv&likelihood=${key}`);
+    expect(csv.headers['x-sixtyfold-judged-by']).toBe(`${key}@1`);
+    expect(csv.headers['content-disposition']).toBe(`attachment; filename="scan-${scan.id}-points-judged-${key}-1.csv"`);
     const [header, ...lines] = csv.text.trim().split('\n');
     expect(header.split(',').slice(-2)).toEqual(['deltaChi2', 'confidence']);
     for (const line of lines) {

@@ -4,7 +4,7 @@ import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
   inputSortedOrder, planeSample, ENGINE_PIVOT_PER_MPC, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type Page, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
-  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointsQuery,
+  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { ExportsService } from '../exports/exports.service';
@@ -177,7 +177,7 @@ export class ScanResultsService {
    * point indices alone (the offset skips index entries, not rows), and only the page's rows are
    * then read by primary key. Without filters the total is the scan's own counters.
    */
-  async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<Page<ScanPointDto>> {
+  async page(user: SessionUser, id: number, q: ScanPointsQuery): Promise<ScanPointPage> {
     const scan = await this.readable(user, id);
     const likelihood = q.likelihood && (await this.likelihoods.resolve(user, q.likelihood));
     // Only a set sorts and filters by Δχ² (in SQL); the schema refuses both under uploaded regions.
@@ -198,7 +198,7 @@ export class ScanResultsService {
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
     const rows: RawPoint[] =
       (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total, set))));
-    return { items: rows.map((row) => toDto(row, likelihood)), total, page: q.page, pageSize: q.pageSize };
+    return { items: rows.map((row) => toDto(row, likelihood)), total, page: q.page, pageSize: q.pageSize, ...(likelihood && { judgedBy: likelihood.description.ref }) };
   }
 
   /**
@@ -265,7 +265,9 @@ export class ScanResultsService {
     return this.exports.send(user, res, {
       headers: {
         'Content-Type': EXPORT_CONTENT_TYPES[format],
-        'Content-Disposition': `attachment; filename="scan-${id}-points.${format}"`,
+        // A judged export names its likelihood, version included, in its file name and a header.
+        'Content-Disposition': `attachment; filename="scan-${id}-points${likelihood ? `-judged-${likelihood.description.ref.replace(/[^a-z0-9.-]+/gi, '-')}` : ''}.${format}"`,
+        ...(likelihood && { 'X-Sixtyfold-Judged-By': likelihood.description.ref }),
       },
       open: () => openQueryStream(this.db, sql, parameters, { rowsAsArray: true }),
       stages: exportStages(format, columns),

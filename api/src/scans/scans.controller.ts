@@ -5,8 +5,8 @@ import {
   evidenceComparisonQuerySchema, evidenceComparisonSchema, scanConstraintsQuerySchema, scanConstraintsSchema,
   type EvidenceComparison, type EvidenceComparisonQuery, type ScanConstraints, type ScanConstraintsQuery,
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQueryFieldsSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
-  scanPlaneSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
-  type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto,
+  scanPlaneSchema, scanPointPageSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
+  type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage,
   type ScanPointsQuery, type ScanSummary,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
@@ -102,7 +102,7 @@ export class ScansController {
     status: 200,
     description: 'A page of points; with `format`, a CSV (one row per point), a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows)',
     content: {
-      'application/json': { schema: openApiSchemaOf(pageOf(scanPointSchema), 'output') },
+      'application/json': { schema: openApiSchemaOf(scanPointPageSchema, 'output') },
       'text/csv': { schema: { type: 'string' } },
       'application/vnd.apache.arrow.stream': { schema: { type: 'string', format: 'binary' } },
     },
@@ -113,7 +113,7 @@ export class ScansController {
     @Param('id', ParseIntPipe) id: number,
     @Query(new ZodValidationPipe(scanPointsQuerySchema)) query: ScanPointsQuery,
     @Res({ passthrough: true }) res: Response,
-  ): Promise<Page<ScanPointDto> | void> {
+  ): Promise<ScanPointPage | void> {
     if (!query.format) return this.results.page(user, id, query);
     await this.results.export(user, id, query, query.format, res);
   }

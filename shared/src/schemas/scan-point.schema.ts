@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { pageOf } from './admin.schema.js';
 import { likelihoodRefSchema } from './likelihood-set-entry.schema.js';
 
 /**
@@ -35,6 +36,14 @@ export const scanPointSchema = z.object({
   outsideRegions: z.boolean().nullable().optional(),
 });
 export type ScanPointDto = z.infer<typeof scanPointSchema>;
+
+/**
+ * A page of points. `judgedBy` names the likelihood the Δχ² columns were computed with, version
+ * included (`planck18-bk18@1`, `regions:4,5`), so an answer says what judged it even when the
+ * query named a set without its version.
+ */
+export const scanPointPageSchema = pageOf(scanPointSchema).extend({ judgedBy: z.string().optional() });
+export type ScanPointPage = z.infer<typeof scanPointPageSchema>;
 
 /** Download formats of the points: CSV, a JSON array, or an Apache Arrow IPC stream (columnar). */
 export const POINT_EXPORT_FORMATS = ['csv', 'json', 'arrow'] as const;

@@ -1,16 +1,14 @@
-import { pageOf, scanPointSchema, type PointExportFormat } from '@sixtyfold/shared';
+import { scanPointPageSchema, type PointExportFormat } from '@sixtyfold/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { env } from '@/config/env';
 import { api } from '@/lib/api-client';
 import { LIVE_REFRESH_MS } from './get-scan';
 
-const pointPageSchema = pageOf(scanPointSchema);
-
 /** Query keys of `GET /api/scans/:id/points` exactly as the API names them (sort, ns_min, input.f_max, ...). */
 export type PointsQuery = Record<string, string>;
 
 export const getScanPoints = (scanId: number, query: PointsQuery, signal?: AbortSignal) =>
-  api.get(`/scans/${scanId}/points`, { query, schema: pointPageSchema, signal });
+  api.get(`/scans/${scanId}/points`, { query, schema: scanPointPageSchema, signal });
 
 export const getScanPointsQueryOptions = (scanId: number, query: PointsQuery, live: boolean) =>
   queryOptions({
