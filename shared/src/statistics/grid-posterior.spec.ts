@@ -124,6 +124,12 @@ describe('grid posterior', () => {
     expect(plateau.constraints[0].edgeWarning).toBe('the 95% region reaches α = 1, the end of the axis: widen it');
     // The 68% region of that plateau: still one-sided, its mass sits on the plateau from the end.
     expect(plateau.constraints[0].intervals[0].kind).toBe('upper-limit');
+    // A lower shelf (Δχ² = 1.2 below α = 5) that the 68% highest-density region leaves out but the 95% one
+    // holds: one kind per axis, decided by the widest level, so both are upper limits, the 68% one the tighter.
+    const shelf = gridPosterior({ axes: [alpha], deltaChi2: gridOf([alpha], (a) => (a < 5 ? 1.2 : a <= 10 ? 0 : ((a - 10) / 2) ** 2)) });
+    const [shelf68, shelf95] = shelf.constraints[0].intervals;
+    expect([shelf68.kind, shelf95.kind]).toEqual(['upper-limit', 'upper-limit']);
+    expect(shelf68.upper).toBeLessThan(shelf95.upper);
     // A posterior piled at the low end gives an upper limit and warns about that end.
     const low = gridPosterior({ axes: [alpha], deltaChi2: gridOf([alpha], (a) => ((a - 1) / 5) ** 2) });
     expect(low.constraints[0].intervals[1].kind).toBe('upper-limit');

@@ -13,9 +13,9 @@ export interface Marginal1D {
 
 /**
  * A credible interval from the 1-D marginal. `two-sided`: equal-tailed, cutting (1 − level)/2 from
- * each side. `upper-limit` / `lower-limit`: one-sided, used when the level's highest-density region
- * holds the lowest / highest value of the axis (the data do not bound that side), or when the
- * marginal peaks at that end.
+ * each side. `upper-limit` / `lower-limit`: one-sided, used at every level when the widest level's
+ * highest-density region holds the lowest / highest value of the axis (the data do not bound that
+ * side), or when the marginal peaks at that end.
  */
 export interface CredibleInterval {
   level: number;
@@ -191,31 +191,25 @@ function axisConstraint(name: string, cells: AxisCells, values: readonly number[
     }
     return 0;
   };
-  // One-sided where the data do not bound that side (common practice): when the level's
+  // One-sided where the data do not bound that side (common practice): when the widest level's
   // highest-density region holds one end of the axis, the prior range, not the data, cuts the
-  // posterior there, so the other side's limit is quoted. With both ends or neither inside, the
-  // mode decides (a flat posterior peaks at its first cell).
-  const kindAt = (level: number): CredibleInterval['kind'] => {
-    const bound = hpdBound(level);
-    const lowIn = densities[0] >= bound;
-    const highIn = densities[n - 1] >= bound;
-    if (lowIn && !highIn) return 'upper-limit';
-    if (highIn && !lowIn) return 'lower-limit';
-    return mode === 0 ? 'upper-limit' : mode === n - 1 ? 'lower-limit' : 'two-sided';
-  };
+  // posterior there, so every level quotes the other side's limit (one kind per axis, as results
+  // are quoted: "α < 2.3 (68 %), < 5.7 (95 %)"). With both ends or neither inside, the mode decides
+  // (a flat posterior peaks at its first cell).
+  const widestLevel = Math.max(...levels);
+  const widestBound = hpdBound(widestLevel);
+  const lowIn = densities[0] >= widestBound;
+  const highIn = densities[n - 1] >= widestBound;
+  const kind: CredibleInterval['kind'] =
+    lowIn && !highIn ? 'upper-limit' : highIn && !lowIn ? 'lower-limit' : mode === 0 ? 'upper-limit' : mode === n - 1 ? 'lower-limit' : 'two-sided';
   const intervals = levels.map((level): CredibleInterval => {
-    const kind = kindAt(level);
     if (kind === 'upper-limit') return { level, kind, lower: values[cells.order[0]], upper: quantile(level) };
     if (kind === 'lower-limit') return { level, kind, lower: quantile(1 - level), upper: values[cells.order[n - 1]] };
     return { level, kind, lower: quantile((1 - level) / 2), upper: quantile((1 + level) / 2) };
   });
   // The widest region reaches an end when that end lies inside its highest-density region.
-  const widest = intervals[intervals.length - 1];
-  const bound = hpdBound(widest.level);
-  const ends: number[] = [];
-  if (densities[0] >= bound) ends.push(values[cells.order[0]]);
-  if (densities[n - 1] >= bound) ends.push(values[cells.order[n - 1]]);
-  const percent = `${Math.round(widest.level * 100)}%`;
+  const ends = [...(lowIn ? [values[cells.order[0]]] : []), ...(highIn ? [values[cells.order[n - 1]]] : [])];
+  const percent = `${Math.round(widestLevel * 100)}%`;
   const edgeWarning =
     ends.length === 0
       ? null
