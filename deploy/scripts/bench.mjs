@@ -4,7 +4,8 @@
 // under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped) and
 // the heatmap slices of a stored 10^6-point scan (`heatmap`); and `million`: a 10^6-point scan
 // computed end to end and read back every way (slices, pages, plane, exports, the page in chromium);
-// `constraints`: exact-method scans of two families judged under every built-in likelihood set.
+// `constraints`: exact-method scans of two families judged under every built-in likelihood set;
+// `refine`: adaptive refinement of the T-model's 95 % boundary against a uniform 256 × 256 grid (engine in-process).
 // Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
@@ -18,7 +19,9 @@ import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
-const PARTS = ['engine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
+const PARTS = ['engine', 'refine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
+/** Parts that run in-process on the built shared package, without the services. */
+const IN_PROCESS_PARTS = ['engine', 'refine'];
 const asked = process.argv.slice(2);
 const unknownPart = asked.find((p) => !PARTS.includes(p));
 if (unknownPart) fail(`no bench part '${unknownPart}'; the parts are ${PARTS.join(', ')}`);
@@ -37,6 +40,12 @@ if (runs('engine')) {
   const statisticsBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/grid-posterior.bench.mjs')], { stdio: 'inherit' });
   if (statisticsBench.status !== 0) fail('the statistics benchmark failed');
 }
+if (runs('refine')) {
+  log('adaptive refinement against a uniform grid');
+  const refineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/refinement.bench.mjs')], { stdio: 'inherit' });
+  if (refineBench.status !== 0) fail('the refinement benchmark failed');
+}
+if (asked.length > 0 && asked.every((part) => IN_PROCESS_PARTS.includes(part))) process.exit(0);
 
 const services = await startProfileServices(profile, { fresh: true });
 const env = {
