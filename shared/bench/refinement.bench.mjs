@@ -3,10 +3,10 @@
 // log α from 0.1 to 100 × N_* from 45 to 65, boundary the 95 % region of planck18-bk18
 // (Δχ² = 6.18). Truth: for each N_* of a fine list, every α where Δχ² crosses 6.18, bracketed on
 // a log α list and found by bisection with the engine directly. Each mesh's boundary at that N_*
-// is where the field, interpolated linearly inside the leaf cells the line N_* passes through
-// (bilinear in log α and N_*), changes sign. Printed: points, and max and RMS of |Δ log10 α|.
+// is where the field, interpolated inside the leaf cells the line N_* passes through (bilinear in
+// log α and N_*), changes sign (`crossingsAlong`). Printed: points, and max and RMS of |Δ log10 α|.
 // Figures only. Run after building shared: `node shared/bench/refinement.bench.mjs`.
-import { boundaryDistance, boundaryLevel, deltaChi2, findLikelihoodSet, meshEvidence, RefinementLattice, RefinementMesh, refineInProcess, RequestEvaluator } from '@sixtyfold/shared';
+import { boundaryDistance, boundaryLevel, crossingsAlong, deltaChi2, findLikelihoodSet, meshEvidence, RefinementLattice, RefinementMesh, refineInProcess, RequestEvaluator } from '@sixtyfold/shared';
 
 const set = findLikelihoodSet('planck18-bk18');
 const boundary = { kind: 'likelihood', likelihood: 'planck18-bk18', level: 95 };
@@ -54,36 +54,11 @@ const truth = nStars.map((nStar) => {
 const truthCount = truth.reduce((n, t) => n + t.crossings.length, 0);
 console.log(`Truth: ${truthCount} crossings of Δχ² = ${threshold.toFixed(3)} at ${nStars.length} values of N_* (45–65), by bisection to 1e-12 in log10 α (${evaluations} engine calls, ${((performance.now() - truthStart) / 1000).toFixed(1)} s)`);
 
-/** Where the field changes sign along the line N_* = nStar, in log10 α, from the mesh's leaves. */
-function meshCrossings(mesh, leaves, values, nStar) {
-  const { lattice } = mesh;
-  const [alphaAxis, nStarAxis] = lattice.axes;
-  const field = (key) => boundaryDistance(boundary, values.get(key) ?? null);
-  const out = [];
-  for (const leaf of leaves) {
-    const y0 = nStarAxis.valueAt(leaf.level, leaf.corner[1]);
-    const y1 = nStarAxis.valueAt(leaf.level, leaf.corner[1] + 1);
-    if (nStar < y0 || nStar > y1 || (nStar === y1 && y1 !== 65)) continue;
-    const [k00, k10, k01, k11] = mesh.cornerKeys(leaf); // bit 0: α upper, bit 1: N_* upper
-    const [f00, f10, f01, f11] = [k00, k10, k01, k11].map(field);
-    if ([f00, f10, f01, f11].some((v) => v === null)) continue;
-    const t = (nStar - y0) / (y1 - y0);
-    const left = f00 + t * (f01 - f00);
-    const right = f10 + t * (f11 - f10);
-    if (left < 0 === right < 0) continue;
-    const x0 = Math.log10(alphaAxis.valueAt(leaf.level, leaf.corner[0]));
-    const x1 = Math.log10(alphaAxis.valueAt(leaf.level, leaf.corner[0] + 1));
-    out.push(x0 + ((x1 - x0) * left) / (left - right));
-  }
-  return out;
-}
-
 function boundaryError(mesh, values) {
   const errors = [];
   let missing = 0;
-  const leaves = mesh.leaves();
   for (const { nStar, crossings } of truth) {
-    const found = meshCrossings(mesh, leaves, values, nStar);
+    const found = crossingsAlong(mesh, (key) => boundaryDistance(boundary, values.get(key) ?? null), nStar).map(Math.log10);
     for (const x of crossings) {
       if (found.length === 0) {
         missing++;

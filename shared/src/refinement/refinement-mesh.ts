@@ -166,3 +166,37 @@ export function refineInProcess(
   }
   return { mesh, values, pointsPerLevel };
 }
+
+/**
+ * Where a boundary crosses the line `axis 1 = y` of a 2-D mesh: in each leaf the line passes
+ * through, the field is interpolated along it from the leaf's corners (bilinear), and a sign change
+ * between the leaf's two sides gives a crossing, interpolated linearly in axis 0's spacing
+ * variable (ln x on a log-spaced axis). Returns axis-0 values, ascending; leaves with an unknown
+ * corner give none.
+ */
+export function crossingsAlong(mesh: RefinementMesh, field: BoundaryField, y: number): number[] {
+  const { lattice } = mesh;
+  if (lattice.dims !== 2) throw new RangeError('crossings along a line need a mesh of two axes');
+  const [xAxis, yAxis] = lattice.axes;
+  const yLast = yAxis.base[yAxis.base.length - 1];
+  const toSpacing = (x: number) => (xAxis.logSpaced ? Math.log(x) : x);
+  const out: number[] = [];
+  for (const leaf of mesh.leaves()) {
+    const y0 = yAxis.valueAt(leaf.level, leaf.corner[1]);
+    const y1 = yAxis.valueAt(leaf.level, leaf.corner[1] + 1);
+    const [lo, hi] = y0 < y1 ? [y0, y1] : [y1, y0];
+    // Each line once: a line on a shared edge belongs to the leaf above it (the last edge to the leaf below).
+    if (y < lo || y > hi || (y === (y0 < y1 ? y1 : y0) && y !== yLast)) continue;
+    const [f00, f10, f01, f11] = mesh.cornerKeys(leaf).map(field); // bit 0: axis 0 upper, bit 1: axis 1 upper
+    if (f00 === null || f10 === null || f01 === null || f11 === null) continue;
+    const t = (y - y0) / (y1 - y0);
+    const left = f00 + t * (f01 - f00);
+    const right = f10 + t * (f11 - f10);
+    if (left < 0 === right < 0) continue;
+    const u0 = toSpacing(xAxis.valueAt(leaf.level, leaf.corner[0]));
+    const u1 = toSpacing(xAxis.valueAt(leaf.level, leaf.corner[0] + 1));
+    const u = u0 + ((u1 - u0) * left) / (left - right);
+    out.push(xAxis.logSpaced ? Math.exp(u) : u);
+  }
+  return out.sort((a, b) => a - b);
+}

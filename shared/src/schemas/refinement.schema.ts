@@ -33,15 +33,24 @@ export const refineScanSchema = z.object({
 export type RefineScan = z.infer<typeof refineScanSchema>;
 export type RefineScanInput = z.input<typeof refineScanSchema>;
 
+/** The estimate's query fields as documented (`factor.<axis>` besides): the boundary flattened into the query string. */
+export const refineEstimateQueryFieldsSchema = z.object({
+  boundary: z.enum(['likelihood', 'output']).describe('what the boundary is: a likelihood region or an output level'),
+  likelihood: z.string().optional().describe('with boundary=likelihood: the set, key or key@version'),
+  level: z.string().optional().describe('with boundary=likelihood: 68 or 95'),
+  output: z.string().optional().describe('with boundary=output: the output, e.g. ns'),
+  value: z.string().optional().describe('with boundary=output: its level, e.g. 0.965'),
+  depth: z.string().optional().describe('levels after the parent, 1 to 4 (default 2)'),
+});
+
 /**
- * The estimate's query: the same fields as the request, the boundary flattened into the query
- * string (`boundary=likelihood&likelihood=planck18-bk18&level=95`, or `boundary=output&output=ns&value=0.965`,
- * `factor.<axis>=2`, `depth=3`).
+ * The estimate's query read as a request: `boundary=likelihood&likelihood=planck18-bk18&level=95`
+ * or `boundary=output&output=ns&value=0.965`, `factor.<axis>=2`, `depth=3`.
  */
 export const refineEstimateQuerySchema = z.preprocess((raw) => {
   if (!raw || typeof raw !== 'object') return raw;
   const q = raw as Record<string, unknown>;
-  const num = (v: unknown) => (typeof v === 'string' && v.trim() !== '' ? Number(v) : v);
+  const num = (v: unknown) => (typeof v === 'string' && v.trim() !== '' && Number.isFinite(Number(v)) ? Number(v) : v);
   const factors = Object.fromEntries(Object.entries(q).filter(([k]) => k.startsWith('factor.')).map(([k, v]) => [k.slice('factor.'.length), num(v)]));
   const boundary = q.boundary === 'output' ? { kind: 'output', output: q.output, value: num(q.value) } : { kind: q.boundary, likelihood: q.likelihood, level: num(q.level) };
   return { boundary, factors, depth: q.depth === undefined ? undefined : num(q.depth) };
