@@ -149,10 +149,21 @@ describe('refining a grid scan where a boundary crosses it', () => {
     const levelView = await member.get(`/api/scans/${levelIds[0]}/constraints?likelihood=planck18-bk18`);
     expect(levelView.status).toBe(200);
     expect(levelView.body.evidence.lnZ).toBeCloseTo(merged.body.evidence.lnZ, 12);
-    // The uniform fine grid has no refinement: its answer carries none.
+    // The parent's heatmap gains the levels' cells, finer over coarser, on the finest lattice (4 fine nodes per parent index).
+    const slice = await member.get(`/api/scans/${parentId}/grid?x=alpha&y=nStar&output=r`);
+    expect(slice.status).toBe(200);
+    expect(slice.body.refined.scale).toEqual([4, 4]);
+    const cells = slice.body.refined.cells as { level: number; x: [number, number]; y: [number, number]; mean: number | null }[];
+    expect(cells.length).toBeGreaterThan(0);
+    for (const c of cells) expect(c.x[1] - c.x[0]).toBe(c.level === 1 ? 2 : 1);
+    expect(cells.every((c) => c.mean !== null && c.mean > 0)).toBe(true);
+    const swapped = await member.get(`/api/scans/${parentId}/grid?x=nStar&y=alpha&output=r`);
+    expect(swapped.body.refined.cells.map((c: { x: number[]; y: number[] }) => [c.y, c.x])).toEqual(cells.map((c) => [c.x, c.y]));
+    // The uniform fine grid has no refinement: its answers carry none.
     await completed(member, uniformRes.body.id);
     const uniform = await member.get(`/api/scans/${uniformRes.body.id}/constraints?likelihood=planck18-bk18`);
     expect(uniform.body.refinement).toBeUndefined();
+    expect((await member.get(`/api/scans/${uniformRes.body.id}/grid?x=alpha&y=nStar&output=r`)).body.refined).toBeUndefined();
 
     // The boundary: along every fine row of N_*, the crossings of the merged mesh against the uniform 33 × 17 grid's.
     const levels = await t.db.getRepository(Scan).find({ where: { refinesScanId: parentId }, order: { refinementLevel: 'ASC' } });

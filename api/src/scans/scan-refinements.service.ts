@@ -3,7 +3,8 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, RefinementLattice, RefinementMesh, ScanGrid,
+  boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, POINT_OUTPUTS, refinedCells, RefinementLattice,
+  RefinementMesh, roundForSlice, ScanGrid, type ScanGridSlice,
   type CreateScan, type NextLevel, type PointOutput, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
   type ScanLineage, type ScanRefinement,
 } from '@sixtyfold/shared';
@@ -202,6 +203,35 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
       await read(level.id, (i) => (block.lattice[i] ? lattice.toFinest(block.level, block.lattice[i]) : undefined));
     }
     return out;
+  }
+
+  /**
+   * A heatmap slice of a refined two-axis grid (or of a level) gains its chain's refined cells in
+   * the window, with the output's corner means; any other slice comes back as it was.
+   */
+  async withRefinedCells(user: SessionUser, id: number, slice: ScanGridSlice): Promise<ScanGridSlice> {
+    if (!(POINT_OUTPUTS as readonly string[]).includes(slice.output)) return slice;
+    const chain = await this.mergedChain(await this.results.readable(user, id));
+    const axes = chain?.parent.spec.axes;
+    if (!chain || axes?.length !== 2) return slice;
+    const swapped = slice.x.parameter === axes[1].parameter;
+    const output = slice.output as PointOutput;
+    const values = await this.nodeValues(chain, (row) => (row.value === null ? null : Number(row.value)), OUTPUT_COLUMN[output]);
+    const [first, second] = swapped ? [slice.y, slice.x] : [slice.x, slice.y];
+    const cells = refinedCells(chain.mesh, values, { xFrom: first.from, xTo: first.to, yFrom: second.from, yTo: second.to });
+    const scale = chain.mesh.lattice.axes.map((axis) => axis.factor ** chain.mesh.lattice.depth);
+    return {
+      ...slice,
+      refined: {
+        scale: swapped ? [scale[1], scale[0]] : [scale[0], scale[1]],
+        cells: cells.map((cell) => ({
+          level: cell.level,
+          x: swapped ? cell.y : cell.x,
+          y: swapped ? cell.x : cell.y,
+          mean: cell.mean === null ? null : roundForSlice(cell.mean),
+        })),
+      },
+    };
   }
 
   /** The boundary's point value: Δχ² under the pinned set, or the stored output. */

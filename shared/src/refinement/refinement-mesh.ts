@@ -200,3 +200,36 @@ export function crossingsAlong(mesh: RefinementMesh, field: BoundaryField, y: nu
   }
   return out.sort((a, b) => a - b);
 }
+
+/** A refined leaf of a 2-D mesh for a heatmap: its window on the finest lattice (inclusive corners), level, and the mean of its corners' known values. */
+export interface RefinedCell {
+  level: number;
+  x: [number, number];
+  y: [number, number];
+  mean: number | null;
+}
+
+/**
+ * The leaves of refinement levels (level ≥ 1) of a 2-D mesh whose window meets the parent-index
+ * window [xFrom, xTo] × [yFrom, yTo], with the mean of their corners' values: drawn over the
+ * parent's cells, finer over coarser.
+ */
+export function refinedCells(
+  mesh: RefinementMesh,
+  values: ReadonlyMap<string, number | null>,
+  window: { xFrom: number; xTo: number; yFrom: number; yTo: number },
+): RefinedCell[] {
+  const { lattice } = mesh;
+  if (lattice.dims !== 2) throw new RangeError('refined cells are drawn for a mesh of two axes');
+  const scale = lattice.axes.map((axis) => axis.factor ** lattice.depth);
+  const out: RefinedCell[] = [];
+  for (const leaf of mesh.leaves()) {
+    if (leaf.level === 0) continue;
+    const [x0, y0] = lattice.toFinest(leaf.level, leaf.corner);
+    const [x1, y1] = lattice.toFinest(leaf.level, leaf.corner.map((c) => c + 1));
+    if (x1 < window.xFrom * scale[0] || x0 > window.xTo * scale[0] || y1 < window.yFrom * scale[1] || y0 > window.yTo * scale[1]) continue;
+    const known = mesh.cornerKeys(leaf).map((key) => values.get(key)).filter((v): v is number => v != null && Number.isFinite(v));
+    out.push({ level: leaf.level, x: [x0, x1], y: [y0, y1], mean: known.length ? known.reduce((s, v) => s + v, 0) / known.length : null });
+  }
+  return out.sort((a, b) => a.level - b.level);
+}

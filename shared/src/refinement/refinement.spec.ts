@@ -5,7 +5,7 @@ import { posteriorAxes } from '../statistics/grid-axes.js';
 import { gridPosterior } from '../statistics/grid-posterior.js';
 import { boundaryDistance, boundaryLevel } from './refinement-boundary.js';
 import { nodeKey, RefinementLattice } from './refinement-lattice.js';
-import { isCrossed, refineInProcess, RefinementMesh } from './refinement-mesh.js';
+import { isCrossed, refinedCells, refineInProcess, RefinementMesh } from './refinement-mesh.js';
 import { meshEvidence, meshPosterior } from './mesh-posterior.js';
 
 const range = (parameter: string, min: number, max: number, count: number, spacing: 'linear' | 'log' = 'linear'): ScanAxis => ({ kind: 'range', parameter, min, max, count, spacing });
@@ -45,6 +45,16 @@ describe('crossed cells', () => {
     expect(next.nodes).toHaveLength(48 - 12);
     expect(new Set(next.nodes.map((n) => nodeKey(n))).size).toBe(next.nodes.length);
     expect(next.nodes.every(([i, j]) => !(i % 2 === 0 && j % 3 === 0))).toBe(true);
+
+    // Merged, the split column is 5 × 2 × 3 leaves of level 1 for a heatmap, each with its corners' mean of x.
+    const merged = new RefinementMesh(lattice, [next.cells]);
+    const values = new Map<string, number | null>();
+    for (const leaf of merged.leaves()) for (const key of merged.cornerKeys(leaf)) values.set(key, x(key));
+    const cells = refinedCells(merged, values, { xFrom: 0, xTo: 10, yFrom: 0, yTo: 5 });
+    expect(cells).toHaveLength(30);
+    expect(cells[0]).toMatchObject({ level: 1, x: [6, 7], y: [0, 1] });
+    expect(cells[0].mean).toBeCloseTo(0.325, 12);
+    expect(refinedCells(merged, values, { xFrom: 0, xTo: 2, yFrom: 0, yTo: 5 })).toEqual([]);
   });
 
   it('counts a cell with a failed corner as crossed unless its known corners lie far on one side', () => {
