@@ -111,6 +111,7 @@ describe('every route against every role', () => {
     // The access-table draft is not completed: whoever may refine it (or read it, for the estimate) gets 409.
     { method: 'post', route: '/api/scans/:id/refine', url: () => `/api/scans/${plateauScanId}/refine`, expect: { anonymous: 401, admin: 409, lead: 409, member: 409, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/scans/:id/refine/estimate', url: () => `/api/scans/${plateauScanId}/refine/estimate?boundary=output&output=ns&value=0.965`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
+    { method: 'get', route: '/api/scans/:id/refinement/points', url: () => `/api/scans/${plateauScanId}/refinement/points`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
     { method: 'get', route: '/api/scans/:id/lineage', url: () => `/api/scans/${plateauScanId}/lineage`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/evidence', url: () => `/api/scans/evidence?ids=${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },

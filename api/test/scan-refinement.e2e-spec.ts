@@ -149,6 +149,16 @@ describe('refining a grid scan where a boundary crosses it', () => {
     const levelView = await member.get(`/api/scans/${levelIds[0]}/constraints?likelihood=planck18-bk18`);
     expect(levelView.status).toBe(200);
     expect(levelView.body.evidence.lnZ).toBeCloseTo(merged.body.evidence.lnZ, 12);
+    // Every level's points in one table, the parent's first, each naming its scan and level.
+    const table = await member.get(`/api/scans/${parentId}/refinement/points?pageSize=500`);
+    expect(table.status).toBe(200);
+    const levelPoints = chain.reduce((n, s) => n + s.totalPoints, 0);
+    expect(table.body.total).toBe(45 + levelPoints);
+    expect(table.body.levelScanIds).toEqual(levelIds);
+    expect(table.body.items.slice(0, 45).every((p: { scanId: number; level: number }) => p.scanId === parentId && p.level === 0)).toBe(true);
+    expect(table.body.items.at(-1)).toMatchObject({ scanId: levelIds[1], level: 2, pointIndex: chain.find((s) => s.id === levelIds[1])!.totalPoints - 1 });
+    expect((await member.get(`/api/scans/${uniformRes.body.id}/refinement/points`)).status).toBe(409);
+
     // The parent's heatmap gains the levels' cells, finer over coarser, on the finest lattice (4 fine nodes per parent index).
     const slice = await member.get(`/api/scans/${parentId}/grid?x=alpha&y=nStar&output=r`);
     expect(slice.status).toBe(200);

@@ -1,8 +1,8 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
-  refineEstimateQueryFieldsSchema, refineEstimateQuerySchema, refinementEstimateSchema, refineScanSchema, scanDetailSchema, scanLineageSchema,
-  type RefinementEstimate, type RefineScan, type ScanDetail, type ScanLineage,
+  pageQuerySchema, refinedPointPageSchema, refineEstimateQueryFieldsSchema, refineEstimateQuerySchema, refinementEstimateSchema, refineScanSchema, scanDetailSchema,
+  scanLineageSchema, type PageQuery, type RefinedPointPage, type RefinementEstimate, type RefineScan, type ScanDetail, type ScanLineage,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -46,6 +46,19 @@ export class ScanRefinementsController {
     @Query(new ZodValidationPipe(refineEstimateQuerySchema)) query: RefineScan,
   ): Promise<RefinementEstimate> {
     return this.refinements.estimate(user, id, query);
+  }
+
+  @Get(':id/refinement/points')
+  @ApiOperation({ summary: 'Every point of a refined grid and its levels as one table: the parent\'s first, then each level\'s, with scan and level' })
+  @ApiZodQuery(pageQuerySchema)
+  @ApiZodResponse(200, refinedPointPageSchema, 'One page of points, each naming its scan and level (0: the parent grid)')
+  @ApiErrorResponses(400, 401, 404, 409)
+  points(
+    @CurrentUser() user: SessionUser,
+    @Param('id', ParseIntPipe) id: number,
+    @Query(new ZodValidationPipe(pageQuerySchema)) query: PageQuery,
+  ): Promise<RefinedPointPage> {
+    return this.refinements.points(user, id, query);
   }
 
   @Get(':id/lineage')

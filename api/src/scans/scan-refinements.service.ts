@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm';
 import {
   boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, POINT_OUTPUTS, refinedCells, RefinementLattice,
   RefinementMesh, roundForSlice, ScanGrid, type ScanGridSlice,
-  type CreateScan, type NextLevel, type PointOutput, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
+  type CreateScan, type NextLevel, type PageQuery, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
   type ScanLineage, type ScanRefinement,
 } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
@@ -15,7 +15,7 @@ import { GroupAccessService } from '../groups/group-access.service';
 import { LikelihoodSetsService } from '../likelihoods/likelihood-sets.service';
 import { ScheduledRunsService } from '../scheduling/scheduled-runs.service';
 import { Scan } from './entities/scan.entity';
-import { ScanResultsService } from './scan-results.service';
+import { ScanResultsService, toDto } from './scan-results.service';
 import { ScansService } from './scans.service';
 
 /** API output name → scan_points column, for an output boundary. */
@@ -231,6 +231,32 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
           mean: cell.mean === null ? null : roundForSlice(cell.mean),
         })),
       },
+    };
+  }
+
+  /**
+   * Every point of a refined grid and its chain's completed levels as one table, a page at a time:
+   * the parent's first, then each level's, each by point index, with the scan and level of each.
+   * 409 for a scan without refinement (its own `/points` is the table).
+   */
+  async points(user: SessionUser, id: number, q: PageQuery): Promise<RefinedPointPage> {
+    const chain = await this.mergedChain(await this.results.readable(user, id));
+    if (!chain) throw new ConflictException(`Scan ${id} has no completed refinement level: its own points are at /api/scans/${id}/points`);
+    const scans = [chain.parent, ...chain.levels];
+    const level = new Map(scans.map((scan) => [scan.id, scan.refinementLevel ?? 0]));
+    const ids = scans.map((scan) => scan.id);
+    const [{ n }]: { n: string | number }[] = await this.db.query('SELECT COUNT(*) AS n FROM scan_points WHERE scan_id IN (?)', [ids]);
+    const rows: Record<string, unknown>[] = await this.db.query(
+      `SELECT * FROM scan_points WHERE scan_id IN (?) ORDER BY FIELD(scan_id, ${ids.map(() => '?').join(', ')}), point_index LIMIT ? OFFSET ?`,
+      [ids, ...ids, q.pageSize, (q.page - 1) * q.pageSize],
+    );
+    return {
+      items: rows.map((row) => ({ ...toDto(row), scanId: Number(row.scan_id), level: level.get(Number(row.scan_id)) ?? 0 })),
+      total: Number(n),
+      page: q.page,
+      pageSize: q.pageSize,
+      parentScanId: chain.parent.id,
+      levelScanIds: chain.levels.map((scan) => scan.id),
     };
   }
 

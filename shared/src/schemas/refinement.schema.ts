@@ -1,5 +1,6 @@
 import { z } from 'zod';
-import { POINT_OUTPUTS } from './scan-point.schema.js';
+import { pageOf } from './admin.schema.js';
+import { POINT_OUTPUTS, scanPointSchema } from './scan-point.schema.js';
 
 /** At most this many refinement levels after the parent grid. */
 export const REFINEMENT_MAX_DEPTH = 4;
@@ -96,3 +97,11 @@ export const scanLineageSchema = z.object({
   levels: z.array(z.object({ scanId: z.number().int(), level: z.number().int(), name: z.string(), status: z.string(), totalPoints: z.number().int() })),
 });
 export type ScanLineage = z.infer<typeof scanLineageSchema>;
+
+/** A point of a refined grid's merged table: the scan that holds it and its level (0: the parent grid). */
+export const refinedPointSchema = scanPointSchema.extend({ scanId: z.number().int(), level: z.number().int() });
+export type RefinedPoint = z.infer<typeof refinedPointSchema>;
+
+/** One page of every level's points, the parent's first, each scan's by point index. */
+export const refinedPointPageSchema = pageOf(refinedPointSchema).extend({ parentScanId: z.number().int(), levelScanIds: z.array(z.number().int()) });
+export type RefinedPointPage = z.infer<typeof refinedPointPageSchema>;
