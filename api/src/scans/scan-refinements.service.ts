@@ -312,7 +312,7 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
     const block = level?.spec.refinement;
     if (!level || !block || level.status !== 'completed' || block.level >= block.depth) return false;
     const chain = await this.mergedChain(level);
-    // Only a chain complete up to this level goes on (a level retried later is followed when it completes again).
+    // Only a chain complete up to this level goes on. A level is followed once: retrying its failed points later does not follow it again.
     if (!chain || chain.levels[chain.levels.length - 1].id !== level.id) return false;
     const next = await this.nextLevel(chain, block.boundary);
     if (next.cells.length === 0) {

@@ -64,7 +64,7 @@ export function ScanRoute() {
           </Stack>
         }
       />
-      <ScanLineage scanId={scan.data.id} />
+      <ScanLineage scanId={scan.data.id} axes={(scan.data.spec.axes ?? []).map((axis) => axis.parameter).concat(scan.data.spec.pointList?.columns ?? [])} />
       {refining && <RefineDialog scan={scan.data} onClose={() => setRefining(false)} onLaunched={(level) => navigate(paths.scan.getHref(level.id))} />}
       <ScanResults scan={scan.data} spec={scan.data.spec} user={user} />
     </Stack>

@@ -1,4 +1,4 @@
-import { screen, waitFor } from '@testing-library/react';
+import { screen, waitFor, within } from '@testing-library/react';
 import { json, mockApi } from '@/testing/mock-api';
 import { renderWithProviders } from '@/testing/render';
 import { scanDetail } from '@/testing/scan-fixtures';
@@ -43,8 +43,25 @@ describe('refining a scan', () => {
         levels: [{ scanId: 43, level: 1, name: 'a', status: 'completed', totalPoints: 10 }, { scanId: 44, level: 2, name: 'b', status: 'running', totalPoints: 20 }],
       }),
     });
-    renderWithProviders(<ScanLineage scanId={43} />);
+    renderWithProviders(<ScanLineage scanId={43} axes={['alpha', 'nStar']} />);
     expect(await screen.findByRole('link', { name: 'scan 42' })).toHaveAttribute('href', '/scans/42');
     expect(screen.getByRole('link', { name: 'level 2 · 20 points · running' })).toHaveAttribute('href', '/scans/44');
+  });
+
+  it('lists every level\'s points with their level on demand', async () => {
+    const point = (scanId: number, level: number, pointIndex: number) => ({
+      scanId, level, pointIndex, inputs: { alpha: 1, nStar: 50 }, status: 'ok', failureReason: null, ns: 0.965, r: 0.004, alphaS: null, As: null,
+      amplitudeScale: null, nTotal: null, nStar: 50, phiStar: null, phiEnd: null, energyScaleGeV: null,
+    });
+    const { requests } = mockApi({
+      'GET /api/scans/42/lineage': () => json(200, { parentScanId: null, level: null, levels: [{ scanId: 43, level: 1, name: 'a', status: 'completed', totalPoints: 1 }] }),
+      'GET /api/scans/42/refinement/points': () => json(200, { items: [point(42, 0, 0), point(43, 1, 0)], total: 2, page: 1, pageSize: 50, parentScanId: 42, levelScanIds: [43] }),
+    });
+    const { user } = renderWithProviders(<ScanLineage scanId={42} axes={['alpha', 'nStar']} />);
+    await user.click(await screen.findByRole('button', { name: 'Points of every level' }));
+    const table = await screen.findByRole('table', { name: 'Points of every level' });
+    const rows = within(table).getAllByRole('row').slice(1).map((row) => within(row).getAllByRole('cell').slice(0, 3).map((cell) => cell.textContent));
+    expect(rows).toEqual([['0', '42', '0'], ['1', '43', '0']]);
+    expect(requests.find((r) => r.url.pathname.endsWith('/refinement/points'))!.url.searchParams.get('page')).toBe('1');
   });
 });
