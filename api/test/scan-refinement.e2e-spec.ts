@@ -197,6 +197,8 @@ describe('refining a grid scan where a boundary crosses it', () => {
       const uniformCrossings = crossingsAlong(fineMesh, (key) => fineField.get(key) ?? null, nStar).map(Math.log10);
       expect(refinedCrossings).toHaveLength(uniformCrossings.length);
       refinedCrossings.forEach((x, k) => expect(Math.abs(x - uniformCrossings[k])).toBeLessThanOrEqual(cell));
+      // Closer still: the finest leaves the boundary crosses are the uniform grid's own cells, with the same corner points.
+      refinedCrossings.forEach((x, k) => expect(Math.abs(x - uniformCrossings[k])).toBeLessThan(1e-9));
       compared += uniformCrossings.length;
     }
     expect(compared).toBeGreaterThan(0);
