@@ -108,6 +108,11 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/plane', url: () => `/api/scans/${plateauScanId}/plane`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/constraints', url: () => `/api/scans/${plateauScanId}/constraints?likelihood=planck18-bk18`, expect: plateauOnly },
+    // The access-table draft is not completed: whoever may refine it (or read it, for the estimate) gets 409.
+    { method: 'post', route: '/api/scans/:id/refine', url: () => `/api/scans/${plateauScanId}/refine`, expect: { anonymous: 401, admin: 409, lead: 409, member: 409, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/scans/:id/refine/estimate', url: () => `/api/scans/${plateauScanId}/refine/estimate?boundary=output&output=ns&value=0.965`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
+    { method: 'get', route: '/api/scans/:id/refinement/points', url: () => `/api/scans/${plateauScanId}/refinement/points`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
+    { method: 'get', route: '/api/scans/:id/lineage', url: () => `/api/scans/${plateauScanId}/lineage`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/evidence', url: () => `/api/scans/evidence?ids=${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // Sent without the file: the role is checked first (viewer 403 as for any submission); the others learn the file is missing.
@@ -180,6 +185,7 @@ describe('every route against every role', () => {
     if (route === '/api/models/:id') return { description: `edited by the access table (${role})` };
     if (route === '/api/maintenance/prune/dry-run') return { groupId: plateauId, tag: 'no-such-tag' };
     if (route === '/api/maintenance/prune') return { groupId: plateauId, tag: 'no-such-tag', scanIds: [] };
+    if (route === '/api/scans/:id/refine') return { boundary: { kind: 'output', output: 'ns', value: 0.965 }, depth: 1 };
     if (route === '/api/maintenance/groups/:id/retention') return { keepDays: null, statuses: ['completed'] };
     if (route === '/api/scans/upload') {
       const { axes: _, ...settings } = bodyFor('/api/scans', role) as Record<string, unknown>;

@@ -4,13 +4,15 @@
 // under load (`poll`: 100 pollers of a running scan; `exports`: slow downloads that are dropped) and
 // the heatmap slices of a stored 10^6-point scan (`heatmap`); and `million`: a 10^6-point scan
 // computed end to end and read back every way (slices, pages, plane, exports, the page in chromium);
-// `constraints`: exact-method scans of two families judged under every built-in likelihood set.
+// `constraints`: exact-method scans of two families judged under every built-in likelihood set;
+// `refine`: adaptive refinement of the T-model's 95 % boundary against a uniform 256 × 256 grid, in-process and through the API.
 // Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { benchExports, benchHeatmap, benchPoll } from './lib/load-bench.mjs';
 import { benchConstraints } from './lib/constraints-bench.mjs';
+import { benchRefine } from './lib/refine-bench.mjs';
 import { benchMillion } from './lib/million-bench.mjs';
 import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
@@ -18,7 +20,11 @@ import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
-const PARTS = ['engine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
+const PARTS = ['engine', 'refine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
+/** Parts that run in-process on the built shared package only, without the services. */
+const IN_PROCESS_PARTS = ['engine'];
+/** How often the API follows finished refinement levels (its reconcile interval) while benchmarking. */
+const REFINE_FOLLOW_SECONDS = 2;
 const asked = process.argv.slice(2);
 const unknownPart = asked.find((p) => !PARTS.includes(p));
 if (unknownPart) fail(`no bench part '${unknownPart}'; the parts are ${PARTS.join(', ')}`);
@@ -37,12 +43,20 @@ if (runs('engine')) {
   const statisticsBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/grid-posterior.bench.mjs')], { stdio: 'inherit' });
   if (statisticsBench.status !== 0) fail('the statistics benchmark failed');
 }
+if (runs('refine')) {
+  log('adaptive refinement against a uniform grid');
+  const refineBench = spawnSync(process.execPath, [path.join(ROOT, 'shared/bench/refinement.bench.mjs')], { stdio: 'inherit' });
+  if (refineBench.status !== 0) fail('the refinement benchmark failed');
+}
+if (asked.length > 0 && asked.every((part) => IN_PROCESS_PARTS.includes(part))) process.exit(0);
 
 const services = await startProfileServices(profile, { fresh: true });
 const env = {
   ...process.env, NODE_ENV: 'production', DATABASE_URL: profile.databaseUrl, REDIS_URL: profile.redisUrl, ...profile.smtp,
   API_PORT: String(profile.apiPort), API_HOST: '127.0.0.1', APP_URL: `http://127.0.0.1:${profile.apiPort}/`, WEB_DIST_DIR: path.join(ROOT, 'web/dist'),
   SESSION_SECRET: 'sixtyfold-benchmark-session-secret', FORCE_COLOR: '0',
+  // Refinement levels are chained at the reconcile interval: short, so the chain's time is the workers'.
+  ...(runs('refine') ? { RECONCILE_INTERVAL_SECONDS: String(REFINE_FOLLOW_SECONDS) } : {}),
 };
 npmRun(['run', '--silent', 'migrate', '-w', 'api'], env);
 npmRun(['run', '--silent', 'seed', '-w', 'api'], { ...env, NODE_ENV: 'development' }); // the seed refuses production
@@ -140,6 +154,7 @@ try {
     await benchMillion(load, { apiPid: apps.api.pid, workerPids: apps.workers.map((w) => w.pid), databasePid, webUrl: `http://127.0.0.1:${profile.apiPort}` });
   }
   if (runs('constraints')) await benchConstraints(load);
+  if (runs('refine')) await benchRefine(load, { reconcileSeconds: REFINE_FOLLOW_SECONDS });
   if (runs('poll')) await benchPoll(load);
   if (runs('exports')) await benchExports(load);
   if (runs('heatmap')) await benchHeatmap(load, { webUrl: `http://127.0.0.1:${profile.apiPort}` });

@@ -41,3 +41,8 @@ export * from './statistics/point-judge.js';
 export * from './statistics/grid-axes.js';
 export * from './statistics/grid-posterior.js';
 export * from './statistics/evidence.js';
+export * from './schemas/refinement.schema.js';
+export * from './refinement/refinement-lattice.js';
+export * from './refinement/refinement-mesh.js';
+export * from './refinement/refinement-boundary.js';
+export * from './refinement/mesh-posterior.js';

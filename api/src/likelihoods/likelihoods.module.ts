@@ -11,6 +11,6 @@ import { LikelihoodsService } from './likelihoods.service';
   imports: [TypeOrmModule.forFeature([StoredLikelihoodSet]), AuditModule, ConstraintRegionsModule],
   controllers: [LikelihoodSetsController],
   providers: [LikelihoodSetsService, LikelihoodsService],
-  exports: [LikelihoodsService],
+  exports: [LikelihoodsService, LikelihoodSetsService],
 })
 export class LikelihoodsModule {}

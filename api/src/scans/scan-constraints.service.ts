@@ -2,12 +2,13 @@ import { BadRequestException, ConflictException, Injectable } from '@nestjs/comm
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  axisPrior, bayesFactor, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, posteriorAxes, ScanGrid,
-  type EvidenceComparison, type EvidenceComparisonQuery, type PointJudge, type ScanConstraints, type ScanConstraintsQuery,
+  axisPrior, bayesFactor, EVIDENCE_PRIOR_NOTE, gridEvidence, gridPosterior, meshEvidence, meshPosterior, posteriorAxes, ScanGrid,
+  type EvidenceComparison, type GridPosterior, type PosteriorAxis, type EvidenceComparisonQuery, type PointJudge, type ScanConstraints, type ScanConstraintsQuery,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { openQueryStream } from '../exports/query-stream';
 import { LikelihoodsService } from '../likelihoods/likelihoods.service';
+import { ScanRefinementsService, type MergedChain } from './scan-refinements.service';
 import { ScanResultsService } from './scan-results.service';
 
 const finite = (x: number) => (Number.isFinite(x) ? x : null);
@@ -30,6 +31,13 @@ function judge(judgeOne: PointJudge, size: number, outputs: StoredOutputs): Floa
   return chi2;
 }
 
+/** The level whose nodes the marginals were stated on: the one whose first axis has as many nodes. */
+function marginalLevelOf(posterior: GridPosterior, chain: MergedChain): number {
+  const nodes = posterior.marginals[0]?.values.length ?? 0;
+  for (let level = chain.mesh.levels; level > 0; level--) if (chain.mesh.lattice.axes[0].length(level) === nodes) return level;
+  return 0;
+}
+
 /**
  * What a grid scan's data allow under one likelihood (a set or uploaded regions): the posterior over the grid with a
  * prior per axis, its marginals, credible intervals, best fit and evidence (`shared/src/statistics/`),
@@ -41,10 +49,14 @@ export class ScanConstraintsService {
     @InjectDataSource() private readonly db: DataSource,
     private readonly results: ScanResultsService,
     private readonly likelihoods: LikelihoodsService,
+    private readonly refinements: ScanRefinementsService,
   ) {}
 
   async constraints(user: SessionUser, id: number, q: ScanConstraintsQuery): Promise<ScanConstraints> {
-    const scan = await this.results.readable(user, id);
+    const asked = await this.results.readable(user, id);
+    // A refined grid (or a level of its chain) answers on the merged mesh of parent and levels.
+    const chain = await this.refinements.mergedChain(asked);
+    const scan = chain?.parent ?? asked;
     if (!scan.spec.axes) throw new ConflictException('This scan runs over a list of points: a posterior needs the prior volume of a grid');
     const resolved = await this.likelihoods.resolve(user, q.likelihood);
     const likelihood = resolved.description;
@@ -57,10 +69,11 @@ export class ScanConstraintsService {
     if (Object.keys(bad).length) throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
 
     const axes = posteriorAxes(scan.spec.axes).map((axis) => ({ ...axis, prior: q.priors[axis.name] ?? axisPrior(axis) }));
+    const pair = names.length >= 2 ? ([names.indexOf(pairOf[0]), names.indexOf(pairOf[1])] as [number, number]) : undefined;
+    if (chain) return this.mergedConstraints(asked.id, chain, resolved.judge, likelihood, axes, pair);
     const grid = new ScanGrid(scan.spec.axes);
     const chi2 = judge(resolved.judge, grid.size, await this.storedOutputs(scan.id));
     const input = { axes, deltaChi2: chi2 };
-    const pair = names.length >= 2 ? ([names.indexOf(pairOf[0]), names.indexOf(pairOf[1])] as [number, number]) : undefined;
     const included = chi2.reduce((n, x) => (Number.isNaN(x) ? n : n + 1), 0);
     const priors = axes.map((axis) => ({ axis: axis.name, prior: axis.prior }));
     if (included === 0) {
@@ -82,6 +95,50 @@ export class ScanConstraintsService {
       excluded: posterior.excluded,
       included: posterior.included,
       evidence: { z: evidence.z, lnZ: evidence.lnZ, lnZHalf: evidence.lnZHalf, lnZError: evidence.lnZError, note: EVIDENCE_PRIOR_NOTE },
+    };
+  }
+
+  /**
+   * The constraints on a refinement chain's multi-resolution mesh (`meshPosterior`, `meshEvidence`):
+   * each leaf weighed by its prior volume with the mean of its corners' L; the marginals on the
+   * finest level's values. Failed and flagged nodes are left out and counted, as on a grid.
+   */
+  private async mergedConstraints(
+    scanId: number,
+    chain: MergedChain,
+    judgeOne: PointJudge,
+    likelihood: ScanConstraints['likelihood'],
+    axes: PosteriorAxis[],
+    pair: [number, number] | undefined,
+  ): Promise<ScanConstraints> {
+    const origins = new Map<string, { scanId: number; pointIndex: number }>();
+    const chi2 = await this.refinements.nodeValues(chain, (row) => judgeOne({ ns: row.ns, r: row.r, alphaS: row.alpha_s })?.deltaChi2 ?? null, 'NULL', origins);
+    const priors = axes.map((axis) => ({ axis: axis.name, prior: axis.prior ?? axisPrior(axis) }));
+    const points = chain.parent.totalPoints + chain.levels.reduce((n, level) => n + level.totalPoints, 0);
+    const refinement = { parentScanId: chain.parent.id, levelScanIds: chain.levels.map((level) => level.id), points, marginalLevel: 0 };
+    if (![...chi2.values()].some((d) => d !== null)) {
+      return { scanId, likelihood, priors, marginals: [], constraints: [], pair: null, bestFit: null, excluded: { count: points, priorFraction: 1 }, included: 0, evidence: null, refinement };
+    }
+    const chosen = axes.map((axis) => axis.prior);
+    const posterior = meshPosterior(chain.mesh, chi2, { pair, priors: chosen });
+    const evidence = meshEvidence(chain.mesh, chi2, chosen);
+    const bestKey = [...chi2.entries()].reduce((best, entry) => (entry[1] !== null && (best[1] === null || entry[1] < best[1]) ? entry : best))[0];
+    const origin = origins.get(bestKey)!;
+    return {
+      scanId,
+      likelihood,
+      priors,
+      marginals: posterior.marginals.map((m) => ({ ...m, density: m.density.map(finite) })),
+      constraints: posterior.constraints,
+      pair: posterior.pair && {
+        x: posterior.pair.x, y: posterior.pair.y, xValues: posterior.pair.xValues, yValues: posterior.pair.yValues,
+        density: Array.from(posterior.pair.density, finite), contourDensity: posterior.pair.contourDensity,
+      },
+      bestFit: { pointIndex: origin.pointIndex, scanId: origin.scanId, deltaChi2: posterior.bestFit.deltaChi2, inputs: posterior.bestFit.point },
+      excluded: posterior.excluded,
+      included: posterior.included,
+      evidence: { z: evidence.z, lnZ: evidence.lnZ, lnZHalf: evidence.lnZHalf, lnZError: evidence.lnZError, note: EVIDENCE_PRIOR_NOTE },
+      refinement: { ...refinement, marginalLevel: marginalLevelOf(posterior, chain) },
     };
   }
 

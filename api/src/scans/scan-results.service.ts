@@ -83,7 +83,8 @@ function inputsOf(raw: RawPoint): Record<string, number> {
 }
 
 /** A point as the API gives it; with a likelihood, its Δχ² and confidence level (and, under uploaded regions, whether it lies outside them). */
-function toDto(raw: RawPoint, likelihood?: ResolvedLikelihood): ScanPointDto {
+/** A stored row as the API answers it (inputs, status, outputs; Δχ² under a likelihood). */
+export function toDto(raw: RawPoint, likelihood?: ResolvedLikelihood): ScanPointDto {
   const inputs = inputsOf(raw);
   const dto = { pointIndex: Number(raw.point_index), inputs, status: String(raw.status), failureReason: (raw.failure_reason as string) ?? null } as ScanPointDto;
   for (const o of POINT_OUTPUTS) {

@@ -15,6 +15,7 @@ import type { SessionUser } from '../common/session-user';
 import { FileUpload } from '../common/uploads/file-upload.interceptor';
 import { ApiErrorResponses, ApiZodBody, ApiZodMultipart, ApiZodQuery, ApiZodResponse, openApiSchemaOf } from '../openapi/zod-openapi.decorators';
 import { ScanConstraintsService } from './scan-constraints.service';
+import { ScanRefinementsService } from './scan-refinements.service';
 import { ScanResultsService } from './scan-results.service';
 import { ScansService } from './scans.service';
 
@@ -25,6 +26,7 @@ export class ScansController {
     private readonly scans: ScansService,
     private readonly results: ScanResultsService,
     private readonly constraintsOf: ScanConstraintsService,
+    private readonly refinements: ScanRefinementsService,
   ) {}
 
   @Get()
@@ -140,12 +142,12 @@ export class ScansController {
   @ApiZodQuery(scanGridQueryFieldsSchema)
   @ApiZodResponse(200, scanGridSliceSchema, 'At most maxCells cells per axis as row-major columns: mean, min and max of the output per block, OK and failed counts by reason')
   @ApiErrorResponses(400, 401, 404, 409)
-  grid(
+  async grid(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,
     @Query(new ZodValidationPipe(scanGridQuerySchema)) query: ScanGridQuery,
   ): Promise<ScanGridSlice> {
-    return this.results.grid(user, id, query);
+    return this.refinements.withRefinedCells(user, id, await this.results.grid(user, id, query));
   }
 
   @Get(':id/constraints')

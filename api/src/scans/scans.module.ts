@@ -13,13 +13,15 @@ import { ScanTag } from './entities/scan-tag.entity';
 import { ScanConstraintsService } from './scan-constraints.service';
 import { ScanQueueService } from './scan-queue.service';
 import { ScanReconcilerService } from './scan-reconciler.service';
+import { ScanRefinementsController } from './scan-refinements.controller';
+import { ScanRefinementsService } from './scan-refinements.service';
 import { ScanResultsService } from './scan-results.service';
 import { ScansController } from './scans.controller';
 import { ScansService } from './scans.service';
 
 @Module({
   imports: [TypeOrmModule.forFeature([Scan, ScanTag, ScanPoint]), GroupsModule, AuditModule, ScanQueueModule.register(), MaintenanceModule, SchedulingModule, ExportsModule, LikelihoodsModule],
-  controllers: [ScansController],
-  providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService, ScanConstraintsService],
+  controllers: [ScansController, ScanRefinementsController],
+  providers: [ScansService, ScanQueueService, ScanReconcilerService, ScanResultsService, ScanConstraintsService, ScanRefinementsService],
 })
 export class ScansModule {}

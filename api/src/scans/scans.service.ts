@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
 import {
-  createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery,
+  createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanRefinement,
   type ScanSummary,
 } from '@sixtyfold/shared';
 import { z } from 'zod';
@@ -38,6 +38,16 @@ export class ScansService {
   /** Validates against the model and the limits, stores the scan, then queues its chunks. */
   async create(user: SessionUser, spec: CreateScan): Promise<ScanDetail> {
     await this.access.require(user, spec.groupId, 'member');
+    const scanId = await this.submit(user.id, spec);
+    return this.get(user, scanId);
+  }
+
+  /**
+   * The submission after the role check: the model, the limits, the stored row and its audit
+   * event, then the chunks on the queue. A refinement level passes its place in the chain, stored
+   * in its spec and columns (its owner is the chain's: later levels are created without a request).
+   */
+  async submit(ownerId: number, spec: CreateScan, refinement?: { block: ScanRefinement; followsScanId: number }): Promise<number> {
     // Site admins pass the role check for any id, so the group may still not exist.
     const group = await this.db.getRepository(Group).findOneBy({ id: spec.groupId });
     if (!group) throw new NotFoundException({ message: 'groupId: no such group', fieldErrors: { groupId: ['no such group'] } });
@@ -50,7 +60,7 @@ export class ScansService {
       if (!row || row.groupId !== spec.groupId) throw new NotFoundException({ message: 'model.modelId: no such model in this group', fieldErrors: { 'model.modelId': ['no such model in this group'] } });
       model = { source: row.expression, parameters: row.parameters, phiInit: row.phiInit, isFamily: false, scaleParameter: scaleParameterOf(row.expression, row.parameters) };
     }
-    const stored = completeSpec(spec, model);
+    const stored = { ...completeSpec(spec, model), ...(refinement ? { refinement: refinement.block } : {}) };
     const total = pointCount(spec);
     const site = this.config.getOrThrow<AppConfig>('app').sitePointLimit;
     const tooLarge = pointLimitProblem(total, group.pointLimit, `${group.name}'s`) ?? pointLimitProblem(total, site, "the site's");
@@ -59,7 +69,7 @@ export class ScansService {
     const scanId = await this.db.transaction(async (tx) => {
       const saved = await scanLifecycle.create(tx, {
         groupId: spec.groupId,
-        ownerId: user.id,
+        ownerId,
         modelId: spec.model.kind === 'group' ? spec.model.modelId : null,
         family: spec.model.kind === 'family' ? spec.model.family : null,
         name: spec.name,
@@ -68,16 +78,18 @@ export class ScansService {
         note: spec.note,
         totalPoints: total,
         queuedAt: new Date(),
+        ...(refinement ? { refinesScanId: refinement.block.parentScanId, followsScanId: refinement.followsScanId, refinementLevel: refinement.block.level } : {}),
       }, 'submit', 'member');
       const tags = [...new Set(spec.tags)];
       if (tags.length) await tx.getRepository(ScanTag).insert(tags.map((tag) => ({ scanId: saved.id, tag })));
-      await this.audit.record({ action: 'scan.create', actorId: user.id, groupId: spec.groupId, targetType: 'scan', targetId: saved.id, details: { points: total } }, tx);
+      const details = refinement ? { points: total, refines: refinement.block.parentScanId, level: refinement.block.level } : { points: total };
+      await this.audit.record({ action: 'scan.create', actorId: ownerId, groupId: spec.groupId, targetType: 'scan', targetId: saved.id, details }, tx);
       return saved.id;
     });
     // Queued after the commit: a worker must find the row. If Redis fails here the scan stays
     // queued in MariaDB and start-up reconciliation enqueues it.
     await this.queue.enqueue(scanId, total, spec.method);
-    return this.get(user, scanId);
+    return scanId;
   }
 
   /**

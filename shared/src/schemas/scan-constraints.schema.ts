@@ -39,11 +39,17 @@ export const scanConstraintsSchema = z.object({
   pair: z
     .object({ x: z.string(), y: z.string(), xValues: z.array(z.number()), yValues: z.array(z.number()), density: z.array(z.number().nullable()), contourDensity: z.array(z.object({ level: z.number(), density: z.number() })) })
     .nullable(),
-  bestFit: z.object({ pointIndex: z.number().int(), deltaChi2: z.number(), inputs: z.record(z.string(), z.number()) }).nullable(),
+  /** `scanId` names the scan holding the point when the posterior is merged from refinement levels. */
+  bestFit: z.object({ pointIndex: z.number().int(), scanId: z.number().int().optional(), deltaChi2: z.number(), inputs: z.record(z.string(), z.number()) }).nullable(),
   /** Failed, flagged or not yet computed points: left out, never counted as zero likelihood. */
   excluded: z.object({ count: z.number().int(), priorFraction: z.number() }),
   included: z.number().int(),
   evidence: z.object({ z: z.number(), lnZ: z.number(), lnZHalf: z.number(), lnZError: z.number(), note: z.string() }).nullable(),
+  /**
+   * Present when the answer is merged from a refinement chain (see DEVELOPERS.md, "Refinement"): the
+   * parent grid, the levels merged, their points, and the level whose nodes the marginals are stated on.
+   */
+  refinement: z.object({ parentScanId: z.number().int(), levelScanIds: z.array(z.number().int()), points: z.number().int(), marginalLevel: z.number().int() }).optional(),
 });
 export type ScanConstraints = z.infer<typeof scanConstraintsSchema>;
 

@@ -242,5 +242,17 @@ export const scanGridSliceSchema = z.object({
   failed: z.record(z.string(), countColumn),
   /** Where the slice cuts every other axis: its index and value there. */
   at: z.record(z.string(), z.object({ index: z.number().int(), value: z.number() })),
+  /**
+   * A refined two-axis grid (see DEVELOPERS.md, "Refinement"): the leaves of its chain's levels in the
+   * window, to draw over the parent's cells, finer over coarser. A cell's `x`, `y` are its corners on
+   * the finest lattice, where parent index i is i · scale; `mean` is its corners' mean of the output.
+   * Absent without refinement, for `status` and `deltaChi2`.
+   */
+  refined: z
+    .object({
+      scale: z.tuple([z.number().int(), z.number().int()]),
+      cells: z.array(z.object({ level: z.number().int(), x: z.tuple([z.number().int(), z.number().int()]), y: z.tuple([z.number().int(), z.number().int()]), mean: z.number().nullable() })),
+    })
+    .optional(),
 });
 export type ScanGridSlice = z.infer<typeof scanGridSliceSchema>;

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { scanMethodSchema } from './scan-summary.schema.js';
+import { scanRefinementSchema } from './refinement.schema.js';
 
 /** What an axis may vary besides a model parameter. */
 export const PIVOT_AXES = ['nStar', 'reheatingW', 'reheatingEnergyGeV'] as const;
@@ -162,6 +163,8 @@ export const storedScanSpecSchema = z.intersection(
      * only scales V), decided at submission: they are computed fastest (`computeOrder`).
      */
     sharedBackgroundAxes: z.array(z.string()).optional(),
+    /** Set on a refinement level: its chain, and the lattice coordinates of its point list's rows. */
+    refinement: scanRefinementSchema.optional(),
   }),
 );
 export type StoredScanSpec = z.infer<typeof storedScanSpecSchema>;

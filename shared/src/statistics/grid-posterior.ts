@@ -1,4 +1,4 @@
-import { axisCells, fromPriorVariable, gridSize, isJudged, type AxisCells, type AxisPrior, type GridLikelihood } from './grid-axes.js';
+import { axisCells, fromPriorVariable, gridSize, isJudged, type AxisCells, type AxisPrior, type GridLikelihood, type PosteriorAxis } from './grid-axes.js';
 
 export interface Marginal1D {
   axis: string;
@@ -119,18 +119,50 @@ export function gridPosterior(input: GridLikelihood, options: GridPosteriorOptio
     }
   }
 
-  const marginals = axes.map((axis, a) => marginal1D(axis.name, cells[a], axis.values, marginalMass[a], total));
-  const constraints = axes.map((axis, a) => axisConstraint(axis.name, cells[a], axis.values, marginalMass[a], total, levels));
   const bestIdx = indicesOf(best, lengths);
   const point: Record<string, number> = {};
   axes.forEach((axis, a) => (point[axis.name] = axis.values[bestIdx[a]]));
-  return {
-    marginals,
-    constraints,
-    pair: pair && pairMass ? marginal2D(axes[px].name, axes[py].name, cells[px], cells[py], axes[px].values, axes[py].values, pairMass, total, levels) : null,
+  return assemblePosterior({
+    axes,
+    cells,
+    marginalMass,
+    pair: pair && pairMass ? { axes: pair, mass: pairMass } : null,
+    total,
+    levels,
     bestFit: { index: best, deltaChi2: bestChi2, point },
     excluded: { count: excludedCount, priorFraction: allWeight > 0 ? excludedWeight / allWeight : 0 },
     included: size - excludedCount,
+  });
+}
+
+/** Unnormalised posterior masses on the values of some axes, with what else a `GridPosterior` states. */
+export interface PosteriorMasses extends Pick<GridPosterior, 'bestFit' | 'excluded' | 'included'> {
+  axes: readonly PosteriorAxis[];
+  cells: AxisCells[];
+  /** Per axis, the mass of each value's cell, by grid position. */
+  marginalMass: Float64Array[];
+  /** The pair's mass, row-major by grid position: iy · (x values) + ix. */
+  pair: { axes: [number, number]; mass: Float64Array } | null;
+  total: number;
+  levels: number[];
+}
+
+/**
+ * Marginals, intervals and the 2-D marginal from masses on axis values: shared by the uniform grid
+ * and the multi-resolution mesh (`meshPosterior`), so both are read and summarised alike.
+ */
+export function assemblePosterior(input: PosteriorMasses): GridPosterior {
+  const { axes, cells, marginalMass, pair, total, levels } = input;
+  const marginals = axes.map((axis, a) => marginal1D(axis.name, cells[a], axis.values, marginalMass[a], total));
+  const constraints = axes.map((axis, a) => axisConstraint(axis.name, cells[a], axis.values, marginalMass[a], total, levels));
+  const [px, py] = pair?.axes ?? [0, 0];
+  return {
+    marginals,
+    constraints,
+    pair: pair ? marginal2D(axes[px].name, axes[py].name, cells[px], cells[py], axes[px].values, axes[py].values, pair.mass, total, levels) : null,
+    bestFit: input.bestFit,
+    excluded: input.excluded,
+    included: input.included,
   };
 }
 

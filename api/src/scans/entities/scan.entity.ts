@@ -27,6 +27,8 @@ const STORED_SPEC: ValueTransformer = {
 @Index('ix_scans_group_created', ['groupId', 'createdAt'])
 @Index('ix_scans_owner', ['ownerId'])
 @Index('ix_scans_status', ['status'])
+@Index('ix_scans_refines', ['refinesScanId'])
+@Index('ix_scans_follows', ['followsScanId'])
 export class Scan {
   @PrimaryGeneratedColumn({ unsigned: true })
   id: number;
@@ -87,6 +89,21 @@ export class Scan {
   /** Set once the owner has been told the scan finished; cleared when a retry runs it again. */
   @Column({ name: 'finish_notified_at', type: 'datetime', precision: 3, nullable: true })
   finishNotifiedAt: Date | null;
+
+  /** On a refinement level: the grid scan its chain refines (see `RefinementsService`). */
+  @Column({ name: 'refines_scan_id', type: 'int', unsigned: true, nullable: true })
+  refinesScanId: number | null;
+
+  /** On a refinement level: the scan it follows (the parent for level 1, the level before after). */
+  @Column({ name: 'follows_scan_id', type: 'int', unsigned: true, nullable: true })
+  followsScanId: number | null;
+
+  @Column({ name: 'refinement_level', type: 'tinyint', unsigned: true, nullable: true })
+  refinementLevel: number | null;
+
+  /** Set once the API decided what follows this finished level: the next level, or none. */
+  @Column({ name: 'refinement_followed_at', type: 'datetime', precision: 3, nullable: true })
+  refinementFollowedAt: Date | null;
 
   @ManyToOne(() => Group, { onDelete: 'CASCADE' })
   @JoinColumn({ name: 'group_id' })

@@ -139,6 +139,28 @@ describe('scan page', () => {
     expect(requests.filter((r) => r.method === 'DELETE').map((r) => r.url.pathname)).toEqual(['/api/scans/42']);
   });
 
+  it('offers a member to refine a completed grid, estimates the first level, and opens the level once launched', async () => {
+    const { requests } = api(memberUser, scanDetail(), {
+      'GET /api/scans/42/lineage': () => json(200, { parentScanId: null, level: null, levels: [] }),
+      'GET /api/scans/42/refine/estimate': () => json(200, { level: 1, cells: 4, crossedCells: 2, points: 10, parentPoints: 9, pointsPerSecond: null, seconds: null, finestLengths: [9, 9] }),
+      'POST /api/scans/42/refine': () => json(201, scanDetail({ id: 43 })),
+      'GET /api/scans/43': () => json(200, scanDetail({ id: 43, name: 'level 1' })),
+    });
+    const { user, router } = renderApp('/scans/42');
+    await user.click(await screen.findByRole('button', { name: 'Refine…' }, slow));
+    expect(await screen.findByTestId('refine-estimate')).toHaveTextContent('Level 1: 10 points in 2 of 4 cells; the finest level has 9 × 9 nodes.');
+    await user.click(screen.getByRole('button', { name: 'Launch refinement' }));
+    await waitFor(() => expect(router.state.location.pathname).toBe('/scans/43'));
+    expect(requests.filter((r) => r.method === 'POST').map((r) => r.url.pathname)).toEqual(['/api/scans/42/refine']);
+  });
+
+  it('offers no refinement to a viewer', async () => {
+    api(viewer, scanDetail());
+    renderApp('/scans/42');
+    expect(await screen.findByRole('heading', { level: 1 }, slow)).toBeInTheDocument();
+    expect(screen.queryByRole('button', { name: 'Refine…' })).not.toBeInTheDocument();
+  });
+
   it('says so when the scan cannot be loaded', async () => {
     mockApi({ 'GET /api/auth/me': () => json(200, memberUser), 'GET /api/scans/42': () => apiError(404, 'No such scan') });
     renderApp('/scans/42');

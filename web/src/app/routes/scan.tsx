@@ -1,5 +1,6 @@
-import { Stack } from '@chakra-ui/react';
+import { Button, Stack } from '@chakra-ui/react';
 import type { CurrentUser, ScanDetail, StoredScanSpec } from '@sixtyfold/shared';
+import { useState } from 'react';
 import { useNavigate, useParams } from 'react-router-dom';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
@@ -13,12 +14,15 @@ import { CommentThread } from '@/features/comments/components/comment-thread';
 import { useRegionOverlay } from '@/features/constraint-regions/hooks/use-region-overlay';
 import { useGroup } from '@/features/groups/api/get-group';
 import { useModel } from '@/features/models/api/get-model';
+import { RefineDialog } from '@/features/refinement/components/refine-dialog';
+import { ScanLineage } from '@/features/refinement/components/scan-lineage';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanActions } from '@/features/scans/components/scan-actions';
 import { ScanHeader } from '@/features/scans/components/scan-header';
 import { ScanViews } from '@/features/scans/components/scan-views';
 import { useRefreshWhenFinished } from '@/features/scans/hooks/use-refresh-when-finished';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
+import { scanPermissions } from '@/features/scans/utils/scan-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { groupNamesOf } from '@/lib/group-names';
 
@@ -31,6 +35,7 @@ export function ScanRoute() {
   useRefreshWhenFinished(scan.data);
   const spec = scan.data?.spec;
   const model = useModel(spec?.model.kind === 'group' ? spec.model.modelId : null);
+  const [refining, setRefining] = useState(false);
 
   if (scanId === null) {
     return <EmptyState icon={<ScanGridIcon />} title="No such scan" description="Scan addresses end in the scan's number, like /scans/12." />;
@@ -47,8 +52,20 @@ export function ScanRoute() {
         spec={scan.data.spec}
         groupName={groupName}
         model={model}
-        actions={<ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />}
+        actions={
+          <Stack gap="2" align={{ base: 'stretch', md: 'end' }}>
+            {/* A completed grid, not itself a refinement level, may be refined by whoever may submit scans in its group. */}
+            {scan.data.status === 'completed' && scan.data.spec.axes && !scan.data.spec.refinement && scanPermissions(scan.data, user).clone && (
+              <Button size="sm" variant="outline" alignSelf={{ md: 'end' }} onClick={() => setRefining(true)}>
+                Refine…
+              </Button>
+            )}
+            <ScanActions scan={scan.data} user={user} groupName={groupName} onDeleted={() => navigate(paths.scans.getHref())} />
+          </Stack>
+        }
       />
+      <ScanLineage scanId={scan.data.id} axes={(scan.data.spec.axes ?? []).map((axis) => axis.parameter).concat(scan.data.spec.pointList?.columns ?? [])} />
+      {refining && <RefineDialog scan={scan.data} onClose={() => setRefining(false)} onLaunched={(level) => navigate(paths.scan.getHref(level.id))} />}
       <ScanResults scan={scan.data} spec={scan.data.spec} user={user} />
     </Stack>
   );

@@ -1,7 +1,7 @@
 import type { ScanGridSlice } from '@sixtyfold/shared';
 import { slice } from '@/testing/scan-fixtures';
 import { failureSlot } from './failure-colors';
-import { heatmapFigure, tickIndices } from './heatmap-figure';
+import { colorscaleAt, heatmapFigure, refinedCellShapes, tickIndices } from './heatmap-figure';
 import { SET_COLORS } from './plane-figure';
 
 type Trace = { type: string; name: string; contours?: { start: number; end: number; coloring: string }; line?: { color: string; dash: string }; z?: (number | null)[][]; text?: string[][]; zmin?: number; zmax?: number; x?: (number | null)[] };
@@ -93,5 +93,21 @@ describe('heatmap traces', () => {
     expect(layout.xaxis?.ticktext).toEqual(['0.01', '0.1', '1', '10']);
     expect(layout.yaxis?.title).toEqual({ text: 'N_*' });
     expect(tickIndices(100)).toEqual([0, 17, 33, 50, 66, 83, 99]);
+  });
+});
+
+describe('refined cells over a heatmap', () => {
+  it('draws each finer cell from node to node in cell coordinates, coloured on the panel\'s scale; none without refinement', () => {
+    // Parent index i is finest coordinate 4i: the cell from finest (2, 0) to (3, 1) spans x 0.5–0.75, y 0–0.25.
+    const refined = { ...ns, refined: { scale: [4, 4] as [number, number], cells: [{ level: 2, x: [2, 3] as [number, number], y: [0, 1] as [number, number], mean: 0.965 }, { level: 2, x: [3, 4] as [number, number], y: [0, 1] as [number, number], mean: null }] } };
+    const shapes = refinedCellShapes(refined)!;
+    expect(shapes).toHaveLength(1);
+    expect(shapes[0]).toMatchObject({ type: 'rect', x0: 0.5, x1: 0.75, y0: 0, y1: 0.25, fillcolor: colorscaleAt(1) });
+    expect(heatmapFigure({ slice: refined }).layout.shapes).toHaveLength(1);
+    expect(refinedCellShapes(ns)).toEqual([]);
+    // On a shared range, the colour follows it: 0.963 is the middle of 0.961–0.965.
+    expect(refinedCellShapes({ ...refined, refined: { ...refined.refined, cells: [{ ...refined.refined.cells[0], mean: 0.963 }] } }, [0.961, 0.965])![0]).toMatchObject({ fillcolor: colorscaleAt(0.5) });
+    expect(colorscaleAt(0)).toBe('rgb(17, 23, 53)');
+    expect(colorscaleAt(0.5)).toBe('rgb(140, 90, 168)');
   });
 });

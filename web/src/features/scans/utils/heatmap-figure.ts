@@ -125,6 +125,50 @@ export function boundaryTraces(boundaries: BoundarySlice[], xs: number[], ys: nu
   });
 }
 
+// Past this many refined cells the shapes would slow every redraw; the coarse cells stay.
+const MAX_REFINED_SHAPES = 5_000;
+
+/** A colour of the plot's colorscale at t ∈ [0, 1], interpolated between its stops. */
+export function colorscaleAt(t: number): string {
+  const clamped = Math.min(1, Math.max(0, Number.isFinite(t) ? t : 0));
+  const stops = PLOT_COLORSCALE;
+  let k = 1;
+  while (k < stops.length - 1 && stops[k][0] < clamped) k++;
+  const [t0, c0] = stops[k - 1];
+  const [t1, c1] = stops[k];
+  const f = t1 > t0 ? (clamped - t0) / (t1 - t0) : 0;
+  const channel = (hex: string, i: number) => parseInt(hex.slice(1 + 2 * i, 3 + 2 * i), 16);
+  const mixed = [0, 1, 2].map((i) => Math.round(channel(c0, i) + f * (channel(c1, i) - channel(c0, i))));
+  return `rgb(${mixed.join(', ')})`;
+}
+
+/**
+ * A refined grid's finer cells (`slice.refined`) as filled rectangles over the panel, finer over
+ * coarser, coloured on the panel's scale. A refined cell spans from node to node: parent index i
+ * is finest coordinate i · scale, and cell coordinates are (index − from) / block.
+ */
+export function refinedCellShapes(slice: ScanGridSlice, zRange?: [number, number]): Partial<Layout>['shapes'] {
+  const refined = slice.refined;
+  if (!refined || refined.cells.length === 0 || refined.cells.length > MAX_REFINED_SHAPES || slice.output === 'status') return [];
+  const log = LOG_OUTPUTS.has(slice.output);
+  const scale = (v: number | null) => (v === null ? null : log ? (v > 0 ? Math.log10(v) : null) : v);
+  // The panel's own range: the shared one, or (as Plotly takes it) its cells' least and greatest.
+  const known = (zRange ?? slice.mean ?? []).map(scale).filter((v): v is number => v !== null);
+  if (known.length === 0) return [];
+  const [lo, hi] = [Math.min(...known), Math.max(...known)];
+  const at = (axis: ScanGridSlice['x'], s: number, fine: number) => (fine / s - axis.from) / axis.block;
+  return refined.cells.flatMap((cell) => {
+    const z = scale(cell.mean);
+    if (z === null) return [];
+    return [{
+      type: 'rect' as const, layer: 'above' as const, xref: 'x' as const, yref: 'y' as const, line: { width: 0 },
+      x0: at(slice.x, refined.scale[0], cell.x[0]), x1: at(slice.x, refined.scale[0], cell.x[1]),
+      y0: at(slice.y, refined.scale[1], cell.y[0]), y1: at(slice.y, refined.scale[1], cell.y[1]),
+      fillcolor: colorscaleAt(hi > lo ? (z - lo) / (hi - lo) : 0.5),
+    }];
+  });
+}
+
 /**
  * The Plotly traces of one heatmap panel, in cell coordinates (cell ix spans ix ± ½) with the
  * axis values as tick labels, so list and log-spaced axes get equal cells. Failed cells are
@@ -191,6 +235,7 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], boundaries = []
       showlegend: false,
       hovermode: 'closest',
       dragmode: 'zoom',
+      shapes: refinedCellShapes(slice, zRange),
       // What a cell stands for, on the plot itself (and in saved images).
       annotations: [{ text: cellStatistic(slice), xref: 'paper', yref: 'paper', x: 1, y: 1, xanchor: 'right', yanchor: 'bottom', showarrow: false, font: { size: 11, color: PLOT_COLORS.muted } }],
     },

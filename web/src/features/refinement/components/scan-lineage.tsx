@@ -1,0 +1,42 @@
+import { Button, HStack, Stack, Text } from '@chakra-ui/react';
+import { useState } from 'react';
+import { AppLink } from '@/components/ui/app-link';
+import { paths } from '@/config/paths';
+import { useScanLineage } from '../api/get-scan-lineage';
+import { RefinedPointsTable } from './refined-points-table';
+
+/**
+ * Where a scan sits in refinement chains: the grid it refines, or the levels refining it, and on
+ * demand every level's points in one table. Nothing when neither.
+ */
+export function ScanLineage({ scanId, axes }: { scanId: number; axes: string[] }) {
+  const lineage = useScanLineage(scanId);
+  const [pointsPage, setPointsPage] = useState<number | null>(null);
+  const data = lineage.data;
+  if (!data || (data.parentScanId === null && data.levels.length === 0)) return null;
+  const anyCompleted = data.levels.some((level) => level.status === 'completed');
+  return (
+    <Stack gap="1" fontSize="sm" px={{ base: '4', md: '6' }} py="2" aria-label="Refinement lineage">
+      {data.parentScanId !== null && (
+        <Text>
+          Level {data.level} of the refinement of <AppLink to={paths.scan.getHref(data.parentScanId)}>scan {data.parentScanId}</AppLink>; its
+          heatmaps and constraints show every level merged.
+        </Text>
+      )}
+      <HStack gap="3" wrap="wrap">
+        <Text color="fg.muted">Refinement levels:</Text>
+        {data.levels.map((level) => (
+          <AppLink key={level.scanId} to={paths.scan.getHref(level.scanId)} aria-current={level.scanId === scanId ? 'page' : undefined}>
+            level {level.level} · {level.totalPoints.toLocaleString('en-US')} points · {level.status}
+          </AppLink>
+        ))}
+        {anyCompleted && (
+          <Button size="xs" variant="ghost" onClick={() => setPointsPage(pointsPage === null ? 1 : null)}>
+            {pointsPage === null ? 'Points of every level' : 'Hide the points of every level'}
+          </Button>
+        )}
+      </HStack>
+      {pointsPage !== null && <RefinedPointsTable scanId={scanId} axes={axes} page={pointsPage} onPageChange={setPointsPage} />}
+    </Stack>
+  );
+}
