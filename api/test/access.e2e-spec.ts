@@ -108,6 +108,7 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans/:id/grid', url: () => `/api/scans/${plateauScanId}/grid?x=f&y=nStar`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/plane', url: () => `/api/scans/${plateauScanId}/plane`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/constraints', url: () => `/api/scans/${plateauScanId}/constraints?likelihood=planck18-bk18`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/provenance', url: () => `/api/scans/${plateauScanId}/provenance`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/evidence', url: () => `/api/scans/evidence?ids=${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // Sent without the file: the role is checked first (viewer 403 as for any submission); the others learn the file is missing.

@@ -41,3 +41,6 @@ export * from './statistics/point-judge.js';
 export * from './statistics/grid-axes.js';
 export * from './statistics/grid-posterior.js';
 export * from './statistics/evidence.js';
+export * from './version.js';
+export * from './provenance/canonical-json.js';
+export * from './schemas/scan-provenance.schema.js';

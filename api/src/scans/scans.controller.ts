@@ -7,7 +7,7 @@ import {
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQueryFieldsSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointPageSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage,
-  type ScanPointsQuery, type ScanSummary,
+  type ScanPointsQuery, type ScanSummary, scanProvenanceAnswerSchema, type ScanProvenanceAnswer,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -87,6 +87,14 @@ export class ScansController {
   @ApiErrorResponses(400, 401, 404)
   get(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanDetail> {
     return this.scans.get(user, id);
+  }
+
+  @Get(':id/provenance')
+  @ApiOperation({ summary: 'What computed a scan: the submitting build, the integrator settings, the spec hash and the worker of every chunk' })
+  @ApiZodResponse(200, scanProvenanceAnswerSchema, '`recorded` null and `runsRecorded` false for a scan stored before provenance was recorded')
+  @ApiErrorResponses(400, 401, 404)
+  provenance(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanProvenanceAnswer> {
+    return this.results.provenance(user, id);
   }
 
   /** A page of points as JSON, or with `format=csv|json|arrow` every matching point, streamed as a download. */
