@@ -9,8 +9,9 @@ import { ScanLinePlots } from './heatmaps/scan-line-plots';
 import type { UseRegionOverlay } from './plane/region-overlay';
 import { ScanPlaneView } from './plane/scan-plane-view';
 import { ScanPointsTable } from './points-table';
+import { ScanProvenancePanel } from './scan-provenance-panel';
 
-export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'constraints', 'discussion'] as const;
+export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'constraints', 'discussion', 'computed'] as const;
 export type ScanView = (typeof SCAN_VIEWS)[number];
 
 /** The view in the address (`?view=`), heatmaps when there is none or it is unknown. */
@@ -63,6 +64,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
             ) : null}
           </Tabs.Trigger>
         )}
+        <Tabs.Trigger value="computed">How this was computed</Tabs.Trigger>
       </Tabs.List>
       {spec.axes && (
         <Tabs.Content value="heatmaps">
@@ -79,6 +81,9 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
         <ScanConstraintsView scan={scan} spec={spec} />
       </Tabs.Content>
       {discussion && <Tabs.Content value="discussion">{discussion.content}</Tabs.Content>}
+      <Tabs.Content value="computed">
+        <ScanProvenancePanel scanId={scan.id} />
+      </Tabs.Content>
     </Tabs.Root>
   );
 }
