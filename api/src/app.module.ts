@@ -30,6 +30,7 @@ import { MaintenanceModule } from './maintenance/maintenance.module';
 import { ModelsModule } from './models/models.module';
 import { NotificationsModule } from './notifications/notifications.module';
 import { RedisModule } from './redis/redis.module';
+import { ReproductionsModule } from './reproductions/reproductions.module';
 import { ScansModule } from './scans/scans.module';
 import { TokensModule } from './tokens/tokens.module';
 import { UsersModule } from './users/users.module';
@@ -57,6 +58,7 @@ import { WorkersModule } from './workers/workers.module';
     ConstraintRegionsModule,
     LikelihoodsModule,
     ScansModule,
+    ReproductionsModule,
     TokensModule,
     NotificationsModule,
     CommentsModule,

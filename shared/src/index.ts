@@ -44,3 +44,6 @@ export * from './statistics/evidence.js';
 export * from './version.js';
 export * from './provenance/canonical-json.js';
 export * from './schemas/scan-provenance.schema.js';
+export * from './queue/reproduction-queue.js';
+export * from './schemas/scan-reproduction.schema.js';
+export * from './scans/compare-reproduction.js';

@@ -7,6 +7,7 @@ import type { DataSource, QueryRunner } from 'typeorm';
 import { axisColumnValues, Scan, ScanChunkRun, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
 import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type BuildInfo, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
+import { createPointEngine, storedOutputs } from './point-engine';
 
 /** How long a job waits for another job of the same chunk to finish storing it. */
 const CHUNK_LOCK_WAIT_SECONDS = 60;
@@ -53,8 +54,7 @@ export class ComputeChunkService {
 
   constructor(@InjectDataSource() private readonly db: DataSource, config: ConfigService) {
     const worker = config.getOrThrow<WorkerConfig>('worker');
-    // The engine has no clock of its own; given this one, a point that runs past its wall-time limit ends as budget_exceeded.
-    this.engine = new RequestEvaluator({ now: () => performance.now(), budget: { wallTimeMs: worker.pointTimeLimitMs } });
+    this.engine = createPointEngine(worker);
     this.sliceMs = worker.sliceMs;
     const build = config.getOrThrow<BuildInfo>('build');
     this.runner = { worker: `${hostname()}:${process.pid}`, ...build, pointTimeLimitMs: worker.pointTimeLimitMs };
@@ -147,16 +147,7 @@ export class ComputeChunkService {
       ...axisColumnValues(parameters, inputs),
       status: result.status,
       failureReason: ok ? null : result.message.slice(0, 500),
-      ns: result.ns,
-      r: result.r,
-      alphaS: result.alphaS,
-      As: result.As,
-      amplitudeScale: result.amplitudeScale,
-      nTotal: Number.isFinite(result.nTotal) ? result.nTotal : null,
-      nStar: result.nStar,
-      phiStar: result.phiStar,
-      phiEnd: result.phiEnd,
-      energyScaleGeV: result.energyScaleGeV,
+      ...storedOutputs(result),
       computedAt,
     };
   }

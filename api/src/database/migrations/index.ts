@@ -12,6 +12,7 @@ import { LeanPointIndexes1796300000021 } from './1796300000021-LeanPointIndexes'
 import { LikelihoodSets1796300000030 } from './1796300000030-LikelihoodSets';
 import { PointAxisColumns1796300000020 } from './1796300000020-PointAxisColumns';
 import { ScanProvenance1796300000040 } from './1796300000040-ScanProvenance';
+import { ScanReproductions1796300000041 } from './1796300000041-ScanReproductions';
 
 // Migrations in the order they run; a new migration file is listed here too.
 export const MIGRATIONS: (new () => MigrationInterface)[] = [
@@ -19,4 +20,5 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   Maintenance1796300000002, Invitations1796300000003, CommentsAndNotifications1796300000004,
   AuditActionNames1796300000005, AccountControls1796300000010, PointAxisColumns1796300000020,
   LeanPointIndexes1796300000021, LikelihoodSets1796300000030, ScanProvenance1796300000040,
+  ScanReproductions1796300000041,
 ];
