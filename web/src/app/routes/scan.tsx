@@ -19,6 +19,7 @@ import { ScanHeader } from '@/features/scans/components/scan-header';
 import { ScanViews } from '@/features/scans/components/scan-views';
 import { useRefreshWhenFinished } from '@/features/scans/hooks/use-refresh-when-finished';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
+import { scanPermissions } from '@/features/scans/utils/scan-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
 import { groupNamesOf } from '@/lib/group-names';
 
@@ -75,6 +76,7 @@ function ScanResults({ scan, spec, user }: { scan: ScanDetail; spec: StoredScanS
       discussion={{ content: <Panel p={{ base: '4', md: '6' }}>{thread(null)}</Panel>, count: counts.data?.scan }}
       pointDiscussion={{ counts: counts.data?.points, render: thread }}
       useRegionOverlay={useRegionOverlay}
+      canCheckReproducibility={scanPermissions(scan, user).reproduce}
     />
   );
 }

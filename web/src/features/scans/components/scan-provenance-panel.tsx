@@ -1,10 +1,12 @@
 import { Code, DataList, Heading, Stack, Table, Text } from '@chakra-ui/react';
 import type { ScanProvenanceAnswer } from '@sixtyfold/shared';
+import type { ReactNode } from 'react';
 import { DateTime } from '@/components/ui/date-time';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { useScanProvenance } from '../api/get-scan-provenance';
+import { ScanReproducibility } from './scan-reproducibility';
 
 const mono = { fontFamily: 'mono' } as const;
 const NOT_RECORDED = 'not recorded';
@@ -19,14 +21,19 @@ function Commit({ id }: { id: string }) {
 }
 
 /** "How this was computed": the submitting build, the engine's settings, the spec hash and the workers of the chunks. */
-export function ScanProvenancePanel({ scanId }: { scanId: number }) {
+export function ScanProvenancePanel({ scanId, canCheckReproducibility }: { scanId: number; canCheckReproducibility: boolean }) {
   const provenance = useScanProvenance(scanId);
   if (provenance.isPending) return <LoadingState label="Loading how the scan was computed…" />;
   if (provenance.isError) return <ErrorState title="Could not load how the scan was computed" error={provenance.error} onRetry={() => provenance.refetch()} />;
-  return <ProvenanceDetails provenance={provenance.data} />;
+  return (
+    <ProvenanceDetails provenance={provenance.data}>
+      <ScanReproducibility scanId={scanId} canCheck={canCheckReproducibility} />
+    </ProvenanceDetails>
+  );
 }
 
-export function ProvenanceDetails({ provenance }: { provenance: ScanProvenanceAnswer }) {
+/** The recorded provenance; `children` (the reproducibility check, the citation) follow it in the same panel. */
+export function ProvenanceDetails({ provenance, children }: { provenance: ScanProvenanceAnswer; children?: ReactNode }) {
   const { recorded, workers, runs, runsRecorded } = provenance;
   return (
     <Panel as="section" aria-labelledby="scan-provenance" p={{ base: '4', md: '5' }}>
@@ -125,6 +132,7 @@ export function ProvenanceDetails({ provenance }: { provenance: ScanProvenanceAn
             </details>
           </>
         )}
+        {children}
       </Stack>
     </Panel>
   );

@@ -31,9 +31,11 @@ interface ScanViewsProps {
   pointDiscussion?: PointDiscussion;
   /** The constraint regions drawn on the plane; composed in by the page. */
   useRegionOverlay: UseRegionOverlay;
+  /** May the user start a reproducibility check (the member role)? */
+  canCheckReproducibility?: boolean;
 }
 
-export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOverlay }: ScanViewsProps) {
+export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOverlay, canCheckReproducibility = false }: ScanViewsProps) {
   const [params, update] = useViewParams();
   const first: ScanView = spec.axes ? 'heatmaps' : 'plane';
   const asked = params.get('view') === null ? first : readScanView(params.get('view'));
@@ -82,7 +84,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
       </Tabs.Content>
       {discussion && <Tabs.Content value="discussion">{discussion.content}</Tabs.Content>}
       <Tabs.Content value="computed">
-        <ScanProvenancePanel scanId={scan.id} />
+        <ScanProvenancePanel scanId={scan.id} canCheckReproducibility={canCheckReproducibility} />
       </Tabs.Content>
     </Tabs.Root>
   );
