@@ -30,6 +30,7 @@ import { MaintenanceModule } from './maintenance/maintenance.module';
 import { ModelsModule } from './models/models.module';
 import { NotificationsModule } from './notifications/notifications.module';
 import { RedisModule } from './redis/redis.module';
+import { CitationsModule } from './citations/citations.module';
 import { ReproductionsModule } from './reproductions/reproductions.module';
 import { ScansModule } from './scans/scans.module';
 import { TokensModule } from './tokens/tokens.module';
@@ -59,6 +60,7 @@ import { WorkersModule } from './workers/workers.module';
     LikelihoodsModule,
     ScansModule,
     ReproductionsModule,
+    CitationsModule,
     TokensModule,
     NotificationsModule,
     CommentsModule,

@@ -114,6 +114,7 @@ describe('every route against every role', () => {
     { method: 'post', route: '/api/scans/:id/reproductions', url: () => `/api/scans/${plateauScanId}/reproductions`, expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     { method: 'get', route: '/api/scans/:id/reproductions', url: () => `/api/scans/${plateauScanId}/reproductions`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/reproductions/:reproductionId', url: () => `/api/scans/${plateauScanId}/reproductions/${plateauReproductionId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/citation', url: () => `/api/scans/${plateauScanId}/citation?likelihood=planck18-bk18`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/:id/provenance', url: () => `/api/scans/${plateauScanId}/provenance`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/evidence', url: () => `/api/scans/evidence?ids=${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },

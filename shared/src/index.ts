@@ -47,3 +47,7 @@ export * from './schemas/scan-provenance.schema.js';
 export * from './queue/reproduction-queue.js';
 export * from './schemas/scan-reproduction.schema.js';
 export * from './scans/compare-reproduction.js';
+export * from './citations/citation-records.js';
+export * from './citations/bibtex.js';
+export * from './citations/scan-citations.js';
+export * from './schemas/scan-citation.schema.js';
