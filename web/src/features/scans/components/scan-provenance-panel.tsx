@@ -6,6 +6,7 @@ import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
 import { Panel } from '@/components/ui/panel';
 import { useScanProvenance } from '../api/get-scan-provenance';
+import { ScanCitation } from './scan-citation';
 import { ScanReproducibility } from './scan-reproducibility';
 
 const mono = { fontFamily: 'mono' } as const;
@@ -28,6 +29,7 @@ export function ScanProvenancePanel({ scanId, canCheckReproducibility }: { scanI
   return (
     <ProvenanceDetails provenance={provenance.data}>
       <ScanReproducibility scanId={scanId} canCheck={canCheckReproducibility} />
+      <ScanCitation scanId={scanId} />
     </ProvenanceDetails>
   );
 }
