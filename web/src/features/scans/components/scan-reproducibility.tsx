@@ -1,4 +1,4 @@
-import { Alert, Button, Field, HStack, Input, Stack, Table, Text } from '@chakra-ui/react';
+import { Alert, Button, Field, HStack, Heading, Input, Stack, Table, Text } from '@chakra-ui/react';
 import { DEFAULT_REPRODUCTION_SAMPLE, MAX_REPRODUCTION_SAMPLE, type Reproduction } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { DateTime } from '@/components/ui/date-time';
@@ -26,7 +26,10 @@ export function ScanReproducibility({ scanId, canCheck }: { scanId: number; canC
   const sizeProblem = Number.isInteger(size) && size >= 1 && size <= MAX_REPRODUCTION_SAMPLE ? null : `a whole number from 1 to ${MAX_REPRODUCTION_SAMPLE}`;
   const latest = items[0];
   return (
-    <Stack gap="3" as="section" aria-label="Reproducibility">
+    <Stack gap="3" as="section" aria-labelledby="scan-reproducibility">
+      <Heading as="h3" id="scan-reproducibility" size="xs" color="ink.900">
+        Reproducibility
+      </Heading>
       {changed && (
         <Alert.Root status="warning" variant="subtle" borderRadius="md">
           <Alert.Indicator />
