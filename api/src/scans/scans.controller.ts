@@ -108,7 +108,9 @@ export class ScansController {
   @ApiProduces('application/json', 'text/csv', 'application/vnd.apache.arrow.stream')
   @ApiResponse({
     status: 200,
-    description: 'A page of points; with `format`, a CSV (one row per point), a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows)',
+    description: 'A page of points; with `format`, a CSV (`#` lines saying what computed the scan, then one row per point: pandas reads it with `comment=\'#\'`), '
+      + 'a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows; the provenance in the schema metadata). '
+      + 'Every download carries `X-Sixtyfold-Provenance` (the submission record) and a `Link` to `/api/scans/:id/provenance`.',
     content: {
       'application/json': { schema: openApiSchemaOf(scanPointPageSchema, 'output') },
       'text/csv': { schema: { type: 'string' } },
