@@ -11,6 +11,7 @@ import { ConstraintRegionsModule } from './constraint-regions/constraint-regions
 import { LikelihoodsModule } from './likelihoods/likelihoods.module';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { AccessGuard } from './common/guards/access.guard';
+import { buildConfig } from './config/build.config';
 import { appConfig } from './config/app.config';
 import { databaseConfig, type DatabaseConfig } from './config/database.config';
 import { exportsConfig } from './config/exports.config';
@@ -29,6 +30,8 @@ import { MaintenanceModule } from './maintenance/maintenance.module';
 import { ModelsModule } from './models/models.module';
 import { NotificationsModule } from './notifications/notifications.module';
 import { RedisModule } from './redis/redis.module';
+import { CitationsModule } from './citations/citations.module';
+import { ReproductionsModule } from './reproductions/reproductions.module';
 import { ScansModule } from './scans/scans.module';
 import { TokensModule } from './tokens/tokens.module';
 import { UsersModule } from './users/users.module';
@@ -37,7 +40,7 @@ import { WorkersModule } from './workers/workers.module';
 @Module({
   imports: [
     // Configuration comes from the environment (the start script loads .env); nothing is read from files here.
-    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig, maintenanceConfig, exportsConfig] }),
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig, databaseConfig, redisConfig, mailConfig, invitationConfig, notificationsConfig, maintenanceConfig, exportsConfig, buildConfig] }),
     TypeOrmModule.forRootAsync({
       inject: [ConfigService],
       useFactory: (config: ConfigService) => buildDataSourceOptions(config.getOrThrow<DatabaseConfig>('database')),
@@ -56,6 +59,8 @@ import { WorkersModule } from './workers/workers.module';
     ConstraintRegionsModule,
     LikelihoodsModule,
     ScansModule,
+    ReproductionsModule,
+    CitationsModule,
     TokensModule,
     NotificationsModule,
     CommentsModule,

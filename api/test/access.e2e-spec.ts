@@ -12,6 +12,7 @@ import { signInvitationToken } from '../src/invitations/invitation-token';
 import { Notification } from '../src/notifications/entities/notification.entity';
 import { PotentialModel } from '../src/models/entities/potential-model.entity';
 import { Scan } from '../src/scans/entities/scan.entity';
+import { ScanReproduction } from '../src/reproductions/entities/scan-reproduction.entity';
 import { ScanPoint } from '../src/scans/entities/scan-point.entity';
 import { User } from '../src/users/entities/user.entity';
 import { createTestApp, DEMO, type TestApp } from './support/test-app';
@@ -52,6 +53,7 @@ describe('every route against every role', () => {
   let plateauId: number;
   let plateauModelId: number;
   let plateauScanId: number;
+  let plateauReproductionId: number;
   let editedModelId: number;
   let plateauArchiveId: number;
   const ownScan = new Map<Role, number>();
@@ -113,6 +115,12 @@ describe('every route against every role', () => {
     { method: 'get', route: '/api/scans/:id/refine/estimate', url: () => `/api/scans/${plateauScanId}/refine/estimate?boundary=output&output=ns&value=0.965`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
     { method: 'get', route: '/api/scans/:id/refinement/points', url: () => `/api/scans/${plateauScanId}/refinement/points`, expect: { ...plateauOnly, admin: 409, lead: 409, member: 409, viewer: 409 } },
     { method: 'get', route: '/api/scans/:id/lineage', url: () => `/api/scans/${plateauScanId}/lineage`, expect: plateauOnly },
+    // Recomputing the scan's one OK point needs the member role; no worker runs here, so the checks stay queued.
+    { method: 'post', route: '/api/scans/:id/reproductions', url: () => `/api/scans/${plateauScanId}/reproductions`, expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
+    { method: 'get', route: '/api/scans/:id/reproductions', url: () => `/api/scans/${plateauScanId}/reproductions`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/reproductions/:reproductionId', url: () => `/api/scans/${plateauScanId}/reproductions/${plateauReproductionId}`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/citation', url: () => `/api/scans/${plateauScanId}/citation?likelihood=planck18-bk18`, expect: plateauOnly },
+    { method: 'get', route: '/api/scans/:id/provenance', url: () => `/api/scans/${plateauScanId}/provenance`, expect: plateauOnly },
     { method: 'get', route: '/api/scans/evidence', url: () => `/api/scans/evidence?ids=${plateauScanId}`, expect: plateauOnly },
     { method: 'post', route: '/api/scans', url: () => '/api/scans', expect: { anonymous: 401, admin: 201, lead: 201, member: 201, viewer: 403, outsider: 404 } },
     // Sent without the file: the role is checked first (viewer 403 as for any submission); the others learn the file is missing.
@@ -216,6 +224,7 @@ describe('every route against every role', () => {
       scanId: scan.id, pointIndex: 0, inputs: { f: 5, nStar: 50 }, status: 'ok', failureReason: null, ns: 0.96, r: 0.1,
       alphaS: null, As: null, amplitudeScale: null, nTotal: null, nStar: 50, phiStar: null, phiEnd: null, energyScaleGeV: null, computedAt: new Date(),
     });
+    plateauReproductionId = (await t.db.getRepository(ScanReproduction).save({ scanId: scan.id, status: 'queued', sampleSize: 1, pointIndices: [0] })).id;
     for (const role of ROLES) {
       const own = await t.db.getRepository(Scan).save({
         groupId: plateauId, ownerId: owner.id, name: `access-table queued (${role})`, method: 'slowroll', status: 'queued',

@@ -40,7 +40,8 @@ function decoded(answer: RawAnswer): Buffer {
 
 /** The CSV as rows of fields (the exported fields hold no commas or quotes). */
 function csvRows(text: string): string[][] {
-  return text.trimEnd().split('\n').map((line) => line.split(','));
+  // The `#` lines above the header say what computed the scan (pandas: comment='#').
+  return text.trimEnd().split('\n').filter((line) => !line.startsWith('#')).map((line) => line.split(','));
 }
 
 describe('exports: compression and the Arrow format', () => {

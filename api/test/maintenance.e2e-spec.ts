@@ -256,6 +256,8 @@ describe('storage, pruning, archives and retention', () => {
     expect(record).toMatchObject({ id, name: 'archived, 25 points', groupId: plateauId, ownerId: memberId, status: 'completed', tags: [tag], storedPoints: 25 });
     expect(record.spec).toEqual(storedScan.spec);
     expect(record.finishedAt).toBe(storedScan.finishedAt!.toISOString());
+    // Stored without provenance (as scans before it was recorded): the archive says so, inventing nothing.
+    expect(record.provenance).toEqual({ scanId: id, recorded: null, runsRecorded: false, workers: [], runs: [] });
 
     const rows: Record<string, string>[] = parse(files.get('points.csv')!, { columns: true });
     expect(rows).toHaveLength(storedPoints.length);

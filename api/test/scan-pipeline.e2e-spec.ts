@@ -88,7 +88,7 @@ describe('a scan through queue and workers', () => {
     expect(byInput.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual([8, 7, 5, 4, 2, 1]);
     expect(byInput.body.total).toBe(6);
     const csvFiltered = await agent.get(`/api/scans/${id}/points?format=csv&input.f_max=5&sort=r`);
-    const filteredRows = csvFiltered.text.trim().split('\n').slice(1).map((l) => l.split(','));
+    const filteredRows = csvFiltered.text.trim().split('\n').filter((l) => !l.startsWith('#')).slice(1).map((l) => l.split(','));
     expect(filteredRows.map((cols) => Number(cols[1]))).toEqual([5, 5, 5]);
     expect(filteredRows.map((cols) => Number(cols[6]))).toEqual(rows.slice(0, 3).map((r) => r.r!).sort((a, b) => a - b));
     const unknownAxis = await agent.get(`/api/scans/${id}/points?sort=input.lambda`);
@@ -99,7 +99,7 @@ describe('a scan through queue and workers', () => {
     const csv = await agent.get(`/api/scans/${id}/points?format=csv`);
     expect(csv.status).toBe(200);
     expect(csv.headers['content-type']).toMatch(/text\/csv/);
-    const lines = csv.text.trim().split('\n');
+    const lines = csv.text.trim().split('\n').filter((l) => !l.startsWith('#'));
     expect(lines[0]).toBe('pointIndex,f,nStar,status,failureReason,ns,r,alphaS,As,amplitudeScale,nTotal,phiStar,phiEnd,energyScaleGeV');
     expect(lines).toHaveLength(10);
     const first = lines[1].split(',');

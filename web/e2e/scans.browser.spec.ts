@@ -120,7 +120,8 @@ describe('a research group in the browser', () => {
     const download = page.waitForEvent('download');
     await page.getByRole('link', { name: 'CSV', exact: true }).click();
     const csvPath = await (await download).path();
-    const lines = readFileSync(csvPath, 'utf8').trim().split('\n');
+    // Lines starting with # say what computed the scan (pandas: comment='#').
+    const lines = readFileSync(csvPath, 'utf8').trim().split('\n').filter((line) => !line.startsWith('#'));
     expect(lines[0].split(',')).toEqual(expect.arrayContaining(['pointIndex', 'alpha', 'nStar', 'status', 'ns', 'r']));
     const rows = lines.slice(1).map((line) => line.split(','));
     expect(rows).toHaveLength(POINTS);
@@ -133,6 +134,18 @@ describe('a research group in the browser', () => {
       expect(ns).toBeLessThan(0.975);
     }
     expect(rows.map((row) => Number(row[0])).sort((a, b) => a - b)).toEqual([...Array(POINTS).keys()]);
+
+    // How it was computed: the build and the workers, a reproducibility check on today's engine, the BibTeX.
+    await page.getByRole('tab', { name: 'How this was computed' }).click();
+    const computed = page.getByRole('region', { name: 'How this was computed' });
+    await computed.getByRole('table', { name: 'Workers' }).waitFor();
+    await computed.getByRole('button', { name: 'Check reproducibility' }).click();
+    await computed.getByText(`All ${POINTS} recomputed points are identical to the stored ones, bit for bit.`).waitFor({ timeout: 60_000 });
+    expect(await computed.getByLabel('BibTeX', { exact: true }).textContent()).toContain('@software{sixtyfold');
+    await settled(page);
+    await shot(page, 'scan-computed');
+    await page.getByRole('tab', { name: /Points/ }).click();
+    await table.waitFor();
 
     await table.getByRole('link', { name: 'Open point 4' }).click();
     await heading(page, 'Point 4').waitFor();

@@ -6,3 +6,5 @@ export * from './entities';
 export { buildDataSourceOptions } from './typeorm-options';
 export { readDatabaseConfig, type DatabaseConfig } from '../config/database.config';
 export * from './scan-lifecycle';
+// What the worker records with each chunk it computes: its engine version, commit and Node (the same factory as the API's).
+export { buildConfig, readBuildConfig } from '../config/build.config';

@@ -17,6 +17,7 @@ import type { MaintenanceConfig } from '../config/maintenance.config';
 import { openQueryStream, type ExportSource } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { Scan } from '../scans/entities/scan.entity';
+import { readScanProvenance } from '../scans/scan-provenance';
 import { ScanArchive } from './entities/scan-archive.entity';
 import { MaintenanceAccessService } from './maintenance-access.service';
 
@@ -27,8 +28,8 @@ export const ARCHIVE_POINT_COLUMNS = [
 ] as const;
 
 /**
- * Writes one .tar.gz per scan before it is deleted: `scan.json` (the scan's record and its stored
- * specification) and `points.csv` (every stored point). The points are streamed from MariaDB to a
+ * Writes one .tar.gz per scan before it is deleted: `scan.json` (the scan's record, its stored
+ * specification and its provenance) and `points.csv` (every stored point). The points are streamed from MariaDB to a
  * temporary file first, because a tar header needs the entry's size before its bytes.
  */
 @Injectable()
@@ -55,12 +56,15 @@ export class ScanArchivesService {
     const partial = `${target}.part`;
     try {
       const points = await this.writePointsCsv(scan.id, csvFile);
+      const provenance = await readScanProvenance(manager, scan);
       const record = {
         id: scan.id, name: scan.name, groupId: scan.groupId, ownerId: scan.ownerId, modelId: scan.modelId, family: scan.family,
         method: scan.method, status: scan.status, tags: (scan.tags ?? []).map((t) => t.tag).sort(), note: scan.note,
         totalPoints: scan.totalPoints, donePoints: scan.donePoints, failedPoints: scan.failedPoints, storedPoints: points,
         createdAt: scan.createdAt.toISOString(), startedAt: scan.startedAt?.toISOString() ?? null,
         finishedAt: scan.finishedAt?.toISOString() ?? null, archivedAt: new Date().toISOString(), spec: scan.spec,
+        // What computed it (`GET /api/scans/:id/provenance`): the submission record and every chunk run.
+        provenance,
       };
       const tar = pack();
       const hash = createHash('sha256');

@@ -2,7 +2,7 @@ import { BullModule } from '@nestjs/bull';
 import { type DynamicModule, Module } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import type { AdvancedSettings } from 'bull';
-import { SCAN_QUEUE } from '@sixtyfold/shared';
+import { REPRODUCTION_QUEUE, SCAN_QUEUE } from '@sixtyfold/shared';
 import type { RedisConfig } from '../config/redis.config';
 import { redisOptions } from '../redis/redis-client';
 import { REDIS_CLIENT } from '../redis/redis.module';
@@ -31,7 +31,11 @@ export class ScanQueueModule {
           inject: [ConfigService, REDIS_CLIENT],
           useFactory: (config: ConfigService) => ({ redis: redisOptions(config.getOrThrow<RedisConfig>('redis')) }),
         }),
-        BullModule.registerQueue({ name: SCAN_QUEUE, ...(options.settings ? { settings: options.settings } : {}) }),
+        BullModule.registerQueue(
+          { name: SCAN_QUEUE, ...(options.settings ? { settings: options.settings } : {}) },
+          // Reproducibility checks: their own queue, with the same settings (see reproduction-queue.ts).
+          { name: REPRODUCTION_QUEUE, ...(options.settings ? { settings: options.settings } : {}) },
+        ),
       ],
       exports: [BullModule],
     };

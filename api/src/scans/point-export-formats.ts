@@ -2,6 +2,15 @@ import { Field, Float64, Int32, makeData, RecordBatch, RecordBatchStreamWriter, 
 import { Transform, type Duplex } from 'node:stream';
 import { POINT_OUTPUTS, type PointExportFormat, type PointJudge, type PointOutput, type ScanPointDto } from '@sixtyfold/shared';
 
+/**
+ * What an export says of itself besides its points: text lines for the CSV's `#` comment header
+ * (pandas: `read_csv(path, comment='#')`) and key/value pairs for the Arrow schema's metadata.
+ */
+export interface ExportAbout {
+  lines: string[];
+  metadata: Record<string, string>;
+}
+
 /** One exported point as the driver hands it over (`rowsAsArray`): the sort key, then the columns of `exportSelect`. */
 type ExportRow = [sortKey: unknown, pointIndex: number, inputs: string | Record<string, number>, status: string, failureReason: string | null, ...outputs: (number | null)[]];
 
@@ -76,7 +85,8 @@ function textStage(head: string, line: (row: ExportRow, first: boolean) => strin
 /** A CSV field: text is quoted only when it holds a comma, quote or line break. */
 function csvText(value: string | null): string {
   if (value === null) return '';
-  return /[",\r\n]/.test(value) ? `"${value.replaceAll('"', '""')}"` : value;
+  // '#' too: the file is read with `comment='#'`, which would cut an unquoted field there.
+  return /[",#\r\n]/.test(value) ? `"${value.replaceAll('"', '""')}"` : value;
 }
 
 /** A CSV number: JavaScript's shortest round-trip form, empty for none. */
@@ -84,11 +94,12 @@ function csvNumber(value: number | null | undefined): string {
   return value === null || value === undefined ? '' : String(value);
 }
 
-function csvStage(columns: ExportColumns): Transform {
+function csvStage(columns: ExportColumns, about: ExportAbout): Transform {
   const outputsAt = columns.outputs.map((o) => OUTPUT_AT[o]);
   const { axes } = columns;
+  const comments = about.lines.map((line) => `# ${line.replace(/[\r\n]+/g, ' ')}\n`).join('');
   return textStage(
-    `${columns.names.join(',')}\n`,
+    `${comments}${columns.names.join(',')}\n`,
     (row) => {
       const inputs = inputsOf(row);
       let line = String(row[1]);
@@ -124,7 +135,7 @@ function jsonStage(columns: ExportColumns): Transform {
  * Float64 axes and outputs, null where a point has none, Utf8 status and reason). An export with no row
  * still sends one empty batch, so that the schema is written and readers see the columns.
  */
-function arrowBatchStage(columns: ExportColumns): Transform {
+function arrowBatchStage(columns: ExportColumns, about: ExportAbout): Transform {
   const schema = new Schema([
     new Field('pointIndex', new Int32(), false),
     ...columns.axes.map((a) => new Field(a, new Float64(), false)),
@@ -132,7 +143,7 @@ function arrowBatchStage(columns: ExportColumns): Transform {
     new Field('failureReason', new Utf8(), true),
     ...columns.outputs.map((o) => new Field(o, new Float64(), true)),
     ...(columns.judgedBy ? [new Field('deltaChi2', new Float64(), true), new Field('confidence', new Float64(), true)] : []),
-  ]);
+  ], new Map(Object.entries(about.metadata)));
   const outputsAt = columns.outputs.map((o) => OUTPUT_AT[o]);
   let rows: ExportRow[] = [];
   let sent = 0;
@@ -171,8 +182,8 @@ function judgedColumns(columns: ExportColumns, rows: ExportRow[]) {
 }
 
 /** The transforms between the query's row arrays and the response, per format. */
-export function exportStages(format: PointExportFormat, columns: ExportColumns): Duplex[] {
-  if (format === 'csv') return [csvStage(columns)];
+export function exportStages(format: PointExportFormat, columns: ExportColumns, about: ExportAbout): Duplex[] {
+  if (format === 'csv') return [csvStage(columns, about)];
   if (format === 'json') return [jsonStage(columns)];
-  return [arrowBatchStage(columns), RecordBatchStreamWriter.throughNode()];
+  return [arrowBatchStage(columns, about), RecordBatchStreamWriter.throughNode()];
 }

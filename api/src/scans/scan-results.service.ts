@@ -4,7 +4,7 @@ import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
   inputSortedOrder, planeSample, ENGINE_PIVOT_PER_MPC, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
-  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage, type ScanPointsQuery,
+  type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage, type ScanPointsQuery, type ScanProvenanceAnswer,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
 import { ExportsService } from '../exports/exports.service';
@@ -15,7 +15,8 @@ import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
 import { planSlice, readSlices, type SliceColumns } from './grid-slice';
-import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages } from './point-export-formats';
+import { EXPORT_CONTENT_TYPES, ExportColumns, exportSelect, exportStages, type ExportAbout } from './point-export-formats';
+import { provenanceLines, readScanProvenance } from './scan-provenance';
 
 /** API output name → scan_points column. */
 const COLUMN: Record<PointOutput | 'pointIndex', string> = {
@@ -242,6 +243,11 @@ export class ScanResultsService {
     return [sql, [...parameters, scan.id]];
   }
 
+  /** What computed the scan: its submission record and the workers that stored its chunks. */
+  async provenance(user: SessionUser, id: number): Promise<ScanProvenanceAnswer> {
+    return readScanProvenance(this.db.manager, await this.readable(user, id));
+  }
+
   /** One point by index; 404 says whether the index is outside the grid or not computed yet. */
   async point(user: SessionUser, id: number, pointIndex: number): Promise<ScanPointDto> {
     const scan = await this.readable(user, id);
@@ -263,15 +269,24 @@ export class ScanResultsService {
     const likelihood = q.likelihood && (await this.likelihoods.resolve(user, q.likelihood));
     const columns = new ExportColumns(variedInputs(scan.spec), likelihood?.judge);
     const [sql, parameters] = this.filtered(scan, q, exportSelect(COLUMN), likelihood?.set).getQueryAndParameters();
+    const provenance = await readScanProvenance(this.db.manager, scan);
+    const judgedBy = likelihood ? likelihood.description.ref : undefined;
+    const about: ExportAbout = {
+      lines: [`sixtyfold scan ${scan.id}: ${scan.name}`, ...provenanceLines(provenance), ...(judgedBy ? [`judged by: ${judgedBy}`] : [])],
+      metadata: { scanId: String(scan.id), provenance: JSON.stringify(provenance), ...(judgedBy && { judgedBy }) },
+    };
     return this.exports.send(user, res, {
       headers: {
+        // Every format: the submission record here (the JSON array itself is unchanged), the full record at the link.
+        'X-Sixtyfold-Provenance': JSON.stringify(provenance.recorded),
+        Link: `</api/scans/${scan.id}/provenance>; rel="describedby"`,
         'Content-Type': EXPORT_CONTENT_TYPES[format],
         // A judged export names its likelihood, version included, in its file name and a header.
         'Content-Disposition': `attachment; filename="scan-${id}-points${likelihood ? `-judged-${likelihood.description.ref.replace(/[^a-z0-9.-]+/gi, '-')}` : ''}.${format}"`,
         ...(likelihood && { 'X-Sixtyfold-Judged-By': likelihood.description.ref }),
       },
       open: () => openQueryStream(this.db, sql, parameters, { rowsAsArray: true }),
-      stages: exportStages(format, columns),
+      stages: exportStages(format, columns, about),
     });
   }
 

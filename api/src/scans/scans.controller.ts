@@ -7,7 +7,7 @@ import {
   createScanSchema, pageOf, POINTS_CSV_MAX_BYTES, scanUploadFieldsSchema, type ScanUploadFields, scanDetailSchema, scanGridQueryFieldsSchema, scanGridQuerySchema, scanGridSliceSchema, scanListQuerySchema, scanPlaneQuerySchema,
   scanPlaneSchema, scanPointPageSchema, scanPointSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, scanSummarySchema, type CreateScan, type Page, type ScanDetail,
   type ScanGridQuery, type ScanGridSlice, type ScanListQuery, type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage,
-  type ScanPointsQuery, type ScanSummary,
+  type ScanPointsQuery, type ScanSummary, scanProvenanceAnswerSchema, type ScanProvenanceAnswer,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -91,6 +91,14 @@ export class ScansController {
     return this.scans.get(user, id);
   }
 
+  @Get(':id/provenance')
+  @ApiOperation({ summary: 'What computed a scan: the submitting build, the integrator settings, the spec hash and the worker of every chunk' })
+  @ApiZodResponse(200, scanProvenanceAnswerSchema, '`recorded` null and `runsRecorded` false for a scan stored before provenance was recorded')
+  @ApiErrorResponses(400, 401, 404)
+  provenance(@CurrentUser() user: SessionUser, @Param('id', ParseIntPipe) id: number): Promise<ScanProvenanceAnswer> {
+    return this.results.provenance(user, id);
+  }
+
   /** A page of points as JSON, or with `format=csv|json|arrow` every matching point, streamed as a download. */
   @Get(':id/points')
   @ApiOperation({
@@ -102,7 +110,9 @@ export class ScansController {
   @ApiProduces('application/json', 'text/csv', 'application/vnd.apache.arrow.stream')
   @ApiResponse({
     status: 200,
-    description: 'A page of points; with `format`, a CSV (one row per point), a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows)',
+    description: 'A page of points; with `format`, a CSV (`#` lines saying what computed the scan, then one row per point: pandas reads it with `comment=\'#\'`), '
+      + 'a JSON array of every matching point, or an Apache Arrow IPC stream (the columns of the CSV, in record batches of 65,536 rows; the provenance in the schema metadata). '
+      + 'Every download carries `X-Sixtyfold-Provenance` (the submission record) and a `Link` to `/api/scans/:id/provenance`.',
     content: {
       'application/json': { schema: openApiSchemaOf(scanPointPageSchema, 'output') },
       'text/csv': { schema: { type: 'string' } },

@@ -4,7 +4,7 @@ import { InjectDataSource, InjectRepository } from '@nestjs/typeorm';
 import { In, type DataSource, type Repository } from 'typeorm';
 import {
   createScanSchema, groupRoleAtLeast, pointCount, pointLimitProblem, pointsCsvReader, type CreateScan, type Page, type ScanDetail, type ScanListQuery, type ScanRefinement,
-  type ScanSummary,
+  type BuildInfo, type ScanSummary,
 } from '@sixtyfold/shared';
 import { z } from 'zod';
 import { AuditService } from '../audit/audit.service';
@@ -21,6 +21,7 @@ import { Scan } from './entities/scan.entity';
 import { ScanTag } from './entities/scan-tag.entity';
 import { ScanQueueService } from './scan-queue.service';
 import { chunkOfPointSql } from './chunk-of-point';
+import { submissionProvenance } from './scan-provenance';
 import { completeSpec, familyModel, scaleParameterOf } from './scan-submission';
 
 @Injectable()
@@ -75,6 +76,7 @@ export class ScansService {
         name: spec.name,
         method: spec.method,
         spec: stored,
+        provenance: submissionProvenance(this.config.getOrThrow<BuildInfo>('build'), stored),
         note: spec.note,
         totalPoints: total,
         queuedAt: new Date(),

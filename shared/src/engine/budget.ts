@@ -28,6 +28,11 @@ export interface EngineOptions {
 
 export type BudgetName = keyof PointBudget;
 
+/** The budget a point runs with: the defaults, with what the caller (the worker's config) sets on top. */
+export function pointBudgetOf(options: EngineOptions): PointBudget {
+  return { ...DEFAULT_POINT_BUDGET, ...options.budget };
+}
+
 /** The spending of one point against its budget. One instance per evaluator, restarted per point. */
 export class BudgetMeter {
   readonly limits: PointBudget;
@@ -37,7 +42,7 @@ export class BudgetMeter {
   spent = 0;
 
   constructor(options: EngineOptions = {}) {
-    this.limits = { ...DEFAULT_POINT_BUDGET, ...options.budget };
+    this.limits = pointBudgetOf(options);
     this.now = options.now;
   }
 

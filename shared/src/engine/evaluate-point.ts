@@ -1,5 +1,5 @@
 import { BudgetMeter, type EngineOptions } from './budget.js';
-import { BackgroundSolver, DEFAULT_BACKGROUND_OPTIONS, type BackgroundOptions, type BackgroundSolution } from './background/background.js';
+import { BackgroundSolver, backgroundOptionsFor, type BackgroundOptions, type BackgroundSolution } from './background/background.js';
 import { PIVOT_K_PER_MPC, REDUCED_PLANCK_MASS_GEV, TARGET_AS } from './constants.js';
 import { DEFAULT_MODE_OPTIONS, ModeSolver, type ModeOptions } from './observables/mode-equations.js';
 import { FEATURE_RESIDUAL } from './observables/spectrum-shape.js';
@@ -87,7 +87,7 @@ export class PointEvaluator {
   evaluate(spec: PointSpec): PointOutcome {
     const invalid = validateSpec(spec);
     if (invalid) return invalid;
-    const options = { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: spec.tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
+    const options = backgroundOptionsFor(spec.tolerance);
     this.budget.start();
     const bg = this.backgroundFor(spec.potential, spec.phiInit, options);
     if (bg.status !== 'ok') return bg;

@@ -6,3 +6,4 @@ export { RequestEvaluator, type EvaluateResponse } from './evaluate-request.js';
 export { POTENTIAL_FAMILIES, findFamily, type PotentialFamily } from './families/potential-families.js';
 export { nStarFromReheating, type Reheating } from './pivot/reheating.js';
 export * from './expression/index.js';
+export { resolvedEngineOptions, type ResolvedEngineOptions } from './resolved-options.js';

@@ -22,7 +22,7 @@ export const AUDIT_ACTIONS = [
   'membership.invite', 'membership.invite_revoke', 'membership.join', 'membership.remove', 'membership.role_change',
   'model.create', 'model.update', 'model.delete',
   'region.create', 'region.delete',
-  'scan.create', 'scan.cancel', 'scan.retry', 'scan.delete', 'scan.refine',
+  'scan.create', 'scan.cancel', 'scan.retry', 'scan.delete', 'scan.refine', 'scan.reproduce',
   'comment.delete',
   'token.create', 'token.revoke',
   'likelihood_set.create',

@@ -2,10 +2,12 @@ import { Injectable, Logger } from '@nestjs/common';
 import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { escape } from 'mysql2';
+import { hostname } from 'node:os';
 import type { DataSource, QueryRunner } from 'typeorm';
-import { axisColumnValues, Scan, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
-import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
+import { axisColumnValues, Scan, ScanChunkRun, ScanPoint, scanLifecycle } from '@sixtyfold/api/database';
+import { computeOrder, continuationOf, pointRequest, RequestEvaluator, scanPoints, variedInputs, type BuildInfo, type ComputeChunkJob, type StoredScanSpec } from '@sixtyfold/shared';
 import { LOCK_RENEWAL_SECONDS, type WorkerConfig } from '../config/worker.config';
+import { createPointEngine, storedOutputs } from './point-engine';
 
 /** How long a job waits for another job of the same chunk to finish storing it. */
 const CHUNK_LOCK_WAIT_SECONDS = 60;
@@ -45,14 +47,17 @@ export class ComputeChunkService {
   private readonly logger = new Logger('ComputeChunk');
   private readonly engine: RequestEvaluator;
   private readonly sliceMs: number;
+  /** Recorded with every chunk this process stores: the process, its build and its per-point wall-time limit. */
+  private readonly runner: Pick<ScanChunkRun, 'worker' | 'engineVersion' | 'commit' | 'node' | 'pointTimeLimitMs'>;
 
   private readonly pointColumns: { name: string; property: keyof PointRow; primary: boolean; json: boolean }[];
 
   constructor(@InjectDataSource() private readonly db: DataSource, config: ConfigService) {
     const worker = config.getOrThrow<WorkerConfig>('worker');
-    // The engine has no clock of its own; given this one, a point that runs past its wall-time limit ends as budget_exceeded.
-    this.engine = new RequestEvaluator({ now: () => performance.now(), budget: { wallTimeMs: worker.pointTimeLimitMs } });
+    this.engine = createPointEngine(worker);
     this.sliceMs = worker.sliceMs;
+    const build = config.getOrThrow<BuildInfo>('build');
+    this.runner = { worker: `${hostname()}:${process.pid}`, ...build, pointTimeLimitMs: worker.pointTimeLimitMs };
     this.pointColumns = db.getMetadata(ScanPoint).columns.map((c) => ({
       name: c.databaseName,
       property: c.propertyName as keyof PointRow,
@@ -119,7 +124,12 @@ export class ComputeChunkService {
       }
       if (batch.length > 0) await send();
       await Promise.all(inserts);
-      return (await this.count(tx, scan.id, change)) ? { end, ...computed } : false;
+      if (!(await this.count(tx, scan.id, change))) return false;
+      // The run is on record exactly when its points are: same transaction.
+      await tx.manager.getRepository(ScanChunkRun).insert({
+        ...this.runner, scanId: scan.id, chunk: job.chunk, start: job.start, end, startedAt: now, finishedAt: new Date(),
+      });
+      return { end, ...computed };
     });
     if (!stored) return skipped('cancelled');
     this.logger.debug(`scan ${scan.id} chunk ${job.chunk}: positions ${job.start}–${stored.end - 1} stored`);
@@ -137,16 +147,7 @@ export class ComputeChunkService {
       ...axisColumnValues(parameters, inputs),
       status: result.status,
       failureReason: ok ? null : result.message.slice(0, 500),
-      ns: result.ns,
-      r: result.r,
-      alphaS: result.alphaS,
-      As: result.As,
-      amplitudeScale: result.amplitudeScale,
-      nTotal: Number.isFinite(result.nTotal) ? result.nTotal : null,
-      nStar: result.nStar,
-      phiStar: result.phiStar,
-      phiEnd: result.phiEnd,
-      energyScaleGeV: result.energyScaleGeV,
+      ...storedOutputs(result),
       computedAt,
     };
   }

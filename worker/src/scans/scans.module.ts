@@ -4,6 +4,8 @@ import { readWorkerConfig } from '../config/worker.config';
 import { HeartbeatModule } from '../heartbeat/heartbeat.module';
 import { ComputeChunkService } from './compute-chunk.service';
 import { ScanChunkProcessor } from './scan-chunk.processor';
+import { ReproducePointsService } from './reproduce-points.service';
+import { ScanReproductionProcessor } from './scan-reproduction.processor';
 
 // Bull takes the queue's settings when the module is declared, so they are read from the environment here.
 const { lockDurationMs } = readWorkerConfig();
@@ -19,6 +21,6 @@ const { lockDurationMs } = readWorkerConfig();
     }),
     HeartbeatModule,
   ],
-  providers: [ComputeChunkService, ScanChunkProcessor],
+  providers: [ComputeChunkService, ScanChunkProcessor, ReproducePointsService, ScanReproductionProcessor],
 })
 export class ScansModule {}

@@ -11,6 +11,8 @@ import { AccountControls1796300000010 } from './1796300000010-AccountControls';
 import { LeanPointIndexes1796300000021 } from './1796300000021-LeanPointIndexes';
 import { LikelihoodSets1796300000030 } from './1796300000030-LikelihoodSets';
 import { PointAxisColumns1796300000020 } from './1796300000020-PointAxisColumns';
+import { ScanProvenance1796300000040 } from './1796300000040-ScanProvenance';
+import { ScanReproductions1796300000041 } from './1796300000041-ScanReproductions';
 import { ScanRefinement1796300000050 } from './1796300000050-ScanRefinement';
 
 // Migrations in the order they run; a new migration file is listed here too.
@@ -18,5 +20,6 @@ export const MIGRATIONS: (new () => MigrationInterface)[] = [
   InitialSchema1796163989801, ApiTokens1796182651904, ScanModelSetNull1796193248504, Uploads1796300000001,
   Maintenance1796300000002, Invitations1796300000003, CommentsAndNotifications1796300000004,
   AuditActionNames1796300000005, AccountControls1796300000010, PointAxisColumns1796300000020,
-  LeanPointIndexes1796300000021, LikelihoodSets1796300000030, ScanRefinement1796300000050,
+  LeanPointIndexes1796300000021, LikelihoodSets1796300000030, ScanProvenance1796300000040,
+  ScanReproductions1796300000041, ScanRefinement1796300000050,
 ];

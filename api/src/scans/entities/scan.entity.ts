@@ -1,7 +1,7 @@
 import {
   Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, OneToMany, PrimaryGeneratedColumn, UpdateDateColumn, type ValueTransformer,
 } from 'typeorm';
-import { SCAN_METHODS, SCAN_STATUSES, storedScanSpecSchema, type ScanMethod, type ScanStatus, type StoredScanSpec } from '@sixtyfold/shared';
+import { SCAN_METHODS, SCAN_STATUSES, scanProvenanceSchema, storedScanSpecSchema, type ScanMethod, type ScanProvenance, type ScanStatus, type StoredScanSpec } from '@sixtyfold/shared';
 import { Group } from '../../groups/entities/group.entity';
 import { PotentialModel } from '../../models/entities/potential-model.entity';
 import { User } from '../../users/entities/user.entity';
@@ -16,6 +16,12 @@ const STORED_SPEC: ValueTransformer = {
     if (!parsed.success) throw new Error(`scans.spec does not read as a stored scan spec: ${parsed.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
     return parsed.data;
   },
+};
+
+/** `scans.provenance` reads through its schema too; NULL (a scan stored before it was recorded) stays null. */
+const PROVENANCE: ValueTransformer = {
+  to: (value: ScanProvenance | null | undefined) => value,
+  from: (value: unknown) => (value === null || value === undefined ? null : scanProvenanceSchema.parse(typeof value === 'string' ? JSON.parse(value) : value)),
 };
 
 /**
@@ -58,6 +64,10 @@ export class Scan {
   /** The full specification as submitted, read back through the shared stored-spec schema. */
   @Column({ type: 'json', transformer: STORED_SPEC })
   spec: StoredScanSpec;
+
+  /** What the submission recorded of the build and the engine's settings; null for scans stored before it was recorded. */
+  @Column({ type: 'json', nullable: true, transformer: PROVENANCE })
+  provenance: ScanProvenance | null;
 
   @Column({ type: 'text' })
   note: string;

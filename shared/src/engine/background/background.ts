@@ -23,6 +23,11 @@ export const DEFAULT_BACKGROUND_OPTIONS: BackgroundOptions = {
   fieldLimit: 1e8,
 };
 
+/** The background options a point runs with: the defaults, with the spec's tolerance when it gives one. */
+export function backgroundOptionsFor(tolerance: number | undefined): BackgroundOptions {
+  return { ...DEFAULT_BACKGROUND_OPTIONS, tolerance: tolerance ?? DEFAULT_BACKGROUND_OPTIONS.tolerance };
+}
+
 /**
  * The accepted integration nodes: N, φ, π = dφ/dN and their N-derivatives, so that any
  * N inside can be interpolated (cubic Hermite) and any step re-taken exactly.

@@ -21,6 +21,9 @@ export interface ModeOptions {
 
 export const DEFAULT_MODE_OPTIONS: ModeOptions = { startDepth: 30, resonanceSafety: 4, adiabaticSafety: 1e5, endDepth: 1e-3, tolerance: 3e-8, stencil: 0.1 };
 
+/** Largest step in e-folds of the mode integrations (and of the background they re-integrate). */
+export const MODE_MAX_STEP = 0.25;
+
 export interface ExactObservables {
   ns: number;
   alphaS: number;
@@ -82,9 +85,9 @@ export class ModeSolver {
   private readonly bg = new Float64Array(2);
 
   constructor(private options: ModeOptions = DEFAULT_MODE_OPTIONS) {
-    this.scalar = new CashKarpStepper(6, (out, y, t) => this.rhs(out, y, t, false), { tolerance: options.tolerance, maxStep: 0.25 });
-    this.both = new CashKarpStepper(10, (out, y, t) => this.rhs(out, y, t, true), { tolerance: options.tolerance, maxStep: 0.25 });
-    this.backgroundOnly = new CashKarpStepper(2, (out, y) => this.backgroundRhs(out, y), { tolerance: options.tolerance, maxStep: 0.25 });
+    this.scalar = new CashKarpStepper(6, (out, y, t) => this.rhs(out, y, t, false), { tolerance: options.tolerance, maxStep: MODE_MAX_STEP });
+    this.both = new CashKarpStepper(10, (out, y, t) => this.rhs(out, y, t, true), { tolerance: options.tolerance, maxStep: MODE_MAX_STEP });
+    this.backgroundOnly = new CashKarpStepper(2, (out, y) => this.backgroundRhs(out, y), { tolerance: options.tolerance, maxStep: MODE_MAX_STEP });
   }
 
   /** Spacing in ln k of the stencil around k_*. */

@@ -92,6 +92,7 @@ function ScanResults({ scan, spec, user }: { scan: ScanDetail; spec: StoredScanS
       discussion={{ content: <Panel p={{ base: '4', md: '6' }}>{thread(null)}</Panel>, count: counts.data?.scan }}
       pointDiscussion={{ counts: counts.data?.points, render: thread }}
       useRegionOverlay={useRegionOverlay}
+      canCheckReproducibility={scanPermissions(scan, user).reproduce}
     />
   );
 }

@@ -9,8 +9,9 @@ import { ScanLinePlots } from './heatmaps/scan-line-plots';
 import type { UseRegionOverlay } from './plane/region-overlay';
 import { ScanPlaneView } from './plane/scan-plane-view';
 import { ScanPointsTable } from './points-table';
+import { ScanProvenancePanel } from './scan-provenance-panel';
 
-export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'constraints', 'discussion'] as const;
+export const SCAN_VIEWS = ['heatmaps', 'plane', 'points', 'constraints', 'discussion', 'computed'] as const;
 export type ScanView = (typeof SCAN_VIEWS)[number];
 
 /** The view in the address (`?view=`), heatmaps when there is none or it is unknown. */
@@ -30,9 +31,11 @@ interface ScanViewsProps {
   pointDiscussion?: PointDiscussion;
   /** The constraint regions drawn on the plane; composed in by the page. */
   useRegionOverlay: UseRegionOverlay;
+  /** May the user start a reproducibility check (the member role)? */
+  canCheckReproducibility?: boolean;
 }
 
-export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOverlay }: ScanViewsProps) {
+export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOverlay, canCheckReproducibility = false }: ScanViewsProps) {
   const [params, update] = useViewParams();
   const first: ScanView = spec.axes ? 'heatmaps' : 'plane';
   const asked = params.get('view') === null ? first : readScanView(params.get('view'));
@@ -63,6 +66,7 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
             ) : null}
           </Tabs.Trigger>
         )}
+        <Tabs.Trigger value="computed">How this was computed</Tabs.Trigger>
       </Tabs.List>
       {spec.axes && (
         <Tabs.Content value="heatmaps">
@@ -79,6 +83,9 @@ export function ScanViews({ scan, spec, discussion, pointDiscussion, useRegionOv
         <ScanConstraintsView scan={scan} spec={spec} />
       </Tabs.Content>
       {discussion && <Tabs.Content value="discussion">{discussion.content}</Tabs.Content>}
+      <Tabs.Content value="computed">
+        <ScanProvenancePanel scanId={scan.id} canCheckReproducibility={canCheckReproducibility} />
+      </Tabs.Content>
     </Tabs.Root>
   );
 }

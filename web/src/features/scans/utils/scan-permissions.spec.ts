@@ -17,8 +17,8 @@ describe('what a user may do with a scan', () => {
     expect(scanPermissions(scan('completed', 2, 0), owner)).toMatchObject({ retry: false });
   });
 
-  it('keeps other members to cloning', () => {
-    expect(scanPermissions(scan('queued', 2, 3), withRole('member', 9))).toMatchObject({ cancel: false, retry: false, remove: false, clone: true });
+  it('keeps other members to cloning and reproducibility checks', () => {
+    expect(scanPermissions(scan('queued', 2, 3), withRole('member', 9))).toMatchObject({ cancel: false, retry: false, remove: false, clone: true, reproduce: true });
   });
 
   it('lets leads do everything the state allows, and site admins act as leads', () => {
@@ -27,7 +27,7 @@ describe('what a user may do with a scan', () => {
   });
 
   it('gives viewers and strangers nothing to do', () => {
-    expect(scanPermissions(scan('running', 7), withRole('viewer', 7))).toMatchObject({ cancel: false, retry: false, remove: false, clone: false });
+    expect(scanPermissions(scan('running', 7), withRole('viewer', 7))).toMatchObject({ cancel: false, retry: false, remove: false, clone: false, reproduce: false });
     expect(scanPermissions(scan('running', 2), { ...memberUser, memberships: [] })).toMatchObject({ role: null, clone: false });
   });
 });

@@ -7,6 +7,8 @@ export interface ScanPermissions {
   retry: boolean;
   remove: boolean;
   clone: boolean;
+  /** Start a reproducibility check (it uses the group's workers). */
+  reproduce: boolean;
 }
 
 type ScanFacts = Pick<ScanDetail, 'groupId' | 'ownerId' | 'status' | 'failedPoints'>;
@@ -28,5 +30,6 @@ export function scanPermissions(scan: ScanFacts, user: CurrentUser | null | unde
     retry: ownerOrLead && !live && scan.failedPoints > 0,
     remove: lead,
     clone: lead || role === 'member',
+    reproduce: lead || role === 'member',
   };
 }
