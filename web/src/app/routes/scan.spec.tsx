@@ -171,6 +171,16 @@ describe('scan page', () => {
 });
 
 describe('scan heatmaps', () => {
+  it('leaves the boundary lines until a live scan has finished, so its refreshes stay light', async () => {
+    const { requests } = api(memberUser, scanDetail({ status: 'running', finishedAt: null }));
+    renderApp('/scans/42');
+    await screen.findByRole('img', { name: 'Heatmap of r over f and N_*' }, slow);
+    expect(screen.getByText(/^Once the scan has finished, lines show the 68.3 %/)).toBeInTheDocument();
+    expect(requests.some((r) => r.url.searchParams.get('output') === 'deltaChi2')).toBe(false);
+    const contours = (plotIn(screen.getByRole('img', { name: 'Heatmap of r over f and N_*' })).data as { type: string }[]).filter((t) => t.type === 'contour');
+    expect(contours).toHaveLength(0);
+  });
+
   it('draws n_s and r side by side and the chosen output, with failures grouped by reason', async () => {
     const { requests } = api(memberUser);
     const { user, router } = renderApp('/scans/42');

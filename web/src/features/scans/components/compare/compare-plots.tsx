@@ -94,12 +94,13 @@ function ComparedScans({ scans, useRegionOverlay }: { scans: ScanDetail[]; useRe
   // Each scan's Δχ² under each chosen set, at the same cells, for the boundary lines.
   const boundarySets = bounded && canMap ? likelihoods.sets : [];
   const boundaryQueries = useQueries({
+    // A live scan's lines wait for it to finish, as on the scan page.
     queries: scans.flatMap((scan, s) =>
       boundarySets.map((set) =>
         getScanGridQueryOptions(
           scan.id,
-          { x: x!, y: y!, output: 'deltaChi2', likelihood: likelihoodRef(set), at: middleOfOtherAxes(specs[s], x!, y!), maxCells: panelCells({ wide: false, live: isLive(scan) }) },
-          { live: isLive(scan) },
+          { x: x!, y: y!, output: 'deltaChi2', likelihood: likelihoodRef(set), at: middleOfOtherAxes(specs[s], x!, y!), maxCells: panelCells({ wide: false, live: false }) },
+          { enabled: !isLive(scan) },
         ),
       ),
     ),

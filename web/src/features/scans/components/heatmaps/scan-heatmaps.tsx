@@ -116,14 +116,17 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const ns = useScanGridSlice(scan.id, { ...base, output: 'ns' } satisfies ScanGridParams, { live });
   const r = useScanGridSlice(scan.id, { ...base, output: 'r' }, { live });
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
-  const boundary = useScanGridSlice(scan.id, { ...base, output: 'deltaChi2', likelihood: set && likelihoodRef(set) }, { live, enabled: bounded && !!set });
+  // The boundary lines wait for the finished scan: while it fills in, a fourth slice at every refresh
+  // would redraw all three panels each time and keep the page busy (measured by `npm run bench -- million`).
+  const drawBoundaries = bounded && !!set && !live;
+  const boundary = useScanGridSlice(scan.id, { ...base, output: 'deltaChi2', likelihood: set && likelihoodRef(set) }, { enabled: drawBoundaries });
 
   // n_s and r are combined on hover only while both describe the same cells.
   const nsSlice = ns.data;
   const rSlice = r.data;
   const matched = nsSlice && rSlice && sameCells(nsSlice, rSlice) ? { ns: nsSlice, r: rSlice } : null;
   const hoverSlices = useMemo(() => (nsSlice && rSlice ? [nsSlice, rSlice] : []), [nsSlice, rSlice]);
-  const boundarySlice = bounded && set ? boundary.data : undefined;
+  const boundarySlice = drawBoundaries ? boundary.data : undefined;
   // One array per Δχ² answer, so a panel's figure is rebuilt only when the lines change.
   const boundaries = useMemo<BoundarySlice[]>(() => (boundarySlice ? [{ slice: boundarySlice, color: SET_COLORS[0] }] : []), [boundarySlice]);
 
@@ -220,7 +223,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
         {bounded && set && (
           <>
             <Text>
-              Lines: the {DRAWN_LEVELS.map((d) => `${d.percent} (${d.dash === 'solid' ? 'solid' : 'dashed'}, Δχ² = ${d.deltaChi2.toFixed(2)})`).join(' and ')} boundaries
+              {live ? 'Once the scan has finished, lines show ' : 'Lines: '}the{' '}
+              {DRAWN_LEVELS.map((d) => `${d.percent} (${d.dash === 'solid' ? 'solid' : 'dashed'}, Δχ² = ${d.deltaChi2.toFixed(2)})`).join(' and ')} boundaries
               of {set.name} for two parameters (n_s, r), drawn through each cell’s Δχ² (a block’s mean).
               {boundary.isError ? ` Could not load them: ${boundary.error.message}` : ''}
             </Text>
