@@ -118,8 +118,10 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
   const extra = useScanGridSlice(scan.id, { ...base, output: third }, { live });
   // The boundary lines wait for the finished scan: while it fills in, a fourth slice at every refresh
   // would redraw all three panels each time and keep the page busy (measured by `npm run bench -- million`).
+  // They are asked once the three maps are in, so the maps get the server first.
   const drawBoundaries = bounded && !!set && !live;
-  const boundary = useScanGridSlice(scan.id, { ...base, output: 'deltaChi2', likelihood: set && likelihoodRef(set) }, { enabled: drawBoundaries });
+  const mapsIn = !!ns.data && !!r.data && !!extra.data;
+  const boundary = useScanGridSlice(scan.id, { ...base, output: 'deltaChi2', likelihood: set && likelihoodRef(set) }, { enabled: drawBoundaries && mapsIn });
 
   // n_s and r are combined on hover only while both describe the same cells.
   const nsSlice = ns.data;
