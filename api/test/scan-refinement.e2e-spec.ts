@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from '@jest/globals';
 import type { ChildProcess } from 'node:child_process';
 import {
-  boundaryDistance, crossingsAlong, deltaChi2, findLikelihoodSet, nodeKey, RefinementLattice, RefinementMesh, ScanGrid, type ScanAxis,
+  boundaryDistance, boundaryLevel, crossingsAlong, deltaChi2, findLikelihoodSet, levelLine, nodeKey, RefinementLattice, RefinementMesh, ScanGrid, type ScanAxis,
   type StoredScanSpec,
 } from '@sixtyfold/shared';
 import { Group } from '../src/groups/entities/group.entity';
@@ -163,17 +163,41 @@ describe('refining a grid scan where a boundary crosses it', () => {
     const slice = await member.get(`/api/scans/${parentId}/grid?x=alpha&y=nStar&output=r`);
     expect(slice.status).toBe(200);
     expect(slice.body.refined.scale).toEqual([4, 4]);
-    const cells = slice.body.refined.cells as { level: number; x: [number, number]; y: [number, number]; mean: number | null }[];
+    type Cell = { level: number; x: [number, number]; y: [number, number]; corners: [number | null, number | null, number | null, number | null]; failure: string | null };
+    const cells = slice.body.refined.cells as Cell[];
     expect(cells.length).toBeGreaterThan(0);
     for (const c of cells) expect(c.x[1] - c.x[0]).toBe(c.level === 1 ? 2 : 1);
-    expect(cells.every((c) => c.mean !== null && c.mean > 0)).toBe(true);
+    expect(cells.every((c) => c.corners.every((v) => v !== null && v > 0) && c.failure === null)).toBe(true);
+    // Swapped axes: the same cells transposed, their corners too (x fastest: the middle two change places).
     const swapped = await member.get(`/api/scans/${parentId}/grid?x=nStar&y=alpha&output=r`);
-    expect(swapped.body.refined.cells.map((c: { x: number[]; y: number[] }) => [c.y, c.x])).toEqual(cells.map((c) => [c.x, c.y]));
+    expect(swapped.body.refined.cells.map((c: Cell) => [c.y, c.x, [c.corners[0], c.corners[2], c.corners[1], c.corners[3]]])).toEqual(cells.map((c) => [c.x, c.y, c.corners]));
+    // The status panel gains the same cells, with no values and no failures (every T-model point computes).
+    const status = await member.get(`/api/scans/${parentId}/grid?x=alpha&y=nStar&output=status`);
+    expect(status.body.refined.cells.map((c: Cell) => [c.x, c.y])).toEqual(cells.map((c) => [c.x, c.y]));
+    expect(status.body.refined.cells.every((c: Cell) => c.corners.every((v) => v === null) && c.failure === null)).toBe(true);
     // The uniform fine grid has no refinement: its answers carry none.
     await completed(member, uniformRes.body.id);
     const uniform = await member.get(`/api/scans/${uniformRes.body.id}/constraints?likelihood=planck18-bk18`);
     expect(uniform.body.refinement).toBeUndefined();
     expect((await member.get(`/api/scans/${uniformRes.body.id}/grid?x=alpha&y=nStar&output=r`)).body.refined).toBeUndefined();
+
+    // The 95 % line the parent's heatmap draws (its Δχ² slice's refined cells, contoured cell by cell) runs
+    // through the uniform 33 × 17 grid's own cells where it is refined: the same pieces, in finest-lattice coordinates.
+    const threshold = boundaryLevel(BOUNDARY);
+    const drawn = await member.get(`/api/scans/${parentId}/grid?x=alpha&y=nStar&output=deltaChi2&likelihood=planck18-bk18`);
+    const finest = (drawn.body.refined.cells as Cell[]).filter((c) => c.level === 2);
+    const refinedLine = levelLine(finest.map((c) => ({ x: c.x, y: c.y, corners: c.corners })), threshold);
+    const uniformSlice = (await member.get(`/api/scans/${uniformRes.body.id}/grid?x=alpha&y=nStar&output=deltaChi2&likelihood=planck18-bk18`)).body;
+    const at = (i: number, j: number) => uniformSlice.mean[j * 33 + i] as number | null;
+    const uniformQuads = [];
+    for (let i = 0; i < 32; i++) for (let j = 0; j < 16; j++) uniformQuads.push({ x: [i, i + 1] as const, y: [j, j + 1] as const, corners: [at(i, j), at(i + 1, j), at(i, j + 1), at(i + 1, j + 1)] as const });
+    const uniformLine = levelLine(uniformQuads, threshold);
+    expect(refinedLine.length).toBeGreaterThan(0);
+    expect(refinedLine).toHaveLength(uniformLine.length);
+    for (const segment of refinedLine) {
+      const twin = uniformLine.find((u) => u.every((v, k) => Math.abs(v - segment[k]) < 1e-3));
+      expect(twin).toBeDefined();
+    }
 
     // The boundary: along every fine row of N_*, the crossings of the merged mesh against the uniform 33 × 17 grid's.
     const levels = await t.db.getRepository(Scan).find({ where: { refinesScanId: parentId }, order: { refinementLevel: 'ASC' } });

@@ -46,6 +46,7 @@ export * from './refinement/refinement-lattice.js';
 export * from './refinement/refinement-mesh.js';
 export * from './refinement/refinement-boundary.js';
 export * from './refinement/mesh-posterior.js';
+export * from './refinement/quad-contour.js';
 export * from './version.js';
 export * from './provenance/canonical-json.js';
 export * from './schemas/scan-provenance.schema.js';

@@ -4,7 +4,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
   boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, POINT_OUTPUTS, refinedCells, RefinementLattice,
-  RefinementMesh, roundForSlice, ScanGrid, type ScanGridSlice,
+  RefinementMesh, roundForSlice, ScanGrid, type RefinedCell, type ScanGridQuery, type ScanGridSlice,
   type CreateScan, type NextLevel, type PageQuery, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
   type ScanLineage, type ScanRefinement,
 } from '@sixtyfold/shared';
@@ -181,20 +181,35 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
     column = 'NULL',
     origins?: Map<string, { scanId: number; pointIndex: number }>,
   ): Promise<Map<string, number | null>> {
-    const { lattice } = chain.mesh;
     const out = new Map<string, number | null>();
+    await this.forEachNode<Parameters<PointValue>[0]>(chain, `ns, r, alpha_s, ${column} AS value`, "status = 'ok'", (key, row, scanId) => {
+      out.set(key, value(row));
+      origins?.set(key, { scanId, pointIndex: Number(row.point_index) });
+    });
+    return out;
+  }
+
+  /** Each failed node's reason by finest key. */
+  private async nodeFailures(chain: Pick<MergedChain, 'parent' | 'levels' | 'mesh'>): Promise<Map<string, string>> {
+    const out = new Map<string, string>();
+    await this.forEachNode<{ status: string }>(chain, 'status', "status <> 'ok'", (key, row) => out.set(key, row.status));
+    return out;
+  }
+
+  /** Visits the chain's stored points matching `where` (parent's, then each level's) at their keys on the finest lattice. */
+  private async forEachNode<Row>(
+    chain: Pick<MergedChain, 'parent' | 'levels' | 'mesh'>,
+    select: string,
+    where: string,
+    visit: (key: string, row: Row & { point_index: number }, scanId: number) => void,
+  ): Promise<void> {
+    const { lattice } = chain.mesh;
     const grid = new ScanGrid(chain.parent.spec.axes!);
     const read = async (scanId: number, place: (index: number) => number[] | undefined) => {
-      const rows: { point_index: number; ns: number | null; r: number | null; alpha_s: number | null; value: number | null }[] = await this.db.query(
-        `SELECT point_index, ns, r, alpha_s, ${column} AS value FROM scan_points WHERE scan_id = ? AND status = 'ok'`,
-        [scanId],
-      );
+      const rows: (Row & { point_index: number })[] = await this.db.query(`SELECT point_index, ${select} FROM scan_points WHERE scan_id = ? AND ${where}`, [scanId]);
       for (const row of rows) {
         const finest = place(Number(row.point_index));
-        if (!finest) continue;
-        const key = nodeKey(finest);
-        out.set(key, value(row));
-        origins?.set(key, { scanId, pointIndex: Number(row.point_index) });
+        if (finest) visit(nodeKey(finest), row, scanId);
       }
     };
     await read(chain.parent.id, (i) => (i < grid.size ? lattice.toFinest(0, grid.indices(i)) : undefined));
@@ -202,24 +217,25 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
       const block = level.spec.refinement!;
       await read(level.id, (i) => (block.lattice[i] ? lattice.toFinest(block.level, block.lattice[i]) : undefined));
     }
-    return out;
   }
 
   /**
    * A heatmap slice of a refined two-axis grid (or of a level) gains its chain's refined cells in
-   * the window, with the output's corner means; any other slice comes back as it was.
+   * the window, with the output's values at their corners and their failures (Δχ² under the asked
+   * set for a Δχ² slice, nothing but failures for the status panel); any other slice comes back as it was.
    */
-  async withRefinedCells(user: SessionUser, id: number, slice: ScanGridSlice): Promise<ScanGridSlice> {
-    if (!(POINT_OUTPUTS as readonly string[]).includes(slice.output)) return slice;
+  async withRefinedCells(user: SessionUser, id: number, q: ScanGridQuery, slice: ScanGridSlice): Promise<ScanGridSlice> {
     const chain = await this.mergedChain(await this.results.readable(user, id));
     const axes = chain?.parent.spec.axes;
     if (!chain || axes?.length !== 2) return slice;
     const swapped = slice.x.parameter === axes[1].parameter;
-    const output = slice.output as PointOutput;
-    const values = await this.nodeValues(chain, (row) => (row.value === null ? null : Number(row.value)), OUTPUT_COLUMN[output]);
+    const { value, column } = await this.sliceValue(q);
+    const values = await this.nodeValues(chain, value, column);
     const [first, second] = swapped ? [slice.y, slice.x] : [slice.x, slice.y];
-    const cells = refinedCells(chain.mesh, values, { xFrom: first.from, xTo: first.to, yFrom: second.from, yTo: second.to });
+    const cells = refinedCells(chain.mesh, values, { xFrom: first.from, xTo: first.to, yFrom: second.from, yTo: second.to }, await this.nodeFailures(chain));
     const scale = chain.mesh.lattice.axes.map((axis) => axis.factor ** chain.mesh.lattice.depth);
+    // Corners run x lower/upper fastest: with the axes swapped, the second and third change places.
+    const inSliceOrder = ([c00, c10, c01, c11]: RefinedCell['corners']): RefinedCell['corners'] => (swapped ? [c00, c01, c10, c11] : [c00, c10, c01, c11]);
     return {
       ...slice,
       refined: {
@@ -228,10 +244,19 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
           level: cell.level,
           x: swapped ? cell.y : cell.x,
           y: swapped ? cell.x : cell.y,
-          mean: cell.mean === null ? null : roundForSlice(cell.mean),
+          corners: inSliceOrder(cell.corners).map((v) => (v === null ? null : roundForSlice(v))) as RefinedCell['corners'],
+          failure: cell.failure,
         })),
       },
     };
+  }
+
+  /** What a slice's refined cells carry at their corners: the output, Δχ² under the asked set, or (status) nothing. */
+  private async sliceValue(q: ScanGridQuery): Promise<{ value: PointValue; column: string }> {
+    if (q.output === 'status') return { value: () => null, column: 'NULL' };
+    if (q.output !== 'deltaChi2') return this.pointValue({ output: q.output });
+    if (q.likelihood?.kind !== 'set') throw new Error('a Δχ² slice names a likelihood set (the query schema asks for one)');
+    return this.pointValue({ set: q.likelihood });
   }
 
   /**
@@ -262,10 +287,16 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
 
   /** The boundary's point value: Δχ² under the pinned set, or the stored output. */
   private async boundaryValue(boundary: RefinementBoundary): Promise<{ value: PointValue; column: string }> {
-    if (boundary.kind === 'output') return { value: (row) => (row.value === null ? null : Number(row.value)), column: OUTPUT_COLUMN[boundary.output] };
+    if (boundary.kind === 'output') return this.pointValue({ output: boundary.output });
     const ref = likelihoodRefSchema.parse(boundary.likelihood);
     if (ref.kind !== 'set') throw new Error('a refinement boundary names a likelihood set');
-    const judge = judgeBySet(await this.sets.find(ref.key, ref.version));
+    return this.pointValue({ set: ref });
+  }
+
+  /** How a node's value is read from its row: a stored output's column, or Δχ² under a likelihood set. */
+  private async pointValue(of: { output: PointOutput } | { set: { key: string; version: number | undefined } }): Promise<{ value: PointValue; column: string }> {
+    if ('output' in of) return { value: (row) => (row.value === null ? null : Number(row.value)), column: OUTPUT_COLUMN[of.output] };
+    const judge = judgeBySet(await this.sets.find(of.set.key, of.set.version));
     return { value: (row) => judge({ ns: row.ns, r: row.r, alphaS: row.alpha_s })?.deltaChi2 ?? null, column: 'NULL' };
   }
 

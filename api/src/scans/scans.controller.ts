@@ -157,7 +157,7 @@ export class ScansController {
     @Param('id', ParseIntPipe) id: number,
     @Query(new ZodValidationPipe(scanGridQuerySchema)) query: ScanGridQuery,
   ): Promise<ScanGridSlice> {
-    return this.refinements.withRefinedCells(user, id, await this.results.grid(user, id, query));
+    return this.refinements.withRefinedCells(user, id, query, await this.results.grid(user, id, query));
   }
 
   @Get(':id/constraints')

@@ -201,23 +201,29 @@ export function crossingsAlong(mesh: RefinementMesh, field: BoundaryField, y: nu
   return out.sort((a, b) => a - b);
 }
 
-/** A refined leaf of a 2-D mesh for a heatmap: its window on the finest lattice (inclusive corners), level, and the mean of its corners' known values. */
+/**
+ * A refined leaf of a 2-D mesh for a heatmap: its window on the finest lattice (inclusive corners),
+ * level, its corners' values (QuadCorners order: bit 0 is axis 0 upper, bit 1 axis 1 upper; null
+ * where unknown) and the failure code of a failed corner, if any.
+ */
 export interface RefinedCell {
   level: number;
   x: [number, number];
   y: [number, number];
-  mean: number | null;
+  corners: [number | null, number | null, number | null, number | null];
+  failure: string | null;
 }
 
 /**
  * The leaves of refinement levels (level ≥ 1) of a 2-D mesh whose window meets the parent-index
- * window [xFrom, xTo] × [yFrom, yTo], with the mean of their corners' values: drawn over the
+ * window [xFrom, xTo] × [yFrom, yTo], with their corners' values and failures: drawn over the
  * parent's cells, finer over coarser.
  */
 export function refinedCells(
   mesh: RefinementMesh,
   values: ReadonlyMap<string, number | null>,
   window: { xFrom: number; xTo: number; yFrom: number; yTo: number },
+  failures: ReadonlyMap<string, string> = new Map(),
 ): RefinedCell[] {
   const { lattice } = mesh;
   if (lattice.dims !== 2) throw new RangeError('refined cells are drawn for a mesh of two axes');
@@ -228,8 +234,18 @@ export function refinedCells(
     const [x0, y0] = lattice.toFinest(leaf.level, leaf.corner);
     const [x1, y1] = lattice.toFinest(leaf.level, leaf.corner.map((c) => c + 1));
     if (x1 < window.xFrom * scale[0] || x0 > window.xTo * scale[0] || y1 < window.yFrom * scale[1] || y0 > window.yTo * scale[1]) continue;
-    const known = mesh.cornerKeys(leaf).map((key) => values.get(key)).filter((v): v is number => v != null && Number.isFinite(v));
-    out.push({ level: leaf.level, x: [x0, x1], y: [y0, y1], mean: known.length ? known.reduce((s, v) => s + v, 0) / known.length : null });
+    const keys = mesh.cornerKeys(leaf);
+    const corners = keys.map((key) => {
+      const v = values.get(key);
+      return v != null && Number.isFinite(v) ? v : null;
+    }) as RefinedCell['corners'];
+    out.push({ level: leaf.level, x: [x0, x1], y: [y0, y1], corners, failure: keys.map((key) => failures.get(key)).find((code) => code !== undefined) ?? null });
   }
   return out.sort((a, b) => a.level - b.level);
+}
+
+/** The mean of a refined cell's known corner values; null when none is known. */
+export function cornerMean(corners: readonly (number | null)[]): number | null {
+  const known = corners.filter((v): v is number => v !== null);
+  return known.length ? known.reduce((s, v) => s + v, 0) / known.length : null;
 }

@@ -5,7 +5,7 @@ import { posteriorAxes } from '../statistics/grid-axes.js';
 import { gridPosterior } from '../statistics/grid-posterior.js';
 import { boundaryDistance, boundaryLevel } from './refinement-boundary.js';
 import { nodeKey, RefinementLattice } from './refinement-lattice.js';
-import { isCrossed, refinedCells, refineInProcess, RefinementMesh } from './refinement-mesh.js';
+import { cornerMean, isCrossed, refinedCells, refineInProcess, RefinementMesh } from './refinement-mesh.js';
 import { meshEvidence, meshPosterior } from './mesh-posterior.js';
 
 const range = (parameter: string, min: number, max: number, count: number, spacing: 'linear' | 'log' = 'linear'): ScanAxis => ({ kind: 'range', parameter, min, max, count, spacing });
@@ -53,7 +53,14 @@ describe('crossed cells', () => {
     const cells = refinedCells(merged, values, { xFrom: 0, xTo: 10, yFrom: 0, yTo: 5 });
     expect(cells).toHaveLength(30);
     expect(cells[0]).toMatchObject({ level: 1, x: [6, 7], y: [0, 1] });
-    expect(cells[0].mean).toBeCloseTo(0.325, 12);
+    expect(cells[0].corners.map((v) => v!.toFixed(12))).toEqual(['0.300000000000', '0.350000000000', '0.300000000000', '0.350000000000']);
+    expect(cornerMean(cells[0].corners)).toBeCloseTo(0.325, 12);
+    expect(cells[0].failure).toBeNull();
+    // A failed corner is unknown and names its reason; the mean is of the known corners.
+    values.delete('7,1');
+    const withFailure = refinedCells(merged, values, { xFrom: 0, xTo: 10, yFrom: 0, yTo: 5 }, new Map([['7,1', 'no_end']]));
+    expect(withFailure[0]).toMatchObject({ corners: [expect.any(Number), expect.any(Number), expect.any(Number), null], failure: 'no_end' });
+    expect(cornerMean(withFailure[0].corners)).toBeCloseTo((0.3 + 0.35 + 0.3) / 3, 12);
     expect(refinedCells(merged, values, { xFrom: 0, xTo: 2, yFrom: 0, yTo: 5 })).toEqual([]);
   });
 

@@ -245,13 +245,22 @@ export const scanGridSliceSchema = z.object({
   /**
    * A refined two-axis grid (see DEVELOPERS.md, "Refinement"): the leaves of its chain's levels in the
    * window, to draw over the parent's cells, finer over coarser. A cell's `x`, `y` are its corners on
-   * the finest lattice, where parent index i is i · scale; `mean` is its corners' mean of the output.
-   * Absent without refinement, for `status` and `deltaChi2`.
+   * the finest lattice, where parent index i is i · scale; `corners` are the output's values at its
+   * four corners (x lower/upper fastest, then y; null where failed), and `failure` names a failed
+   * corner's reason. Absent without refinement; Δχ² slices carry it too, for boundary lines.
    */
   refined: z
     .object({
       scale: z.tuple([z.number().int(), z.number().int()]),
-      cells: z.array(z.object({ level: z.number().int(), x: z.tuple([z.number().int(), z.number().int()]), y: z.tuple([z.number().int(), z.number().int()]), mean: z.number().nullable() })),
+      cells: z.array(
+        z.object({
+          level: z.number().int(),
+          x: z.tuple([z.number().int(), z.number().int()]),
+          y: z.tuple([z.number().int(), z.number().int()]),
+          corners: z.tuple([z.number().nullable(), z.number().nullable(), z.number().nullable(), z.number().nullable()]),
+          failure: z.string().nullable(),
+        }),
+      ),
     })
     .optional(),
 });
