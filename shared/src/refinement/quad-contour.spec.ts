@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import type { ScanAxis } from '../schemas/scan.schema.js';
 import { RefinementLattice } from './refinement-lattice.js';
 import { RefinementMesh } from './refinement-mesh.js';
-import { levelLine, quadContour, type ContourQuad } from './quad-contour.js';
+import { joinSegments, levelLine, quadContour, type ContourQuad } from './quad-contour.js';
 
 const range = (parameter: string, min: number, max: number, count: number): ScanAxis => ({ kind: 'range', parameter, min, max, count, spacing: 'linear' });
 
@@ -89,5 +89,17 @@ describe('quadContour', () => {
     // The line runs only through leaves of the finest level, so it is as good as the uniform 32 × 32 grid's.
     expect(refined).toBeLessThan(coarse / 8);
     expect(refined).toBeCloseTo(fine, 10);
+  });
+
+  it('joins the pieces of a closed line into one closed polyline, and of two lines into two', () => {
+    const circle = levelLine(gridQuads(16, (x, y) => x * x + y * y), 1);
+    const [line, ...others] = joinSegments(circle);
+    expect(others).toEqual([]);
+    expect(line).toHaveLength(circle.length + 1);
+    expect(line[0][0]).toBeCloseTo(line.at(-1)![0], 9);
+    expect(line[0][1]).toBeCloseTo(line.at(-1)![1], 9);
+    // Two separate circles (a field with two minima) stay two lines.
+    const twoMinima = levelLine(gridQuads(32, (x, y) => Math.min((x - 1) ** 2 + y * y, (x + 1) ** 2 + y * y)), 0.25);
+    expect(joinSegments(twoMinima)).toHaveLength(2);
   });
 });

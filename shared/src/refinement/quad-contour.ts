@@ -65,3 +65,35 @@ export function levelLine(quads: Iterable<ContourQuad>, level: number): ContourS
   for (const quad of quads) out.push(...quadContour(quad, level));
   return out;
 }
+
+/**
+ * Pieces joined into polylines where they meet end to end (ends equal to `tolerance`, as neighbouring
+ * cells compute the same edge point from opposite ends), so a dashed line keeps its pattern. A closed
+ * line comes back with its first point repeated at the end.
+ */
+export function joinSegments(segments: readonly ContourSegment[], tolerance = 1e-9): [number, number][][] {
+  const key = (x: number, y: number) => `${Math.round(x / tolerance)},${Math.round(y / tolerance)}`;
+  const atEnd = new Map<string, number[]>();
+  segments.forEach(([x0, y0, x1, y1], k) => {
+    for (const end of [key(x0, y0), key(x1, y1)]) atEnd.set(end, [...(atEnd.get(end) ?? []), k]);
+  });
+  const used = new Uint8Array(segments.length);
+  // From a point, the unused piece that starts or ends there, walked away from it.
+  const step = (x: number, y: number): [number, number] | null => {
+    const k = atEnd.get(key(x, y))?.find((candidate) => !used[candidate]);
+    if (k === undefined) return null;
+    used[k] = 1;
+    const [x0, y0, x1, y1] = segments[k];
+    return key(x0, y0) === key(x, y) ? [x1, y1] : [x0, y0];
+  };
+  const lines: [number, number][][] = [];
+  segments.forEach(([x0, y0, x1, y1], k) => {
+    if (used[k]) return;
+    used[k] = 1;
+    const line: [number, number][] = [[x0, y0], [x1, y1]];
+    for (let next = step(x1, y1); next; next = step(...next)) line.push(next);
+    for (let previous = step(x0, y0); previous; previous = step(...previous)) line.unshift(previous);
+    lines.push(line);
+  });
+  return lines;
+}

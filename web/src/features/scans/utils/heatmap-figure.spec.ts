@@ -1,7 +1,7 @@
 import type { ScanGridSlice } from '@sixtyfold/shared';
 import { slice } from '@/testing/scan-fixtures';
-import { failureSlot } from './failure-colors';
-import { colorscaleAt, heatmapFigure, refinedCellShapes, tickIndices } from './heatmap-figure';
+import { failureColor, failureSlot } from './failure-colors';
+import { colorscaleAt, heatmapFigure, refinedBoundaryLines, refinedCellShapes, tickIndices } from './heatmap-figure';
 import { SET_COLORS } from './plane-figure';
 
 type Trace = { type: string; name: string; contours?: { start: number; end: number; coloring: string }; line?: { color: string; dash: string }; z?: (number | null)[][]; text?: string[][]; zmin?: number; zmax?: number; x?: (number | null)[] };
@@ -97,17 +97,48 @@ describe('heatmap traces', () => {
 });
 
 describe('refined cells over a heatmap', () => {
-  it('draws each finer cell from node to node in cell coordinates, coloured on the panel\'s scale; none without refinement', () => {
+  type Cell = NonNullable<ScanGridSlice['refined']>['cells'][number];
+  const cell = (x: [number, number], y: [number, number], corners: Cell['corners'], failure: string | null = null): Cell => ({ level: 2, x, y, corners, failure });
+
+  it('draws each finer cell from node to node in cell coordinates, coloured on the panel\'s scale by its corners\' mean; none without refinement', () => {
     // Parent index i is finest coordinate 4i: the cell from finest (2, 0) to (3, 1) spans x 0.5–0.75, y 0–0.25.
-    const refined = { ...ns, refined: { scale: [4, 4] as [number, number], cells: [{ level: 2, x: [2, 3] as [number, number], y: [0, 1] as [number, number], mean: 0.965 }, { level: 2, x: [3, 4] as [number, number], y: [0, 1] as [number, number], mean: null }] } };
+    const refined = { ...ns, refined: { scale: [4, 4] as [number, number], cells: [cell([2, 3], [0, 1], [0.964, 0.966, 0.965, 0.965]), cell([3, 4], [0, 1], [null, null, null, null], 'no_end')] } };
     const shapes = refinedCellShapes(refined)!;
     expect(shapes).toHaveLength(1);
     expect(shapes[0]).toMatchObject({ type: 'rect', x0: 0.5, x1: 0.75, y0: 0, y1: 0.25, fillcolor: colorscaleAt(1) });
     expect(heatmapFigure({ slice: refined }).layout.shapes).toHaveLength(1);
     expect(refinedCellShapes(ns)).toEqual([]);
-    // On a shared range, the colour follows it: 0.963 is the middle of 0.961–0.965.
-    expect(refinedCellShapes({ ...refined, refined: { ...refined.refined, cells: [{ ...refined.refined.cells[0], mean: 0.963 }] } }, [0.961, 0.965])![0]).toMatchObject({ fillcolor: colorscaleAt(0.5) });
+    // On a shared range, the colour follows it: 0.963 (the known corners' mean) is the middle of 0.961–0.965.
+    expect(refinedCellShapes({ ...refined, refined: { ...refined.refined, cells: [cell([2, 3], [0, 1], [0.962, null, 0.964, 0.963])] } }, [0.961, 0.965])![0]).toMatchObject({ fillcolor: colorscaleAt(0.5) });
     expect(colorscaleAt(0)).toBe('rgb(17, 23, 53)');
     expect(colorscaleAt(0.5)).toBe('rgb(140, 90, 168)');
+  });
+
+  it('draws the status panel\'s finer cells as computed, or in the colour of a failed corner\'s reason', () => {
+    const statusSlice = { ...slice('status', [], status), refined: { scale: [2, 2] as [number, number], cells: [cell([0, 1], [0, 1], [null, null, null, null]), cell([1, 2], [0, 1], [null, null, null, null], 'no_end')] } };
+    const shapes = refinedCellShapes(statusSlice)!;
+    expect(shapes.map((shape) => shape.fillcolor)).toEqual(['#d9dcea', failureColor('no_end')]);
+    expect(shapes[1]).toMatchObject({ x0: 0.5, x1: 1, y0: 0, y1: 0.5 });
+  });
+
+  it('draws a set\'s boundary through the finer cells where they are, and between the panel\'s cells elsewhere', () => {
+    // Δχ² = 3x on a 3 × 3 grid: the 68 % line (2.30) between the centres x = 0 and 1 lies at x = 0.767.
+    // The finer cells of the first column's lower cell carry Δχ² = 3x + 0.3: there it lies at x = 0.667.
+    const rows = [0, 1, 2].map(() => [0, 3, 6]);
+    const ok = rows.map((row) => row.map(() => 'ok'));
+    const fine = (x0: number, y0: number) => cell([x0, x0 + 1], [y0, y0 + 1], [1.5 * x0 + 0.3, 1.5 * (x0 + 1) + 0.3, 1.5 * x0 + 0.3, 1.5 * (x0 + 1) + 0.3]);
+    const chi2 = { ...slice('deltaChi2', rows, ok, { x: { parameter: 'nStar', values: [50, 55, 60] }, y: { parameter: 'f', values: [5, 7, 10] } }), refined: { scale: [2, 2] as [number, number], cells: [fine(0, 0), fine(1, 0), fine(0, 1), fine(1, 1)] } };
+    const lines = refinedBoundaryLines(chi2, 2.3);
+    const points = lines.x.map((x, k) => [x, lines.y[k]]).filter(([x]) => x !== null) as [number, number][];
+    expect(points.length).toBeGreaterThan(2);
+    for (const [x, y] of points) expect(x).toBeCloseTo(y < 1 ? 2 / 3 : y > 1 ? 2.3 / 3 : x, 12);
+    expect(points.some(([, y]) => y < 1)).toBe(true);
+    expect(points.some(([, y]) => y > 1)).toBe(true);
+    // Drawn as lines, not as Plotly's contour of the coarse cells; the 95 % level (6.18) is never reached.
+    const traces = heatmapFigure({ slice: ns, boundaries: [{ slice: chi2, color: SET_COLORS[0] }] }).data as Trace[];
+    expect(traces.some((t) => t.type === 'contour')).toBe(false);
+    const drawn = traces.filter((t) => t.type === 'scatter' && t.name.startsWith('Δχ²'));
+    expect(drawn.map((t) => [t.name, t.line!.dash])).toEqual([['Δχ² = 2.30', 'solid'], ['Δχ² = 2.30', 'solid'], ['Δχ² = 6.18', 'dash'], ['Δχ² = 6.18', 'dash']]);
+    expect(drawn[2].x).toEqual([]);
   });
 });

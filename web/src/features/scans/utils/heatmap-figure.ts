@@ -1,8 +1,8 @@
-import type { ScanGridSlice } from '@sixtyfold/shared';
+import { cornerMean, joinSegments, levelLine, type ContourQuad, type ScanGridSlice } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
-import { failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
+import { failureColor, failureColorscale, failureSlot, FAILURE_SLOTS } from './failure-colors';
 import { cellRows, cellSpan, cellStates, cellStatistic, isLogSpaced } from './grid-cells';
 import { DRAWN_LEVELS } from './plane-figure';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
@@ -105,24 +105,65 @@ function hoverTexts(slice: ScanGridSlice, states: (string | null)[], others: Sca
 /**
  * The 68 and 95 % boundaries (Δχ² = 2.30 and 6.18, two parameters) of each set as contour lines of
  * its Δχ² over the cells, interpolated between cell centres by Plotly (a block's Δχ² is its mean).
- * Solid at 68 %, dashed at 95 %; a white line under each keeps it visible on every colour.
+ * Over a refined grid the lines are drawn cell by cell through the finest cells instead
+ * (`refinedBoundaryLines`). Solid at 68 %, dashed at 95 %; a white line under each keeps it visible on every colour.
  */
 export function boundaryTraces(boundaries: BoundarySlice[], xs: number[], ys: number[]): Data[] {
   // A contour needs cells in two directions.
   if (xs.length < 2 || ys.length < 2) return [];
   return boundaries.flatMap(({ slice, color }) => {
     const z = cellRows(slice, slice.mean ?? []);
-    return DRAWN_LEVELS.flatMap((drawn) =>
-      [{ color: '#ffffff', width: 3.5 }, { color: `rgb(${color.rgb})`, width: 1.8 }].map(
-        (line) =>
-          ({
-            type: 'contour', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, x: xs, y: ys, z,
-            contours: { coloring: 'none', start: drawn.deltaChi2, end: drawn.deltaChi2, size: 1, showlabels: false },
-            line: { ...line, dash: drawn.dash, smoothing: 0.6 }, showscale: false, hoverinfo: 'skip', connectgaps: false,
-          }) as Data,
-      ),
-    );
+    return DRAWN_LEVELS.flatMap((drawn) => {
+      const lines = slice.refined?.cells.length ? refinedBoundaryLines(slice, drawn.deltaChi2) : null;
+      return [{ color: '#ffffff', width: 3.5 }, { color: `rgb(${color.rgb})`, width: 1.8 }].map((line) =>
+        lines
+          ? ({ type: 'scatter', mode: 'lines', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, ...lines, line: { ...line, dash: drawn.dash }, hoverinfo: 'skip', showlegend: false } as Data)
+          : ({
+              type: 'contour', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, x: xs, y: ys, z,
+              contours: { coloring: 'none', start: drawn.deltaChi2, end: drawn.deltaChi2, size: 1, showlabels: false },
+              line: { ...line, dash: drawn.dash, smoothing: 0.6 }, showscale: false, hoverinfo: 'skip', connectgaps: false,
+            } as Data),
+      );
+    });
   });
+}
+
+/** Where a refined cell lies in the panel's cell coordinates: parent index i is finest coordinate i · scale. */
+function refinedBox(slice: ScanGridSlice, cell: NonNullable<ScanGridSlice['refined']>['cells'][number]) {
+  const { scale } = slice.refined!;
+  const at = (axis: ScanGridSlice['x'], s: number, fine: number) => (fine / s - axis.from) / axis.block;
+  return { x: [at(slice.x, scale[0], cell.x[0]), at(slice.x, scale[0], cell.x[1])] as const, y: [at(slice.y, scale[1], cell.y[0]), at(slice.y, scale[1], cell.y[1])] as const };
+}
+
+/**
+ * The level line `Δχ² = level` of a refined grid, in cell coordinates, as one scatter's points with
+ * a break between lines: marching squares (`levelLine`) through the refined cells, and through the
+ * panel's own cells between neighbouring centres where no refined cell covers them.
+ */
+export function refinedBoundaryLines(slice: ScanGridSlice, level: number): { x: (number | null)[]; y: (number | null)[] } {
+  const nx = slice.x.values.length;
+  const ny = slice.y.values.length;
+  const mean = slice.mean ?? [];
+  const quads: ContourQuad[] = [];
+  const covered = new Set<number>();
+  for (const cell of slice.refined?.cells ?? []) {
+    const box = refinedBox(slice, cell);
+    quads.push({ ...box, corners: cell.corners });
+    for (let ix = Math.floor(box.x[0]); ix < Math.ceil(box.x[1]); ix++) for (let iy = Math.floor(box.y[0]); iy < Math.ceil(box.y[1]); iy++) covered.add(iy * nx + ix);
+  }
+  for (let iy = 0; iy + 1 < ny; iy++) {
+    for (let ix = 0; ix + 1 < nx; ix++) {
+      if (covered.has(iy * nx + ix)) continue;
+      const c = iy * nx + ix;
+      quads.push({ x: [ix, ix + 1], y: [iy, iy + 1], corners: [mean[c] ?? null, mean[c + 1] ?? null, mean[c + nx] ?? null, mean[c + nx + 1] ?? null] });
+    }
+  }
+  const out = { x: [] as (number | null)[], y: [] as (number | null)[] };
+  for (const line of joinSegments(levelLine(quads, level))) {
+    if (out.x.length) (out.x.push(null), out.y.push(null));
+    for (const [x, y] of line) (out.x.push(x), out.y.push(y));
+  }
+  return out;
 }
 
 // Past this many refined cells the shapes would slow every redraw; the coarse cells stay.
@@ -144,28 +185,26 @@ export function colorscaleAt(t: number): string {
 
 /**
  * A refined grid's finer cells (`slice.refined`) as filled rectangles over the panel, finer over
- * coarser, coloured on the panel's scale. A refined cell spans from node to node: parent index i
- * is finest coordinate i · scale, and cell coordinates are (index − from) / block.
+ * coarser: coloured on the panel's scale by their corners' mean, or on the status panel by whether
+ * a corner failed (and why). A refined cell spans from node to node (`refinedBox`).
  */
 export function refinedCellShapes(slice: ScanGridSlice, zRange?: [number, number]): Partial<Layout>['shapes'] {
   const refined = slice.refined;
-  if (!refined || refined.cells.length === 0 || refined.cells.length > MAX_REFINED_SHAPES || slice.output === 'status') return [];
+  if (!refined || refined.cells.length === 0 || refined.cells.length > MAX_REFINED_SHAPES) return [];
+  const rect = (cell: (typeof refined.cells)[number], fillcolor: string) => {
+    const { x, y } = refinedBox(slice, cell);
+    return { type: 'rect' as const, layer: 'above' as const, xref: 'x' as const, yref: 'y' as const, line: { width: 0 }, x0: x[0], x1: x[1], y0: y[0], y1: y[1], fillcolor };
+  };
+  if (slice.output === 'status') return refined.cells.map((cell) => rect(cell, cell.failure === null ? OK_CELL_COLOR : failureColor(cell.failure)));
   const log = LOG_OUTPUTS.has(slice.output);
   const scale = (v: number | null) => (v === null ? null : log ? (v > 0 ? Math.log10(v) : null) : v);
   // The panel's own range: the shared one, or (as Plotly takes it) its cells' least and greatest.
   const known = (zRange ?? slice.mean ?? []).map(scale).filter((v): v is number => v !== null);
   if (known.length === 0) return [];
   const [lo, hi] = [Math.min(...known), Math.max(...known)];
-  const at = (axis: ScanGridSlice['x'], s: number, fine: number) => (fine / s - axis.from) / axis.block;
   return refined.cells.flatMap((cell) => {
-    const z = scale(cell.mean);
-    if (z === null) return [];
-    return [{
-      type: 'rect' as const, layer: 'above' as const, xref: 'x' as const, yref: 'y' as const, line: { width: 0 },
-      x0: at(slice.x, refined.scale[0], cell.x[0]), x1: at(slice.x, refined.scale[0], cell.x[1]),
-      y0: at(slice.y, refined.scale[1], cell.y[0]), y1: at(slice.y, refined.scale[1], cell.y[1]),
-      fillcolor: colorscaleAt(hi > lo ? (z - lo) / (hi - lo) : 0.5),
-    }];
+    const z = scale(cornerMean(cell.corners));
+    return z === null ? [] : [rect(cell, colorscaleAt(hi > lo ? (z - lo) / (hi - lo) : 0.5))];
   });
 }
 
