@@ -5,7 +5,8 @@
 // the heatmap slices of a stored 10^6-point scan (`heatmap`); and `million`: a 10^6-point scan
 // computed end to end and read back every way (slices, pages, plane, exports, the page in chromium);
 // `constraints`: exact-method scans of two families judged under every built-in likelihood set;
-// `refine`: adaptive refinement of the T-model's 95 % boundary against a uniform 256 × 256 grid, in-process and through the API.
+// `refine`: adaptive refinement of the T-model's 95 % boundary against a uniform 256 × 256 grid, in-process and through the API;
+// `reproduce`: a reproducibility check of 200 points of a stored exact-method scan.
 // Figures only. `npm run bench -- poll exports` runs only the parts named.
 import { spawn, spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
@@ -13,6 +14,7 @@ import path from 'node:path';
 import { benchExports, benchHeatmap, benchPoll } from './lib/load-bench.mjs';
 import { benchConstraints } from './lib/constraints-bench.mjs';
 import { benchRefine } from './lib/refine-bench.mjs';
+import { benchReproduce } from './lib/reproduce-bench.mjs';
 import { benchMillion } from './lib/million-bench.mjs';
 import { startAppProcesses, waitForApi } from './lib/app-processes.mjs';
 import { resolveProfile, ROOT } from './lib/environment.mjs';
@@ -20,7 +22,7 @@ import { ensureNodePackages, npmRun } from './lib/node-packages.mjs';
 import { fail, log } from './lib/output.mjs';
 import { ensureDebianPackages, profilePackages, startProfileServices } from './lib/services.mjs';
 
-const PARTS = ['engine', 'refine', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
+const PARTS = ['engine', 'refine', 'reproduce', 'pipeline', 'million', 'constraints', 'poll', 'exports', 'heatmap'];
 /** Parts that run in-process on the built shared package only, without the services. */
 const IN_PROCESS_PARTS = ['engine'];
 /** How often the API follows finished refinement levels (its reconcile interval) while benchmarking. */
@@ -155,6 +157,7 @@ try {
   }
   if (runs('constraints')) await benchConstraints(load);
   if (runs('refine')) await benchRefine(load, { reconcileSeconds: REFINE_FOLLOW_SECONDS });
+  if (runs('reproduce')) await benchReproduce(load);
   if (runs('poll')) await benchPoll(load);
   if (runs('exports')) await benchExports(load);
   if (runs('heatmap')) await benchHeatmap(load, { webUrl: `http://127.0.0.1:${profile.apiPort}` });

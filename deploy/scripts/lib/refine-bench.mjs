@@ -6,25 +6,8 @@
 // Figures only; the tests assert the behaviour.
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
+import { call, completed, sleep } from './api-calls.mjs';
 import { ROOT } from './environment.mjs';
-
-const sleep = (ms) => new Promise((r) => setTimeout(r, ms));
-
-async function call(load, route, init = {}) {
-  const res = await fetch(`${load.base}${route}`, { headers: load.headers, ...init });
-  const body = await res.json();
-  if (!res.ok) throw new Error(`${route} answered ${res.status}: ${JSON.stringify(body)}`);
-  return body;
-}
-
-async function completed(load, id, since) {
-  for (;;) {
-    const scan = await call(load, `/scans/${id}`);
-    if (scan.status === 'completed') return scan;
-    if (scan.status === 'failed' || scan.status === 'cancelled' || Date.now() - since > 1_800_000) throw new Error(`scan ${id} did not complete (${scan.status})`);
-    await sleep(500);
-  }
-}
 
 /** Every stored point of a scan, page by page. */
 async function allPoints(load, route) {
