@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, POINT_OUTPUTS, refinedCells, RefinementLattice,
+  boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, refinedCells, RefinementLattice,
   RefinementMesh, roundForSlice, ScanGrid, type RefinedCell, type ScanGridQuery, type ScanGridSlice,
   type CreateScan, type NextLevel, type PageQuery, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
   type ScanLineage, type ScanRefinement,

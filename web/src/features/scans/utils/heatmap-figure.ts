@@ -160,8 +160,12 @@ export function refinedBoundaryLines(slice: ScanGridSlice, level: number): { x: 
   }
   const out = { x: [] as (number | null)[], y: [] as (number | null)[] };
   for (const line of joinSegments(levelLine(quads, level))) {
-    if (out.x.length) (out.x.push(null), out.y.push(null));
-    for (const [x, y] of line) (out.x.push(x), out.y.push(y));
+    // A null between lines keeps Plotly from joining them.
+    const points = out.x.length ? [[null, null] as const, ...line] : line;
+    for (const [x, y] of points) {
+      out.x.push(x);
+      out.y.push(y);
+    }
   }
   return out;
 }
