@@ -45,11 +45,15 @@ describe('the OpenAPI document and its UI', () => {
     expect(points.parameters!.map((p) => p.name)).toEqual(expect.arrayContaining(['id', 'format', 'page', 'ns_min']));
     expect(Object.keys(points.responses['200'].content!).sort()).toEqual(['application/json', 'application/vnd.apache.arrow.stream', 'text/csv']);
     expect(points.parameters!.find((p) => p.name === 'format')?.schema).toMatchObject({ enum: ['csv', 'json', 'arrow'] });
+    // The merged table of a refined grid takes the same query, without the download.
+    const merged = doc.paths['/api/scans/{id}/refinement/points'].get.parameters!.map((p) => p.name);
+    expect(merged).toEqual(expect.arrayContaining(['id', 'page', 'sort', 'order', 'status', 'ns_min', 'deltaChi2_max', 'likelihood']));
+    expect(merged).not.toContain('format');
     expect(doc.paths['/api/scans/{id}'].get.responses['200'].content!['application/json'].schema).toEqual(answerSchema(scanDetailSchema));
   });
 
   it('describes each likelihood parameter with both forms: a set and uploaded regions', () => {
-    const routes: [string, string][] = [['/api/scans/{id}/points', 'likelihood'], ['/api/scans/{id}/grid', 'likelihood'], ['/api/scans/{id}/constraints', 'likelihood'], ['/api/scans/evidence', 'likelihoods']];
+    const routes: [string, string][] = [['/api/scans/{id}/points', 'likelihood'], ['/api/scans/{id}/refinement/points', 'likelihood'], ['/api/scans/{id}/grid', 'likelihood'], ['/api/scans/{id}/constraints', 'likelihood'], ['/api/scans/evidence', 'likelihoods']];
     for (const [route, name] of routes) {
       const parameter = doc.paths[route].get.parameters!.find((p) => p.name === name) as { description?: string } | undefined;
       expect({ route, description: parameter?.description }).toEqual({ route, description: expect.stringMatching(/key@version.*regions:<id>,<id>/s) });

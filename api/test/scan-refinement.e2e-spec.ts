@@ -27,6 +27,8 @@ describe('refining a grid scan where a boundary crosses it', () => {
   let workers: ChildProcess[] = [];
   let groupId: number;
   const made: number[] = [];
+  /** The refined chain the second test builds (parent, then its levels), read again by the merged-table tests. */
+  let refinedChain: { parentId: number; levelIds: number[] } | undefined;
 
   const gridBody = (name: string, axes: ScanAxis[]) => ({
     groupId, name, model: { kind: 'family', family: 'alpha-t' }, params: { n: 1 }, axes, pivot: { kind: 'fixed' }, method: 'slowroll',
@@ -130,6 +132,7 @@ describe('refining a grid scan where a boundary crosses it', () => {
     expect(lineage.levels.map((l: { level: number }) => l.level)).toEqual([1, 2]);
     const levelIds = lineage.levels.map((l: { scanId: number }) => l.scanId) as number[];
     made.push(levelIds[1]);
+    refinedChain = { parentId, levelIds };
     const levelTwo = await member.get(`/api/scans/${levelIds[1]}/lineage`);
     expect(levelTwo.body).toMatchObject({ parentScanId: parentId, level: 2 });
     // Followed once: several more passes of the follower create nothing more (depth reached).
@@ -229,4 +232,108 @@ describe('refining a grid scan where a boundary crosses it', () => {
     // Fewer points than the uniform fine grid.
     expect(45 + levels.reduce((n, s) => n + s.totalPoints, 0)).toBeLessThan(33 * 17);
   }, 300_000);
+  describe('the merged points table, sorted and filtered in SQL like a scan\'s points', () => {
+    type Row = { scanId: number; level: number; pointIndex: number; inputs: Record<string, number>; status: string; ns: number | null; deltaChi2?: number | null };
+    const key = (row: Row) => `${row.scanId}:${row.pointIndex}`;
+
+    /** Every row of the merged table under `query`, read a page of 40 at a time (so the pages are checked to join up). */
+    async function allRows(agent: Awaited<ReturnType<TestApp['signIn']>>, parentId: number, query: string): Promise<{ rows: Row[]; total: number }> {
+      const rows: Row[] = [];
+      let total = 0;
+      for (let page = 1; ; page++) {
+        const res = await agent.get(`/api/scans/${parentId}/refinement/points?pageSize=40&page=${page}${query && `&${query}`}`);
+        expect(res.status).toBe(200);
+        total = res.body.total;
+        rows.push(...res.body.items);
+        if (res.body.items.length < 40) break;
+      }
+      expect(rows).toHaveLength(total);
+      return { rows, total };
+    }
+
+    /** Ascending by `value` (NULL first, as MariaDB sorts it), ties by the chain's order of scans, then point index. */
+    function sortedBy(rows: Row[], chainIds: number[], value: (row: Row) => number | null): Row[] {
+      const rank = (v: number | null) => (v === null ? -Infinity : v);
+      return [...rows].sort((a, b) => rank(value(a)) - rank(value(b)) || chainIds.indexOf(a.scanId) - chainIds.indexOf(b.scanId) || a.pointIndex - b.pointIndex);
+    }
+
+    it('sorts by an output across every level, both ways, the same as sorting all the rows', async () => {
+      expect(refinedChain).toBeDefined();
+      const { parentId, levelIds } = refinedChain!;
+      const chainIds = [parentId, ...levelIds];
+      const member = await t.signIn(DEMO.plateauMember);
+      const unsorted = await allRows(member, parentId, '');
+      // The default order: level, then point index.
+      expect(unsorted.rows.map(key)).toEqual(sortedBy(unsorted.rows, chainIds, () => 0).map(key));
+
+      const ascending = await allRows(member, parentId, 'sort=ns&order=asc');
+      expect(ascending.total).toBe(unsorted.total);
+      const expected = sortedBy(unsorted.rows, chainIds, (row) => row.ns);
+      expect(ascending.rows.map(key)).toEqual(expected.map(key));
+      // The sort mixes the levels: it is not the default order.
+      expect(ascending.rows.map(key)).not.toEqual(unsorted.rows.map(key));
+      const descending = await allRows(member, parentId, 'sort=ns&order=desc');
+      expect(descending.rows.map(key)).toEqual([...expected].reverse().map(key));
+      // Sorting by an axis input reads every level's value of it.
+      const byAlpha = await allRows(member, parentId, 'sort=input.alpha&order=desc');
+      expect(byAlpha.rows.map(key)).toEqual(sortedBy(unsorted.rows, chainIds, (row) => row.inputs.alpha).reverse().map(key));
+    });
+
+    it('filters by an output and an input range on every level, with the matching total', async () => {
+      const { parentId, levelIds } = refinedChain!;
+      const member = await t.signIn(DEMO.plateauMember);
+      const unsorted = await allRows(member, parentId, '');
+      // A window around the finest level's n_s values, and α above the median of that level's.
+      const finest = unsorted.rows.filter((row) => row.scanId === levelIds[1] && row.ns !== null);
+      const ns = finest.map((row) => row.ns!).sort((a, b) => a - b);
+      const alphas = finest.map((row) => row.inputs.alpha).sort((a, b) => a - b);
+      const [nsMin, nsMax, alphaMin] = [ns[0], ns.at(-1)!, alphas[Math.floor(alphas.length / 2)]];
+      const expected = unsorted.rows.filter((row) => row.ns !== null && row.ns >= nsMin && row.ns <= nsMax && row.inputs.alpha >= alphaMin);
+      expect(expected.length).toBeGreaterThan(0);
+      expect(expected.length).toBeLessThan(unsorted.total);
+      expect(new Set(expected.map((row) => row.level)).size).toBeGreaterThan(1);
+
+      const filtered = await allRows(member, parentId, `ns_min=${nsMin}&ns_max=${nsMax}&input.alpha_min=${alphaMin}`);
+      expect(filtered.total).toBe(expected.length);
+      expect(filtered.rows.map(key)).toEqual(expected.map(key));
+      // A status filter reads every level too.
+      const ok = await allRows(member, parentId, 'status=ok');
+      expect(ok.rows.map(key)).toEqual(unsorted.rows.filter((row) => row.status === 'ok').map(key));
+    });
+
+    it('sorts and filters by Δχ² under a likelihood set, and names the set', async () => {
+      const { parentId, levelIds } = refinedChain!;
+      const chainIds = [parentId, ...levelIds];
+      const member = await t.signIn(DEMO.plateauMember);
+      const judged = await member.get(`/api/scans/${parentId}/refinement/points?likelihood=planck18-bk18&sort=deltaChi2&pageSize=1000`);
+      expect(judged.status).toBe(200);
+      expect(judged.body.judgedBy).toBe('planck18-bk18@1');
+      const rows = judged.body.items as Row[];
+      expect(rows.every((row) => row.status !== 'ok' || typeof row.deltaChi2 === 'number')).toBe(true);
+      expect(rows.map(key)).toEqual(sortedBy(rows, chainIds, (row) => row.deltaChi2 ?? null).map(key));
+      // Inside the 95 % region: Δχ² ≤ 6.18, on every level that has such points.
+      const inside = await allRows(member, parentId, 'likelihood=planck18-bk18&deltaChi2_max=6.18');
+      const expected = rows.filter((row) => row.deltaChi2 !== null && row.deltaChi2! <= 6.18);
+      expect(expected.length).toBeGreaterThan(0);
+      expect(inside.total).toBe(expected.length);
+      expect(new Set(inside.rows.map(key))).toEqual(new Set(expected.map(key)));
+    });
+
+    it('refuses an input the grid does not vary, and a download, naming the field', async () => {
+      const { parentId } = refinedChain!;
+      const member = await t.signIn(DEMO.plateauMember);
+      const sort = await member.get(`/api/scans/${parentId}/refinement/points?sort=input.phi`);
+      expect(sort.status).toBe(400);
+      expect(sort.body.fieldErrors.sort).toEqual(['the scan has no axis phi; its axes are alpha, nStar']);
+      const range = await member.get(`/api/scans/${parentId}/refinement/points?input.beta_min=1`);
+      expect(range.status).toBe(400);
+      expect(range.body.fieldErrors['input.beta_min']).toEqual(['the scan has no axis beta; its axes are alpha, nStar']);
+      const unjudged = await member.get(`/api/scans/${parentId}/refinement/points?sort=deltaChi2`);
+      expect(unjudged.status).toBe(400);
+      expect(unjudged.body.fieldErrors.sort[0]).toMatch(/name the likelihood set too/);
+      const download = await member.get(`/api/scans/${parentId}/refinement/points?format=csv`);
+      expect(download.status).toBe(400);
+      expect(download.body.fieldErrors.format[0]).toMatch(/pages only/);
+    });
+  });
 });

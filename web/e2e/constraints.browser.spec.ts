@@ -2,7 +2,7 @@ import { evidenceComparisonSchema, scanConstraintsSchema, type EvidenceCompariso
 import type { Locator, Page } from 'playwright-core';
 import type { z } from 'zod';
 import { formatInterval } from '@/features/scans/utils/format-interval';
-import { inputLabel } from '@/features/scans/utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 import { formatNumber } from '@/lib/format-number';
 import { heading, settled, shot, signIn, webUrl, useBrowserSession } from './support/browser';
 

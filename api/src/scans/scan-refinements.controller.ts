@@ -1,8 +1,9 @@
 import { Body, Controller, Get, Param, ParseIntPipe, Post, Query } from '@nestjs/common';
 import { ApiOperation, ApiTags } from '@nestjs/swagger';
 import {
-  pageQuerySchema, refinedPointPageSchema, refineEstimateQueryFieldsSchema, refineEstimateQuerySchema, refinementEstimateSchema, refineScanSchema, scanDetailSchema,
-  scanLineageSchema, type PageQuery, type RefinedPointPage, type RefinementEstimate, type RefineScan, type ScanDetail, type ScanLineage,
+  refinedPointPageSchema, refineEstimateQueryFieldsSchema, refineEstimateQuerySchema, refinementEstimateSchema, refineScanSchema, scanDetailSchema,
+  scanLineageSchema, scanPointsQueryFieldsSchema, scanPointsQuerySchema, type RefinedPointPage, type RefinementEstimate, type RefineScan, type ScanDetail,
+  type ScanLineage, type ScanPointsQuery,
 } from '@sixtyfold/shared';
 import { CurrentUser } from '../common/decorators/current-user.decorator';
 import { ZodValidationPipe } from '../common/pipes/zod-validation.pipe';
@@ -49,14 +50,19 @@ export class ScanRefinementsController {
   }
 
   @Get(':id/refinement/points')
-  @ApiOperation({ summary: 'Every point of a refined grid and its levels as one table: the parent\'s first, then each level\'s, with scan and level' })
-  @ApiZodQuery(pageQuerySchema)
+  @ApiOperation({
+    summary: 'Every point of a refined grid and its levels as one table, sorted and filtered like a scan\'s points, each row with its scan and level',
+    description: 'The query of `/api/scans/:id/points` without `format`: sort by an output, `deltaChi2` or `input.<axis parameter>` (ties by scan, the parent first, then point index; '
+      + '`pointIndex`, the default, orders by level, then point index), filter by `status`, `<output>_min`/`_max`, `input.<axis parameter>_min`/`_max` and `deltaChi2_max`; '
+      + '`likelihood=<key>[@<version>]` or `regions:<id>,<id>` adds each point\'s Δχ² and confidence level.',
+  })
+  @ApiZodQuery(scanPointsQueryFieldsSchema.omit({ format: true }))
   @ApiZodResponse(200, refinedPointPageSchema, 'One page of points, each naming its scan and level (0: the parent grid)')
   @ApiErrorResponses(400, 401, 404, 409)
   points(
     @CurrentUser() user: SessionUser,
     @Param('id', ParseIntPipe) id: number,
-    @Query(new ZodValidationPipe(pageQuerySchema)) query: PageQuery,
+    @Query(new ZodValidationPipe(scanPointsQuerySchema)) query: ScanPointsQuery,
   ): Promise<RefinedPointPage> {
     return this.refinements.points(user, id, query);
   }

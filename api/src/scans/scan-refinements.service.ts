@@ -5,8 +5,8 @@ import type { DataSource } from 'typeorm';
 import {
   boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, refinedCells, RefinementLattice,
   RefinementMesh, roundForSlice, ScanGrid, type RefinedCell, type ScanGridQuery, type ScanGridSlice,
-  type CreateScan, type NextLevel, type PageQuery, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
-  type ScanLineage, type ScanRefinement,
+  type CreateScan, type NextLevel, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
+  type ScanLineage, type ScanPointsQuery, type ScanRefinement,
 } from '@sixtyfold/shared';
 import { AuditService } from '../audit/audit.service';
 import type { SessionUser } from '../common/session-user';
@@ -260,32 +260,30 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
   }
 
   /**
-   * Every point of a refined grid and its chain's completed levels as one table, a page at a time:
-   * the parent's first, then each level's, each by point index, with the scan and level of each.
-   * 409 for a scan without refinement (its own `/points` is the table).
+   * Every point of a refined grid and its chain's completed levels as one table, a page at a time,
+   * sorted and filtered as a scan's `/points` (one query over the chain's scans, the parent's axes
+   * naming the inputs); by default the parent's first, then each level's, each by point index. Each
+   * row names its scan and level. 409 for a scan without refinement (its own `/points` is the table).
    */
-  async points(user: SessionUser, id: number, q: PageQuery): Promise<RefinedPointPage> {
+  async points(user: SessionUser, id: number, q: ScanPointsQuery): Promise<RefinedPointPage> {
+    // The merged table has no download: each level's own `/points` exports its points.
+    if (q.format) throw badRequest({ format: `the points of every level come as pages only: download each scan's own at /api/scans/<id>/points?format=${q.format}` });
     const chain = await this.mergedChain(await this.results.readable(user, id));
     if (!chain) throw new ConflictException(`Scan ${id} has no completed refinement level: its own points are at /api/scans/${id}/points`);
     const scans = [chain.parent, ...chain.levels];
     const level = new Map(scans.map((scan) => [scan.id, scan.refinementLevel ?? 0]));
-    const ids = scans.map((scan) => scan.id);
-    const [{ n }]: { n: string | number }[] = await this.db.query('SELECT COUNT(*) AS n FROM scan_points WHERE scan_id IN (?)', [ids]);
-    const rows: Record<string, unknown>[] = await this.db.query(
-      `SELECT * FROM scan_points WHERE scan_id IN (?) ORDER BY FIELD(scan_id, ${ids.map(() => '?').join(', ')}), point_index LIMIT ? OFFSET ?`,
-      [ids, ...ids, q.pageSize, (q.page - 1) * q.pageSize],
-    );
+    const { rows, total, likelihood } = await this.results.pageOfScans(user, chain.parent, scans.map((scan) => scan.id), q);
     return {
-      items: rows.map((row) => ({ ...toDto(row), scanId: Number(row.scan_id), level: level.get(Number(row.scan_id)) ?? 0 })),
-      total: Number(n),
+      items: rows.map((row) => ({ ...toDto(row, likelihood), scanId: Number(row.scan_id), level: level.get(Number(row.scan_id)) ?? 0 })),
+      total,
       page: q.page,
       pageSize: q.pageSize,
+      ...(likelihood && { judgedBy: likelihood.description.ref }),
       parentScanId: chain.parent.id,
       levelScanIds: chain.levels.map((scan) => scan.id),
     };
   }
 
-  /** The boundary's point value: Δχ² under the pinned set, or the stored output. */
   private async boundaryValue(boundary: RefinementBoundary): Promise<{ value: PointValue; column: string }> {
     if (boundary.kind === 'output') return this.pointValue({ output: boundary.output });
     const ref = likelihoodRefSchema.parse(boundary.likelihood);

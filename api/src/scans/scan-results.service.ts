@@ -137,12 +137,17 @@ export class ScanResultsService {
   }
 
   /**
-   * The matching points in the asked order, ties by point index in the same direction (so each
-   * order is one walk of a (scan_id, column) index, whose entries end in the point index). The
-   * sort key is selected first, on purpose: TypeORM would move a sort expression that names an
-   * entity column (`p.ns`) ahead of the others, and exports read their rows by position.
+   * The matching points of `scanIds` (the scan alone by default) in the asked order; `scan`'s spec
+   * names the inputs, so every scan read must store them in the same `axis_k` columns (a refinement
+   * level's point list has its parent's axes as columns, in order). For one scan, ties go by point
+   * index in the same direction (so each order is one walk of a (scan_id, column) index, whose
+   * entries end in the point index). Across scans, ties go by scan in the order of `scanIds`, then
+   * point index, and `pointIndex` sorts by that tie-break alone (a point index names a point only
+   * within its scan). The sort key is selected first, on purpose: TypeORM would move a sort
+   * expression that names an entity column (`p.ns`) ahead of the others, and exports read their
+   * rows by position.
    */
-  private filtered(scan: Scan, q: ScanPointsQuery, select = 'p.*', set?: LikelihoodSet): SelectQueryBuilder<ScanPoint> {
+  private filtered(scan: Scan, q: ScanPointsQuery, select = 'p.*', set?: LikelihoodSet, scanIds: number[] = [scan.id]): SelectQueryBuilder<ScanPoint> {
     const axes = variedInputs(scan.spec);
     // Each refusal under the query key that named the input, as the schema's own refusals are.
     const bad: Record<string, string[]> = {};
@@ -156,8 +161,9 @@ export class ScanResultsService {
     const qb = this.db
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
-      .select(`${orderOf(variedInputs(scan.spec), q, set).expression} AS sort_key, ${select}`)
-      .where('p.scan_id = :scanId', { scanId: scan.id });
+      .select(`${orderOf(variedInputs(scan.spec), q, set).expression} AS sort_key, ${select}`);
+    if (scanIds.length === 1) qb.where('p.scan_id = :scanId', { scanId: scanIds[0] });
+    else qb.where('p.scan_id IN (:...scanIds)', { scanIds });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
     else if (q.status) qb.andWhere('p.status = :status', { status: q.status });
     q.ranges.forEach((range, i) => {
@@ -171,7 +177,19 @@ export class ScanResultsService {
     });
     if (q.deltaChi2Max !== undefined) qb.andWhere(`${deltaChi2Sql(set!)} <= :deltaChi2Max`, { deltaChi2Max: q.deltaChi2Max });
     const { expression, direction } = orderOf(axes, q, set);
-    return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
+    if (scanIds.length === 1) return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
+    // The ids are integers read from the database, so they are written in as literals.
+    const chainOrder = `FIELD(p.scan_id, ${scanIds.map(Number).join(', ')})`;
+    if (q.sort === 'pointIndex') qb.orderBy(chainOrder, direction);
+    else qb.orderBy(expression, direction).addOrderBy(chainOrder, direction);
+    return qb.addOrderBy('p.point_index', direction);
+  }
+
+  /** How many rows a query builder matches. */
+  private async count(matching: SelectQueryBuilder<ScanPoint>): Promise<number> {
+    const [sql, parameters] = matching.clone().select('1').orderBy().getQueryAndParameters();
+    const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
+    return Number(n);
   }
 
   /**
@@ -192,15 +210,26 @@ export class ScanResultsService {
     else if (unfiltered && q.status === 'ok') total = scan.donePoints;
     else if (unfiltered && q.status === 'failed') total = scan.failedPoints;
     else if (!q.status && !q.ranges.length && q.deltaChi2Max === undefined && complete(scan) && scan.spec.axes) total = inputRangeCount(new ScanGrid(scan.spec.axes), q.inputRanges);
-    else {
-      const [sql, parameters] = matching.select('1').orderBy().getQueryAndParameters();
-      const [{ n }]: { n: string | number }[] = await this.db.query(`SELECT COUNT(*) AS n FROM (${sql}) matching`, parameters);
-      total = Number(n);
-    }
+    else total = await this.count(matching);
     // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
     const rows: RawPoint[] =
       (q.page - 1) * q.pageSize >= total ? [] : ((await this.inputOrderedPage(scan, q)) ?? (await this.db.query(...this.pageQuery(scan, q, total, set))));
     return { items: rows.map((row) => toDto(row, likelihood)), total, page: q.page, pageSize: q.pageSize, ...(likelihood && { judgedBy: likelihood.description.ref }) };
+  }
+
+  /**
+   * One page of the points of several scans read as one table (a refined grid and its levels,
+   * `scanIds` in the chain's order), sorted and filtered as `page` does; `scan`'s spec names the
+   * inputs. A plain LIMIT/OFFSET over the matching rows: a chain is small (a refinable grid and
+   * levels of at most POINT_LIST_MAX_POINTS points), so `page`'s index walks are not needed.
+   */
+  async pageOfScans(user: SessionUser, scan: Scan, scanIds: number[], q: ScanPointsQuery): Promise<{ rows: RawPoint[]; total: number; likelihood?: ResolvedLikelihood }> {
+    const likelihood = q.likelihood ? await this.likelihoods.resolve(user, q.likelihood) : undefined;
+    const matching = this.filtered(scan, q, 'p.*', likelihood?.set, scanIds);
+    const total = await this.count(matching);
+    // Past the last page there is nothing to read (and a LIMIT of 0 would mean none to TypeORM).
+    const rows: RawPoint[] = (q.page - 1) * q.pageSize >= total ? [] : await this.db.query(...matching.offset((q.page - 1) * q.pageSize).limit(q.pageSize).getQueryAndParameters());
+    return { rows, total, likelihood };
   }
 
   /**

@@ -102,6 +102,13 @@ export type ScanLineage = z.infer<typeof scanLineageSchema>;
 export const refinedPointSchema = scanPointSchema.extend({ scanId: z.number().int(), level: z.number().int() });
 export type RefinedPoint = z.infer<typeof refinedPointSchema>;
 
-/** One page of every level's points, the parent's first, each scan's by point index. */
-export const refinedPointPageSchema = pageOf(refinedPointSchema).extend({ parentScanId: z.number().int(), levelScanIds: z.array(z.number().int()) });
+/**
+ * One page of every level's points, by default the parent's first, each scan's by point index;
+ * `judgedBy` as on a scan's page of points.
+ */
+export const refinedPointPageSchema = pageOf(refinedPointSchema).extend({
+  judgedBy: z.string().optional(),
+  parentScanId: z.number().int(),
+  levelScanIds: z.array(z.number().int()),
+});
 export type RefinedPointPage = z.infer<typeof refinedPointPageSchema>;

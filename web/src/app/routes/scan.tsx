@@ -16,6 +16,7 @@ import { useGroup } from '@/features/groups/api/get-group';
 import { useModel } from '@/features/models/api/get-model';
 import { RefineDialog } from '@/features/refinement/components/refine-dialog';
 import { ScanLineage } from '@/features/refinement/components/scan-lineage';
+import { useLikelihoodSets } from '@/features/scans/api/get-likelihood-sets';
 import { useScan } from '@/features/scans/api/get-scan';
 import { ScanActions } from '@/features/scans/components/scan-actions';
 import { ScanHeader } from '@/features/scans/components/scan-header';
@@ -64,7 +65,11 @@ export function ScanRoute() {
           </Stack>
         }
       />
-      <ScanLineage scanId={scan.data.id} axes={(scan.data.spec.axes ?? []).map((axis) => axis.parameter).concat(scan.data.spec.pointList?.columns ?? [])} />
+      <ScanLineage
+        scanId={scan.data.id}
+        axes={(scan.data.spec.axes ?? []).map((axis) => axis.parameter).concat(scan.data.spec.pointList?.columns ?? [])}
+        useLikelihoodSets={useLikelihoodSets}
+      />
       {refining && <RefineDialog scan={scan.data} onClose={() => setRefining(false)} onLaunched={(level) => navigate(paths.scan.getHref(level.id))} />}
       <ScanResults scan={scan.data} spec={scan.data.spec} user={user} />
     </Stack>

@@ -3,15 +3,15 @@ import { useState } from 'react';
 import { AppLink } from '@/components/ui/app-link';
 import { paths } from '@/config/paths';
 import { useScanLineage } from '../api/get-scan-lineage';
-import { RefinedPointsTable } from './refined-points-table';
+import { RefinedPointsTable, type UseLikelihoodSets } from './refined-points-table';
 
 /**
  * Where a scan sits in refinement chains: the grid it refines, or the levels refining it, and on
  * demand every level's points in one table. Nothing when neither.
  */
-export function ScanLineage({ scanId, axes }: { scanId: number; axes: string[] }) {
+export function ScanLineage({ scanId, axes, useLikelihoodSets }: { scanId: number; axes: string[]; useLikelihoodSets: UseLikelihoodSets }) {
   const lineage = useScanLineage(scanId);
-  const [pointsPage, setPointsPage] = useState<number | null>(null);
+  const [showPoints, setShowPoints] = useState(false);
   const data = lineage.data;
   if (!data || (data.parentScanId === null && data.levels.length === 0)) return null;
   const anyCompleted = data.levels.some((level) => level.status === 'completed');
@@ -31,12 +31,12 @@ export function ScanLineage({ scanId, axes }: { scanId: number; axes: string[] }
           </AppLink>
         ))}
         {anyCompleted && (
-          <Button size="xs" variant="ghost" onClick={() => setPointsPage(pointsPage === null ? 1 : null)}>
-            {pointsPage === null ? 'Points of every level' : 'Hide the points of every level'}
+          <Button size="xs" variant="ghost" onClick={() => setShowPoints(!showPoints)}>
+            {showPoints ? 'Hide the points of every level' : 'Points of every level'}
           </Button>
         )}
       </HStack>
-      {pointsPage !== null && <RefinedPointsTable scanId={scanId} axes={axes} page={pointsPage} onPageChange={setPointsPage} />}
+      {showPoints && <RefinedPointsTable scanId={scanId} axes={axes} useLikelihoodSets={useLikelihoodSets} />}
     </Stack>
   );
 }

@@ -2,10 +2,8 @@ import { scanPointPageSchema, type PointExportFormat } from '@sixtyfold/shared';
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { env } from '@/config/env';
 import { api } from '@/lib/api-client';
+import type { PointsQuery } from '@/lib/points-query';
 import { LIVE_REFRESH_MS } from './get-scan';
-
-/** Query keys of `GET /api/scans/:id/points` exactly as the API names them (sort, ns_min, input.f_max, ...). */
-export type PointsQuery = Record<string, string>;
 
 export const getScanPoints = (scanId: number, query: PointsQuery, signal?: AbortSignal) =>
   api.get(`/scans/${scanId}/points`, { query, schema: scanPointPageSchema, signal });

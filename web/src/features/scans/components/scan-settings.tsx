@@ -1,6 +1,6 @@
 import { DataList, Table, Text } from '@chakra-ui/react';
 import { axisValues, type ScanAxis, type StoredScanSpec } from '@sixtyfold/shared';
-import { inputLabel } from '../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 import { formatNumber } from '@/lib/format-number';
 import { methodLabels } from '@/lib/method-labels';
 

@@ -6,7 +6,7 @@ import { failureColor, failureColorscale, failureSlot, FAILURE_SLOTS } from './f
 import { cellRows, cellSpan, cellStates, cellStatistic, isLogSpaced } from './grid-cells';
 import { DRAWN_LEVELS } from './plane-figure';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
-import { inputLabel } from './point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 export interface HeatmapFigureInput {
   /** The output drawn, with each cell's counts of OK and failed points. */

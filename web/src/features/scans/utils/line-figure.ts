@@ -4,7 +4,7 @@ import { PLOT_COLORS } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
 import { failureColor } from './failure-colors';
 import { LOG_OUTPUTS, outputLabel } from './output-labels';
-import { inputLabel } from './point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 /**
  * Failed points as shaded bands reaching halfway to their neighbours, one band per run of the

@@ -1,5 +1,5 @@
 import type { PointOutput } from '@sixtyfold/shared';
-import { OUTPUT_LABELS } from './point-columns';
+import { OUTPUT_LABELS } from '@/lib/point-labels';
 
 /** Outputs that span decades; colour scales and axes show them by log₁₀. */
 export const LOG_OUTPUTS: ReadonlySet<PointOutput | 'status' | 'deltaChi2'> = new Set(['As', 'amplitudeScale', 'energyScaleGeV']);

@@ -7,7 +7,7 @@ import { PLOT_COLORS, PLOT_COLORSCALE } from '@/components/plots/plot';
 import { formatNumber } from '@/lib/format-number';
 import { regionLabel } from '@/lib/region-labels';
 import { isLogSpaced } from './grid-cells';
-import { inputLabel } from './point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 export interface PlaneSeries {
   label: string;

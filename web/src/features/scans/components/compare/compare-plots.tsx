@@ -18,7 +18,7 @@ import { cellPointIndex, sameCells, zRangeOf } from '../../utils/grid-cells';
 import type { BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
 import { DRAWN_LEVELS, SET_COLORS } from '../../utils/plane-figure';
-import { axisOptions, inputLabel } from '../../utils/point-columns';
+import { axisOptions, inputLabel } from '@/lib/point-labels';
 import { BoundaryToggle } from '../heatmaps/boundary-toggle';
 import { ScanHeatmap } from '../heatmaps/scan-heatmap';
 import { LikelihoodSetChecks } from '../likelihood-set-picker';

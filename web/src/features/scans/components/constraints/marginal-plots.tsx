@@ -3,7 +3,7 @@ import type { ScanConstraints } from '@sixtyfold/shared';
 import type { Data, Layout } from 'plotly.js';
 import { Plot, PLOT_COLORS } from '@/components/plots/plot';
 import { Panel } from '@/components/ui/panel';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 /** The 68 and 95 % regions as bands behind the curve; a one-sided limit's band runs from the axis end. */
 function intervalBands(constraint: ScanConstraints['constraints'][number] | undefined): Partial<Layout>['shapes'] {

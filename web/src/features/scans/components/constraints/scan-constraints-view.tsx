@@ -12,7 +12,7 @@ import { constraintsCsvHref, useScanConstraints, type ConstraintsQuery } from '.
 import { useChosenLikelihoods } from '../../hooks/use-chosen-likelihoods';
 import { useViewParams } from '../../hooks/use-view-params';
 import { formatInterval } from '../../utils/format-interval';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 import { LikelihoodSetNote } from '../likelihood-set-note';
 import { LikelihoodSetSelect } from '../likelihood-set-picker';
 import { MarginalPlots } from './marginal-plots';

@@ -1,7 +1,7 @@
 import { HStack, Slider, Text } from '@chakra-ui/react';
 import { useEffect, useState } from 'react';
 import { formatNumber } from '@/lib/format-number';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 interface AxisSliderProps {
   parameter: string;

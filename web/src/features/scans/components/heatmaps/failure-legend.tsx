@@ -1,7 +1,7 @@
 import { Box, HStack, List, Text } from '@chakra-ui/react';
 import { failureColor } from '../../utils/failure-colors';
 import { NOT_STORED_COLOR } from '../../utils/heatmap-figure';
-import { failureLabel } from '../../utils/point-columns';
+import { failureLabel } from '@/lib/point-labels';
 import type { FailureGroup } from '../../utils/grid-cells';
 
 /** The reasons failed cells are coloured by, with how many cells each; failures carry no numbers. */

@@ -9,7 +9,7 @@ import { isLive } from '../../api/get-scan';
 import { useScanPoint } from '../../api/get-scan-point';
 import { useViewParams } from '../../hooks/use-view-params';
 import { outputLabel } from '../../utils/output-labels';
-import { failureLabel, inputLabel } from '../../utils/point-columns';
+import { failureLabel, inputLabel } from '@/lib/point-labels';
 
 /** A point's discussion, composed in by the page: comment counts by point index, and the thread itself. */
 export interface PointDiscussion {

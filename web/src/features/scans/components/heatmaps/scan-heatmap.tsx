@@ -6,7 +6,7 @@ import { formatNumber } from '@/lib/format-number';
 import { cellCounts, cellStatistic, zoomWindow, zRangeOf, type SliceWindow } from '../../utils/grid-cells';
 import { heatmapFigure, type BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 export interface ScanHeatmapProps {
   /** The output drawn, with each cell's counts (from useScanGridSlice). */

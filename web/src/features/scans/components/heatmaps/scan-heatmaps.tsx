@@ -16,7 +16,7 @@ import { cellCounts, cellPointIndex, failedByReason, failureGroups, markedCells,
 import type { BoundarySlice } from '../../utils/heatmap-figure';
 import { outputLabel } from '../../utils/output-labels';
 import { DRAWN_LEVELS, SET_COLORS } from '../../utils/plane-figure';
-import { axisOptions } from '../../utils/point-columns';
+import { axisOptions } from '@/lib/point-labels';
 import { LikelihoodSetNote } from '../likelihood-set-note';
 import { LikelihoodSetSelect } from '../likelihood-set-picker';
 import { AxisSlider } from './axis-slider';

@@ -12,7 +12,7 @@ import { useViewParams } from '../../hooks/use-view-params';
 import { failureGroups, isLogSpaced } from '../../utils/grid-cells';
 import { lineFigure } from '../../utils/line-figure';
 import { outputLabel } from '../../utils/output-labels';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 import { FailureLegend } from './failure-legend';
 import { PointDrawer, useOpenPoint, type PointDiscussion } from './point-drawer';
 

@@ -2,7 +2,7 @@ import { Checkbox, Field, HStack, SegmentGroup } from '@chakra-ui/react';
 import { SelectField } from '@/components/ui/select-field';
 import { useId, type ReactNode } from 'react';
 import { outputLabel } from '../../utils/output-labels';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 
 export interface PlaneSettings {
   colorBy: string | null;

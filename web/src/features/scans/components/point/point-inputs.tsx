@@ -1,7 +1,7 @@
 import { DataList, Text } from '@chakra-ui/react';
 import { ScanGrid, variedInputs, type ScanPoints, type StoredScanSpec } from '@sixtyfold/shared';
 import { formatNumber } from '@/lib/format-number';
-import { inputLabel } from '../../utils/point-columns';
+import { inputLabel } from '@/lib/point-labels';
 import { isPivotAxis } from '../../utils/scan-spec';
 
 interface PointInputsProps {

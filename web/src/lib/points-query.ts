@@ -1,5 +1,10 @@
 import { POINT_OUTPUTS } from '@sixtyfold/shared';
-import type { PointsQuery } from '../api/get-scan-points';
+
+/**
+ * A points query as the API names its keys (sort, ns_min, input.f_max, ...): the query of a scan's
+ * `/points` and of a refined grid's merged `/refinement/points`.
+ */
+export type PointsQuery = Record<string, string>;
 
 /** A column of the points table: the index, an axis input (`input.<parameter>`) or an output. */
 export type PointColumn = string;
