@@ -128,17 +128,20 @@ describe('refined cells over a heatmap', () => {
     const ok = rows.map((row) => row.map(() => 'ok'));
     const fine = (x0: number, y0: number) => cell([x0, x0 + 1], [y0, y0 + 1], [1.5 * x0 + 0.3, 1.5 * (x0 + 1) + 0.3, 1.5 * x0 + 0.3, 1.5 * (x0 + 1) + 0.3]);
     const chi2 = { ...slice('deltaChi2', rows, ok, { x: { parameter: 'nStar', values: [50, 55, 60] }, y: { parameter: 'f', values: [5, 7, 10] } }), refined: { scale: [2, 2] as [number, number], cells: [fine(0, 0), fine(1, 0), fine(0, 1), fine(1, 1)] } };
-    const lines = refinedBoundaryLines(chi2, 2.3);
-    const points = lines.x.map((x, k) => [x, lines.y[k]]).filter(([x]) => x !== null) as [number, number][];
+    const points = refinedBoundaryLines(chi2, 2.3).flat();
     expect(points.length).toBeGreaterThan(2);
     for (const [x, y] of points) expect(x).toBeCloseTo(y < 1 ? 2 / 3 : y > 1 ? 2.3 / 3 : x, 12);
     expect(points.some(([, y]) => y < 1)).toBe(true);
     expect(points.some(([, y]) => y > 1)).toBe(true);
-    // Drawn as lines, not as Plotly's contour of the coarse cells; the 95 % level (6.18) is never reached.
-    const traces = heatmapFigure({ slice: ns, boundaries: [{ slice: chi2, color: SET_COLORS[0] }] }).data as Trace[];
-    expect(traces.some((t) => t.type === 'contour')).toBe(false);
-    const drawn = traces.filter((t) => t.type === 'scatter' && t.name.startsWith('Δχ²'));
-    expect(drawn.map((t) => [t.name, t.line!.dash])).toEqual([['Δχ² = 2.30', 'solid'], ['Δχ² = 2.30', 'solid'], ['Δχ² = 6.18', 'dash'], ['Δχ² = 6.18', 'dash']]);
-    expect(drawn[2].x).toEqual([]);
+    // Drawn as path shapes after the refined cells (shapes lie above every trace, so a trace would be hidden
+    // under them), not as Plotly's contour of the coarse cells; the 95 % level (6.18) is never reached.
+    const { data, layout } = heatmapFigure({ slice: { ...ns, refined: chi2.refined }, boundaries: [{ slice: chi2, color: SET_COLORS[0] }] });
+    expect((data as Trace[]).some((t) => t.type === 'contour')).toBe(false);
+    const shapes = layout.shapes as { type: string; name?: string; path?: string; line?: { color: string; dash: string } }[];
+    const lines = shapes.filter((shape) => shape.type === 'path');
+    expect(lines.map((shape) => [shape.name, shape.line!.dash, shape.line!.color])).toEqual([['Δχ² = 2.30', 'solid', '#ffffff'], ['Δχ² = 2.30', 'solid', `rgb(${SET_COLORS[0].rgb})`]]);
+    expect(shapes.findIndex((shape) => shape.type === 'path')).toBeGreaterThan(shapes.findLastIndex((shape) => shape.type === 'rect'));
+    // Two polylines: through the finer cells, then from y = 1 on between the panel's cells (where a coarse cell meets finer ones the line breaks).
+    expect(lines[0].path).toMatch(/^M[\d.]+,[\d.]+( L[\d.]+,[\d.]+)+ M[\d.]+,[\d.]+( L[\d.]+,[\d.]+)+$/);
   });
 });

@@ -102,30 +102,52 @@ function hoverTexts(slice: ScanGridSlice, states: (string | null)[], others: Sca
   return cellRows(slice, texts);
 }
 
+/** The two strokes of every boundary line: a white one under the set's colour keeps it visible on every colour. */
+const boundaryStrokes = (color: BoundarySlice['color']) => [{ color: '#ffffff', width: 3.5 }, { color: `rgb(${color.rgb})`, width: 1.8 }];
+
 /**
  * The 68 and 95 % boundaries (Δχ² = 2.30 and 6.18, two parameters) of each set as contour lines of
  * its Δχ² over the cells, interpolated between cell centres by Plotly (a block's Δχ² is its mean).
- * Over a refined grid the lines are drawn cell by cell through the finest cells instead
- * (`refinedBoundaryLines`). Solid at 68 %, dashed at 95 %; a white line under each keeps it visible on every colour.
+ * Solid at 68 %, dashed at 95 %. A refined grid's lines are shapes instead (`refinedBoundaryShapes`).
  */
 export function boundaryTraces(boundaries: BoundarySlice[], xs: number[], ys: number[]): Data[] {
   // A contour needs cells in two directions.
   if (xs.length < 2 || ys.length < 2) return [];
-  return boundaries.flatMap(({ slice, color }) => {
-    const z = cellRows(slice, slice.mean ?? []);
-    return DRAWN_LEVELS.flatMap((drawn) => {
-      const lines = slice.refined?.cells.length ? refinedBoundaryLines(slice, drawn.deltaChi2) : null;
-      return [{ color: '#ffffff', width: 3.5 }, { color: `rgb(${color.rgb})`, width: 1.8 }].map((line) =>
-        lines
-          ? ({ type: 'scatter', mode: 'lines', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, ...lines, line: { ...line, dash: drawn.dash }, hoverinfo: 'skip', showlegend: false } as Data)
-          : ({
+  return boundaries
+    .filter(({ slice }) => !slice.refined?.cells.length)
+    .flatMap(({ slice, color }) => {
+      const z = cellRows(slice, slice.mean ?? []);
+      return DRAWN_LEVELS.flatMap((drawn) =>
+        boundaryStrokes(color).map(
+          (line) =>
+            ({
               type: 'contour', name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`, x: xs, y: ys, z,
               contours: { coloring: 'none', start: drawn.deltaChi2, end: drawn.deltaChi2, size: 1, showlabels: false },
               line: { ...line, dash: drawn.dash, smoothing: 0.6 }, showscale: false, hoverinfo: 'skip', connectgaps: false,
-            } as Data),
+            }) as Data,
+        ),
       );
     });
-  });
+}
+
+/**
+ * A refined grid's 68 and 95 % lines, drawn through its finest cells (`refinedBoundaryLines`), as
+ * path shapes: they come after the refined cells' rectangles, which as shapes lie above every trace.
+ */
+export function refinedBoundaryShapes(boundaries: BoundarySlice[]): NonNullable<Partial<Layout>['shapes']> {
+  return boundaries
+    .filter(({ slice }) => slice.refined?.cells.length)
+    .flatMap(({ slice, color }) =>
+      DRAWN_LEVELS.flatMap((drawn) => {
+        const lines = refinedBoundaryLines(slice, drawn.deltaChi2);
+        if (lines.length === 0) return [];
+        const path = lines.map((line) => line.map(([x, y], k) => `${k === 0 ? 'M' : 'L'}${x},${y}`).join(' ')).join(' ');
+        return boundaryStrokes(color).map((line) => ({
+          type: 'path' as const, layer: 'above' as const, xref: 'x' as const, yref: 'y' as const, path, name: `Δχ² = ${drawn.deltaChi2.toFixed(2)}`,
+          line: { ...line, dash: drawn.dash },
+        }));
+      }),
+    );
 }
 
 /** Where a refined cell lies in the panel's cell coordinates: parent index i is finest coordinate i · scale. */
@@ -136,11 +158,11 @@ function refinedBox(slice: ScanGridSlice, cell: NonNullable<ScanGridSlice['refin
 }
 
 /**
- * The level line `Δχ² = level` of a refined grid, in cell coordinates, as one scatter's points with
- * a break between lines: marching squares (`levelLine`) through the refined cells, and through the
- * panel's own cells between neighbouring centres where no refined cell covers them.
+ * The level line `Δχ² = level` of a refined grid as polylines in cell coordinates: marching squares
+ * (`levelLine`) through the refined cells, and through the panel's own cells between neighbouring
+ * centres where no refined cell covers them, joined where they meet.
  */
-export function refinedBoundaryLines(slice: ScanGridSlice, level: number): { x: (number | null)[]; y: (number | null)[] } {
+export function refinedBoundaryLines(slice: ScanGridSlice, level: number): [number, number][][] {
   const nx = slice.x.values.length;
   const ny = slice.y.values.length;
   const mean = slice.mean ?? [];
@@ -158,16 +180,7 @@ export function refinedBoundaryLines(slice: ScanGridSlice, level: number): { x: 
       quads.push({ x: [ix, ix + 1], y: [iy, iy + 1], corners: [mean[c] ?? null, mean[c + 1] ?? null, mean[c + nx] ?? null, mean[c + nx + 1] ?? null] });
     }
   }
-  const out = { x: [] as (number | null)[], y: [] as (number | null)[] };
-  for (const line of joinSegments(levelLine(quads, level))) {
-    // A null between lines keeps Plotly from joining them.
-    const points = out.x.length ? [[null, null] as const, ...line] : line;
-    for (const [x, y] of points) {
-      out.x.push(x);
-      out.y.push(y);
-    }
-  }
-  return out;
+  return joinSegments(levelLine(quads, level));
 }
 
 // Past this many refined cells the shapes would slow every redraw; the coarse cells stay.
@@ -278,7 +291,8 @@ export function heatmapFigure({ slice, zRange, hoverSlices = [], boundaries = []
       showlegend: false,
       hovermode: 'closest',
       dragmode: 'zoom',
-      shapes: refinedCellShapes(slice, zRange),
+      // Lines after cells: shapes are drawn in order.
+      shapes: [...(refinedCellShapes(slice, zRange) ?? []), ...refinedBoundaryShapes(boundaries)],
       // What a cell stands for, on the plot itself (and in saved images).
       annotations: [{ text: cellStatistic(slice), xref: 'paper', yref: 'paper', x: 1, y: 1, xanchor: 'right', yanchor: 'bottom', showarrow: false, font: { size: 11, color: PLOT_COLORS.muted } }],
     },
