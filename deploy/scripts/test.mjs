@@ -124,7 +124,8 @@ if (wanted('worker')) results.push(runSuite('worker', jestJson('worker')));
 
 if (wanted('browser')) {
   log('starting the API and a worker for the browser tests');
-  apps = startAppProcesses({ env, workers: 1, quiet: true });
+  // The API follows finished refinement levels every 2 s (30 s by default), so a refinement chain completes within a test.
+  apps = startAppProcesses({ env: { ...env, RECONCILE_INTERVAL_SECONDS: '2' }, workers: 1, quiet: true });
   if (await waitForApi(profile.apiPort, apps.api)) {
     results.push(runSuite('browser', vitestJson('web', 'browser', 'test:browser'), {
       SIXTYFOLD_WEB_URL: `http://127.0.0.1:${profile.apiPort}/`,

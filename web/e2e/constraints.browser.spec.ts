@@ -1,10 +1,10 @@
 import { evidenceComparisonSchema, scanConstraintsSchema, type EvidenceComparison, type ScanConstraints } from '@sixtyfold/shared';
 import type { Locator, Page } from 'playwright-core';
-import type { z } from 'zod';
 import { formatInterval } from '@/features/scans/utils/format-interval';
 import { inputLabel } from '@/lib/point-labels';
 import { formatNumber } from '@/lib/format-number';
 import { heading, settled, shot, signIn, webUrl, useBrowserSession } from './support/browser';
+import { apiGet, cellsOf, launchFamilyScan } from './support/scan-pages';
 
 // The PI of "Plateau Models" in the demo scenario: may launch scans in the group.
 const PI = 'henrik.solberg@halvorsen.example';
@@ -20,70 +20,6 @@ const N_STAR = { min: 50, max: 60, count: 3 };
 
 let page: Page;
 useBrowserSession((session) => (page = session.page));
-
-/** The id of the scan whose page is open. */
-const scanIdOnPage = () => Number(new URL(page.url()).pathname.match(/^\/scans\/(\d+)/)?.[1]);
-
-/** A GET of the API from the page, so it carries the page's session cookie; the answer read with its shared schema. */
-async function apiGet<S extends z.ZodType>(path: string, schema: S): Promise<z.output<S>> {
-  const answer = await page.evaluate(async (url) => {
-    const response = await fetch(url, { headers: { Accept: 'application/json' } });
-    return { status: response.status, body: await response.text() };
-  }, `/api${path}`);
-  if (answer.status !== 200) throw new Error(`GET /api${path} answered ${answer.status}: ${answer.body}`);
-  return schema.parse(JSON.parse(answer.body));
-}
-
-/** The text of every body cell, row by row. */
-const cellsOf = (table: Locator) =>
-  table.locator('tbody tr').evaluateAll((rows) => rows.map((row) => [...row.querySelectorAll('td')].map((cell) => cell.textContent?.trim() ?? '')));
-
-interface Axis1 {
-  parameter: string;
-  kind: 'range' | 'list';
-  /** For a range: min, max, count and spacing; for a list: the values as typed. */
-  range?: { min: number; max: number; count: number; spacing: 'linear' | 'log' };
-  values?: string;
-}
-
-/** Fills the new-scan form for a built-in family, its parameter on axis 1 × N_* on axis 2, slow-roll, and launches it. */
-async function launchFamilyScan(name: string, family: string, axis1: Axis1, points: number) {
-  await page.goto(`${webUrl}/scans/new`);
-  await heading(page, 'New scan').waitFor();
-  await settled(page);
-  const form = page.getByRole('form', { name: 'New scan' });
-  await form.getByLabel('Group').selectOption({ label: GROUP });
-  await form.getByLabel('Name', { exact: true }).fill(name);
-  await form.getByLabel('Model').selectOption({ label: family });
-  await form.getByLabel('Axis 1 parameter').selectOption(axis1.parameter);
-  await form.getByLabel('Axis 1 kind').selectOption(axis1.kind);
-  if (axis1.range) {
-    await form.getByLabel('Axis 1 min').fill(String(axis1.range.min));
-    await form.getByLabel('Axis 1 max').fill(String(axis1.range.max));
-    await form.getByLabel('Axis 1 count').fill(String(axis1.range.count));
-    await form.getByLabel('Axis 1 spacing').selectOption(axis1.range.spacing);
-  } else {
-    await form.getByLabel('Axis 1 values').fill(axis1.values ?? '');
-  }
-  if ((await form.getByLabel('Axis 2 parameter').count()) === 0) await form.getByRole('button', { name: 'Add axis' }).click();
-  await form.getByLabel('Axis 2 parameter').selectOption('nStar');
-  await form.getByLabel('Axis 2 min').fill(String(N_STAR.min));
-  await form.getByLabel('Axis 2 max').fill(String(N_STAR.max));
-  await form.getByLabel('Axis 2 count').fill(String(N_STAR.count));
-  await form.getByLabel('Method', { exact: true }).selectOption('slowroll');
-  await form.getByText(`${points} points`).first().waitFor();
-  await form.getByRole('button', { name: 'Launch scan' }).click();
-  await page.waitForURL(/\/scans\/\d+$/).catch(async (error: Error) => {
-    await shot(page, 'constraints-scan-refused');
-    const said = await page.locator('[role="alert"], [data-part="error-text"]').allTextContents();
-    throw new Error(`the scan was not launched: ${said.join(' | ') || error.message}`);
-  });
-  await heading(page, name).waitFor();
-  const id = scanIdOnPage();
-  // The page polls until the workers are done; nobody reloads.
-  await page.getByText('Completed', { exact: true }).first().waitFor({ timeout: 45_000 });
-  return id;
-}
 
 /**
  * Each axis's row as the constraints tab prints it, from the API's answer: the parameter (with its
@@ -130,12 +66,14 @@ describe('what the data allow, in the browser', () => {
     await heading(page, 'Overview').waitFor();
 
     // The T-model (Kallosh & Linde 2013, arXiv:1306.5220): α on a log range × N_*, 6 × 3 points.
-    const tModel = await launchFamilyScan(
-      T_MODEL_SCAN,
-      'α-attractor, T-model',
-      { parameter: 'alpha', kind: 'range', range: { min: 0.1, max: 100, count: 6, spacing: 'log' } },
-      18,
-    );
+    const tModel = await launchFamilyScan(page, {
+      group: GROUP,
+      name: T_MODEL_SCAN,
+      family: 'α-attractor, T-model',
+      axis1: { parameter: 'alpha', kind: 'range', range: { min: 0.1, max: 100, count: 6, spacing: 'log' } },
+      nStar: N_STAR,
+      points: 18,
+    });
     await shot(page, 'constraints-t-model-scan');
 
     // Its constraints under Planck 2018 + BICEP/Keck 2018, the default set.
@@ -144,7 +82,7 @@ describe('what the data allow, in the browser', () => {
     await table.waitFor({ timeout: 30_000 });
     await page.getByText('arXiv:2110.00483').first().waitFor();
     await settled(page);
-    const planck = await apiGet(`/scans/${tModel}/constraints?likelihood=${PLANCK}`, scanConstraintsSchema);
+    const planck = await apiGet(page, `/scans/${tModel}/constraints?likelihood=${PLANCK}`, scanConstraintsSchema);
     expect(planck.likelihood).toMatchObject({ kind: 'set', key: PLANCK });
     expect(planck.constraints.map((c) => c.axis)).toEqual(['alpha', 'nStar']);
     const planckRows = expectedRows(planck);
@@ -178,7 +116,7 @@ describe('what the data allow, in the browser', () => {
     await picker.selectOption(pactOption!);
     await page.getByText('arXiv:2503.14452').first().waitFor();
     await settled(page);
-    const pact = await apiGet(`/scans/${tModel}/constraints?likelihood=${pactOption}`, scanConstraintsSchema);
+    const pact = await apiGet(page, `/scans/${tModel}/constraints?likelihood=${pactOption}`, scanConstraintsSchema);
     expect(pact.likelihood).toMatchObject({ kind: 'set', key: PACT });
     const pactRows = expectedRows(pact);
     expect(pactRows).not.toEqual(planckRows);
@@ -188,7 +126,9 @@ describe('what the data allow, in the browser', () => {
     await shot(page, 'constraints-t-model-pact');
 
     // φ^p (Linde 1983) over p × N_*, 4 × 3 points: φ² at 50 ≤ N_* ≤ 60 lies outside Planck + BICEP/Keck's 95 % region.
-    const monomial = await launchFamilyScan(MONOMIAL_SCAN, 'Monomial (chaotic) inflation', { parameter: 'p', kind: 'list', values: '0.5, 1, 2, 3' }, 12);
+    const monomial = await launchFamilyScan(page, {
+      group: GROUP, name: MONOMIAL_SCAN, family: 'Monomial (chaotic) inflation', axis1: { parameter: 'p', kind: 'list', values: '0.5, 1, 2, 3' }, nStar: N_STAR, points: 12,
+    });
 
     // Both scans on the compare page, the T-model first and so the reference.
     await page.goto(`${webUrl}/compare?scans=${tModel},${monomial}`);
@@ -203,7 +143,7 @@ describe('what the data allow, in the browser', () => {
     await settled(page);
     await shot(page, 'compare-evidence');
 
-    const comparison = await apiGet(`/scans/evidence?ids=${tModel},${monomial}&likelihoods=${PLANCK},${PACT}&reference=${tModel}`, evidenceComparisonSchema);
+    const comparison = await apiGet(page, `/scans/evidence?ids=${tModel},${monomial}&likelihoods=${PLANCK},${PACT}&reference=${tModel}`, evidenceComparisonSchema);
     expect(comparison.referenceId).toBe(tModel);
     for (const [key, title] of [[PLANCK, planckTitle], [PACT, pactTitle]] as const) {
       const shown = await shownEvidence(title);

@@ -227,7 +227,8 @@ export function ScanHeatmaps({ scan, spec, pointDiscussion }: ScanHeatmapsProps)
             <Text>
               {live ? 'Once the scan has finished, lines show ' : 'Lines: '}the{' '}
               {DRAWN_LEVELS.map((d) => `${d.percent} (${d.dash === 'solid' ? 'solid' : 'dashed'}, Δχ² = ${d.deltaChi2.toFixed(2)})`).join(' and ')} boundaries
-              of {set.name} for two parameters (n_s, r), drawn through each cell’s Δχ² (a block’s mean).
+              of {set.name} for two parameters (n_s, r), drawn through each cell’s Δχ² (a block’s mean)
+              {boundarySlice?.refined?.cells.length ? ', through the refinement levels’ finer cells where they are' : ''}.
               {boundary.isError ? ` Could not load them: ${boundary.error.message}` : ''}
             </Text>
             <LikelihoodSetNote likelihood={set} />
