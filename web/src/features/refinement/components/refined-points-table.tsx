@@ -1,12 +1,12 @@
-import { Box, Link, Stack, Table, Text } from '@chakra-ui/react';
+import { Box, Stack, Table, Text } from '@chakra-ui/react';
 import type { LikelihoodSetEntry } from '@sixtyfold/shared';
 import { useState } from 'react';
 import { PointStatusCell, PointValueCell, pointColumns, SortableHeader } from '@/components/points/point-columns';
+import { PointsPageFooter } from '@/components/points/points-page-footer';
 import { ActiveFilters, PointsQueryControls } from '@/components/points/points-query-controls';
 import { AppLink } from '@/components/ui/app-link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
-import { Pager } from '@/components/ui/pager';
 import { paths } from '@/config/paths';
 import { filtersOf, type PointsQuery } from '@/lib/points-query';
 import { readPage } from '@/lib/search-params';
@@ -79,19 +79,12 @@ export function RefinedPointsTable({ scanId, axes, useLikelihoodSets }: { scanId
               </Table.Body>
             </Table.Root>
           </Table.ScrollArea>
-          {points.isError && (
-            <Text mt="2" fontSize="sm" color="fg.error">
-              Could not refresh the points ({points.error.message}); showing the last page.{' '}
-              <Link as="button" onClick={() => points.refetch()}>
-                Try again
-              </Link>
-            </Text>
-          )}
-          <Pager
+          <PointsPageFooter
+            error={points.isError ? points.error : null}
+            onRetry={() => points.refetch()}
             page={page}
             pageSize={REFINED_POINTS_PAGE_SIZE}
             total={points.data.total}
-            noun="points"
             busy={points.isPlaceholderData}
             onPageChange={(next) => setQuery({ ...query, page: String(next) })}
           />

@@ -1,13 +1,13 @@
-import { Box, Button, HStack, Link, Stack, Table, Text } from '@chakra-ui/react';
+import { Box, Button, HStack, Stack, Table, Text } from '@chakra-ui/react';
 import { variedInputs, type ScanDetail } from '@sixtyfold/shared';
 import { useSearchParams } from 'react-router-dom';
 import { PointStatusCell, PointValueCell, pointColumns, SortableHeader } from '@/components/points/point-columns';
+import { PointsPageFooter } from '@/components/points/points-page-footer';
 import { ActiveFilters, PointsQueryControls } from '@/components/points/points-query-controls';
 import { AppLink } from '@/components/ui/app-link';
 import { EmptyState } from '@/components/ui/empty-state';
 import { ErrorState } from '@/components/ui/error-state';
 import { LoadingState } from '@/components/ui/loading-state';
-import { Pager } from '@/components/ui/pager';
 import { paths } from '@/config/paths';
 import { filtersOf, readPointsQuery, type PointsQuery } from '@/lib/points-query';
 import { readPage } from '@/lib/search-params';
@@ -116,19 +116,12 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
               </Table.Body>
             </Table.Root>
           </Table.ScrollArea>
-          {points.isError && (
-            <Text mt="2" fontSize="sm" color="fg.error">
-              Could not refresh the points ({points.error.message}); showing the last page.{' '}
-              <Link as="button" onClick={() => points.refetch()}>
-                Try again
-              </Link>
-            </Text>
-          )}
-          <Pager
+          <PointsPageFooter
+            error={points.isError ? points.error : null}
+            onRetry={() => points.refetch()}
             page={page}
             pageSize={PAGE_SIZE}
             total={points.data.total}
-            noun="points"
             busy={points.isPlaceholderData}
             onPageChange={(next) => setQuery({ ...query, page: String(next) })}
           />
