@@ -140,6 +140,8 @@ describe('refining a grid scan where a boundary crosses it', () => {
     const chain = await t.db.getRepository(Scan).find({ where: { refinesScanId: parentId } });
     expect(chain.map((s) => s.refinementLevel).sort()).toEqual([1, 2]);
     expect(chain.every((s) => s.refinementFollowedAt !== null)).toBe(true);
+    // Every finished level followed: the lineage says the chain will not grow.
+    expect((await member.get(`/api/scans/${parentId}/lineage`)).body.chaining).toBe(false);
     const audit: { n: string }[] = await t.db.query("SELECT COUNT(*) AS n FROM audit_events WHERE action = 'scan.refine' AND target_id = ?", [String(parentId)]);
     expect(Number(audit[0].n)).toBe(1);
 

@@ -57,8 +57,7 @@ describe('refining a scan, in the browser', () => {
     const chain = await apiGet(page, `/scans/${parent}/lineage`, scanLineageSchema);
     expect(chain.levels.map((level) => level.level)).toEqual([1, 2]);
 
-    // The heatmaps draw the levels' finer cells over the grid's, and the set's boundary through them.
-    await page.reload();
+    // The heatmaps, read again as each level completed, draw the levels' finer cells over the grid's and the set's boundary through them.
     const nsMap = page.getByRole('img', { name: /^Heatmap of n_s/ });
     await nsMap.locator('.main-svg').first().waitFor({ timeout: 30_000 });
     const refined = await apiGet(page, `/scans/${parent}/grid?x=alpha&y=nStar&output=ns`, scanGridSliceSchema);

@@ -3,7 +3,7 @@ import { ConfigService } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import type { DataSource } from 'typeorm';
 import {
-  boundaryDistance, createScanSchema, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, refinedCells, RefinementLattice,
+  boundaryDistance, createScanSchema, FINISHED_SCAN_STATUSES, judgeBySet, likelihoodRefSchema, nodeKey, POINT_LIST_MAX_POINTS, refinedCells, RefinementLattice,
   RefinementMesh, roundForSlice, ScanGrid, type RefinedCell, type ScanGridQuery, type ScanGridSlice,
   type CreateScan, type NextLevel, type PointOutput, type RefinedPointPage, type RefinementBoundary, type RefinementEstimate, type RefineScan, type ScanDetail,
   type ScanLineage, type ScanPointsQuery, type ScanRefinement,
@@ -108,12 +108,14 @@ export class ScanRefinementsService implements OnApplicationBootstrap, OnApplica
     const scan = await this.results.readable(user, id);
     const parentId = scan.refinesScanId ?? scan.id;
     const levels = await this.db.getRepository(Scan).find({
-      where: { refinesScanId: parentId }, order: { id: 'ASC' }, select: { id: true, name: true, status: true, totalPoints: true, refinementLevel: true },
+      where: { refinesScanId: parentId }, order: { id: 'ASC' },
+      select: { id: true, name: true, status: true, totalPoints: true, refinementLevel: true, refinementFollowedAt: true },
     });
     return {
       parentScanId: scan.refinementLevel === null ? null : scan.refinesScanId,
       level: scan.refinementLevel,
       levels: levels.map((s) => ({ scanId: s.id, level: s.refinementLevel ?? 0, name: s.name, status: s.status, totalPoints: s.totalPoints })),
+      chaining: levels.some((s) => FINISHED_SCAN_STATUSES.has(s.status) && s.refinementFollowedAt === null),
     };
   }
 

@@ -3,7 +3,7 @@ import { InjectDataSource } from '@nestjs/typeorm';
 import type { Response } from 'express';
 import type { DataSource, SelectQueryBuilder } from 'typeorm';
 import {
-  inputSortedOrder, planeSample, ENGINE_PIVOT_PER_MPC, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type ScanStatus, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
+  FINISHED_SCAN_STATUSES, inputSortedOrder, planeSample, ENGINE_PIVOT_PER_MPC, rSigma, type LikelihoodSet, POINT_OUTPUTS, ScanGrid, scanPoints, sortedInput, variedInputs, type PointExportFormat, type PointOutput, type ScanGridQuery, type ScanGridSlice,
   type ScanPlane, type ScanPlaneQuery, type ScanPointDto, type ScanPointPage, type ScanPointsQuery, type ScanProvenanceAnswer,
 } from '@sixtyfold/shared';
 import type { SessionUser } from '../common/session-user';
@@ -27,7 +27,6 @@ const COLUMN: Record<PointOutput | 'pointIndex', string> = {
 type RawPoint = Record<string, unknown>;
 
 /** Statuses whose points stay as they are until a retry reopens the scan. */
-const FINISHED = new Set<ScanStatus>(['completed', 'failed', 'cancelled']);
 /**
  * Cells of finished scans' slices kept in this process: about 90 bytes each as answer objects, so
  * at most about 35 MB; two views of the page's 200 × 200 panels (n_s, r, α_s and the counts), or
@@ -394,7 +393,7 @@ export class ScanResultsService {
     const set = q.likelihood ? (await this.likelihoods.resolve(user, q.likelihood)).set : undefined;
     const columns: SliceColumns = { ...COLUMN, deltaChi2: set ? deltaChi2Sql(set, 'scan_points') : 'NULL' };
     // A live scan's points are still coming; a finished one's change only by a retry, which reopens it.
-    const finished = FINISHED.has(scan.status);
+    const finished = FINISHED_SCAN_STATUSES.has(scan.status);
     const keyOf = (output: ScanGridQuery['output']) => JSON.stringify([scan.id, scan.status, scan.finishedAt?.getTime() ?? null, { ...q, output }]);
     const kept = finished ? this.slices.get(keyOf(q.output)) : undefined;
     if (kept) return kept;

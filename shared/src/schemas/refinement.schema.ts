@@ -95,6 +95,8 @@ export const scanLineageSchema = z.object({
   level: z.number().int().nullable(),
   /** Every level of every chain on the parent (this scan's parent, or this scan), in order. */
   levels: z.array(z.object({ scanId: z.number().int(), level: z.number().int(), name: z.string(), status: z.string(), totalPoints: z.number().int() })),
+  /** A level has finished and the API has yet to decide on the next (within one reconcile interval): the chain may still grow. */
+  chaining: z.boolean(),
 });
 export type ScanLineage = z.infer<typeof scanLineageSchema>;
 

@@ -4,6 +4,8 @@ import type { Method } from '../engine/evaluate-point.js';
 export const SCAN_STATUSES = ['draft', 'queued', 'running', 'completed', 'failed', 'cancelled'] as const;
 export const scanStatusSchema = z.enum(SCAN_STATUSES);
 export type ScanStatus = z.infer<typeof scanStatusSchema>;
+/** A scan in one of these has stopped: its points change only if a retry reopens it. */
+export const FINISHED_SCAN_STATUSES: ReadonlySet<ScanStatus> = new Set(['completed', 'failed', 'cancelled']);
 
 /** The engine's methods, listed once for scans, trial evaluations, forms and tables. */
 export const SCAN_METHODS = ['slowroll', 'exact'] as const satisfies readonly Method[];

@@ -21,7 +21,7 @@ import { useScan } from '@/features/scans/api/get-scan';
 import { ScanActions } from '@/features/scans/components/scan-actions';
 import { ScanHeader } from '@/features/scans/components/scan-header';
 import { ScanViews } from '@/features/scans/components/scan-views';
-import { useRefreshWhenFinished } from '@/features/scans/hooks/use-refresh-when-finished';
+import { useRefreshWhenFinished, useScanResultsRefresher } from '@/features/scans/hooks/use-refresh-when-finished';
 import { readWholeNumber } from '@/features/scans/utils/route-params';
 import { scanPermissions } from '@/features/scans/utils/scan-permissions';
 import { useDocumentTitle } from '@/hooks/use-document-title';
@@ -34,6 +34,7 @@ export function ScanRoute() {
   const scan = useScan(scanId ?? 0);
   useDocumentTitle(scan.data?.name ?? 'Scan');
   useRefreshWhenFinished(scan.data);
+  const refreshResults = useScanResultsRefresher(scan.data?.id);
   const spec = scan.data?.spec;
   const model = useModel(spec?.model.kind === 'group' ? spec.model.modelId : null);
   const [refining, setRefining] = useState(false);
@@ -69,6 +70,7 @@ export function ScanRoute() {
         scanId={scan.data.id}
         axes={(scan.data.spec.axes ?? []).map((axis) => axis.parameter).concat(scan.data.spec.pointList?.columns ?? [])}
         useLikelihoodSets={useLikelihoodSets}
+        onLevelCompleted={refreshResults}
       />
       {refining && <RefineDialog scan={scan.data} onClose={() => setRefining(false)} onLaunched={(level) => navigate(paths.scan.getHref(level.id))} />}
       <ScanResults scan={scan.data} spec={scan.data.spec} user={user} />

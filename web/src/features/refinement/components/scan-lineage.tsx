@@ -1,5 +1,5 @@
 import { Button, HStack, Stack, Text } from '@chakra-ui/react';
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { AppLink } from '@/components/ui/app-link';
 import { paths } from '@/config/paths';
 import { useScanLineage } from '../api/get-scan-lineage';
@@ -9,10 +9,28 @@ import { RefinedPointsTable, type UseLikelihoodSets } from './refined-points-tab
  * Where a scan sits in refinement chains: the grid it refines, or the levels refining it, and on
  * demand every level's points in one table. Nothing when neither.
  */
-export function ScanLineage({ scanId, axes, useLikelihoodSets }: { scanId: number; axes: string[]; useLikelihoodSets: UseLikelihoodSets }) {
+export function ScanLineage({
+  scanId,
+  axes,
+  useLikelihoodSets,
+  onLevelCompleted,
+}: {
+  scanId: number;
+  axes: string[];
+  useLikelihoodSets: UseLikelihoodSets;
+  /** A level completed while the page was open: the merged views have more to show. */
+  onLevelCompleted: () => void;
+}) {
   const lineage = useScanLineage(scanId);
   const [showPoints, setShowPoints] = useState(false);
   const data = lineage.data;
+  const completed = data?.levels.filter((level) => level.status === 'completed').length;
+  const seen = useRef(completed);
+  useEffect(() => {
+    if (completed === undefined) return;
+    if (seen.current !== undefined && completed > seen.current) onLevelCompleted();
+    seen.current = completed;
+  }, [completed, onLevelCompleted]);
   if (!data || (data.parentScanId === null && data.levels.length === 0)) return null;
   const anyCompleted = data.levels.some((level) => level.status === 'completed');
   return (
