@@ -100,6 +100,9 @@ describe('axis inputs as indexed columns of scan_points', () => {
       { query: 'sort=input.f&order=desc&input.nStar_min=50&input.nStar_max=52.5', order: `${json('f')} DESC, point_index DESC`, where: `AND ${json('nStar')} BETWEEN 50 AND 52.5` },
       { query: 'sort=input.nStar&input.f_max=6&status=ok', order: `${json('nStar')} ASC, point_index ASC`, where: `AND ${json('f')} <= 6 AND status = 'ok'` },
       { query: 'sort=ns&input.nStar_min=60', order: 'ns ASC, point_index ASC', where: `AND ${json('nStar')} >= 60` },
+      // A filter on an observable and a sort by an input (the input read from the point index).
+      { query: 'sort=input.f&ns_min=0.953&ns_max=0.957', order: `${json('f')} ASC, point_index ASC`, where: 'AND ns BETWEEN 0.953 AND 0.957' },
+      { query: 'sort=input.nStar&order=desc&ns_max=0.952&input.f_min=7', order: `${json('nStar')} DESC, point_index DESC`, where: `AND ns <= 0.952 AND ${json('f')} >= 7` },
     ];
     for (const c of cases) {
       const [{ n }] = await t.db.query(`SELECT COUNT(*) AS n FROM scan_points WHERE scan_id = ? ${c.where}`, [scan.id]);
@@ -132,6 +135,56 @@ describe('axis inputs as indexed columns of scan_points', () => {
       // The inner query walks the index in order (no filesort); only the page's rows are sorted again outside.
       const inner = (await explain(query)).filter((row) => row.select_type === 'DERIVED');
       expect(inner.map((row) => ({ query, key: row.key, filesort: /filesort/.test(row.Extra ?? '') }))).toEqual([{ query, key, filesort: false }]);
+    }
+  });
+
+  it('reads a filter on one column and a sort on the other from one index, with the inputs from the point index', async () => {
+    const service = new ScanResultsService(t.db, undefined as never, undefined as never, undefined as never);
+    for (const [query, key] of [
+      [{ sort: 'input.f', ns_min: '0.953', ns_max: '0.957', page: '30', pageSize: '100' }, 'ix_scan_points_scan_ns'],
+      [{ sort: 'ns', 'input.nStar_min': '60', page: '20', pageSize: '100' }, 'ix_scan_points_scan_ns'],
+    ] as const) {
+      const [sql, parameters] = service.pageQuery(scan, scanPointsQuerySchema.parse(query), POINTS);
+      const plan = (await t.db.query(`EXPLAIN ${sql}`, parameters)) as { select_type: string; key: string | null; Extra: string | null }[];
+      // "Using index": the inner query reads index entries only, never a row, however many it passes over.
+      const inner = plan.filter((row) => row.select_type === 'DERIVED');
+      expect(inner.map((row) => ({ query, key: row.key, indexOnly: /Using index/.test(row.Extra ?? '') }))).toEqual([{ query, key, indexOnly: true }]);
+    }
+  });
+
+  it('sorts and filters list axes, falling or in no order and repeating a value, as their values do', async () => {
+    const groupId = scan.groupId;
+    // f falls; N_* turns back and repeats 45, so only its values can order it.
+    const axes = [
+      { kind: 'list' as const, parameter: 'f', values: Array.from({ length: 25 }, (_, k) => 30 - k) },
+      { kind: 'list' as const, parameter: 'nStar', values: [55, 45, 65, 50, 60, 45] },
+    ];
+    const grid = new ScanGrid(axes);
+    const lists = await t.db.getRepository(Scan).save({
+      groupId, ownerId: scan.ownerId, name: 'list axes', method: 'slowroll', status: 'completed', note: '',
+      spec: storedSpec(groupId, { axes }), totalPoints: grid.size, donePoints: grid.size, failedPoints: 0,
+    });
+    try {
+      const rows = Array.from({ length: grid.size }, (_, i) => {
+        const inputs = grid.point(i);
+        return [lists.id, i, JSON.stringify(inputs), 'ok', 0.95 + ((i * 7919) % 97) / 1e4, inputs.f, inputs.nStar, new Date()];
+      });
+      await t.db.query(`INSERT INTO scan_points (scan_id, point_index, inputs, status, ns, axis_0, axis_1, computed_at) VALUES ${rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`, rows.flat());
+      const cases = [
+        { query: 'sort=input.f', order: `${json('f')} ASC, point_index ASC`, where: '' },
+        { query: 'sort=input.f&order=desc&input.f_min=10&input.f_max=20', order: `${json('f')} DESC, point_index DESC`, where: `AND ${json('f')} BETWEEN 10 AND 20` },
+        { query: 'sort=input.nStar&ns_min=0.952', order: `${json('nStar')} ASC, point_index ASC`, where: 'AND ns >= 0.952' },
+        { query: 'sort=ns&input.nStar_max=52', order: 'ns ASC, point_index ASC', where: `AND ${json('nStar')} <= 52` },
+        { query: 'sort=ns&input.nStar_min=70', order: 'ns ASC, point_index ASC', where: `AND ${json('nStar')} >= 70` },
+      ];
+      for (const c of cases) {
+        const expected: { point_index: number }[] = await t.db.query(`SELECT point_index FROM scan_points WHERE scan_id = ? ${c.where} ORDER BY ${c.order}`, [lists.id]);
+        const res = await member.get(`/api/scans/${lists.id}/points?${c.query}&pageSize=500`);
+        expect({ query: c.query, status: res.status, total: res.body.total }).toEqual({ query: c.query, status: 200, total: expected.length });
+        expect(res.body.items.map((p: { pointIndex: number }) => p.pointIndex)).toEqual(expected.map((r) => Number(r.point_index)));
+      }
+    } finally {
+      await t.db.getRepository(Scan).delete({ id: lists.id });
     }
   });
 

@@ -11,6 +11,7 @@ import { ExportsService } from '../exports/exports.service';
 import { openQueryStream } from '../exports/query-stream';
 import { GroupAccessService } from '../groups/group-access.service';
 import { LikelihoodsService, type ResolvedLikelihood } from '../likelihoods/likelihoods.service';
+import { GridIndexSql } from './grid-index-sql';
 import { Scan } from './entities/scan.entity';
 import { AXIS_COLUMNS, ScanPoint } from './entities/scan-point.entity';
 import { GridSliceCache } from './grid-slice-cache';
@@ -50,11 +51,19 @@ function inputExpression(parameters: string[], name: string): string {
   return k >= 0 && k < AXIS_COLUMNS ? `p.axis_${k}` : `CAST(JSON_VALUE(p.inputs, '$.${name}') AS DOUBLE)`;
 }
 
-/** The column (or expression) a page sorts by, and the direction of it and of the point-index tie-break. */
-function orderOf(parameters: string[], q: Pick<ScanPointsQuery, 'sort' | 'order'>, set?: LikelihoodSet): { expression: string; direction: 'ASC' | 'DESC' } {
+/**
+ * The column (or expression) a page sorts by, and the direction of it and of the point-index
+ * tie-break. An input of a grid sorts by its index in the point index where that orders it (`GridIndexSql`).
+ */
+function orderOf(
+  parameters: string[],
+  q: Pick<ScanPointsQuery, 'sort' | 'order'>,
+  set?: LikelihoodSet,
+  grid?: GridIndexSql | null,
+): { expression: string; direction: 'ASC' | 'DESC' } {
   const input = sortedInput(q.sort);
   const expression = input
-    ? inputExpression(parameters, input)
+    ? (grid?.sortKey(parameters.indexOf(input)) ?? inputExpression(parameters, input))
     : q.sort === 'deltaChi2'
       ? deltaChi2Sql(set!)
       : `p.${COLUMN[q.sort as PointOutput | 'pointIndex']}`;
@@ -75,6 +84,11 @@ function deltaChi2Sql(set: LikelihoodSet, table = 'p'): string {
   const terms = [`POW((${ns} - ${n(set.ns.mean)}) / ${n(set.ns.sigma)}, 2)`, `IF(${rAtK} < 0, 1e308, POW(${r} / ${n(rSigma(set))}, 2))`];
   if (set.alphaS) terms.push(`IF(${alphaS} IS NULL, 0, POW((${alphaS} - ${n(set.alphaS.mean)}) / ${n(set.alphaS.sigma)}, 2))`);
   return `(${terms.join(' + ')})`;
+}
+
+/** A grid scan read alone has its inputs in the point index; a point list, or several scans read as one, has them in columns. */
+function gridIndexSql(scan: Scan, scanIds: number[]): GridIndexSql | null {
+  return scan.spec.axes && scanIds.length === 1 ? new GridIndexSql(new ScanGrid(scan.spec.axes)) : null;
 }
 
 /** The JSON inputs column: MariaDB's JSON is text, which the driver may hand over unparsed. */
@@ -157,10 +171,11 @@ export class ScanResultsService {
       for (const end of ['min', 'max'] as const) if (range[end] !== undefined) bad[`input.${range.name}_${end}`] = noAxis(range.name);
     }
     if (Object.keys(bad).length) throw new BadRequestException({ message: Object.entries(bad).map(([k, v]) => `${k}: ${v.join('; ')}`).join('. '), fieldErrors: bad });
+    const grid = gridIndexSql(scan, scanIds);
     const qb = this.db
       .getRepository(ScanPoint)
       .createQueryBuilder('p')
-      .select(`${orderOf(variedInputs(scan.spec), q, set).expression} AS sort_key, ${select}`);
+      .select(`${orderOf(axes, q, set, grid).expression} AS sort_key, ${select}`);
     if (scanIds.length === 1) qb.where('p.scan_id = :scanId', { scanId: scanIds[0] });
     else qb.where('p.scan_id IN (:...scanIds)', { scanIds });
     if (q.status === 'failed') qb.andWhere("p.status <> 'ok'");
@@ -170,12 +185,16 @@ export class ScanResultsService {
       if (range.max !== undefined) qb.andWhere(`p.${COLUMN[range.output]} <= :max${i}`, { [`max${i}`]: range.max });
     });
     q.inputRanges.forEach((range, i) => {
+      if (grid) {
+        qb.andWhere(grid.range(axes.indexOf(range.name), range.min, range.max));
+        return;
+      }
       const value = inputExpression(axes, range.name);
       if (range.min !== undefined) qb.andWhere(`${value} >= :inMin${i}`, { [`inMin${i}`]: range.min });
       if (range.max !== undefined) qb.andWhere(`${value} <= :inMax${i}`, { [`inMax${i}`]: range.max });
     });
     if (q.deltaChi2Max !== undefined) qb.andWhere(`${deltaChi2Sql(set!)} <= :deltaChi2Max`, { deltaChi2Max: q.deltaChi2Max });
-    const { expression, direction } = orderOf(axes, q, set);
+    const { expression, direction } = orderOf(axes, q, set, grid);
     if (scanIds.length === 1) return qb.orderBy(expression, direction).addOrderBy('p.point_index', direction);
     // The ids are integers read from the database, so they are written in as literals.
     const chainOrder = `FIELD(p.scan_id, ${scanIds.map(Number).join(', ')})`;
@@ -265,7 +284,7 @@ export class ScanResultsService {
       ? this.filtered(scan, { ...q, order: q.order === 'asc' ? 'desc' : 'asc' }, 'p.*', set).offset(Math.max(0, total - offset - q.pageSize)).limit(Math.max(0, Math.min(q.pageSize, total - offset)))
       : this.filtered(scan, q, 'p.*', set).offset(offset).limit(q.pageSize);
     const [innerSql, parameters] = inner.select('p.point_index', 'point_index').getQueryAndParameters();
-    const { expression, direction } = orderOf(variedInputs(scan.spec), q, set);
+    const { expression, direction } = orderOf(variedInputs(scan.spec), q, set, gridIndexSql(scan, [scan.id]));
     const sql = `SELECT p.* FROM (${innerSql}) page STRAIGHT_JOIN scan_points p ON p.scan_id = ? AND p.point_index = page.point_index
       ORDER BY ${expression} ${direction}, p.point_index ${direction}`;
     return [sql, [...parameters, scan.id]];
