@@ -66,7 +66,7 @@ export function SortableHeader({
 }
 
 /** A point's value in a column: a number, or a confidence level as a percentage. */
-export function PointValueCell({ column, point }: { column: PointColumnDef; point: ScanPointDto }) {
+function PointValueCell({ column, point }: { column: PointColumnDef; point: ScanPointDto }) {
   const value = column.value(point);
   return <Table.Cell textAlign="end">{column.key === 'confidence' ? formatConfidence(value) : formatNumber(value)}</Table.Cell>;
 }
@@ -77,7 +77,7 @@ function formatConfidence(value: number | null): string {
 }
 
 /** "ok", or the failure code with its stored reason beneath. */
-export function PointStatusCell({ point }: { point: ScanPointDto }) {
+function PointStatusCell({ point }: { point: ScanPointDto }) {
   return (
     <Table.Cell fontFamily="body">
       {point.status === 'ok' ? (
@@ -95,5 +95,17 @@ export function PointStatusCell({ point }: { point: ScanPointDto }) {
         </Text>
       )}
     </Table.Cell>
+  );
+}
+
+/** A point's cells after the ones that say where it is: one per column, then its status. */
+export function PointCells({ columns, point }: { columns: PointColumnDef[]; point: ScanPointDto }) {
+  return (
+    <>
+      {columns.map((column) => (
+        <PointValueCell key={column.key} column={column} point={point} />
+      ))}
+      <PointStatusCell point={point} />
+    </>
   );
 }

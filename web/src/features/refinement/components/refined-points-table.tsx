@@ -1,7 +1,7 @@
 import { Box, Stack, Table, Text } from '@chakra-ui/react';
 import type { LikelihoodSetEntry } from '@sixtyfold/shared';
 import { useState } from 'react';
-import { PointStatusCell, PointValueCell, pointColumns, SortableHeader } from '@/components/points/point-columns';
+import { PointCells, pointColumns, SortableHeader } from '@/components/points/point-columns';
 import { PointsPageFooter } from '@/components/points/points-page-footer';
 import { ActiveFilters, PointsQueryControls } from '@/components/points/points-query-controls';
 import { AppLink } from '@/components/ui/app-link';
@@ -70,10 +70,7 @@ export function RefinedPointsTable({ scanId, axes, useLikelihoodSets }: { scanId
                         {point.pointIndex}
                       </AppLink>
                     </Table.Cell>
-                    {columns.map((column) => (
-                      <PointValueCell key={column.key} column={column} point={point} />
-                    ))}
-                    <PointStatusCell point={point} />
+                    <PointCells columns={columns} point={point} />
                   </Table.Row>
                 ))}
               </Table.Body>

@@ -1,7 +1,7 @@
 import { Box, Button, HStack, Stack, Table, Text } from '@chakra-ui/react';
 import { variedInputs, type ScanDetail } from '@sixtyfold/shared';
 import { useSearchParams } from 'react-router-dom';
-import { PointStatusCell, PointValueCell, pointColumns, SortableHeader } from '@/components/points/point-columns';
+import { PointCells, pointColumns, SortableHeader } from '@/components/points/point-columns';
 import { PointsPageFooter } from '@/components/points/points-page-footer';
 import { ActiveFilters, PointsQueryControls } from '@/components/points/points-query-controls';
 import { AppLink } from '@/components/ui/app-link';
@@ -107,10 +107,7 @@ export function ScanPointsTable({ scan }: { scan: ScanDetail }) {
                         {point.pointIndex}
                       </AppLink>
                     </Table.Cell>
-                    {columns.map((column) => (
-                      <PointValueCell key={column.key} column={column} point={point} />
-                    ))}
-                    <PointStatusCell point={point} />
+                    <PointCells columns={columns} point={point} />
                   </Table.Row>
                 ))}
               </Table.Body>
